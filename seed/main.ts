@@ -1,0 +1,17 @@
+import 'reflect-metadata';
+import { loadEnv } from '../server/env';
+import { closeDeps, createDeps } from '../server/deps';
+import { seedPeople } from './seed-people';
+
+const env = loadEnv();
+if (env.NODE_ENV === 'production') {
+  console.error('The demo seed never runs in production (NODE_ENV=production).');
+  process.exit(1);
+}
+const deps = await createDeps(env, 'seed');
+try {
+  const people = await seedPeople(deps);
+  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s)).`);
+} finally {
+  await closeDeps(deps);
+}

@@ -1,0 +1,82 @@
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import path from 'node:path';
+import fs from 'node:fs';
+import { csrfSync } from 'csrf-sync';
+import { defineAbilityFor } from '../shared/auth/ability';
+import type { AppDeps } from './deps';
+import { createPassport } from './auth/passport';
+import { absoluteTimeout, createSessionMiddleware } from './auth/session-middleware';
+import { createSignInLimiter } from './auth/sign-in-limiter';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { healthRouter } from './modules/health/health.router';
+import { createSessionService } from './modules/session/session.service';
+import { sessionRouter } from './modules/session/session.router';
+import { createUsersService } from './modules/users/users.service';
+import { usersRouter } from './modules/users/users.router';
+
+/** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
+export function createApp(deps: AppDeps): Express {
+  const { env, repos, logger } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', env.TRUST_PROXY ? 1 : false);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          baseUri: ["'none'"],
+          frameAncestors: ["'none'"],
+          objectSrc: ["'none'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          formAction: ["'self'"],
+          upgradeInsecureRequests: env.COOKIE_SECURE ? [] : null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+
+  const limiter = createSignInLimiter(deps.redis, {
+    accountLimit: env.SIGNIN_ACCOUNT_LIMIT,
+    ipLimit: env.SIGNIN_IP_LIMIT,
+    windowSeconds: env.SIGNIN_WINDOW_SECONDS,
+    keyPrefix: env.QUEUE_PREFIX,
+  });
+  const sessions = createSessionService({ users: repos.users, audit: repos.audit, limiter });
+  const passport = createPassport(sessions);
+  const csrf = csrfSync({ getTokenFromRequest: (req) => req.get('x-csrf-token') });
+
+  const api = express.Router();
+  api.use('/health', healthRouter(deps.ds, deps.redis));
+  api.use(express.json({ limit: '200kb' }));
+  api.use(createSessionMiddleware(env, deps.sessionPool));
+  api.use(passport.session());
+  api.use(absoluteTimeout(env.SESSION_ABSOLUTE_HOURS));
+  api.use((req, _res, next) => {
+    req.ability = defineAbilityFor(req.user ? { id: req.user.id, role: req.user.role, programmeId: req.user.programmeId } : null);
+    next();
+  });
+  api.use(csrf.csrfSynchronisedProtection);
+  api.use('/session', sessionRouter(passport, csrf, sessions));
+  api.use('/users', usersRouter(createUsersService({ ds: deps.ds, users: repos.users, audit: repos.audit })));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  const webDist = path.resolve(env.WEB_DIST);
+  if (fs.existsSync(path.join(webDist, 'index.html'))) {
+    app.use(express.static(webDist, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => {
+      res.set('Cache-Control', 'no-cache');
+      res.sendFile(path.join(webDist, 'index.html'));
+    });
+  }
+  app.use(errorHandler(logger));
+  return app;
+}

@@ -1,0 +1,56 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { ListUsersQuery } from '../../../shared/schemas/users';
+import type { SqlFilter } from '../../auth/casl-to-sql';
+import { UserEntity } from '../entities/user.entity';
+
+const SORT_COLUMNS: Record<string, string> = { name: 'u.name', email: 'u.email', role: 'u.role', createdAt: 'u.created_at' };
+export const USER_ACL_COLUMNS = { programmeId: 'u.programme_id', id: 'u.id' };
+
+export interface UserWithProgramme extends UserEntity {
+  programmeName: string;
+}
+
+export function createUsersRepository(ds: DataSource) {
+  const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(UserEntity);
+  return {
+    findByEmail: (email: string) => repo().findOne({ where: { email } }),
+
+    /** The signed-in user with programme name, in one statement (runs on every authenticated request). */
+    async findSessionUser(id: string): Promise<UserWithProgramme | null> {
+      const row = await repo()
+        .createQueryBuilder('u')
+        .innerJoin('programmes', 'p', 'p.id = u.programme_id')
+        .addSelect('p.name', 'programme_name')
+        .where('u.id = :id', { id })
+        .getRawAndEntities();
+      const user = row.entities[0];
+      return user ? Object.assign(user, { programmeName: row.raw[0].programme_name as string }) : null;
+    },
+
+    findOneWhere: (id: string, acl: SqlFilter, m?: EntityManager) =>
+      repo(m).createQueryBuilder('u').where('u.id = :id', { id }).andWhere(acl.sql, acl.params).getOne(),
+
+    async list(query: ListUsersQuery, acl: SqlFilter): Promise<[UserEntity[], number]> {
+      const desc = query.sort.startsWith('-');
+      const qb = repo()
+        .createQueryBuilder('u')
+        .where(acl.sql, acl.params)
+        .orderBy(SORT_COLUMNS[query.sort.replace('-', '')], desc ? 'DESC' : 'ASC')
+        .addOrderBy('u.id', 'ASC')
+        .skip((query.page - 1) * query.pageSize)
+        .take(query.pageSize);
+      if (query.role) qb.andWhere('u.role = :role', { role: query.role });
+      if (query.q) qb.andWhere('(u.name ILIKE :q OR u.email ILIKE :q)', { q: `%${query.q.replace(/[%_\\]/g, '\\$&')}%` });
+      return qb.getManyAndCount();
+    },
+
+    insert: (data: Partial<UserEntity>, m?: EntityManager) => repo(m).save(repo(m).create(data)),
+    save: (user: UserEntity, m?: EntityManager) => repo(m).save(user),
+    markSignedIn: (id: string) => repo().update({ id }, { lastSignInAt: new Date() }),
+
+    /** Ends every stored session of a user at once (used when an account is disabled). */
+    endSessions: (userId: string, m?: EntityManager) =>
+      (m ?? ds.manager).query(`DELETE FROM session WHERE (sess::jsonb -> 'passport') ->> 'user' = $1`, [userId]),
+  };
+}
+export type UsersRepository = ReturnType<typeof createUsersRepository>;

@@ -1,0 +1,8 @@
+import { z } from 'zod';
+
+export const healthSchema = z.object({
+  status: z.enum(['ok', 'degraded']),
+  db: z.enum(['ok', 'down']),
+  redis: z.enum(['ok', 'down']),
+});
+export type Health = z.infer<typeof healthSchema>;

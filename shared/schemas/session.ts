@@ -1,0 +1,26 @@
+import { z } from 'zod';
+import { ROLES } from '../auth/roles';
+
+export const sessionUserSchema = z.object({
+  id: z.uuid(),
+  email: z.string(),
+  name: z.string(),
+  role: z.enum(ROLES),
+  programmeId: z.uuid(),
+  programmeName: z.string(),
+});
+export type SessionUser = z.infer<typeof sessionUserSchema>;
+
+export const sessionResponseSchema = z.object({
+  user: sessionUserSchema.nullable(),
+  csrfToken: z.string(),
+});
+export type SessionResponse = z.infer<typeof sessionResponseSchema>;
+
+export const signInSchema = z.strictObject({
+  email: z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter an e-mail address' })),
+  password: z.string().min(1, { error: 'Enter your password' }).max(256),
+});
+export type SignInInput = z.infer<typeof signInSchema>;
+
+export const signInResponseSchema = z.object({ user: sessionUserSchema });
