@@ -8,6 +8,7 @@ export const sessionUserSchema = z.object({
   role: z.enum(ROLES),
   programmeId: z.uuid(),
   programmeName: z.string(),
+  programmeTimeZone: z.string(),
 });
 export type SessionUser = z.infer<typeof sessionUserSchema>;
 
@@ -23,4 +24,4 @@ export const signInSchema = z.strictObject({
 });
 export type SignInInput = z.infer<typeof signInSchema>;
 
-export const signInResponseSchema = z.object({ user: sessionUserSchema });
+export const signInResponseSchema = z.object({ user: sessionUserSchema, csrfToken: z.string() });

@@ -39,3 +39,6 @@ export const createUserResponseSchema = z.object({
   initialPassword: z.string(),
 });
 export type CreateUserResponse = z.infer<typeof createUserResponseSchema>;
+
+export const userResponseSchema = z.object({ user: userSchema });
+export type UserResponse = z.infer<typeof userResponseSchema>;

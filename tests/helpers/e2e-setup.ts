@@ -1,0 +1,58 @@
+import 'reflect-metadata';
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import type { TestProject } from 'vitest/node';
+import { createDataSource } from '../../server/db/data-source';
+
+const PORT = Number(process.env.E2E_PORT ?? 3310);
+let children: ChildProcess[] = [];
+
+async function waitForHealth(url: string, ms: number) {
+  const until = Date.now() + ms;
+  while (Date.now() < until) {
+    try {
+      if ((await fetch(url)).ok) return;
+    } catch {
+      /* not up yet */
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`E2E server did not become healthy at ${url}`);
+}
+
+const run = (args: string[], env: NodeJS.ProcessEnv) =>
+  new Promise<void>((resolve, reject) => {
+    const p = spawn(process.execPath, ['--import', 'tsx', ...args], { env, stdio: 'inherit' });
+    p.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`${args.join(' ')} exited ${code}`))));
+  });
+
+/** A clean database with the demo scenario, and the real API + worker as separate processes, like `npm start`. */
+export default async function setup(project: TestProject) {
+  const url = process.env.E2E_DATABASE_URL;
+  if (!url || !/_e2e\b/.test(url)) throw new Error(`Refusing to reset a database that is not the e2e database: ${url}`);
+  if (!existsSync('dist/web/index.html')) throw new Error('dist/web is missing: run `npx vite build` first (npm test does)');
+  const ds = createDataSource(url);
+  await ds.initialize();
+  await ds.query('DROP SCHEMA IF EXISTS public CASCADE');
+  await ds.query('CREATE SCHEMA public');
+  await ds.destroy();
+  const env = { ...process.env, NODE_ENV: 'test', DATABASE_URL: url, PORT: String(PORT), QUEUE_PREFIX: 'e2e', LOG_LEVEL: 'warn' };
+  await run(['server/db/migrate.ts'], env);
+  await run(['seed/main.ts'], env);
+  children = [
+    spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], { env, stdio: 'inherit' }),
+    spawn(process.execPath, ['--import', 'tsx', 'worker/main.ts'], { env, stdio: 'inherit' }),
+  ];
+  await waitForHealth(`http://127.0.0.1:${PORT}/api/health`, 30_000);
+  project.provide('baseUrl', `http://127.0.0.1:${PORT}`);
+  return async () => {
+    for (const c of children) c.kill('SIGTERM');
+    await Promise.all(children.map((c) => new Promise((r) => (c.exitCode !== null ? r(null) : c.once('exit', r)))));
+  };
+}
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string;
+  }
+}

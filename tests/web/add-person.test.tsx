@@ -1,0 +1,92 @@
+import { screen, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { apiError, json, makeUser, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
+import { renderApp } from './support/render-app';
+
+function stubWithCreate(create: (request: FakeRequest) => Response | Promise<Response>) {
+  return stubApi({
+    'GET /api/session': sessionHandler('admin'),
+    'GET /api/users': () => json(200, { items: [], total: 0 }),
+    'POST /api/users': create,
+  });
+}
+
+async function openAndFill(user: ReturnType<typeof renderApp>['user']) {
+  await user.click(await screen.findByRole('button', { name: 'Add a person' }));
+  await user.type(screen.getByLabelText('Full name'), 'Wren Osei');
+  await user.type(screen.getByLabelText('E-mail'), 'wren.osei@larkmoor.example');
+  await user.selectOptions(screen.getByLabelText('Role'), 'Home-care nurse');
+  await user.click(screen.getByRole('button', { name: 'Add person' }));
+}
+
+describe('Add a person', () => {
+  it('when the server answers 400 with details, then each message sits beside its field and nothing typed is lost', async () => {
+    stubWithCreate(() =>
+      apiError(400, 'validation_failed', 'Check the highlighted fields.', {
+        name: ['Enter the full name'],
+        email: ['Use the programme e-mail domain'],
+      }),
+    );
+    const { user } = renderApp('/admin/people');
+    await openAndFill(user);
+
+    const email = screen.getByLabelText('E-mail');
+    expect(await screen.findByText('Use the programme e-mail domain')).toBeInTheDocument();
+    expect(screen.getByText('Enter the full name')).toBeInTheDocument();
+    expect(email).toHaveAttribute('aria-invalid', 'true');
+    expect(email.getAttribute('aria-describedby')).toContain('-error');
+    expect(email).toHaveValue('wren.osei@larkmoor.example');
+    expect(screen.getByLabelText('Full name')).toHaveValue('Wren Osei');
+    expect(screen.getByLabelText('Role')).toHaveValue('nurse');
+  });
+
+  it('when the e-mail is taken, then the conflict is shown beside the e-mail field', async () => {
+    stubWithCreate(() => apiError(409, 'conflict', 'An account with this e-mail already exists.'));
+    const { user } = renderApp('/admin/people');
+    await openAndFill(user);
+    const message = await screen.findByText('An account with this e-mail already exists.');
+    expect(screen.getByLabelText('E-mail')).toHaveAttribute('aria-describedby', message.id);
+  });
+
+  it('when the form is incomplete, then the shared schema explains and nothing is sent', async () => {
+    const fetchMock = stubWithCreate(() => json(500));
+    const { user } = renderApp('/admin/people');
+    await user.click(await screen.findByRole('button', { name: 'Add a person' }));
+    await user.click(screen.getByRole('button', { name: 'Add person' }));
+    expect(await screen.findByText('Choose a role')).toBeInTheDocument();
+    expect(screen.getByText('Enter the full name')).toBeInTheDocument();
+    expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false);
+  });
+
+  it('when the person is created, then the one-time password is shown once with a copy button', async () => {
+    const created: FakeRequest[] = [];
+    stubWithCreate((request) => {
+      created.push(request);
+      const user = makeUser({ name: 'Wren Osei', email: 'wren.osei@larkmoor.example', role: 'nurse' });
+      return json(201, { user, initialPassword: 'moss-kettle-47-lantern' });
+    });
+    const { user } = renderApp('/admin/people');
+    await openAndFill(user);
+
+    expect(await screen.findByText('moss-kettle-47-lantern')).toBeInTheDocument();
+    expect(screen.getByText(/will not be shown again/)).toBeInTheDocument();
+    expect(created[0].body).toEqual({ name: 'Wren Osei', email: 'wren.osei@larkmoor.example', role: 'nurse' });
+    expect(created[0].headers.get('X-CSRF-Token')).toBe('csrf-1');
+
+    await user.click(screen.getByRole('button', { name: 'Copy password' }));
+    expect(await screen.findByText('Copied to the clipboard.')).toBeInTheDocument();
+    // user-event provides the clipboard in jsdom; reading it back proves what was copied.
+    expect(await navigator.clipboard.readText()).toBe('moss-kettle-47-lantern');
+
+    await user.click(screen.getByRole('button', { name: 'Done' }));
+    expect(screen.queryByText('moss-kettle-47-lantern')).not.toBeInTheDocument();
+  });
+
+  it('when a save is on its way, then the submit button is disabled', async () => {
+    stubWithCreate(() => new Promise<Response>(() => {}));
+    const { user } = renderApp('/admin/people');
+    await openAndFill(user);
+    const form = screen.getByRole('button', { name: 'Adding…' }).closest('form') as HTMLFormElement;
+    expect(within(form).getByRole('button', { name: 'Adding…' })).toBeDisabled();
+  });
+});

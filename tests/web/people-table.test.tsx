@@ -1,0 +1,110 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import type { User } from '../../shared/schemas/users';
+import { apiError, json, makeUser, sessionHandler, sessionUser, stubApi, type FakeRequest } from './support/fake-api';
+import { currentUrl, renderApp } from './support/render-app';
+
+const me = sessionUser('admin');
+const rows: User[] = [
+  makeUser({ id: me.id, name: me.name, email: me.email, role: 'admin', lastSignInAt: '2025-05-01T08:30:00.000Z' }),
+  makeUser({ name: 'Ada Pennick', email: 'ada.pennick@larkmoor.example', role: 'nurse' }),
+  makeUser({ name: 'Corin Ashdown', email: 'corin@larkmoor.example', role: 'family', disabled: true }),
+];
+
+function stubPeople(extra: Record<string, (request: FakeRequest) => Response> = {}) {
+  const listCalls: URLSearchParams[] = [];
+  const fetchMock = stubApi({
+    'GET /api/session': sessionHandler('admin'),
+    'GET /api/users': ({ url }) => {
+      listCalls.push(url.searchParams);
+      return json(200, { items: rows, total: 60 });
+    },
+    ...extra,
+  });
+  return { listCalls, fetchMock };
+}
+
+describe('People table', () => {
+  it('when the list answers, then each person is a row with role label, status in words and last sign-in', async () => {
+    stubPeople();
+    renderApp('/admin/people');
+    const table = await screen.findByRole('table');
+    const bodyRows = within(table).getAllByRole('row').slice(1);
+    expect(bodyRows).toHaveLength(3);
+    expect(within(bodyRows[1]).getByText('Ada Pennick')).toBeInTheDocument();
+    expect(within(bodyRows[1]).getByText('Home-care nurse')).toBeInTheDocument();
+    expect(within(bodyRows[1]).getByText('Active')).toBeInTheDocument();
+    expect(within(bodyRows[1]).getByText('Never')).toBeInTheDocument();
+    expect(within(bodyRows[2]).getByText('Disabled')).toBeInTheDocument();
+    expect(within(bodyRows[0]).getByText('Your account')).toBeInTheDocument();
+    expect(screen.getByText('Page 1 of 3 · 60 people')).toBeInTheDocument();
+  });
+
+  it('when a header or the next page is clicked, then sort and page go into the URL and the request', async () => {
+    const { listCalls } = stubPeople();
+    const { user, router } = renderApp('/admin/people');
+    await screen.findByRole('table');
+
+    await user.click(screen.getByRole('button', { name: /^Name/ }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?sort=-name'));
+    expect(screen.getByRole('columnheader', { name: /Name/ })).toHaveAttribute('aria-sort', 'descending');
+
+    await user.click(screen.getByRole('button', { name: /^E-mail/ }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?sort=email'));
+
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?page=2&sort=email'));
+    await waitFor(() => expect(listCalls.at(-1)?.get('page')).toBe('2'));
+    expect(listCalls.at(-1)?.get('sort')).toBe('email');
+    expect(listCalls.at(-1)?.get('pageSize')).toBe('25');
+  });
+
+  it('when the page is opened from a saved link, then the view is restored from the URL', async () => {
+    const { listCalls } = stubPeople();
+    renderApp('/admin/people?page=2&pageSize=10&sort=-role&role=nurse&q=ada');
+    await screen.findByRole('table');
+    const params = listCalls[0];
+    expect(Object.fromEntries(params)).toEqual({ page: '2', pageSize: '10', sort: '-role', role: 'nurse', q: 'ada' });
+    expect(screen.getByLabelText('Filter by role')).toHaveValue('nurse');
+    expect(screen.getByLabelText('Search by name or e-mail')).toHaveValue('ada');
+    expect(screen.getByLabelText('Rows per page')).toHaveValue('10');
+  });
+
+  it('when filtering by role or searching, then the filter is in the URL and the page starts again at 1', async () => {
+    stubPeople();
+    const { user, router } = renderApp('/admin/people?page=3');
+    await screen.findByRole('table');
+    await user.selectOptions(screen.getByLabelText('Filter by role'), 'Consultant');
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?role=consultant'));
+    await user.type(screen.getByLabelText('Search by name or e-mail'), 'varga{Enter}');
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?role=consultant&q=varga'));
+  });
+
+  it('when Disable is confirmed, then the request carries the CSRF token and the result is announced', async () => {
+    const disable: FakeRequest[] = [];
+    stubPeople({
+      [`POST /api/users/${rows[1].id}/disable`]: (request) => {
+        disable.push(request);
+        return json(200, { user: { ...rows[1], disabled: true } });
+      },
+    });
+    const { user } = renderApp('/admin/people');
+    await user.click(await screen.findByRole('button', { name: 'Disable Ada Pennick' }));
+    expect(screen.getByText('Disable Ada Pennick? They are signed out everywhere at once.')).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Yes, disable' }));
+
+    expect(await screen.findByText('Ada Pennick can no longer sign in.')).toBeInTheDocument();
+    expect(disable).toHaveLength(1);
+    expect(disable[0].headers.get('X-CSRF-Token')).toBe('csrf-1');
+  });
+
+  it('when the server refuses a change, then its message is shown', async () => {
+    stubPeople({
+      [`POST /api/users/${rows[2].id}/enable`]: () => apiError(409, 'conflict', 'This account belongs to another programme.'),
+    });
+    const { user } = renderApp('/admin/people');
+    await user.click(await screen.findByRole('button', { name: 'Enable Corin Ashdown' }));
+    await user.click(screen.getByRole('button', { name: 'Yes, enable' }));
+    expect(await screen.findByText('This account belongs to another programme.')).toBeInTheDocument();
+  });
+});

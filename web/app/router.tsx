@@ -1,0 +1,52 @@
+import { createBrowserRouter, type RouteObject } from 'react-router-dom';
+import { FullPageSpinner } from '../components/ui/spinner';
+import { AppShell } from './layout/app-shell';
+import { HomeRedirect } from './layout/home-redirect';
+import { RequireAccess } from './layout/require-access';
+import { RequireSession } from './layout/require-session';
+import { RouteError } from './layout/route-error';
+
+// Every page is its own chunk, so the first load carries only the shell and the session check.
+const rolePages: RouteObject[] = [
+  { path: 'admin', lazy: () => import('./routes/admin-home.route') },
+  { path: 'admin/people', lazy: () => import('./routes/people.route') },
+  { path: 'admin/settings', lazy: () => import('./routes/programme-settings.route') },
+  { path: 'coordinator', lazy: () => import('./routes/coordinator-home.route') },
+  { path: 'enrol', lazy: () => import('./routes/enrol.route') },
+  { path: 'caseload', lazy: () => import('./routes/caseload.route') },
+  { path: 'nurse', lazy: () => import('./routes/nurse-home.route') },
+  { path: 'consultant', lazy: () => import('./routes/consultant-home.route') },
+  { path: 'sign-off', lazy: () => import('./routes/sign-off.route') },
+  { path: 'family', lazy: () => import('./routes/family-home.route') },
+];
+
+export const appRoutes: RouteObject[] = [
+  {
+    errorElement: <RouteError />,
+    hydrateFallbackElement: <FullPageSpinner />,
+    children: [
+      { path: 'sign-in', lazy: () => import('./routes/sign-in.route') },
+      {
+        element: <RequireSession />,
+        children: [
+          {
+            element: <AppShell />,
+            children: [
+              {
+                // Inside the shell, so header and navigation stay usable when one page fails.
+                errorElement: <RouteError />,
+                children: [
+                  { index: true, element: <HomeRedirect /> },
+                  { element: <RequireAccess />, children: rolePages },
+                  { path: '*', lazy: () => import('./routes/not-found.route') },
+                ],
+              },
+            ],
+          },
+        ],
+      },
+    ],
+  },
+];
+
+export const createAppRouter = () => createBrowserRouter(appRoutes);

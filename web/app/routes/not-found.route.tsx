@@ -1,0 +1,16 @@
+import { Link } from 'react-router-dom';
+import { EmptyState } from '../../components/ui/empty-state';
+import { PageHeader } from '../../components/ui/page-header';
+
+export function Component() {
+  return (
+    <>
+      <PageHeader title="Page not found" />
+      <EmptyState message="There is no page at this address. It may have moved, or the link may be mistyped.">
+        <Link to="/" className="font-semibold text-brand-700 underline">
+          Go to your home page
+        </Link>
+      </EmptyState>
+    </>
+  );
+}

@@ -1,0 +1,15 @@
+import { Card } from '../../components/ui/card';
+import { EmptyState } from '../../components/ui/empty-state';
+import { PageHeader } from '../../components/ui/page-header';
+
+/** An honest page for work that later releases fill: what will be here, and no invented rows. */
+export function PlaceholderPage({ title, intro, empty }: { title: string; intro: string; empty: string }) {
+  return (
+    <>
+      <PageHeader title={title} intro={intro} />
+      <Card>
+        <EmptyState message={empty} />
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,21 @@
+import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
+import { isApiError } from './api-error';
+
+/**
+ * Put a 400's per-field messages beside the fields the form has. Returns what is left to show above the form
+ * (messages for fields it does not have), so no server message is silently dropped.
+ */
+export function applyServerFieldErrors<T extends FieldValues>(
+  error: unknown,
+  setError: UseFormSetError<T>,
+  fields: readonly Path<T>[],
+): string[] {
+  if (!isApiError(error) || error.code !== 'validation_failed' || !error.details) return [];
+  const leftover: string[] = [];
+  for (const [field, messages] of Object.entries(error.details)) {
+    const message = messages.join(' ');
+    if ((fields as readonly string[]).includes(field)) setError(field as Path<T>, { type: 'server', message });
+    else leftover.push(message);
+  }
+  return leftover;
+}
