@@ -1,4 +1,4 @@
-import type { DataSource, EntityManager } from 'typeorm';
+import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { ListUsersQuery } from '../../../shared/schemas/users';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { UserEntity } from '../entities/user.entity';
@@ -8,12 +8,14 @@ export const USER_ACL_COLUMNS = { programmeId: 'u.programme_id', id: 'u.id' };
 
 export interface UserWithProgramme extends UserEntity {
   programmeName: string;
+  programmeTimeZone: string;
 }
 
 export function createUsersRepository(ds: DataSource) {
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(UserEntity);
   return {
     findByEmail: (email: string) => repo().findOne({ where: { email } }),
+    findInProgramme: (ids: string[], programmeId: string) => repo().find({ where: { id: In(ids), programmeId } }),
 
     /** The signed-in user with programme name, in one statement (runs on every authenticated request). */
     async findSessionUser(id: string): Promise<UserWithProgramme | null> {
@@ -21,10 +23,11 @@ export function createUsersRepository(ds: DataSource) {
         .createQueryBuilder('u')
         .innerJoin('programmes', 'p', 'p.id = u.programme_id')
         .addSelect('p.name', 'programme_name')
+        .addSelect('p.time_zone', 'programme_time_zone')
         .where('u.id = :id', { id })
         .getRawAndEntities();
       const user = row.entities[0];
-      return user ? Object.assign(user, { programmeName: row.raw[0].programme_name as string }) : null;
+      return user ? Object.assign(user, { programmeName: row.raw[0].programme_name as string, programmeTimeZone: row.raw[0].programme_time_zone as string }) : null;
     },
 
     findOneWhere: (id: string, acl: SqlFilter, m?: EntityManager) =>

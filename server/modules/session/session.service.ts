@@ -19,6 +19,7 @@ export const toSessionUser = (u: UserWithProgramme): SessionUser => ({
   role: u.role,
   programmeId: u.programmeId,
   programmeName: u.programmeName,
+  programmeTimeZone: u.programmeTimeZone,
 });
 
 interface Deps {
