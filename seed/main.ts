@@ -2,6 +2,7 @@ import 'reflect-metadata';
 import { loadEnv } from '../server/env';
 import { closeDeps, createDeps } from '../server/deps';
 import { seedPeople } from './seed-people';
+import { seedBabies } from './seed-babies';
 
 const env = loadEnv();
 if (env.NODE_ENV === 'production') {
@@ -11,7 +12,8 @@ if (env.NODE_ENV === 'production') {
 const deps = await createDeps(env, 'seed');
 try {
   const people = await seedPeople(deps);
-  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s)).`);
+  const babies = (await seedBabies(deps, 'larkmoor', 40)) + (await seedBabies(deps, 'saltmarsh', 12));
+  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies).`);
 } finally {
   await closeDeps(deps);
 }

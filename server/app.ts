@@ -14,6 +14,13 @@ import { createSessionService } from './modules/session/session.service';
 import { sessionRouter } from './modules/session/session.router';
 import { createUsersService } from './modules/users/users.service';
 import { usersRouter } from './modules/users/users.router';
+import { sitesRouter } from './modules/sites/sites.router';
+import { policyRouter } from './modules/policy/policy.router';
+import { conversionsRouter } from './modules/conversions/conversions.router';
+import { createInfantsService } from './modules/infants/infants.service';
+import { infantsRouter } from './modules/infants/infants.router';
+import { createPrescriptionsService } from './modules/prescriptions/prescriptions.service';
+import { prescriptionsRouter } from './modules/prescriptions/prescriptions.router';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -59,13 +66,22 @@ export function createApp(deps: AppDeps): Express {
   api.use(createSessionMiddleware(env, deps.sessionPool));
   api.use(passport.session());
   api.use(absoluteTimeout(env.SESSION_ABSOLUTE_HOURS));
-  api.use((req, _res, next) => {
-    req.ability = defineAbilityFor(req.user ? { id: req.user.id, role: req.user.role, programmeId: req.user.programmeId } : null);
+  api.use(async (req, _res, next) => {
+    const u = req.user;
+    // A family account's rules name its own babies; staff rules need nothing beyond the session.
+    const infantIds = u?.role === 'family' ? await repos.contacts.infantIdsForUser(u.id) : [];
+    req.ability = defineAbilityFor(u ? { id: u.id, role: u.role, programmeId: u.programmeId, infantIds } : null);
     next();
   });
   api.use(csrf.csrfSynchronisedProtection);
   api.use('/session', sessionRouter(passport, csrf, sessions));
-  api.use('/users', usersRouter(createUsersService({ ds: deps.ds, users: repos.users, audit: repos.audit })));
+  api.use('/users', usersRouter(createUsersService({ ds: deps.ds, users: repos.users, audit: repos.audit, contacts: repos.contacts })));
+  const prescriptions = createPrescriptionsService(deps.ds, repos);
+  api.use('/sites', sitesRouter(repos.sites));
+  api.use('/policy', policyRouter(repos.policies));
+  api.use('/conversions', conversionsRouter(repos.policies));
+  api.use('/infants', infantsRouter(createInfantsService(deps.ds, repos, deps.jobs), prescriptions));
+  api.use('/prescriptions', prescriptionsRouter(prescriptions));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -6,6 +6,12 @@ import { createDataSource } from './db/data-source';
 import { createAuditRepository } from './db/repositories/audit.repository';
 import { createProgrammesRepository } from './db/repositories/programmes.repository';
 import { createUsersRepository } from './db/repositories/users.repository';
+import { createSitesRepository } from './db/repositories/sites.repository';
+import { createPoliciesRepository } from './db/repositories/policies.repository';
+import { createInfantsRepository } from './db/repositories/infants.repository';
+import { createContactsRepository } from './db/repositories/contacts.repository';
+import { createPrescriptionsRepository } from './db/repositories/prescriptions.repository';
+import { createJobProducer, type JobProducer } from './jobs/producer';
 import { createLogger, type Logger } from './lib/logger';
 
 /** Everything the app needs from the outside world, built once per process and closed in order on shutdown. */
@@ -15,12 +21,23 @@ export interface AppDeps {
   redis: Redis;
   sessionPool: pg.Pool;
   logger: Logger;
-  repos: {
-    users: ReturnType<typeof createUsersRepository>;
-    audit: ReturnType<typeof createAuditRepository>;
-    programmes: ReturnType<typeof createProgrammesRepository>;
+  repos: AppRepos;
+  jobs: JobProducer;
+}
+
+export function createRepos(ds: DataSource) {
+  return {
+    users: createUsersRepository(ds),
+    audit: createAuditRepository(ds),
+    programmes: createProgrammesRepository(ds),
+    sites: createSitesRepository(ds),
+    policies: createPoliciesRepository(ds),
+    infants: createInfantsRepository(ds),
+    contacts: createContactsRepository(ds),
+    prescriptions: createPrescriptionsRepository(ds),
   };
 }
+export type AppRepos = ReturnType<typeof createRepos>;
 
 export async function createDeps(env: Env, name = 'api'): Promise<AppDeps> {
   const ds = createDataSource(env.DATABASE_URL, { applicationName: `nestflow-${name}` });
@@ -29,21 +46,12 @@ export async function createDeps(env: Env, name = 'api'): Promise<AppDeps> {
   redis.on('error', () => undefined);
   const sessionPool = new pg.Pool({ connectionString: env.DATABASE_URL, max: 5, application_name: `nestflow-${name}-sessions` });
   sessionPool.on('error', () => undefined);
-  return {
-    env,
-    ds,
-    redis,
-    sessionPool,
-    logger: createLogger(env.NODE_ENV === 'test' ? 'silent' : env.LOG_LEVEL, name),
-    repos: {
-      users: createUsersRepository(ds),
-      audit: createAuditRepository(ds),
-      programmes: createProgrammesRepository(ds),
-    },
-  };
+  const logger = createLogger(env.NODE_ENV === 'test' ? 'silent' : env.LOG_LEVEL, name);
+  return { env, ds, redis, sessionPool, logger, repos: createRepos(ds), jobs: createJobProducer(env.REDIS_URL, env.QUEUE_PREFIX, logger) };
 }
 
 export async function closeDeps(deps: AppDeps): Promise<void> {
+  await deps.jobs.close().catch(() => undefined);
   await deps.sessionPool.end().catch(() => undefined);
   await deps.ds.destroy().catch(() => undefined);
   deps.redis.disconnect();

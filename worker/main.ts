@@ -2,34 +2,50 @@ import 'reflect-metadata';
 import { Queue, UnrecoverableError, Worker } from 'bullmq';
 import { loadEnv } from '../server/env';
 import { createDataSource } from '../server/db/data-source';
+import { createRepos } from '../server/deps';
+import { createJobProducer } from '../server/jobs/producer';
 import { createLogger } from '../server/lib/logger';
 import { JOBS, QUEUES } from '../shared/jobs/catalogue';
 import { redisConnection } from './queues';
 import { pruneSessions } from './processors/prune-sessions.processor';
+import { convertPrescriptionProcessor } from './processors/convert-prescription.processor';
+import { reconcileConversions } from './processors/reconcile-conversions.processor';
 import { upsertSchedules } from './schedules';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL, 'worker');
 const ds = createDataSource(env.DATABASE_URL, { applicationName: 'nestflow-worker', poolSize: 5 });
 await ds.initialize();
+const repos = createRepos(ds);
+const jobs = createJobProducer(env.REDIS_URL, env.QUEUE_PREFIX, logger);
 const connection = redisConnection(env.REDIS_URL);
 const prefix = env.QUEUE_PREFIX;
 
 const maintenanceQueue = new Queue(QUEUES.maintenance, { connection, prefix });
 await upsertSchedules(maintenanceQueue);
+// Pick up anything left 'preparing' while no worker was running.
+await reconcileConversions(repos, jobs, 0);
 
 const maintenance = new Worker(
   QUEUES.maintenance,
   async (job) => {
-    if (job.name === JOBS.pruneSessions.name) {
-      JOBS.pruneSessions.payload.parse(job.data);
-      return pruneSessions(ds);
-    }
+    if (job.name === JOBS.pruneSessions.name) return pruneSessions(ds);
+    if (job.name === JOBS.reconcileConversions.name) return reconcileConversions(repos, jobs);
     throw new UnrecoverableError(`Unknown maintenance job ${job.name}`);
   },
   { connection, prefix, concurrency: 1 },
 );
-maintenance.on('failed', (job, err) => logger.warn('job failed', { queue: QUEUES.maintenance, job: job?.name, err: err.message }));
+const clinical = new Worker(
+  QUEUES.clinical,
+  async (job) => {
+    if (job.name === JOBS.convertPrescription.name) return convertPrescriptionProcessor(job, ds, repos);
+    throw new UnrecoverableError(`Unknown clinical job ${job.name}`);
+  },
+  { connection, prefix, concurrency: 4 },
+);
+for (const [name, w] of [[QUEUES.maintenance, maintenance], [QUEUES.clinical, clinical]] as const) {
+  w.on('failed', (job, err) => logger.warn('job failed', { queue: name, job: job?.name, attempts: job?.attemptsMade, err: err.message }));
+}
 logger.info('worker started', { queues: Object.values(QUEUES) });
 
 let closing = false;
@@ -38,8 +54,9 @@ async function shutdown(signal: string) {
   closing = true;
   logger.info('worker shutting down', { signal });
   // Let active jobs finish before the connections go.
-  await maintenance.close();
+  await Promise.all([maintenance.close(), clinical.close()]);
   await maintenanceQueue.close();
+  await jobs.close();
   await ds.destroy();
   process.exit(0);
 }

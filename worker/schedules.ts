@@ -1,7 +1,8 @@
 import type { Queue } from 'bullmq';
 import { JOBS } from '../shared/jobs/catalogue';
 
-// upsertJobScheduler is idempotent: any number of worker processes starting leaves one schedule.
+// upsertJobScheduler is idempotent: any number of worker processes starting leaves one schedule each.
 export async function upsertSchedules(maintenance: Queue): Promise<void> {
   await maintenance.upsertJobScheduler('prune-sessions-hourly', { every: 60 * 60 * 1000 }, { name: JOBS.pruneSessions.name, data: {} });
+  await maintenance.upsertJobScheduler('reconcile-conversions', { every: 60 * 1000 }, { name: JOBS.reconcileConversions.name, data: {} });
 }

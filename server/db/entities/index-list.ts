@@ -1,6 +1,13 @@
 import { AuditEventEntity } from './audit-event.entity';
+import { FamilyContactEntity } from './family-contact.entity';
+import { InfantEntity } from './infant.entity';
+import { PrescriptionEntity } from './prescription.entity';
+import { ProgrammePolicyEntity } from './programme-policy.entity';
 import { ProgrammeEntity } from './programme.entity';
+import { SiteEntity } from './site.entity';
 import { UserEntity } from './user.entity';
 
 // Listed explicitly (no glob) so tsx, Vitest and the TypeORM CLI load the same set.
-export const ENTITIES = [ProgrammeEntity, UserEntity, AuditEventEntity];
+export const ENTITIES = [
+  ProgrammeEntity, UserEntity, AuditEventEntity, SiteEntity, ProgrammePolicyEntity, InfantEntity, FamilyContactEntity, PrescriptionEntity,
+];

@@ -5,6 +5,7 @@ import { accessibleWhere } from '../../auth/casl-to-sql';
 import { generateInitialPassword, hashPassword } from '../../auth/passwords';
 import { USER_ACL_COLUMNS, type UsersRepository } from '../../db/repositories/users.repository';
 import type { AuditRepository } from '../../db/repositories/audit.repository';
+import type { ContactsRepository } from '../../db/repositories/contacts.repository';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { toUserDto } from './users.mapper';
@@ -13,9 +14,10 @@ interface Deps {
   ds: DataSource;
   users: UsersRepository;
   audit: AuditRepository;
+  contacts: ContactsRepository;
 }
 
-export function createUsersService({ ds, users, audit }: Deps) {
+export function createUsersService({ ds, users, audit, contacts }: Deps) {
   async function setDisabled(ability: AppAbility, actor: Actor, id: string, disabled: boolean): Promise<User> {
     if (disabled && id === actor.id) throw new ConflictError('You cannot disable your own account.');
     return ds.transaction(async (m) => {
@@ -48,6 +50,7 @@ export function createUsersService({ ds, users, audit }: Deps) {
       const passwordHash = await hashPassword(initialPassword);
       const user = await ds.transaction(async (m) => {
         const created = await users.insert({ ...input, programmeId: actor.programmeId, passwordHash }, m);
+        if (created.role === 'family') await contacts.linkContactsToAccount(created.id, created.email, actor.programmeId, m);
         await audit.append(
           { programmeId: actor.programmeId, actorId: actor.id, action: 'user.created', entityType: 'user', entityId: created.id, details: { role: input.role }, ip: actor.ip },
           m,

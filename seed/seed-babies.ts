@@ -1,0 +1,89 @@
+import { defineAbilityFor } from '../shared/auth/ability';
+import { addDays } from '../shared/clinical/dates';
+import type { EnrolInfantInput } from '../shared/schemas/infants';
+import type { AppDeps } from '../server/deps';
+import { todayIn } from '../server/lib/dates';
+import type { Actor } from '../server/lib/http';
+import { enrolInfant } from '../server/modules/infants/enrol';
+import { updateInfant } from '../server/modules/infants/update';
+import { computeProposal } from '../server/modules/prescriptions/compute-proposal';
+import { decidePrescription } from '../server/modules/prescriptions/decide';
+import { DEMO_SITES, SALTMARSH_FAMILIES, demoBabies, type DemoBaby } from './demo-babies';
+
+type Slug = keyof typeof DEMO_SITES;
+
+async function staff(deps: AppDeps, email: string): Promise<Actor & { role: string }> {
+  const u = await deps.repos.users.findByEmail(email);
+  if (!u) throw new Error(`demo person ${email} missing: seed people first`);
+  return { id: u.id, programmeId: u.programmeId, ip: null, role: u.role };
+}
+
+function enrolment(b: DemoBaby, siteId: string, nurseId: string, consultantId: string, today: string, familyEmail: string | null): EnrolInfantInput {
+  const birthDate = addDays(today, -b.ageDays);
+  return {
+    enrolKey: b.key,
+    baby: {
+      givenName: b.givenName, familyName: b.familyName, sex: b.sex, birthDate, gestation: { weeks: b.gaWeeks, days: b.gaDays },
+      birthWeightG: b.birthWeightG, weightKg: b.weightKg, weightDate: addDays(today, -3), diagnoses: b.diagnoses as EnrolInfantInput['baby']['diagnoses'],
+    },
+    hospital: { siteId, flowLpm: b.hospitalFlowLpm, source: b.hospitalSource, o2Percent: b.hospitalO2Percent },
+    home: { address: `${12 + b.key.length} Mill Lane, ${b.town.name}`, location: { elevationM: b.town.elevationM }, source: b.homeSource, o2Percent: b.homeSource === 'cylinder' ? 100 : 95 },
+    care: { nurseId, consultantId },
+    contacts: [{
+      name: `${b.sex === 'female' ? 'Sam' : 'Alex'} ${b.familyName}`, relation: 'Parent', mobile: `+44 7700 900${String(100 + Number(b.key.slice(-3))).slice(-3)}`,
+      email: familyEmail ?? `${b.familyName.toLowerCase()}.family@example.org`, preferredChannel: Number(b.key.slice(-1)) % 2 ? 'sms' : 'email',
+      consentSms: true, consentEmail: true, language: 'en', timeZone: 'Europe/London',
+    }],
+  };
+}
+
+/** Moves one demo baby to its intended state through the same service functions the app uses. */
+async function playOut(deps: AppDeps, b: DemoBaby, infantId: string, coordinator: Actor, consultant: Actor, today: string) {
+  const { ds, repos } = deps;
+  const pending = (await ds.query(`SELECT id FROM prescriptions WHERE infant_id = $1 AND status = 'preparing'`, [infantId])) as Array<{ id: string }>;
+  for (const p of pending) await computeProposal(ds, repos, p.id);
+  if (b.outcome === 'awaiting') return;
+  const [rx] = (await ds.query(`SELECT id FROM prescriptions WHERE infant_id = $1 AND status = 'proposed'`, [infantId])) as Array<{ id: string }>;
+  if (!rx) return;
+  const consultantAbility = defineAbilityFor({ id: consultant.id, role: 'consultant', programmeId: consultant.programmeId });
+  const proposal = await repos.prescriptions.findById(rx.id);
+  const feasible = proposal?.proposedFlowLpm !== null;
+  if (b.outcome === 'sent_back' || !feasible) {
+    await decidePrescription(ds, repos, consultantAbility, consultant, rx.id, { decision: 'reject', reason: 'Please check the home elevation with the family before I sign this off.' });
+    return;
+  }
+  await decidePrescription(ds, repos, consultantAbility, consultant, rx.id, { decision: 'approve' });
+  if (b.outcome === 'drift') {
+    const infant = await repos.infants.findByEnrolKey(coordinator.programmeId, b.key);
+    const ability = defineAbilityFor({ id: coordinator.id, role: 'coordinator', programmeId: coordinator.programmeId });
+    await updateInfant(ds, repos, ability, coordinator, infantId, { rowVersion: infant!.rowVersion, weightKg: Math.round((b.weightKg + 0.9) * 100) / 100, weightDate: today }, today);
+    const [next] = (await ds.query(`SELECT id FROM prescriptions WHERE infant_id = $1 AND status = 'preparing'`, [infantId])) as Array<{ id: string }>;
+    if (next) await computeProposal(ds, repos, next.id);
+  }
+  // Stepping down and leaving the programme have no screens yet; the demo shows those babies in their state.
+  const later: Record<string, string> = { stepping_down: 'stepping_down', off_oxygen: 'off_oxygen', left: 'left_programme' };
+  if (later[b.outcome]) await ds.query(`UPDATE infants SET status = $2 WHERE id = $1`, [infantId, later[b.outcome]]);
+}
+
+export async function seedBabies(deps: AppDeps, slug: Slug, count: number): Promise<number> {
+  const { repos } = deps;
+  const coordinator = await staff(deps, `coordinator@${slug}.example`);
+  const consultant = await staff(deps, `consultant@${slug}.example`);
+  const programme = await repos.programmes.findById(coordinator.programmeId);
+  const today = todayIn(programme!.timeZone);
+  let site = await repos.sites.findByName(coordinator.programmeId, DEMO_SITES[slug].name);
+  site ??= await repos.sites.insert({ programmeId: coordinator.programmeId, ...DEMO_SITES[slug] });
+  let added = 0;
+  for (const [i, b] of demoBabies().slice(0, count).entries()) {
+    if (await repos.infants.findByEnrolKey(coordinator.programmeId, b.key)) continue;
+    const nurse = await staff(deps, slug === 'larkmoor' ? b.nurse : `nurse@${slug}.example`);
+    const familyEmail = i === 10 ? `family@${slug}.example` : null;
+    const baby: DemoBaby = slug === 'saltmarsh'
+      ? { ...b, familyName: SALTMARSH_FAMILIES[i % SALTMARSH_FAMILIES.length], town: { name: 'Emberly', elevationM: 40 } }
+      : b;
+    const out = await enrolInfant(deps.ds, repos, coordinator, enrolment(baby, site.id, nurse.id, consultant.id, today, familyEmail), today);
+    await playOut(deps, baby, out.infant.id, coordinator, consultant, today);
+    added++;
+  }
+  return added;
+}

@@ -1,0 +1,53 @@
+import { Router } from 'express';
+import { idParamsSchema } from '../../../shared/schemas/common';
+import { enrolInfantSchema, listInfantsQuerySchema, replaceContactsSchema, updateInfantSchema, type ListInfantsQuery } from '../../../shared/schemas/infants';
+import { validate } from '../../middleware/validate';
+import { requireUser } from '../../middleware/require-user';
+import { actorOf, assertCan, assertCanAny, currentUser } from '../../lib/http';
+import { todayIn } from '../../lib/dates';
+import type { InfantsService } from './infants.service';
+import type { PrescriptionsService } from '../prescriptions/prescriptions.service';
+
+export function infantsRouter(service: InfantsService, prescriptions: PrescriptionsService): Router {
+  const r = Router();
+  r.use(requireUser);
+  const today = (req: Express.Request) => todayIn(currentUser(req as never).programmeTimeZone);
+
+  r.get('/', validate({ query: listInfantsQuerySchema }), async (req, res) => {
+    assertCanAny(req, 'read', 'Infant');
+    res.json(await service.list(req.ability, currentUser(req), req.query as unknown as ListInfantsQuery, today(req)));
+  });
+
+  r.post('/', validate({ body: enrolInfantSchema }), async (req, res) => {
+    const actor = actorOf(req);
+    assertCan(req, 'create', 'Infant', { programmeId: actor.programmeId });
+    const out = await service.enrol(req.ability, actor, req.body, today(req));
+    res.status(out.created ? 201 : 200).json(out.infant);
+  });
+
+  r.get('/:id', validate({ params: idParamsSchema }), async (req, res) => {
+    assertCanAny(req, 'read', 'Infant');
+    res.json(await service.detail(req.ability, String(req.params.id), today(req)));
+  });
+
+  r.patch('/:id', validate({ params: idParamsSchema, body: updateInfantSchema }), async (req, res) => {
+    assertCanAny(req, 'update', 'Infant');
+    res.json(await service.update(req.ability, actorOf(req), String(req.params.id), req.body, today(req)));
+  });
+
+  r.put('/:id/contacts', validate({ params: idParamsSchema, body: replaceContactsSchema }), async (req, res) => {
+    assertCanAny(req, 'update', 'Infant');
+    res.json(await service.replaceContacts(req.ability, actorOf(req), String(req.params.id), req.body.contacts, today(req)));
+  });
+
+  r.get('/:id/prescriptions', validate({ params: idParamsSchema }), async (req, res) => {
+    assertCanAny(req, 'read', 'Infant');
+    res.json(await prescriptions.listForInfant(req.ability, String(req.params.id)));
+  });
+
+  r.get('/:id/audit', validate({ params: idParamsSchema }), async (req, res) => {
+    assertCanAny(req, 'read', 'AuditEvent');
+    res.json(await service.audit(req.ability, String(req.params.id)));
+  });
+  return r;
+}

@@ -1,0 +1,72 @@
+import type { DataSource } from 'typeorm';
+import type { AppAbility } from '../../../shared/auth/ability';
+import type { ContactInput, EnrolInfantInput, ListInfantsQuery, UpdateInfantInput } from '../../../shared/schemas/infants';
+import { accessibleWhere, type SqlFilter } from '../../auth/casl-to-sql';
+import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
+import type { AppRepos } from '../../deps';
+import type { JobProducer } from '../../jobs/producer';
+import { ForbiddenError, NotFoundError } from '../../lib/errors';
+import type { Actor } from '../../lib/http';
+import { enrolInfant } from './enrol';
+import { toDetail, toSummary } from './infants.mapper';
+import { replaceContacts, updateInfant } from './update';
+
+export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
+  const acl = (ability: AppAbility) => accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS);
+
+  async function detail(ability: AppAbility, id: string, today: string) {
+    const infant = await repos.infants.findVisible(id, acl(ability));
+    if (!infant) throw new NotFoundError('No such baby in your records.');
+    const [site, contacts, active, names] = await Promise.all([
+      repos.sites.findInProgramme(infant.siteId, infant.programmeId),
+      repos.contacts.listForInfant(infant.id),
+      repos.prescriptions.active(infant.id),
+      repos.infants.peopleNames([infant.nurseId, infant.consultantId]),
+    ]);
+    return toDetail(infant, site!, contacts, active, names, today);
+  }
+
+  return {
+    detail,
+
+    async list(ability: AppAbility, user: Express.User, query: ListInfantsQuery, today: string) {
+      let extra: SqlFilter | undefined;
+      // "Mine" narrows to the people a baby is assigned to; a nurse's rules already allow only their caseload.
+      if (query.scope === 'programme' && user.role === 'nurse') throw new ForbiddenError('A nurse sees their own caseload.');
+      if (query.scope === 'mine' && user.role === 'consultant') extra = { sql: 'i.consultant_id = :me', params: { me: user.id } };
+      if (query.scope === 'mine' && user.role === 'nurse') extra = { sql: 'i.nurse_id = :me', params: { me: user.id } };
+      const rows = await repos.infants.list(query, acl(ability), extra);
+      return { items: rows.map((r) => toSummary(r, today)), total: rows.length ? Number(rows[0].total) : 0 };
+    },
+
+    async enrol(ability: AppAbility, actor: Actor, input: EnrolInfantInput, today: string) {
+      const out = await enrolInfant(ds, repos, actor, input, today);
+      if (out.prescriptionId) await jobs.enqueueConversion(out.prescriptionId);
+      return { created: out.created, infant: await detail(ability, out.infant.id, today) };
+    },
+
+    async update(ability: AppAbility, actor: Actor, id: string, input: UpdateInfantInput, today: string) {
+      const out = await updateInfant(ds, repos, ability, actor, id, input, today);
+      if (out.prescriptionId) await jobs.enqueueConversion(out.prescriptionId);
+      return detail(ability, id, today);
+    },
+
+    async replaceContacts(ability: AppAbility, actor: Actor, id: string, contacts: ContactInput[], today: string) {
+      await replaceContacts(ds, repos, ability, actor, id, contacts);
+      return detail(ability, id, today);
+    },
+
+    async audit(ability: AppAbility, id: string) {
+      const infant = await repos.infants.findVisible(id, acl(ability));
+      if (!infant) throw new NotFoundError('No such baby in your records.');
+      const events = await repos.audit.listForEntity('infant', id);
+      const names = await repos.infants.peopleNames(events.map((e) => e.actorId));
+      return {
+        items: events.map((e) => ({
+          id: String(e.id), at: e.at.toISOString(), action: e.action, actor: e.actorId ? { id: e.actorId, name: names.get(e.actorId) ?? '' } : null, details: e.details,
+        })),
+      };
+    },
+  };
+}
+export type InfantsService = ReturnType<typeof createInfantsService>;

@@ -1,0 +1,52 @@
+import type { DataSource } from 'typeorm';
+import type { AppAbility } from '../../../shared/auth/ability';
+import type { DecisionInput, QueueItem } from '../../../shared/schemas/prescriptions';
+import { accessibleWhere } from '../../auth/casl-to-sql';
+import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
+import { PRESCRIPTION_ACL_COLUMNS } from '../../db/repositories/prescriptions.repository';
+import type { AppRepos } from '../../deps';
+import { NotFoundError } from '../../lib/errors';
+import type { Actor } from '../../lib/http';
+import { todayIn } from '../../lib/dates';
+import { correctedAgeText } from '../infants/infants.mapper';
+import { decidePrescription } from './decide';
+import { toPrescriptionDto } from './prescriptions.mapper';
+
+export function createPrescriptionsService(ds: DataSource, repos: AppRepos) {
+  return {
+    async listForInfant(ability: AppAbility, infantId: string) {
+      const infant = await repos.infants.findVisible(infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS));
+      if (!infant) throw new NotFoundError('No such baby in your records.');
+      const rows = await repos.prescriptions.listForInfant(infantId, accessibleWhere(ability, 'read', 'Prescription', PRESCRIPTION_ACL_COLUMNS));
+      const names = await repos.infants.peopleNames(rows.map((r) => r.decidedBy));
+      return { items: rows.map((r) => toPrescriptionDto(r, names)) };
+    },
+
+    async get(ability: AppAbility, id: string) {
+      const rx = await repos.prescriptions.findVisible(id, accessibleWhere(ability, 'read', 'Prescription', PRESCRIPTION_ACL_COLUMNS));
+      if (!rx) throw new NotFoundError('No such setting in your records.');
+      return toPrescriptionDto(rx, await repos.infants.peopleNames([rx.decidedBy]));
+    },
+
+    async queue(ability: AppAbility, timeZone: string): Promise<{ items: QueueItem[] }> {
+      const rows = await repos.prescriptions.queue(accessibleWhere(ability, 'approve', 'Prescription', PRESCRIPTION_ACL_COLUMNS));
+      const today = todayIn(timeZone);
+      return {
+        items: rows.map((r) => ({
+          prescriptionId: r.id, infantId: r.infant_id, infantName: `${r.given_name} ${r.family_name}`,
+          correctedAge: correctedAgeText(r.birth_date, r.ga_weeks, r.ga_days, today),
+          homeElevationM: r.home_elevation_m === null ? null : Number(r.home_elevation_m), homePressureMmHg: Number(r.home_pressure_mmhg),
+          siteName: r.site_name, reason: r.reason as QueueItem['reason'],
+          proposedFlowLpm: r.proposed_flow_lpm === null ? null : Number(r.proposed_flow_lpm),
+          feasible: r.result?.feasible ?? false, warningCount: r.result?.warnings.length ?? 0, waitingSince: new Date(r.created_at).toISOString(),
+        })),
+      };
+    },
+
+    async decide(ability: AppAbility, actor: Actor, id: string, input: DecisionInput) {
+      const rx = await decidePrescription(ds, repos, ability, actor, id, input);
+      return toPrescriptionDto(rx, await repos.infants.peopleNames([rx.decidedBy]));
+    },
+  };
+}
+export type PrescriptionsService = ReturnType<typeof createPrescriptionsService>;

@@ -1,0 +1,177 @@
+import { z } from 'zod';
+import { pageQuerySchema, pagedSchema } from './common';
+import { pressureSourceSchema } from './conversions';
+
+export const DIAGNOSES = ['chronic_lung_disease', 'pulmonary_hypertension', 'heart_disease', 'airway', 'other'] as const;
+export const DIAGNOSIS_LABELS: Record<(typeof DIAGNOSES)[number], string> = {
+  chronic_lung_disease: 'Chronic lung disease',
+  pulmonary_hypertension: 'Pulmonary hypertension',
+  heart_disease: 'Heart disease',
+  airway: 'Airway problem',
+  other: 'Other',
+};
+
+export const INFANT_STATUSES = ['preparing', 'awaiting_signoff', 'sent_back', 'on_oxygen', 'stepping_down', 'off_oxygen', 'left_programme'] as const;
+export type InfantStatus = (typeof INFANT_STATUSES)[number];
+export const INFANT_STATUS_LABELS: Record<InfantStatus, string> = {
+  preparing: 'Working out setting',
+  awaiting_signoff: 'Waiting for sign-off',
+  sent_back: 'Setting sent back',
+  on_oxygen: 'On home oxygen',
+  stepping_down: 'Stepping down',
+  off_oxygen: 'Off oxygen, observing',
+  left_programme: 'Left the programme',
+};
+
+export const INFANT_FLAGS = ['growth_drift', 'new_setting_waiting', 'not_reachable_by_cannula', 'above_cannula_limit'] as const;
+export type InfantFlag = (typeof INFANT_FLAGS)[number];
+export const INFANT_FLAG_LABELS: Record<InfantFlag, string> = {
+  growth_drift: 'Outgrowing flow',
+  new_setting_waiting: 'New setting waiting',
+  not_reachable_by_cannula: 'Cannula cannot reach target',
+  above_cannula_limit: 'Above cannula limit',
+};
+
+const isoDate = z.iso.date({ error: 'Use a date like 2026-11-30' });
+const text = (label: string, max = 120) =>
+  z.string().trim().min(1, { error: `Enter the ${label}` }).max(max, { error: `At most ${max} characters` });
+
+export const contactSchema = z
+  .strictObject({
+    name: text('name'),
+    relation: text('relation', 60),
+    mobile: z.string().trim().regex(/^\+?[0-9 ()-]{7,20}$/, { error: 'Enter a mobile number, e.g. +44 7700 900123' }).optional().or(z.literal('').transform(() => undefined)),
+    email: z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address' })).optional().or(z.literal('').transform(() => undefined)),
+    preferredChannel: z.enum(['sms', 'email'], { error: 'Choose SMS or e-mail' }),
+    consentSms: z.boolean(),
+    consentEmail: z.boolean(),
+    language: z.string().regex(/^[a-z]{2}(-[A-Z]{2})?$/, { error: 'Use a language code such as en or cy' }).default('en'),
+    timeZone: z.string().min(1).max(60).refine((tz) => { try { new Intl.DateTimeFormat('en', { timeZone: tz }); return true; } catch { return false; } }, { error: 'Unknown time zone' }),
+  })
+  .superRefine((c, ctx) => {
+    if (c.preferredChannel === 'sms' && !c.mobile) ctx.addIssue({ code: 'custom', path: ['mobile'], message: 'SMS is preferred: enter a mobile number' });
+    if (c.preferredChannel === 'email' && !c.email) ctx.addIssue({ code: 'custom', path: ['email'], message: 'E-mail is preferred: enter an e-mail address' });
+    if (c.consentSms && !c.mobile) ctx.addIssue({ code: 'custom', path: ['mobile'], message: 'SMS consent needs a mobile number' });
+    if (c.consentEmail && !c.email) ctx.addIssue({ code: 'custom', path: ['email'], message: 'E-mail consent needs an e-mail address' });
+  });
+export type ContactInput = z.infer<typeof contactSchema>;
+
+export const hospitalSettingSchema = z
+  .strictObject({
+    siteId: z.uuid({ error: 'Choose the hospital site' }),
+    flowLpm: z.number({ error: 'Enter the flow in L/min' }).min(0.01, { error: 'Flow must be above 0 L/min' }).max(15, { error: 'Flow must be at most 15 L/min' }),
+    source: z.enum(['cylinder', 'concentrator', 'blended'], { error: 'Choose the oxygen source' }),
+    o2Percent: z.number({ error: 'Enter the oxygen %' }).min(21, { error: 'At least 21 %' }).max(100, { error: 'At most 100 %' }),
+  })
+  .superRefine((h, ctx) => {
+    if (h.source === 'cylinder' && h.o2Percent !== 100) ctx.addIssue({ code: 'custom', path: ['o2Percent'], message: 'Cylinder and wall oxygen is 100 %' });
+  });
+
+export const homeSettingSchema = z
+  .strictObject({
+    address: text('home address', 300),
+    location: pressureSourceSchema,
+    source: z.enum(['cylinder', 'concentrator'], { error: 'Choose the home oxygen source' }),
+    o2Percent: z.number({ error: 'Enter the oxygen %' }).min(21, { error: 'At least 21 %' }).max(100, { error: 'At most 100 %' }),
+  })
+  .superRefine((h, ctx) => {
+    if (h.source === 'cylinder' && h.o2Percent !== 100) ctx.addIssue({ code: 'custom', path: ['o2Percent'], message: 'Cylinder oxygen is 100 %' });
+  });
+
+export const babySchema = z.strictObject({
+  givenName: text('given name', 80),
+  familyName: text('family name', 80),
+  sex: z.enum(['female', 'male', 'unknown'], { error: 'Choose one' }),
+  birthDate: isoDate,
+  gestation: z.strictObject({
+    weeks: z.number().int().min(22, { error: '22 to 44 weeks' }).max(44, { error: '22 to 44 weeks' }),
+    days: z.number().int().min(0, { error: '0 to 6 days' }).max(6, { error: '0 to 6 days' }),
+  }),
+  birthWeightG: z.number({ error: 'Enter the birth weight in grams' }).int().min(300, { error: 'At least 300 g' }).max(6500, { error: 'At most 6500 g' }),
+  weightKg: z.number({ error: 'Enter the weight in kg' }).min(0.3, { error: 'At least 0.3 kg' }).max(15, { error: 'At most 15 kg' }),
+  weightDate: isoDate,
+  diagnoses: z.array(z.enum(DIAGNOSES)).max(DIAGNOSES.length).default([]),
+});
+
+export const enrolInfantSchema = z.strictObject({
+  /** Made by the form once; a repeated submit with the same key returns the same baby. */
+  enrolKey: z.uuid(),
+  baby: babySchema,
+  hospital: hospitalSettingSchema,
+  home: homeSettingSchema,
+  care: z.strictObject({ nurseId: z.uuid({ error: 'Choose the home-care nurse' }), consultantId: z.uuid({ error: 'Choose the consultant' }) }),
+  contacts: z.array(contactSchema).min(1, { error: 'Add at least one family contact' }).max(4, { error: 'At most 4 contacts' }),
+});
+export type EnrolInfantInput = z.infer<typeof enrolInfantSchema>;
+export type EnrolInfantFormValues = z.input<typeof enrolInfantSchema>;
+
+export const updateInfantSchema = z
+  .strictObject({
+    rowVersion: z.number().int().positive(),
+    weightKg: babySchema.shape.weightKg.optional(),
+    weightDate: isoDate.optional(),
+    home: homeSettingSchema.optional(),
+    nurseId: z.uuid().optional(),
+    consultantId: z.uuid().optional(),
+  })
+  .refine((v) => (v.weightKg === undefined) === (v.weightDate === undefined), { error: 'Give the weight with the date it was taken', path: ['weightDate'] });
+export type UpdateInfantInput = z.infer<typeof updateInfantSchema>;
+
+export const replaceContactsSchema = z.strictObject({ contacts: enrolInfantSchema.shape.contacts });
+
+export const INFANT_SORTS = ['name', '-name', 'correctedAge', '-correctedAge', 'elevation', '-elevation', 'status', '-status', 'enrolled', '-enrolled'] as const;
+export const listInfantsQuerySchema = pageQuerySchema.extend({
+  sort: z.enum(INFANT_SORTS, { error: 'Unknown sort' }).default('name'),
+  status: z.enum(INFANT_STATUSES, { error: 'Unknown status' }).optional(),
+  q: z.string().trim().max(100).optional(),
+  scope: z.enum(['mine', 'programme']).optional(),
+  flag: z.enum(INFANT_FLAGS).optional(),
+});
+export type ListInfantsQuery = z.infer<typeof listInfantsQuerySchema>;
+
+const personRef = z.object({ id: z.uuid(), name: z.string() }).nullable();
+export const activeSettingSchema = z.object({
+  prescriptionId: z.uuid(),
+  version: z.number(),
+  flowLpm: z.number(),
+  source: z.string(),
+  sourceO2Percent: z.number(),
+  effectiveFio2: z.number().nullable(),
+  periods: z.object({ awake: z.number(), asleep: z.number(), feeding: z.number() }).nullable(),
+  approvedAt: z.string().nullable(),
+});
+
+export const infantSummarySchema = z.object({
+  id: z.uuid(),
+  name: z.string(),
+  correctedAge: z.string(),
+  homeElevationM: z.number().nullable(),
+  homePressureMmHg: z.number(),
+  activeFlowLpm: z.number().nullable(),
+  status: z.enum(INFANT_STATUSES),
+  nurse: personRef,
+  consultant: personRef,
+  flags: z.array(z.enum(INFANT_FLAGS)),
+});
+export type InfantSummary = z.infer<typeof infantSummarySchema>;
+export const infantsPageSchema = pagedSchema(infantSummarySchema);
+
+export const contactSchemaOut = z.object({
+  id: z.uuid(), name: z.string(), relation: z.string(), mobile: z.string().nullable(), email: z.string().nullable(),
+  preferredChannel: z.enum(['sms', 'email']), consentSms: z.boolean(), consentEmail: z.boolean(), language: z.string(), timeZone: z.string(),
+});
+
+export const infantDetailSchema = infantSummarySchema.extend({
+  givenName: z.string(), familyName: z.string(), sex: z.string(), birthDate: z.string(),
+  gestation: z.object({ weeks: z.number(), days: z.number() }),
+  postmenstrualAge: z.string(), chronologicalAge: z.string(),
+  birthWeightG: z.number(), weightKg: z.number(), weightDate: z.string(), diagnoses: z.array(z.enum(DIAGNOSES)),
+  site: z.object({ id: z.uuid(), name: z.string(), elevationM: z.number() }),
+  hospital: z.object({ flowLpm: z.number(), source: z.string(), o2Percent: z.number() }),
+  home: z.object({ address: z.string(), location: z.record(z.string(), z.number()), source: z.string(), o2Percent: z.number() }),
+  activeSetting: activeSettingSchema.nullable(),
+  contacts: z.array(contactSchemaOut),
+  rowVersion: z.number(),
+  enrolledAt: z.string(),
+});
+export type InfantDetail = z.infer<typeof infantDetailSchema>;
