@@ -15,7 +15,8 @@ cleanup() {
   [ "${PG_STARTED_HERE:-0}" = 1 ] && stop_postgres
   log "Stopped"
 }
-trap cleanup INT TERM EXIT
+trap 'cleanup; exit 0' INT TERM
+trap cleanup EXIT
 
 ensure_node_modules
 ensure_postgres_running
@@ -53,5 +54,7 @@ MSG
 echo "  Press Ctrl-C to stop."
 echo
 
-wait -n "${PIDS[@]}" || true
-log "A Nestflow process ended; stopping the rest"
+status=0
+wait -n "${PIDS[@]}" || status=$?
+log "A Nestflow process ended (exit $status); stopping the rest"
+exit "$status"
