@@ -8,6 +8,7 @@ import { enrolInfant } from '../server/modules/infants/enrol';
 import { updateInfant } from '../server/modules/infants/update';
 import { computeProposal } from '../server/modules/prescriptions/compute-proposal';
 import { decidePrescription } from '../server/modules/prescriptions/decide';
+import { replan } from '../server/modules/schedule/planning';
 import { DEMO_SITES, SALTMARSH_FAMILIES, demoBabies, type DemoBaby } from './demo-babies';
 
 type Slug = keyof typeof DEMO_SITES;
@@ -83,7 +84,26 @@ export async function seedBabies(deps: AppDeps, slug: Slug, count: number): Prom
       : b;
     const out = await enrolInfant(deps.ds, repos, coordinator, enrolment(baby, site.id, nurse.id, consultant.id, today, familyEmail), today);
     await playOut(deps, baby, out.infant.id, coordinator, consultant, today);
+    // Demo only: spread the babies' time at home over the past weeks so schedules have history and due items.
+    await deps.ds.query(
+      `UPDATE prescriptions SET decided_at = decided_at - make_interval(days => $2) WHERE infant_id = $1 AND decided_at IS NOT NULL`,
+      [out.infant.id, 2 + ((i * 5) % 45)],
+    );
     added++;
   }
+  if (added) await demoScheduleHistory(deps, coordinator.programmeId);
   return added;
+}
+
+/** Plans every demo baby's checks, then records the past ones as done, leaving a few overdue for the demo. */
+async function demoScheduleHistory(deps: AppDeps, programmeId: string) {
+  await replan(deps.repos, { programmeId });
+  await deps.ds.query(
+    `UPDATE checks c SET status = 'done', done_at = c.due_at - interval '3 hours', done_by = i.nurse_id, done_ref = 'demo'
+       FROM infants i
+      WHERE i.id = c.infant_id AND c.programme_id = $1 AND c.status = 'planned' AND c.due_at < now() - interval '1 day'
+        AND (c.kind = 'spot_check' OR c.due_at < now() - interval '4 days') AND abs(hashtext(i.id::text)) % 5 <> 0`,
+    [programmeId],
+  );
+  await deps.repos.checks.markOverdue();
 }

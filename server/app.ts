@@ -16,11 +16,20 @@ import { createUsersService } from './modules/users/users.service';
 import { usersRouter } from './modules/users/users.router';
 import { sitesRouter } from './modules/sites/sites.router';
 import { policyRouter } from './modules/policy/policy.router';
+import { createPolicyService } from './modules/policy/policy.service';
 import { conversionsRouter } from './modules/conversions/conversions.router';
 import { createInfantsService } from './modules/infants/infants.service';
 import { infantsRouter } from './modules/infants/infants.router';
 import { createPrescriptionsService } from './modules/prescriptions/prescriptions.service';
 import { prescriptionsRouter } from './modules/prescriptions/prescriptions.router';
+import { createScheduleService } from './modules/schedule/schedule.service';
+import { scheduleRouters } from './modules/schedule/schedule.router';
+import { createReadingsService } from './modules/readings/readings.service';
+import { readingsRouters } from './modules/readings/readings.router';
+import { createStepDownsService } from './modules/step-downs/step-downs.service';
+import { stepDownsRouter } from './modules/step-downs/step-downs.router';
+import { createRecordingsService } from './modules/recordings/recordings.service';
+import { infantRecordingsRouter, recordingsRouter } from './modules/recordings/recordings.router';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -76,12 +85,20 @@ export function createApp(deps: AppDeps): Express {
   api.use(csrf.csrfSynchronisedProtection);
   api.use('/session', sessionRouter(passport, csrf, sessions));
   api.use('/users', usersRouter(createUsersService({ ds: deps.ds, users: repos.users, audit: repos.audit, contacts: repos.contacts })));
-  const prescriptions = createPrescriptionsService(deps.ds, repos);
+  const prescriptions = createPrescriptionsService(deps.ds, repos, deps.jobs);
+  const schedule = scheduleRouters(createScheduleService(repos));
+  const readings = readingsRouters(createReadingsService(deps.ds, repos, deps.jobs));
   api.use('/sites', sitesRouter(repos.sites));
-  api.use('/policy', policyRouter(repos.policies));
+  api.use('/policy', policyRouter(createPolicyService(deps.ds, repos, deps.jobs)));
   api.use('/conversions', conversionsRouter(repos.policies));
   api.use('/infants', infantsRouter(createInfantsService(deps.ds, repos, deps.jobs), prescriptions));
+  api.use('/infants', schedule.infants, readings.infants, stepDownsRouter(createStepDownsService(deps.ds, repos)));
+  api.use('/my-day', schedule.day);
+  api.use('/readings', readings.readings);
   api.use('/prescriptions', prescriptionsRouter(prescriptions));
+  const recordings = createRecordingsService(deps.ds, repos, deps.jobs);
+  api.use('/infants', infantRecordingsRouter(recordings));
+  api.use('/recordings', recordingsRouter(recordings));
   api.use(apiNotFound);
   app.use('/api', api);
 

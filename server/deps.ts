@@ -12,6 +12,9 @@ import { createInfantsRepository } from './db/repositories/infants.repository';
 import { createContactsRepository } from './db/repositories/contacts.repository';
 import { createPrescriptionsRepository } from './db/repositories/prescriptions.repository';
 import { createJobProducer, type JobProducer } from './jobs/producer';
+import { createChecksRepository } from './db/repositories/checks.repository';
+import { createReadingsRepository } from './db/repositories/readings.repository';
+import { createRecordingsRepository } from './db/repositories/recordings.repository';
 import { createLogger, type Logger } from './lib/logger';
 
 /** Everything the app needs from the outside world, built once per process and closed in order on shutdown. */
@@ -35,12 +38,15 @@ export function createRepos(ds: DataSource) {
     infants: createInfantsRepository(ds),
     contacts: createContactsRepository(ds),
     prescriptions: createPrescriptionsRepository(ds),
+    checks: createChecksRepository(ds),
+    readings: createReadingsRepository(ds),
+    recordings: createRecordingsRepository(ds),
   };
 }
 export type AppRepos = ReturnType<typeof createRepos>;
 
 export async function createDeps(env: Env, name = 'api'): Promise<AppDeps> {
-  const ds = createDataSource(env.DATABASE_URL, { applicationName: `nestflow-${name}` });
+  const ds = createDataSource(env.DATABASE_URL, { applicationName: `nestflow-${name}`, quiet: env.NODE_ENV === 'test' });
   await ds.initialize();
   const redis = new Redis(env.REDIS_URL, { maxRetriesPerRequest: 2, enableOfflineQueue: true, lazyConnect: false });
   redis.on('error', () => undefined);

@@ -10,6 +10,9 @@ import { redisConnection } from './queues';
 import { pruneSessions } from './processors/prune-sessions.processor';
 import { convertPrescriptionProcessor } from './processors/convert-prescription.processor';
 import { reconcileConversions } from './processors/reconcile-conversions.processor';
+import { analyseRecordingProcessor, reconcileRecordings } from './processors/analyse-recording.processor';
+import { planningProcessor } from './processors/planning.processor';
+import { replan } from '../server/modules/schedule/planning';
 import { upsertSchedules } from './schedules';
 
 const env = loadEnv();
@@ -25,12 +28,19 @@ const maintenanceQueue = new Queue(QUEUES.maintenance, { connection, prefix });
 await upsertSchedules(maintenanceQueue);
 // Pick up anything left 'preparing' while no worker was running.
 await reconcileConversions(repos, jobs, 0);
+await reconcileRecordings(repos, jobs, 0, 0);
+// Schedules move on with time (the plan looks a fixed number of weeks ahead), so start from a fresh plan.
+await replan(repos, {});
+await repos.checks.markOverdue();
 
 const maintenance = new Worker(
   QUEUES.maintenance,
   async (job) => {
     if (job.name === JOBS.pruneSessions.name) return pruneSessions(ds);
-    if (job.name === JOBS.reconcileConversions.name) return reconcileConversions(repos, jobs);
+    if (job.name === JOBS.markOverdue.name) return { replanned: await replan(repos, {}), overdue: await repos.checks.markOverdue() };
+    if (job.name === JOBS.reconcileConversions.name) {
+      return { conversions: await reconcileConversions(repos, jobs), recordings: await reconcileRecordings(repos, jobs) };
+    }
     throw new UnrecoverableError(`Unknown maintenance job ${job.name}`);
   },
   { connection, prefix, concurrency: 1 },
@@ -39,11 +49,13 @@ const clinical = new Worker(
   QUEUES.clinical,
   async (job) => {
     if (job.name === JOBS.convertPrescription.name) return convertPrescriptionProcessor(job, ds, repos);
+    if (job.name === JOBS.analyseRecording.name) return analyseRecordingProcessor(job, ds, repos, jobs);
     throw new UnrecoverableError(`Unknown clinical job ${job.name}`);
   },
   { connection, prefix, concurrency: 4 },
 );
-for (const [name, w] of [[QUEUES.maintenance, maintenance], [QUEUES.clinical, clinical]] as const) {
+const planning = new Worker(QUEUES.planning, (job) => planningProcessor(job, repos), { connection, prefix, concurrency: 1 });
+for (const [name, w] of [[QUEUES.maintenance, maintenance], [QUEUES.clinical, clinical], [QUEUES.planning, planning]] as const) {
   w.on('failed', (job, err) => logger.warn('job failed', { queue: name, job: job?.name, attempts: job?.attemptsMade, err: err.message }));
 }
 logger.info('worker started', { queues: Object.values(QUEUES) });
@@ -54,7 +66,7 @@ async function shutdown(signal: string) {
   closing = true;
   logger.info('worker shutting down', { signal });
   // Let active jobs finish before the connections go.
-  await Promise.all([maintenance.close(), clinical.close()]);
+  await Promise.all([maintenance.close(), clinical.close(), planning.close()]);
   await maintenanceQueue.close();
   await jobs.close();
   await ds.destroy();

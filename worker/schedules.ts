@@ -4,5 +4,7 @@ import { JOBS } from '../shared/jobs/catalogue';
 // upsertJobScheduler is idempotent: any number of worker processes starting leaves one schedule each.
 export async function upsertSchedules(maintenance: Queue): Promise<void> {
   await maintenance.upsertJobScheduler('prune-sessions-hourly', { every: 60 * 60 * 1000 }, { name: JOBS.pruneSessions.name, data: {} });
+  // Daily, shortly after midnight UTC: roll plans forward and mark what is now overdue.
+  await maintenance.upsertJobScheduler('daily-schedule', { pattern: '5 0 * * *', tz: 'UTC' }, { name: JOBS.markOverdue.name, data: {} });
   await maintenance.upsertJobScheduler('reconcile-conversions', { every: 60 * 1000 }, { name: JOBS.reconcileConversions.name, data: {} });
 }

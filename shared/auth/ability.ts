@@ -17,6 +17,7 @@ export const SUBJECTS = [
   'Visit',
   'Message',
   'Journey',
+  'StepDown',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -51,7 +52,7 @@ function coordinatorRules({ can }: Builder, p: string) {
   can('read', 'AuditEvent', { programmeId: p });
   can('read', STAFF_READ_ALL, { programmeId: p });
   can(['create', 'update'], ['Infant', 'Visit', 'Journey'], { programmeId: p });
-  can('create', ['Recording', 'Reading'], { programmeId: p });
+  can('create', ['Recording', 'Reading', 'StepDown'], { programmeId: p });
   can('read', 'Message', { programmeId: p });
   can('create', 'ConversionPreview');
 }
@@ -63,7 +64,7 @@ function nurseRules({ can }: Builder, p: string, userId: string) {
   // A nurse works on their own caseload: the infant rows assigned to them.
   can('read', 'Infant', { programmeId: p, nurseId: userId });
   can('read', ['Prescription', 'Reading', 'Recording', 'Visit', 'Journey'], { programmeId: p, nurseId: userId });
-  can('create', ['Reading', 'Recording', 'Visit'], { programmeId: p, nurseId: userId });
+  can('create', ['Reading', 'Recording', 'Visit', 'StepDown'], { programmeId: p, nurseId: userId });
   can('update', 'Visit', { programmeId: p, nurseId: userId });
   can('create', 'ConversionPreview');
 }

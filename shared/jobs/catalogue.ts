@@ -4,6 +4,7 @@ import { z } from 'zod';
 export const QUEUES = {
   maintenance: 'maintenance',
   clinical: 'clinical',
+  planning: 'planning',
 } as const;
 
 export const JOBS = {
@@ -14,6 +15,14 @@ export const JOBS = {
     name: 'convert-prescription',
     payload: z.strictObject({ prescriptionId: z.uuid() }),
   },
+  planInfant: { queue: QUEUES.planning, name: 'plan-infant', payload: z.strictObject({ infantId: z.uuid() }) },
+  replanProgramme: {
+    queue: QUEUES.planning,
+    name: 'replan-programme',
+    payload: z.strictObject({ programmeId: z.uuid(), policyVersion: z.number().int() }),
+  },
+  markOverdue: { queue: QUEUES.maintenance, name: 'mark-overdue', payload: z.strictObject({}) },
+  analyseRecording: { queue: QUEUES.clinical, name: 'analyse-recording', payload: z.strictObject({ recordingId: z.uuid() }) },
 } as const;
 
 export type JobKey = keyof typeof JOBS;
@@ -21,3 +30,10 @@ export type JobPayload<K extends JobKey> = z.infer<(typeof JOBS)[K]['payload']>;
 
 /** One job per prescription version, whatever retries or double clicks happen (BullMQ ids may not contain ':'). */
 export const conversionJobId = (prescriptionId: string) => `convert-${prescriptionId}`;
+
+/** A programme re-plan runs once per policy version. */
+export const replanJobId = (programmeId: string, policyVersion: number) => `replan-${programmeId}-v${policyVersion}`;
+/** While a baby's re-plan waits, further requests fold into it (BullMQ de-duplication). */
+export const planDedupId = (infantId: string) => `plan-${infantId}`;
+/** One analysis per uploaded recording, whatever retries, reconciles or double sends happen. */
+export const recordingJobId = (recordingId: string) => `analyse-${recordingId}`;

@@ -24,7 +24,7 @@ const pressureMmHgSchema = finite('Pressure must be a number of mmHg')
   .max(800, { error: 'Pressure must be at most 800 mmHg' });
 
 const PLACE_KEYS = ['elevationM', 'elevationFt', 'pressureMmHg'] as const;
-const ONE_PLACE_KEY = 'Give exactly one of elevationM, elevationFt or pressureMmHg';
+const ONE_PLACE_KEY = 'Give one of: elevation in metres, elevation in feet, or a measured pressure in mmHg';
 
 // Plain wording for the two structural failures; range messages come from the fields themselves.
 const objectErrors = (notAnObject: string) => ({

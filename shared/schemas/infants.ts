@@ -23,13 +23,15 @@ export const INFANT_STATUS_LABELS: Record<InfantStatus, string> = {
   left_programme: 'Left the programme',
 };
 
-export const INFANT_FLAGS = ['growth_drift', 'new_setting_waiting', 'not_reachable_by_cannula', 'above_cannula_limit'] as const;
+export const INFANT_FLAGS = ['growth_drift', 'new_setting_waiting', 'not_reachable_by_cannula', 'above_cannula_limit', 'check_overdue', 'below_target'] as const;
 export type InfantFlag = (typeof INFANT_FLAGS)[number];
 export const INFANT_FLAG_LABELS: Record<InfantFlag, string> = {
   growth_drift: 'Outgrowing flow',
   new_setting_waiting: 'New setting waiting',
   not_reachable_by_cannula: 'Cannula cannot reach target',
   above_cannula_limit: 'Above cannula limit',
+  check_overdue: 'Check overdue',
+  below_target: 'Below SpO2 target',
 };
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-11-30' });
@@ -84,8 +86,8 @@ export const babySchema = z.strictObject({
   sex: z.enum(['female', 'male', 'unknown'], { error: 'Choose one' }),
   birthDate: isoDate,
   gestation: z.strictObject({
-    weeks: z.number().int().min(22, { error: '22 to 44 weeks' }).max(44, { error: '22 to 44 weeks' }),
-    days: z.number().int().min(0, { error: '0 to 6 days' }).max(6, { error: '0 to 6 days' }),
+    weeks: z.number({ error: 'Enter the completed weeks' }).int({ error: 'Whole weeks' }).min(22, { error: '22 to 44 weeks' }).max(44, { error: '22 to 44 weeks' }),
+    days: z.number({ error: 'Enter the days (0 to 6)' }).int({ error: 'Whole days' }).min(0, { error: '0 to 6 days' }).max(6, { error: '0 to 6 days' }),
   }),
   birthWeightG: z.number({ error: 'Enter the birth weight in grams' }).int().min(300, { error: 'At least 300 g' }).max(6500, { error: 'At most 6500 g' }),
   weightKg: z.number({ error: 'Enter the weight in kg' }).min(0.3, { error: 'At least 0.3 kg' }).max(15, { error: 'At most 15 kg' }),
@@ -175,3 +177,13 @@ export const infantDetailSchema = infantSummarySchema.extend({
   enrolledAt: z.string(),
 });
 export type InfantDetail = z.infer<typeof infantDetailSchema>;
+
+export const auditEventSchema = z.object({
+  id: z.string(),
+  at: z.string(),
+  action: z.string(),
+  actor: z.object({ id: z.uuid(), name: z.string() }).nullable(),
+  details: z.record(z.string(), z.unknown()),
+});
+export type AuditEvent = z.infer<typeof auditEventSchema>;
+export const auditEventsSchema = z.object({ items: z.array(auditEventSchema) });

@@ -12,13 +12,17 @@ export const PRESCRIPTION_STATUS_LABELS: Record<PrescriptionStatus, string> = {
   withdrawn: 'Withdrawn (newer proposal)',
 };
 
-export const PRESCRIPTION_REASONS = ['enrolment', 'weight', 'home_location', 'home_source', 'manual'] as const;
+export const PRESCRIPTION_REASONS = ['enrolment', 'weight', 'home_location', 'home_source', 'manual', 'step_down', 'step_up', 'leave_programme'] as const;
+export type PrescriptionReason = (typeof PRESCRIPTION_REASONS)[number];
 export const PRESCRIPTION_REASON_LABELS: Record<(typeof PRESCRIPTION_REASONS)[number], string> = {
   enrolment: 'Enrolment',
   weight: 'Weight changed',
   home_location: 'Home elevation or pressure changed',
   home_source: 'Home oxygen source changed',
   manual: 'Asked for by staff',
+  step_down: 'Step down',
+  step_up: 'Step back up',
+  leave_programme: 'Leave the programme',
 };
 
 export const periodsSchema = z.strictObject({
@@ -45,6 +49,7 @@ export const prescriptionSchema = z.object({
   source: z.string(),
   sourceO2Percent: z.number(),
   periods: periodsSchema.nullable(),
+  evidence: z.record(z.string(), z.unknown()).nullable().optional(),
   decidedBy: person,
   decidedAt: z.string().nullable(),
   decisionReason: z.string().nullable(),

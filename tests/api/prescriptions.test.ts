@@ -142,3 +142,20 @@ describe('POST /api/conversions/preview', () => {
     await family.post('/api/conversions/preview').set('X-CSRF-Token', family.csrf).send(body).expect(403);
   });
 });
+
+describe('what a family receives', () => {
+  it('when a family reads the approved plan, then the working, the input and staff reasons are left out', async () => {
+    const { rx, consultant, infant, clinic } = await proposal();
+    await consultant.post(`/api/prescriptions/${rx.id}/decision`).set('X-CSRF-Token', consultant.csrf).send({ decision: 'approve', reason: 'Staff-only note' }).expect(200);
+    const family = await signedInAgent(ctx.app, clinic.people.family.email);
+    const [plan] = (await family.get(`/api/infants/${infant.id}/prescriptions`).expect(200)).body.items;
+    expect(plan).toMatchObject({ status: 'active', approvedFlowLpm: rx.proposedFlowLpm, conversion: null, input: {}, decisionReason: null, requiredFlowLpm: null });
+  });
+
+  it('when a part of the day is set below the requirement, then a reason is required', async () => {
+    const { rx, consultant } = await proposal();
+    const res = await consultant.post(`/api/prescriptions/${rx.id}/decision`).set('X-CSRF-Token', consultant.csrf)
+      .send({ decision: 'approve', periods: { awake: rx.proposedFlowLpm, asleep: rx.proposedFlowLpm, feeding: 0 } }).expect(400);
+    expect(res.body.error.details['periods.feeding'][0]).toMatch(/below the required flow/);
+  });
+});

@@ -1,5 +1,5 @@
 import type { AppAbility } from '../../shared/auth/ability';
-import type { Role } from '../../shared/auth/roles';
+import { isStaffRole, type Role } from '../../shared/auth/roles';
 
 export type NavIcon = 'home' | 'people' | 'settings' | 'list' | 'add' | 'day' | 'check' | 'plan';
 
@@ -45,8 +45,17 @@ export function navItemsFor(role: Role, ability: AppAbility): NavItem[] {
 
 const covers = (item: NavItem, path: string) => path === item.to || path.startsWith(`${item.to}/`);
 
+/** Pages reached from a list or a link rather than the menu, with the same kind of rule as the menu items. */
+const LINKED_PAGES: readonly { prefix: string; allowed: (role: Role, ability: AppAbility) => boolean }[] = [
+  // A baby's full record is staff work; a family sees its own plan on the family page instead.
+  { prefix: '/infants/', allowed: (role, a) => isStaffRole(role) && a.can('read', 'Infant') },
+];
+
 export function canVisit(path: string, role: Role, ability: AppAbility): boolean {
-  return navItemsFor(role, ability).some((item) => covers(item, path));
+  return (
+    navItemsFor(role, ability).some((item) => covers(item, path)) ||
+    LINKED_PAGES.some((page) => path.startsWith(page.prefix) && page.allowed(role, ability))
+  );
 }
 
 /** Where to land after sign-in: the requested page if it is this role's, otherwise the role's home. */

@@ -14,9 +14,11 @@ const rolePages: RouteObject[] = [
   { path: 'coordinator', lazy: () => import('./routes/coordinator-home.route') },
   { path: 'enrol', lazy: () => import('./routes/enrol.route') },
   { path: 'caseload', lazy: () => import('./routes/caseload.route') },
+  { path: 'infants/:id', lazy: () => import('./routes/infant-record.route') },
   { path: 'nurse', lazy: () => import('./routes/nurse-home.route') },
   { path: 'consultant', lazy: () => import('./routes/consultant-home.route') },
   { path: 'sign-off', lazy: () => import('./routes/sign-off.route') },
+  { path: 'sign-off/:prescriptionId', lazy: () => import('./routes/sign-off-review.route') },
   { path: 'family', lazy: () => import('./routes/family-home.route') },
 ];
 

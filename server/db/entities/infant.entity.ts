@@ -35,6 +35,7 @@ export class InfantEntity {
   @Column({ type: 'text' }) status: InfantStatus;
   @Column({ type: 'text', array: true }) flags: InfantFlag[];
   @Column({ type: 'integer', name: 'row_version' }) rowVersion: number;
+  @Column({ type: 'timestamptz', name: 'off_oxygen_since', nullable: true }) offOxygenSince: Date | null;
   @Column({ type: 'uuid', name: 'created_by', nullable: true }) createdBy: string | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' }) updatedAt: Date;

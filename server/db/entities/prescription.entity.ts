@@ -1,6 +1,6 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
 import type { PrescriptionConversion } from '../../../shared/clinical/conversion-types';
-import type { PrescriptionStatus } from '../../../shared/schemas/prescriptions';
+import type { PrescriptionReason, PrescriptionStatus } from '../../../shared/schemas/prescriptions';
 import { numeric } from './transformers';
 
 /** One version of a baby's home setting: computed by the worker, a proposal until a consultant decides. */
@@ -11,7 +11,7 @@ export class PrescriptionEntity {
   @Column({ type: 'uuid', name: 'programme_id' }) programmeId: string;
   @Column({ type: 'integer' }) version: number;
   @Column({ type: 'text' }) status: PrescriptionStatus;
-  @Column({ type: 'text' }) reason: 'enrolment' | 'weight' | 'home_location' | 'home_source' | 'manual';
+  @Column({ type: 'text' }) reason: PrescriptionReason;
   @Column({ type: 'jsonb' }) input: Record<string, unknown>;
   @Column({ type: 'jsonb', nullable: true }) result: PrescriptionConversion | null;
   @Column({ type: 'jsonb', nullable: true }) model: Record<string, unknown> | null;
@@ -23,6 +23,8 @@ export class PrescriptionEntity {
   @Column({ type: 'numeric', precision: 6, scale: 3, name: 'approved_weight_kg', nullable: true, transformer: numeric }) approvedWeightKg: number | null;
   @Column({ type: 'text' }) source: string;
   @Column({ type: 'numeric', precision: 5, scale: 2, name: 'source_o2_percent', transformer: numeric }) sourceO2Percent: number;
+  /** For step changes: the study and targets that justified the proposal. */
+  @Column({ type: 'jsonb', nullable: true }) evidence: Record<string, unknown> | null;
   @Column({ type: 'jsonb', nullable: true }) periods: { awake: number; asleep: number; feeding: number } | null;
   @Column({ type: 'uuid', name: 'decided_by', nullable: true }) decidedBy: string | null;
   @Column({ type: 'timestamptz', name: 'decided_at', nullable: true }) decidedAt: Date | null;

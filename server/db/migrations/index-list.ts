@@ -1,4 +1,6 @@
 import { Foundation1764633600000 } from './1764633600000-Foundation';
 import { Enrolment1764720000000 } from './1764720000000-Enrolment';
+import { Recordings1764806400000 } from './1764806400000-Recordings';
+import { Monitoring1764892800000 } from './1764892800000-Monitoring';
 
-export const MIGRATIONS = [Foundation1764633600000, Enrolment1764720000000];
+export const MIGRATIONS = [Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000];

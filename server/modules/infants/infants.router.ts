@@ -42,7 +42,7 @@ export function infantsRouter(service: InfantsService, prescriptions: Prescripti
 
   r.get('/:id/prescriptions', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Infant');
-    res.json(await prescriptions.listForInfant(req.ability, String(req.params.id)));
+    res.json(await prescriptions.listForInfant(req.ability, String(req.params.id), currentUser(req).role));
   });
 
   r.get('/:id/audit', validate({ params: idParamsSchema }), async (req, res) => {

@@ -34,6 +34,20 @@ async function refreshDriftFlag(repos: AppRepos, infant: InfantEntity, m: Entity
   return drift;
 }
 
+/**
+ * A new weight from any source (record edit or a nurse's reading): re-checks growth drift and opens a new proposal,
+ * because the same flow gives a heavier baby less oxygen (STOP-ROP model). Returns the new proposal's id.
+ */
+export async function applyNewWeight(repos: AppRepos, infant: InfantEntity, weightKg: number, weightDate: string, actorId: string | null, m: EntityManager) {
+  if (weightDate < infant.weightDate || Math.abs(weightKg - infant.weightKg) < 1e-9) return null;
+  infant.weightKg = weightKg;
+  infant.weightDate = weightDate;
+  await refreshDriftFlag(repos, infant, m);
+  const rx = await openProposal(repos, infant, 'weight', actorId, m);
+  infant.rowVersion += 1;
+  return rx.id as string;
+}
+
 export async function updateInfant(ds: DataSource, repos: AppRepos, ability: AppAbility, actor: Actor, id: string, input: UpdateInfantInput, today: string) {
   const result = await ds.transaction(async (m) => {
     const infant = await lockEditable(repos, ability, id, m);

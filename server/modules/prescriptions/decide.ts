@@ -10,6 +10,7 @@ import type { AppRepos } from '../../deps';
 import { ConflictError, NotFoundError, ValidationError, type FieldErrors } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 
+const STEP_CHANGE_REASONS: string[] = ['step_down', 'step_up', 'leave_programme'];
 const isStep = (flow: number, steps: readonly number[]) => steps.some((s) => Math.abs(s - flow) <= FLOW_TOLERANCE_LPM);
 
 /** Checks an approval against the programme's flowmeter and the never-below-required rule; returns the flow. */
@@ -19,7 +20,9 @@ function approvedFlow(rx: PrescriptionEntity, input: DecisionInput, steps: reado
   if (flow === null || flow === undefined) {
     throw new ValidationError({ flowLpm: ['No cannula flow reaches the target here: choose a flow and give the reason, or send it back'] });
   }
-  if (!isStep(flow, steps)) errors.flowLpm = ["Choose one of the programme's flowmeter steps"];
+  // Stopping oxygen is a step change to 0 L/min; a conversion proposal never proposes that.
+  const offAllowed = STEP_CHANGE_REASONS.includes(rx.reason) && flow === 0;
+  if (!offAllowed && !isStep(flow, steps)) errors.flowLpm = ["Choose one of the programme's flowmeter steps"];
   const changed = rx.proposedFlowLpm === null || Math.abs(flow - rx.proposedFlowLpm) > FLOW_TOLERANCE_LPM;
   // Compare with the exact computed requirement, not the rounded column copy.
   const required = rx.result?.home.requiredFlowLpm ?? rx.requiredFlowLpm;
@@ -28,6 +31,10 @@ function approvedFlow(rx: PrescriptionEntity, input: DecisionInput, steps: reado
   else if (changed && !input.reason) errors.reason = ['Say why you chose a different flow from the proposal'];
   for (const [period, value] of Object.entries(input.periods ?? {})) {
     if (value !== 0 && !isStep(value, steps)) errors[`periods.${period}`] = ["Choose one of the programme's flowmeter steps, or 0 for off"];
+    // A part of the day below the computed requirement is a lower dose too: its reason must be recorded.
+    else if (required !== null && value < required - FLOW_TOLERANCE_LPM && !input.reason) {
+      errors[`periods.${period}`] = ['This is below the required flow: the reason must be recorded'];
+    }
   }
   if (Object.keys(errors).length) throw new ValidationError(errors);
   return flow;
@@ -36,20 +43,39 @@ function approvedFlow(rx: PrescriptionEntity, input: DecisionInput, steps: reado
 async function approve(repos: AppRepos, rx: PrescriptionEntity, infant: InfantEntity, input: DecisionInput, actor: Actor, m: EntityManager) {
   const policy = await repos.policies.current(rx.programmeId, m);
   const flow = approvedFlow(rx, input, policy.settings.flowmeterStepsLpm);
-  const weightKg = Number((rx.input as { weightKg: number }).weightKg);
+  const weightKg = Number((rx.input as { weightKg?: number }).weightKg ?? infant.weightKg);
   const previous = await repos.prescriptions.active(rx.infantId, m);
   if (previous) {
     previous.status = 'superseded';
     await repos.prescriptions.save(previous, m);
   }
   Object.assign(rx, {
-    status: 'active', approvedFlowLpm: flow, approvedWeightKg: weightKg, periods: input.periods ?? null,
+    status: 'active', approvedFlowLpm: flow, approvedWeightKg: weightKg,
+    // A proposed night-only plan stays so when approved as proposed; a consultant's own flow replaces it.
+    periods: input.periods ?? (input.flowLpm === undefined ? rx.periods : null),
     approvedFio2: effectiveFio2(flow, weightKg, rx.sourceO2Percent / 100),
     decidedBy: actor.id, decidedAt: new Date(), decisionReason: input.reason ?? null,
   });
   await repos.prescriptions.save(rx, m);
-  if (['preparing', 'awaiting_signoff', 'sent_back'].includes(infant.status)) infant.status = 'on_oxygen';
+  nextStatus(rx, infant);
   infant.flags = infant.flags.filter((f) => f !== 'new_setting_waiting' && f !== 'growth_drift');
+}
+
+/** Where the baby is in the programme after an approval. */
+function nextStatus(rx: PrescriptionEntity, infant: InfantEntity) {
+  const noOxygen = (rx.approvedFlowLpm ?? 0) === 0 && !(rx.periods && Object.values(rx.periods).some((v) => v > 0));
+  if (rx.reason === 'leave_programme') {
+    infant.status = 'left_programme';
+  } else if (noOxygen) {
+    infant.status = 'off_oxygen';
+    infant.offOxygenSince = new Date();
+  } else if (rx.reason === 'step_down') {
+    infant.status = 'stepping_down';
+  } else if (['preparing', 'awaiting_signoff', 'sent_back'].includes(infant.status)) {
+    infant.status = 'on_oxygen';
+  }
+  if (!noOxygen) infant.offOxygenSince = null;
+  infant.flags = infant.flags.filter((f) => f !== 'below_target');
 }
 
 async function reject(repos: AppRepos, rx: PrescriptionEntity, infant: InfantEntity, input: DecisionInput, actor: Actor, m: EntityManager) {

@@ -5,21 +5,23 @@ import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { PRESCRIPTION_ACL_COLUMNS } from '../../db/repositories/prescriptions.repository';
 import type { AppRepos } from '../../deps';
+import type { JobProducer } from '../../jobs/producer';
 import { NotFoundError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { todayIn } from '../../lib/dates';
 import { correctedAgeText } from '../infants/infants.mapper';
 import { decidePrescription } from './decide';
-import { toPrescriptionDto } from './prescriptions.mapper';
+import { forFamily, toPrescriptionDto } from './prescriptions.mapper';
 
-export function createPrescriptionsService(ds: DataSource, repos: AppRepos) {
+export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
   return {
-    async listForInfant(ability: AppAbility, infantId: string) {
+    async listForInfant(ability: AppAbility, infantId: string, role?: string) {
       const infant = await repos.infants.findVisible(infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS));
       if (!infant) throw new NotFoundError('No such baby in your records.');
       const rows = await repos.prescriptions.listForInfant(infantId, accessibleWhere(ability, 'read', 'Prescription', PRESCRIPTION_ACL_COLUMNS));
       const names = await repos.infants.peopleNames(rows.map((r) => r.decidedBy));
-      return { items: rows.map((r) => toPrescriptionDto(r, names)) };
+      const items = rows.map((r) => toPrescriptionDto(r, names));
+      return { items: role === 'family' ? items.map(forFamily) : items };
     },
 
     async get(ability: AppAbility, id: string) {
@@ -38,13 +40,15 @@ export function createPrescriptionsService(ds: DataSource, repos: AppRepos) {
           homeElevationM: r.home_elevation_m === null ? null : Number(r.home_elevation_m), homePressureMmHg: Number(r.home_pressure_mmhg),
           siteName: r.site_name, reason: r.reason as QueueItem['reason'],
           proposedFlowLpm: r.proposed_flow_lpm === null ? null : Number(r.proposed_flow_lpm),
-          feasible: r.result?.feasible ?? false, warningCount: r.result?.warnings.length ?? 0, waitingSince: new Date(r.created_at).toISOString(),
+          feasible: r.result ? r.result.feasible : r.proposed_flow_lpm !== null, warningCount: r.result?.warnings.length ?? 0, waitingSince: new Date(r.created_at).toISOString(),
         })),
       };
     },
 
     async decide(ability: AppAbility, actor: Actor, id: string, input: DecisionInput) {
       const rx = await decidePrescription(ds, repos, ability, actor, id, input);
+      // A new active setting changes which checks and reviews are due.
+      if (rx.status === 'active') await jobs.enqueuePlanInfant(rx.infantId);
       return toPrescriptionDto(rx, await repos.infants.peopleNames([rx.decidedBy]));
     },
   };

@@ -72,7 +72,7 @@ describe('conversion preview body schema', () => {
   });
 
   it('when a place has none or more than one of the three keys, then one clear message says so', () => {
-    const oneOf = ['Give exactly one of elevationM, elevationFt or pressureMmHg'];
+    const oneOf = ['Give one of: elevation in metres, elevation in feet, or a measured pressure in mmHg'];
     expect(messagesFor({ ...valid, home: {} })).toEqual({ home: oneOf });
     expect(messagesFor({ ...valid, home: { elevationM: 100, elevationFt: 328 } })).toEqual({ home: oneOf });
     expect(messagesFor({ ...valid, hospital: { elevationM: 0, pressureMmHg: 760 } })).toEqual({ hospital: oneOf });

@@ -1,11 +1,42 @@
-import { PlaceholderPage } from './placeholder-page';
+import { Link } from 'react-router-dom';
+import { buttonClasses } from '../../components/ui/button';
+import { Card } from '../../components/ui/card';
+import { PageHeader } from '../../components/ui/page-header';
+import { CaseloadFilters } from '../../features/infants/components/caseload-filters';
+import { CaseloadTable } from '../../features/infants/components/caseload-table';
+import { useCaseloadView } from '../../features/infants/hooks/use-caseload-view';
+import { useAppAbility } from '../../lib/ability';
+import { useSignedInUser } from '../../lib/signed-in-user';
 
 export function Component() {
+  const user = useSignedInUser();
+  const ability = useAppAbility();
+  const offerMine = user.role === 'consultant';
+  const { query, update } = useCaseloadView({ allowScope: offerMine });
+  const nurse = user.role === 'nurse';
   return (
-    <PlaceholderPage
-      title="Caseload"
-      intro="Babies in the programme, with their current oxygen plan and next check."
-      empty="Nothing here yet: enrolled babies will appear here."
-    />
+    <>
+      <PageHeader
+        title={nurse ? 'My caseload' : 'Caseload'}
+        intro={nurse ? 'The babies you visit, with their current plan.' : 'Babies in the programme, with their current plan.'}
+        actions={
+          ability.can('create', 'Infant') ? (
+            <Link to="/enrol" className={buttonClasses()}>
+              Enrol a baby
+            </Link>
+          ) : undefined
+        }
+      />
+      <Card>
+        <div className="flex flex-col gap-4">
+          <CaseloadFilters query={query} update={update} offerMine={offerMine} />
+          <CaseloadTable
+            query={query}
+            update={update}
+            emptyMessage={nurse ? 'No babies are assigned to you yet.' : 'No babies enrolled yet.'}
+          />
+        </div>
+      </Card>
+    </>
   );
 }

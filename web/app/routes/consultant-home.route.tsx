@@ -1,6 +1,7 @@
+import { Link } from 'react-router-dom';
 import { Card } from '../../components/ui/card';
-import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
+import { QueuePreview } from '../../features/prescriptions/components/queue-preview';
 
 export function Component() {
   return (
@@ -8,10 +9,13 @@ export function Component() {
       <PageHeader title="Overview" intro="Decisions waiting for you, and the babies in the programme." />
       <div className="grid gap-4 md:grid-cols-2">
         <Card title="Waiting for your sign-off">
-          <EmptyState message="Nothing is waiting for sign-off." />
+          <QueuePreview />
         </Card>
         <Card title="Caseload">
-          <EmptyState message="Nothing here yet: enrolled babies will appear here." />
+          <p className="mb-2 text-ink-700">Every baby in the programme, with their status and anything flagged.</p>
+          <Link to="/caseload" className="font-semibold text-brand-700 underline">
+            Open the caseload
+          </Link>
         </Card>
       </div>
     </>

@@ -1,11 +1,11 @@
-import { PlaceholderPage } from './placeholder-page';
+import { PageHeader } from '../../components/ui/page-header';
+import { EnrolForm } from '../../features/infants/components/enrol-form';
 
 export function Component() {
   return (
-    <PlaceholderPage
-      title="Enrol a baby"
-      intro="Take a baby into the programme at discharge: hospital prescription, weight, home elevation, family contacts and equipment."
-      empty="Enrolment is not open yet in this installation."
-    />
+    <>
+      <PageHeader title="Enrol a baby" intro="The baby, the hospital setting, the home and the people to keep informed." />
+      <EnrolForm />
+    </>
   );
 }

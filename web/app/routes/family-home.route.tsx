@@ -1,5 +1,6 @@
 import { Card } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';
+import { OurPlan } from '../../features/family/components/our-plan';
 
 /** Phone-first and large type: families read this at home, often one-handed, often tired. */
 export function Component() {
@@ -9,9 +10,7 @@ export function Component() {
         <h1 className="text-3xl font-bold text-ink-900 sm:text-4xl">Our plan</h1>
         <p className="mt-2 text-xl leading-relaxed text-ink-700">Your baby's oxygen at home, and your next visits.</p>
       </div>
-      <Card title="Home oxygen plan">
-        <EmptyState large message="Your baby's home oxygen plan will show here once the consultant has approved it." />
-      </Card>
+      <OurPlan />
       <Card title="Next visits">
         <EmptyState large message="Visits booked by your home-care team will show here." />
       </Card>

@@ -1,11 +1,11 @@
-import { PlaceholderPage } from './placeholder-page';
+import { PageHeader } from '../../components/ui/page-header';
+import { SignOffQueue } from '../../features/prescriptions/components/sign-off-queue';
 
 export function Component() {
   return (
-    <PlaceholderPage
-      title="Sign-off queue"
-      intro="Proposed home settings, step-downs and journey plans waiting for a consultant's decision."
-      empty="Nothing is waiting for sign-off."
-    />
+    <>
+      <PageHeader title="Sign-off queue" intro="Proposed home settings waiting for your decision, longest wait first." />
+      <SignOffQueue />
+    </>
   );
 }

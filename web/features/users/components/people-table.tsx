@@ -50,7 +50,7 @@ export function PeopleTable() {
   const filtered = Boolean(query.q || query.role);
   return (
     <div className="flex flex-col gap-4">
-      <div className="overflow-x-auto rounded-xl border border-surface-200">
+      <div className="relative overflow-x-auto rounded-xl border border-surface-200">
         <table className="w-full min-w-[44rem] border-collapse text-left">
           <caption className="sr-only">People in the programme, {users.data.total} in all</caption>
           <thead className="bg-surface-100 text-sm text-ink-700">

@@ -1,0 +1,30 @@
+import { Router } from 'express';
+import { idParamsSchema } from '../../../shared/schemas/common';
+import { createReadingSchema, readingsQuerySchema, updateReadingSchema } from '../../../shared/schemas/readings';
+import { validate } from '../../middleware/validate';
+import { requireUser } from '../../middleware/require-user';
+import { actorOf, assertCanAny, currentUser } from '../../lib/http';
+import type { ReadingsService } from './readings.service';
+
+export function readingsRouters(service: ReadingsService) {
+  const infants = Router();
+  infants.use(requireUser);
+  infants.post('/:id/readings', validate({ params: idParamsSchema, body: createReadingSchema }), async (req, res) => {
+    assertCanAny(req, 'create', 'Reading');
+    const user = currentUser(req);
+    res.status(201).json(await service.create(req.ability, { ...actorOf(req), role: user.role, timeZone: user.programmeTimeZone }, String(req.params.id), req.body));
+  });
+  infants.get('/:id/readings', validate({ params: idParamsSchema, query: readingsQuerySchema }), async (req, res) => {
+    assertCanAny(req, 'read', 'Reading');
+    const q = req.query as { from?: string; to?: string };
+    res.json(await service.list(req.ability, String(req.params.id), q.from, q.to));
+  });
+
+  const readings = Router();
+  readings.use(requireUser);
+  readings.patch('/:id', validate({ params: idParamsSchema, body: updateReadingSchema }), async (req, res) => {
+    assertCanAny(req, 'create', 'Reading');
+    res.json(await service.update(req.ability, actorOf(req), String(req.params.id), req.body));
+  });
+  return { infants, readings };
+}

@@ -1,0 +1,43 @@
+import type { AppAbility } from '../../../shared/auth/ability';
+import type { Check, DayItem } from '../../../shared/schemas/schedule';
+import { accessibleWhere } from '../../auth/casl-to-sql';
+import type { CheckEntity } from '../../db/entities/check.entity';
+import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
+import type { AppRepos } from '../../deps';
+import { NotFoundError } from '../../lib/errors';
+import { correctedAgeText } from '../infants/infants.mapper';
+
+const toCheck = (c: CheckEntity): Check => ({
+  id: c.id, infantId: c.infantId, kind: c.kind, planKey: c.planKey, dueAt: c.dueAt.toISOString(), dueDate: c.dueDate, status: c.status,
+  doneAt: c.doneAt?.toISOString() ?? null,
+});
+
+export function createScheduleService(repos: AppRepos) {
+  return {
+    async forInfant(ability: AppAbility, infantId: string) {
+      const infant = await repos.infants.findVisible(infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS));
+      if (!infant) throw new NotFoundError('No such baby in your records.');
+      const all = await repos.checks.forInfant(infantId);
+      return {
+        upcoming: all.filter((c) => c.status === 'planned').map(toCheck),
+        overdue: all.filter((c) => c.status === 'overdue').map(toCheck),
+        done: all.filter((c) => c.status === 'done').slice(-10).reverse().map(toCheck),
+      };
+    },
+
+    async day(ability: AppAbility, today: string): Promise<{ date: string; items: DayItem[] }> {
+      const rows = await repos.checks.day(accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), today);
+      return {
+        date: today,
+        items: rows.map((r) => ({
+          id: r.id, infantId: r.infant_id, kind: r.kind as DayItem['kind'], planKey: r.plan_key, dueAt: new Date(r.due_at).toISOString(), dueDate: r.due_date,
+          status: r.status as DayItem['status'], doneAt: r.done_at ? new Date(r.done_at).toISOString() : null,
+          infantName: `${r.given_name} ${r.family_name}`, homeAddress: r.home_address,
+          activeFlowLpm: r.active_flow_lpm === null ? null : Number(r.active_flow_lpm),
+          correctedAge: correctedAgeText(r.birth_date, r.ga_weeks, r.ga_days, today),
+        })),
+      };
+    },
+  };
+}
+export type ScheduleService = ReturnType<typeof createScheduleService>;

@@ -1,0 +1,153 @@
+import { DEFAULT_ARTEFACT_RULES, medianSamplePeriodSec, orderSamples, type OximetrySample } from '../clinical/oximetry-samples';
+import { resolveColumns, type ColumnMapping, type ResolvedColumns } from './columns';
+import { createCsvTokenizer } from './csv-tokenizer';
+import { RECORDING_LIMITS, type RecordingTimeFormat } from './limits';
+import { isFlaggedStatus, looksLikeSeconds, parseIsoMs, parseSecondsMs, parseValue, type Cell } from './values';
+
+export type RecordingProblemCode = 'empty_file' | 'malformed_csv' | 'wrong_columns' | 'unreadable_rows' | 'too_short' | 'too_long';
+
+/** A typed refusal: the parser never throws on bad input, it returns one of these. */
+export interface RecordingProblem {
+  code: RecordingProblemCode;
+  message: string;
+  line?: number;
+  details?: Record<string, string[]>;
+}
+
+export interface ParsedRecording {
+  /** Time-ordered; tSec counts from the earliest sample, at 1 ms; values at 0.1 (see values.ts). */
+  samples: OximetrySample[];
+  timeFormat: 'iso' | 'seconds';
+  /** The earliest sample's time for ISO files; seconds-from-start files carry no clock time. */
+  startedAt: string | null;
+  samplePeriodSec: number;
+  durationSec: number;
+  dataRows: number;
+  skippedRows: number;
+}
+
+export type RecordingParseResult = { ok: true; recording: ParsedRecording } | { ok: false; problem: RecordingProblem };
+
+export interface RecordingParseOptions {
+  columns?: ColumnMapping;
+  timeFormat?: RecordingTimeFormat;
+}
+
+const MAX_LISTED_LINES = 5;
+
+/** Feeds text in any number of chunks; `finish` gives the recording or the first reason to refuse it. */
+export function createRecordingParser(options: RecordingParseOptions = {}) {
+  let format: 'iso' | 'seconds' | null = options.timeFormat && options.timeFormat !== 'auto' ? options.timeFormat : null;
+  let columns: ResolvedColumns | null = null;
+  let stopped: RecordingProblem | null = null;
+  // Columns rather than an object per row: a night is tens of thousands of rows, and each object is garbage later.
+  const read: ReadColumns = { times: [], spo2: [], pulse: [], flagged: [] };
+  const badLines: string[] = [];
+  let dataRows = 0;
+  let unreadable = 0;
+  let firstBadLine: number | undefined;
+
+  function readTime(raw: string): Cell<number> {
+    if (format === 'seconds') return parseSecondsMs(raw);
+    if (format === 'iso') return parseIsoMs(raw);
+    if (raw.trim() === '') return { ok: false, reason: 'the timestamp is empty' };
+    // 'auto' settles on the first timestamp that reads; every later row must then use the same form.
+    const cell = looksLikeSeconds(raw) ? parseSecondsMs(raw) : parseIsoMs(raw);
+    if (cell.ok) format = looksLikeSeconds(raw) ? 'seconds' : 'iso';
+    return cell;
+  }
+
+  function onRecord(fields: string[], line: number) {
+    if (!columns) {
+      const resolved = resolveColumns(fields, options.columns);
+      if (resolved.ok) {
+        columns = resolved.columns;
+        return null;
+      }
+      stopped = { code: 'wrong_columns', message: resolved.message, line, details: { found: resolved.found, missing: resolved.missing } };
+      return { line, message: resolved.message };
+    }
+    dataRows += 1;
+    const time = readTime(fields[columns.timestamp]);
+    const spo2 = parseValue(fields[columns.spo2], 'SpO2');
+    const pulse: Cell<number | null> = columns.pulse === null ? { ok: true, value: null } : parseValue(fields[columns.pulse], 'pulse');
+    if (!time.ok || !spo2.ok || !pulse.ok) {
+      unreadable += 1;
+      firstBadLine ??= line;
+      const reason = !time.ok ? time.reason : !spo2.ok ? spo2.reason : !pulse.ok ? pulse.reason : '';
+      if (badLines.length < MAX_LISTED_LINES) badLines.push(`line ${line}: ${reason}`);
+      return null;
+    }
+    read.times.push(time.value);
+    read.spo2.push(spo2.value);
+    read.pulse.push(pulse.value);
+    read.flagged.push(columns.status === null ? false : isFlaggedStatus(fields[columns.status]));
+    return null;
+  }
+
+  const tokenizer = createCsvTokenizer(onRecord);
+  const asProblem = (csv: { line: number; message: string }): RecordingProblem =>
+    stopped ?? { code: 'malformed_csv', message: `The file is not valid CSV. ${csv.message}`, line: csv.line, details: { line: [String(csv.line)] } };
+
+  return {
+    push(chunk: string): RecordingProblem | null {
+      const csv = tokenizer.push(chunk);
+      return csv ? asProblem(csv) : null;
+    },
+    finish(): RecordingParseResult {
+      const csv = tokenizer.finish();
+      if (csv) return { ok: false, problem: asProblem(csv) };
+      if (!columns) return { ok: false, problem: { code: 'empty_file', message: 'The file has no rows.' } };
+      const allowed = Math.max(1, Math.floor(dataRows * RECORDING_LIMITS.unreadableRowShare));
+      if (unreadable > allowed) {
+        const message = `${unreadable} of ${dataRows} rows could not be read (at most ${allowed} may be skipped); first at ${badLines[0]}.`;
+        return { ok: false, problem: { code: 'unreadable_rows', message, line: firstBadLine, details: { lines: badLines } } };
+      }
+      return finishSamples(read, format ?? 'iso', dataRows, unreadable);
+    },
+  };
+}
+
+interface ReadColumns {
+  times: number[];
+  spo2: Array<number | null>;
+  pulse: Array<number | null>;
+  flagged: boolean[];
+}
+
+function finishSamples(read: ReadColumns, format: 'iso' | 'seconds', dataRows: number, skippedRows: number): RecordingParseResult {
+  const { times } = read;
+  const n = times.length;
+  if (n < RECORDING_LIMITS.minSamples) {
+    const message = `The file holds ${n} readable sample${n === 1 ? '' : 's'}; at least ${RECORDING_LIMITS.minSamples} are needed.`;
+    return { ok: false, problem: { code: 'too_short', message } };
+  }
+  let ascending = true;
+  let first = times[0];
+  for (let i = 1; i < n; i += 1) {
+    if (times[i] < times[i - 1]) ascending = false;
+    if (times[i] < first) first = times[i];
+  }
+  const order = ascending ? null : Array.from({ length: n }, (_, i) => i).sort((a, b) => times[a] - times[b] || a - b);
+  const samples = new Array<OximetrySample>(n);
+  for (let k = 0; k < n; k += 1) {
+    const i = order ? order[k] : k;
+    samples[k] = { tSec: (times[i] - first) / 1000, spo2: read.spo2[i], pulse: read.pulse[i], flagged: read.flagged[i] };
+  }
+  const samplePeriodSec = medianSamplePeriodSec(orderSamples(samples, DEFAULT_ARTEFACT_RULES));
+  const durationSec = samples[n - 1].tSec + samplePeriodSec;
+  if (durationSec > RECORDING_LIMITS.maxDurationHours * 3600) {
+    const hours = (durationSec / 3600).toFixed(1);
+    const message = `The recording spans ${hours} hours; one upload may span at most ${RECORDING_LIMITS.maxDurationHours} hours (one night).`;
+    return { ok: false, problem: { code: 'too_long', message } };
+  }
+  const startedAt = format === 'iso' ? new Date(first).toISOString() : null;
+  return { ok: true, recording: { samples, timeFormat: format, startedAt, samplePeriodSec, durationSec, dataRows, skippedRows } };
+}
+
+/** The whole text at once; the same result as any chunking of it. */
+export function parseRecordingCsv(text: string, options: RecordingParseOptions = {}): RecordingParseResult {
+  const parser = createRecordingParser(options);
+  const early = parser.push(text);
+  return early ? { ok: false, problem: early } : parser.finish();
+}

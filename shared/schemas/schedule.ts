@@ -1,0 +1,34 @@
+import { z } from 'zod';
+
+export const CHECK_KINDS = ['spot_check', 'overnight_study', 'room_air_challenge', 'step_down_review'] as const;
+export type CheckKind = (typeof CHECK_KINDS)[number];
+export const CHECK_KIND_LABELS: Record<CheckKind, string> = {
+  spot_check: 'Spot check',
+  overnight_study: 'Overnight study',
+  room_air_challenge: 'Room-air challenge',
+  step_down_review: 'Step-down review',
+};
+export const CHECK_STATUSES = ['planned', 'overdue', 'done', 'cancelled'] as const;
+export type CheckStatus = (typeof CHECK_STATUSES)[number];
+
+export const checkSchema = z.object({
+  id: z.uuid(),
+  infantId: z.uuid(),
+  kind: z.enum(CHECK_KINDS),
+  planKey: z.string(),
+  dueAt: z.string(),
+  dueDate: z.string(),
+  status: z.enum(CHECK_STATUSES),
+  doneAt: z.string().nullable(),
+});
+export type Check = z.infer<typeof checkSchema>;
+export const scheduleResponseSchema = z.object({ upcoming: z.array(checkSchema), overdue: z.array(checkSchema), done: z.array(checkSchema) });
+
+export const dayItemSchema = checkSchema.extend({
+  infantName: z.string(),
+  homeAddress: z.string(),
+  activeFlowLpm: z.number().nullable(),
+  correctedAge: z.string(),
+});
+export const myDaySchema = z.object({ date: z.string(), items: z.array(dayItemSchema) });
+export type DayItem = z.infer<typeof dayItemSchema>;

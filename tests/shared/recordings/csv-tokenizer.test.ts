@@ -1,0 +1,115 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { parse as csvParse } from 'csv-parse/sync';
+import { createCsvTokenizer, type CsvProblem } from '../../../shared/recordings/csv-tokenizer';
+
+function tokenize(chunks: string[]) {
+  const records: Array<{ fields: string[]; line: number }> = [];
+  const t = createCsvTokenizer((fields, line) => void records.push({ fields, line }));
+  let problem: CsvProblem | null = null;
+  for (const c of chunks) problem ??= t.push(c);
+  problem ??= t.finish();
+  return { records, problem };
+}
+const rows = (text: string) => tokenize([text]).records.map((r) => r.fields);
+
+function cut(text: string, points: number[]): string[] {
+  const at = [...new Set(points.map((p) => p % (text.length + 1)))].sort((a, b) => a - b);
+  return [...at, text.length].map((p, i) => text.slice(i === 0 ? 0 : at[i - 1], p));
+}
+
+// Characters that exercise every state of the reader.
+const csvish = fc.string({ unit: fc.constantFrom('a', '1', ',', '"', '\n', '\r', ' ', 'é', '\uFEFF'), maxLength: 80 });
+
+describe('CSV reader: examples', () => {
+  it('when fields are quoted, then commas, doubled quotes and line ends inside them are data', () => {
+    expect(rows('a,b\n"x, y","say ""hi"""\n"two\nlines",z\n')).toEqual([['a', 'b'], ['x, y', 'say "hi"'], ['two\nlines', 'z']]);
+  });
+
+  it('when lines end in CRLF or CR, or the file starts with a byte-order mark, then the records are the same', () => {
+    const expected = [['a', 'b'], ['1', '2']];
+    expect(rows('a,b\r\n1,2\r\n')).toEqual(expected);
+    expect(rows('a,b\r1,2')).toEqual(expected);
+    expect(rows('\uFEFFa,b\n1,2\n')).toEqual(expected);
+  });
+
+  it('when blank lines appear, then they are skipped and line numbers still match the file', () => {
+    const { records } = tokenize(['a,b\n\n1,"2\n2"\n\n3,4\n']);
+    expect(records).toEqual([{ fields: ['a', 'b'], line: 1 }, { fields: ['1', '2\n2'], line: 3 }, { fields: ['3', '4'], line: 6 }]);
+  });
+
+  it.each([
+    ['a,b\n1,2\n3\n', 3, /has 1 values but the header has 2/],
+    ['a,b\n1,"2\n3,4\n', 2, /never closed/],
+    ['a,b\n1,2"x\n', 2, /inside a value that does not start with one/],
+    ['a,b\n"1"x,2\n', 2, /only a comma or a line end may follow a closing quote/],
+    ['a,b\n"1\n1",2,3\n', 2, /has 3 values/],
+    ['a,b\r\n"x\r\ny",1\r\n1,2,3\r\n', 4, /has 3 values/],
+  ])('when the text is %j, then it is refused at line %i', (text, line, message) => {
+    const { problem } = tokenize([text]);
+    expect(problem?.line).toBe(line);
+    expect(problem?.message).toMatch(message);
+  });
+});
+
+describe('CSV reader: properties', () => {
+  it('when given any string at all, then it returns records or a problem and never throws', () => {
+    fc.assert(
+      fc.property(fc.oneof(fc.string({ unit: 'binary', maxLength: 200 }), csvish), (text) => {
+        const { problem } = tokenize([text]);
+        if (problem) expect(problem.line).toBeGreaterThanOrEqual(1);
+      }),
+      { numRuns: 2000 },
+    );
+  });
+
+  it('when the text is cut into chunks anywhere, then records, lines and problems are identical', () => {
+    fc.assert(
+      fc.property(csvish, fc.array(fc.nat(), { maxLength: 6 }), (text, points) => {
+        expect(tokenize(cut(text, points))).toEqual(tokenize([text]));
+      }),
+      { numRuns: 2000 },
+    );
+  });
+
+  // csv-parse is the reference: for well-formed tables both readers agree on the records, and for broken ones
+  // on the refusal (one line-end style per file, as csv-parse settles on the first it meets).
+  const table = fc.integer({ min: 1, max: 4 }).chain((width) =>
+    fc.array(fc.array(fc.string({ unit: fc.constantFrom('a', '7', ',', '"', '\n', ' ', '.'), maxLength: 6 }), { minLength: width, maxLength: width }), { minLength: 1, maxLength: 8 }),
+  );
+  const needsQuotes = (f: string) => /[",\n\r]/.test(f) || f === '';
+  const serialise = (records: string[][], eol: string, quoteAll: boolean) =>
+    records.map((r) => r.map((f) => (quoteAll || needsQuotes(f) ? `"${f.replace(/"/g, '""')}"` : f)).join(',')).join(eol) + eol;
+
+  it('when a generated table is written as CSV, then both readers give back exactly that table', () => {
+    fc.assert(
+      fc.property(table, fc.constantFrom('\n', '\r\n'), fc.boolean(), (records, eol, quoteAll) => {
+        const text = serialise(records, eol, quoteAll);
+        expect(rows(text)).toEqual(records);
+        expect(csvParse(text, { bom: true, skip_empty_lines: true })).toEqual(records);
+      }),
+    );
+  });
+
+  it('when a table is damaged at random, then our reader refuses exactly when csv-parse does', () => {
+    const damaged = fc.tuple(table, fc.nat(), fc.constantFrom('"', ',', 'x"', '"x', '\n"')).map(([records, at, junk]) => {
+      const text = serialise(records, '\n', false);
+      const p = at % (text.length + 1);
+      return text.slice(0, p) + junk + text.slice(p);
+    });
+    fc.assert(
+      fc.property(damaged, (text) => {
+        let reference: string[][] | null = null;
+        try {
+          reference = csvParse(text, { bom: true, skip_empty_lines: true });
+        } catch {
+          reference = null;
+        }
+        const ours = tokenize([text]);
+        expect(ours.problem === null).toBe(reference !== null);
+        if (reference) expect(ours.records.map((r) => r.fields)).toEqual(reference);
+      }),
+      { numRuns: 1000 },
+    );
+  });
+});

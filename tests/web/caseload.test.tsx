@@ -1,0 +1,107 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import type { Role } from '../../shared/auth/roles';
+import { INFANT_FLAG_LABELS, INFANT_STATUS_LABELS, type InfantSummary } from '../../shared/schemas/infants';
+import { json, sessionHandler, stubApi } from './support/fake-api';
+import { currentUrl, renderApp } from './support/render-app';
+
+const rows: InfantSummary[] = [
+  {
+    id: '7a7a7a7a-0000-4000-8000-000000000001', name: 'Juniper Ashdown', correctedAge: '6 wk 2 d', homeElevationM: 1780,
+    homePressureMmHg: 614.2, activeFlowLpm: 0.125, status: 'on_oxygen', nurse: { id: '9a9a9a9a-0000-4000-8000-000000000001', name: 'Ada Pennick' },
+    consultant: { id: '9a9a9a9a-0000-4000-8000-000000000002', name: 'Dr Ilse Varga' }, flags: ['growth_drift', 'new_setting_waiting'],
+  },
+  {
+    id: '7a7a7a7a-0000-4000-8000-000000000002', name: 'Tamsin Reedy', correctedAge: '2 wk', homeElevationM: null,
+    homePressureMmHg: 701.46, activeFlowLpm: null, status: 'awaiting_signoff', nurse: null, consultant: null, flags: [],
+  },
+];
+
+function stubCaseload(role: Role, items = rows, total = 60) {
+  const listCalls: URLSearchParams[] = [];
+  stubApi({
+    'GET /api/session': sessionHandler(role),
+    'GET /api/infants': ({ url }) => {
+      listCalls.push(url.searchParams);
+      return json(200, { items, total });
+    },
+  });
+  return listCalls;
+}
+
+describe('Caseload', () => {
+  it('when the list answers, then each baby is a row with a record link, place, flow, status and flag labels', async () => {
+    stubCaseload('coordinator');
+    renderApp('/caseload');
+    const table = await screen.findByRole('table');
+    const body = within(table).getAllByRole('row').slice(1);
+    expect(body).toHaveLength(2);
+    const first = within(body[0]);
+    expect(first.getByRole('link', { name: 'Juniper Ashdown' })).toHaveAttribute('href', `/infants/${rows[0].id}`);
+    expect(first.getByText('1,780 m')).toBeInTheDocument();
+    expect(first.getByText('0.125 L/min')).toBeInTheDocument();
+    expect(first.getByText(INFANT_STATUS_LABELS.on_oxygen)).toBeInTheDocument();
+    expect(first.getByText(INFANT_FLAG_LABELS.growth_drift)).toBeInTheDocument();
+    expect(first.getByText(INFANT_FLAG_LABELS.new_setting_waiting)).toBeInTheDocument();
+    const second = within(body[1]);
+    expect(second.getByText('measured 701.5 mmHg')).toBeInTheDocument();
+    expect(second.getByText(INFANT_STATUS_LABELS.awaiting_signoff)).toBeInTheDocument();
+    expect(second.getAllByText('—').length).toBeGreaterThanOrEqual(3);
+    expect(screen.getByText('Page 1 of 3 · 60 babies')).toBeInTheDocument();
+  });
+
+  it('when sorting, paging and filtering, then each choice goes into the URL and the request', async () => {
+    const listCalls = stubCaseload('coordinator');
+    const { user, router } = renderApp('/caseload');
+    await screen.findByRole('table');
+
+    await user.click(screen.getByRole('button', { name: /^Home elevation/ }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?sort=elevation'));
+    expect(screen.getByRole('columnheader', { name: /Home elevation/ })).toHaveAttribute('aria-sort', 'ascending');
+    await user.click(screen.getByRole('button', { name: /^Home elevation/ }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?sort=-elevation'));
+
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?page=2&sort=-elevation'));
+
+    await user.selectOptions(screen.getByLabelText('Status'), INFANT_STATUS_LABELS.awaiting_signoff);
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?sort=-elevation&status=awaiting_signoff'));
+    await user.selectOptions(screen.getByLabelText('Flag'), INFANT_FLAG_LABELS.growth_drift);
+    await user.type(screen.getByLabelText('Search by name'), 'ash{Enter}');
+    await waitFor(() =>
+      expect(currentUrl(router)).toBe('/caseload?sort=-elevation&status=awaiting_signoff&flag=growth_drift&q=ash'),
+    );
+    await waitFor(() => expect(listCalls.at(-1)?.get('q')).toBe('ash'));
+    expect(Object.fromEntries(listCalls.at(-1)!)).toEqual({
+      page: '1', pageSize: '25', sort: '-elevation', status: 'awaiting_signoff', flag: 'growth_drift', q: 'ash',
+    });
+    expect(screen.queryByLabelText('Only mine')).not.toBeInTheDocument();
+  });
+
+  it('when a consultant ticks "Only mine", then scope=mine is in the URL and the request', async () => {
+    const listCalls = stubCaseload('consultant');
+    const { user, router } = renderApp('/caseload');
+    await screen.findByRole('table');
+    await user.click(screen.getByLabelText('Only mine'));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?scope=mine'));
+    await waitFor(() => expect(listCalls.at(-1)?.get('scope')).toBe('mine'));
+  });
+
+  it('when a nurse opens a link asking for the whole programme, then no scope is sent', async () => {
+    const listCalls = stubCaseload('nurse');
+    renderApp('/caseload?scope=programme');
+    await screen.findByRole('table');
+    expect(listCalls[0].has('scope')).toBe(false);
+    expect(screen.getByRole('heading', { name: 'My caseload' })).toBeInTheDocument();
+    expect(screen.queryByRole('columnheader', { name: 'Nurse' })).not.toBeInTheDocument();
+    expect(screen.getByRole('columnheader', { name: 'Consultant' })).toBeInTheDocument();
+    expect(screen.queryByLabelText('Only mine')).not.toBeInTheDocument();
+  });
+
+  it('when nothing matches, then an empty state says so', async () => {
+    stubCaseload('coordinator', [], 0);
+    renderApp('/caseload?status=left_programme');
+    expect(await screen.findByText('No baby matches these filters.')).toBeInTheDocument();
+    expect(screen.queryByRole('table')).not.toBeInTheDocument();
+  });
+});

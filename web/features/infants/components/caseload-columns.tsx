@@ -1,0 +1,99 @@
+import { Link } from 'react-router-dom';
+import { createColumnHelper, rowPaginationFeature, rowSortingFeature, tableFeatures, type SortingState } from '@tanstack/react-table';
+import {
+  INFANT_FLAG_LABELS,
+  INFANT_SORTS,
+  INFANT_STATUS_LABELS,
+  type InfantStatus,
+  type InfantSummary,
+  type ListInfantsQuery,
+} from '../../../../shared/schemas/infants';
+import { formatFlow, formatMmHg } from '../../../components/clinical/clinical-format';
+import { Badge } from '../../../components/ui/badge';
+
+export const caseloadFeatures = tableFeatures({ rowSortingFeature, rowPaginationFeature });
+const helper = createColumnHelper<typeof caseloadFeatures, InfantSummary>();
+
+type Tone = Parameters<typeof Badge>[0]['tone'];
+export const STATUS_TONES: Record<InfantStatus, Tone> = {
+  preparing: 'muted',
+  awaiting_signoff: 'brand',
+  sent_back: 'danger',
+  on_oxygen: 'ok',
+  stepping_down: 'ok',
+  off_oxygen: 'muted',
+  left_programme: 'muted',
+};
+
+export function placeText(row: Pick<InfantSummary, 'homeElevationM' | 'homePressureMmHg'>): string {
+  return row.homeElevationM === null ? `measured ${formatMmHg(row.homePressureMmHg)} mmHg` : `${row.homeElevationM.toLocaleString('en-GB')} m`;
+}
+
+const allColumns = helper.columns([
+  helper.accessor('name', {
+    header: 'Name',
+    cell: (info) => (
+      <Link to={`/infants/${info.row.original.id}`} className="font-semibold text-brand-700 underline underline-offset-2">
+        {info.getValue()}
+      </Link>
+    ),
+  }),
+  helper.accessor('correctedAge', { header: 'Corrected age' }),
+  helper.accessor('homeElevationM', {
+    id: 'elevation',
+    header: 'Home elevation',
+    cell: (info) => <span className="whitespace-nowrap">{placeText(info.row.original)}</span>,
+  }),
+  helper.accessor('activeFlowLpm', {
+    header: 'Current flow',
+    enableSorting: false,
+    cell: (info) => {
+      const flow = info.getValue();
+      return <span className="whitespace-nowrap">{flow === null ? '—' : `${formatFlow(flow)} L/min`}</span>;
+    },
+  }),
+  helper.accessor('status', {
+    header: 'Status',
+    cell: (info) => (
+      <span className="whitespace-nowrap">
+        <Badge tone={STATUS_TONES[info.getValue()]}>{INFANT_STATUS_LABELS[info.getValue()]}</Badge>
+      </span>
+    ),
+  }),
+  helper.accessor('flags', {
+    header: 'Flags',
+    enableSorting: false,
+    cell: (info) => (
+      <span className="flex flex-col items-start gap-1">
+        {info.getValue().map((flag) => (
+          <Badge key={flag} tone="warn">
+            {INFANT_FLAG_LABELS[flag]}
+          </Badge>
+        ))}
+      </span>
+    ),
+  }),
+  // People last: the clinical state of the baby is what a row is scanned for.
+  helper.accessor((row) => row.nurse?.name ?? '—', { id: 'nurse', header: 'Nurse', enableSorting: false }),
+  helper.accessor((row) => row.consultant?.name ?? '—', { id: 'consultant', header: 'Consultant', enableSorting: false }),
+]);
+
+/** A nurse's list is their own caseload, so a nurse column would repeat their name on every row. */
+export const caseloadColumnsFor = (role: string) =>
+  role === 'nurse' ? allColumns.filter((column) => column.id !== 'nurse') : allColumns;
+
+type Sort = ListInfantsQuery['sort'];
+const SORTABLE = new Set(['name', 'correctedAge', 'elevation', 'status']);
+
+/** `-name` in the URL is `[{ id: 'name', desc: true }]` in the table; sorts without a column show unsorted headers. */
+export function sortToSorting(sort: Sort): SortingState {
+  const id = sort.replace(/^-/, '');
+  return SORTABLE.has(id) ? [{ id, desc: sort.startsWith('-') }] : [];
+}
+
+export function sortingToSort(sorting: SortingState, fallback: Sort): Sort {
+  const first = sorting[0];
+  if (!first) return fallback;
+  const candidate = `${first.desc ? '-' : ''}${first.id}`;
+  return (INFANT_SORTS as readonly string[]).includes(candidate) ? (candidate as Sort) : fallback;
+}

@@ -1,0 +1,59 @@
+import { FormProvider, useForm, type Path } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { replaceContactsSchema, type InfantDetail } from '../../../../shared/schemas/infants';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { errorMessage, isApiError } from '../../../lib/api-error';
+import { useSignedInUser } from '../../../lib/signed-in-user';
+import { useReplaceContacts } from '../api/update-infant';
+import { ContactFields } from './contact-fields';
+
+type ContactsValues = z.input<typeof replaceContactsSchema>;
+
+function toValues(infant: InfantDetail): ContactsValues {
+  return {
+    contacts: infant.contacts.map(({ id: _id, mobile, email, ...rest }) => ({ ...rest, mobile: mobile ?? '', email: email ?? '' })),
+  };
+}
+
+/** Replaces the whole contact list in one save, checked with the same contract as enrolment. */
+export function ContactsEditor({ infant, onDone }: { infant: InfantDetail; onDone: () => void }) {
+  const user = useSignedInUser();
+  const save = useReplaceContacts(infant.id);
+  const form = useForm<ContactsValues, unknown, z.output<typeof replaceContactsSchema>>({
+    resolver: zodResolver(replaceContactsSchema),
+    defaultValues: toValues(infant),
+    mode: 'onTouched',
+  });
+
+  const onSubmit = form.handleSubmit((values) =>
+    save.mutate(values.contacts, {
+      onSuccess: onDone,
+      onError: (error) => {
+        if (!isApiError(error) || !error.details) return;
+        for (const [path, messages] of Object.entries(error.details)) {
+          form.setError(path as Path<ContactsValues>, { type: 'server', message: messages.join(' ') });
+        }
+      },
+    }),
+  );
+
+  const inline = isApiError(save.error) && save.error.code === 'validation_failed';
+  return (
+    <FormProvider {...form}>
+      <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+        {save.isError && <Alert>{inline ? 'Check the highlighted fields.' : errorMessage(save.error)}</Alert>}
+        <ContactFields defaultTimeZone={user.programmeTimeZone} />
+        <div className="flex flex-wrap gap-3">
+          <Button type="submit" disabled={save.isPending}>
+            {save.isPending ? 'Saving…' : 'Save contacts'}
+          </Button>
+          <Button variant="quiet" onClick={onDone} disabled={save.isPending}>
+            Cancel
+          </Button>
+        </div>
+      </form>
+    </FormProvider>
+  );
+}

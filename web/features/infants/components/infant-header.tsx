@@ -1,0 +1,41 @@
+import { INFANT_FLAG_LABELS, INFANT_STATUS_LABELS, type InfantDetail } from '../../../../shared/schemas/infants';
+import { settingText } from '../../../components/clinical/setting-text';
+import { Badge } from '../../../components/ui/badge';
+import { STATUS_TONES } from './caseload-columns';
+import { formatDate, homePlaceText } from './record-format';
+
+function Fact({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <div className="flex flex-col">
+      <dt className="text-sm text-ink-500">{label}</dt>
+      <dd className="font-semibold text-ink-900">{children}</dd>
+    </div>
+  );
+}
+
+export function InfantHeader({ infant }: { infant: InfantDetail }) {
+  const setting = infant.activeSetting;
+  return (
+    <header className="mb-6 flex flex-col gap-4">
+      <div className="flex flex-wrap items-center gap-3">
+        <h1 className="text-2xl font-bold text-ink-900 sm:text-3xl">{infant.name}</h1>
+        <Badge tone={STATUS_TONES[infant.status]}>{INFANT_STATUS_LABELS[infant.status]}</Badge>
+        {infant.flags.map((flag) => (
+          <Badge key={flag} tone="warn">
+            {INFANT_FLAG_LABELS[flag]}
+          </Badge>
+        ))}
+      </div>
+      <dl className="grid grid-cols-1 gap-3 rounded-2xl border border-surface-200 bg-surface-0 p-4 sm:grid-cols-2 lg:grid-cols-4">
+        <Fact label="Corrected age">
+          {infant.correctedAge} <span className="font-normal text-ink-700">(PMA {infant.postmenstrualAge})</span>
+        </Fact>
+        <Fact label="Weight">
+          {infant.weightKg} kg <span className="font-normal text-ink-700">on {formatDate(infant.weightDate)}</span>
+        </Fact>
+        <Fact label="Home">{homePlaceText(infant.homeElevationM, infant.homePressureMmHg)}</Fact>
+        <Fact label="Current plan">{setting ? settingText(setting) : 'No approved setting yet'}</Fact>
+      </dl>
+    </header>
+  );
+}

@@ -1,0 +1,7 @@
+import { formatMmHg } from '../../../components/clinical/clinical-format';
+
+/** The home's air pressure as it was entered: an elevation, or a measured local pressure when there is no elevation. */
+export function homePlaceText(homeElevationM: number | null, homePressureMmHg: number): string {
+  if (homeElevationM !== null) return `${Number(homeElevationM.toFixed(0)).toLocaleString('en-GB')} m`;
+  return `Measured ${formatMmHg(homePressureMmHg)} mmHg`;
+}

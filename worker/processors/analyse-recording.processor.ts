@@ -1,0 +1,30 @@
+import { UnrecoverableError, type Job } from 'bullmq';
+import type { DataSource } from 'typeorm';
+import { JOBS } from '../../shared/jobs/catalogue';
+import type { AppRepos } from '../../server/deps';
+import type { JobProducer } from '../../server/jobs/producer';
+import { analyseRecording } from '../../server/modules/recordings/analyse';
+import { afterStudy } from '../../server/modules/step-downs/after-study';
+
+/** Payload carries only the id; samples are reloaded from PostgreSQL, so retries and duplicates are harmless. */
+export async function analyseRecordingProcessor(job: Job, ds: DataSource, repos: AppRepos, jobs?: JobProducer) {
+  const parsed = JOBS.analyseRecording.payload.safeParse(job.data);
+  if (!parsed.success) throw new UnrecoverableError('analyse-recording: bad payload');
+  const outcome = await analyseRecording(ds, repos, parsed.data.recordingId);
+  if (outcome !== 'done') return { outcome };
+  const after = await afterStudy(ds, repos, parsed.data.recordingId);
+  // A completed study changes what is due next.
+  if (after && jobs) await jobs.enqueuePlanInfant(after.infantId);
+  return { outcome, proposed: after?.proposal?.reason ?? null };
+}
+
+/**
+ * PostgreSQL is the source of truth: a recording still 'queued' (Redis was away at upload, or the job was lost)
+ * or still 'analysing' long after an analysis takes (the worker died, or every retry failed) is enqueued again
+ * under its fixed job id, which BullMQ ignores while that job still exists.
+ */
+export async function reconcileRecordings(repos: AppRepos, jobs: JobProducer, queuedSeconds = 30, analysingSeconds = 600) {
+  const ids = await repos.recordings.stale(queuedSeconds, analysingSeconds);
+  for (const id of ids) await jobs.enqueueAnalysis(id);
+  return { requeued: ids.length };
+}
