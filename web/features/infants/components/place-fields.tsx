@@ -36,7 +36,7 @@ export function PlaceFields({ name }: PlaceFieldsProps) {
   const fieldError = errorText(formState.errors, fieldPath);
   // The shared "exactly one of …" message names the keys; on this screen it can only mean nothing was entered.
   const whole = errorText(formState.errors, name);
-  const wholeError = whole?.startsWith('Give exactly one') ? 'Enter the home elevation or a measured pressure' : whole;
+  const wholeError = whole?.startsWith('Give one of') ? 'Enter the home elevation or a measured pressure' : whole;
   return (
     <div className="flex flex-col gap-3">
       <ChoiceGroup legend="Where the home is" hint="Give the elevation, or an air pressure measured at home." inline>
