@@ -3,6 +3,7 @@ import { loadEnv } from '../server/env';
 import { closeDeps, createDeps } from '../server/deps';
 import { seedPeople } from './seed-people';
 import { seedBabies } from './seed-babies';
+import { seedMonitoring } from './seed-monitoring';
 
 const env = loadEnv();
 if (env.NODE_ENV === 'production') {
@@ -13,7 +14,8 @@ const deps = await createDeps(env, 'seed');
 try {
   const people = await seedPeople(deps);
   const babies = (await seedBabies(deps, 'larkmoor', 40)) + (await seedBabies(deps, 'saltmarsh', 12));
-  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies).`);
+  const studies = await seedMonitoring(deps, 'larkmoor');
+  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies).`);
 } finally {
   await closeDeps(deps);
 }
