@@ -92,3 +92,8 @@ export const updatePolicySchema = z.strictObject({
   settings: policySettingsSchema,
 });
 export type UpdatePolicyInput = z.infer<typeof updatePolicySchema>;
+
+export const policyHistorySchema = z.object({
+  items: z.array(z.object({ version: z.number().int(), createdAt: z.string(), createdBy: z.object({ id: z.uuid(), name: z.string() }).nullable() })),
+});
+export type PolicyHistory = z.infer<typeof policyHistorySchema>;

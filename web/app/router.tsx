@@ -15,6 +15,7 @@ const rolePages: RouteObject[] = [
   { path: 'enrol', lazy: () => import('./routes/enrol.route') },
   { path: 'caseload', lazy: () => import('./routes/caseload.route') },
   { path: 'infants/:id', lazy: () => import('./routes/infant-record.route') },
+  { path: 'infants/:id/reading', lazy: () => import('./routes/reading.route') },
   { path: 'nurse', lazy: () => import('./routes/nurse-home.route') },
   { path: 'consultant', lazy: () => import('./routes/consultant-home.route') },
   { path: 'sign-off', lazy: () => import('./routes/sign-off.route') },

@@ -53,6 +53,8 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
         if (input.checkId && family) throw new ValidationError({ checkId: ['Family readings do not complete planned checks'] });
         const check = input.checkId ? await repos.checks.findOpen(input.checkId, infant.id, m) : null;
         if (input.checkId && !check) throw new ValidationError({ checkId: ['That check is not open for this baby'] });
+        // A spot reading cannot stand in for an overnight study, a room-air challenge or a consultant's review.
+        if (check && check.kind !== 'spot_check') throw new ValidationError({ checkId: ['Only a spot check is completed by a single reading'] });
         const reading = await repos.readings.insert(
           { programmeId: infant.programmeId, infantId: infant.id, checkId: check?.id ?? null, takenAt, spo2: input.spo2, pulse: input.pulse ?? null,
             flowLpm: input.flowLpm ?? null, state: input.state, weightKg: input.weightKg ?? null, notes: input.notes ?? null, familyReported: family, createdBy: actor.id },

@@ -1,11 +1,16 @@
-import { PlaceholderPage } from './placeholder-page';
+import { PageHeader } from '../../components/ui/page-header';
+import { PolicyPage } from '../../features/policy/components/policy-page';
+import { useAppAbility } from '../../lib/ability';
 
 export function Component() {
+  const ability = useAppAbility();
   return (
-    <PlaceholderPage
-      title="Programme settings"
-      intro="Saturation targets, the visit and check schedule, and the flowmeter steps your equipment offers."
-      empty="Nothing here yet: programme settings will be editable here."
-    />
+    <>
+      <PageHeader
+        title="Programme settings"
+        intro="Saturation targets, the check schedule, stepping down and the equipment your programme uses. Each save is a new version; checks are planned again from it."
+      />
+      <PolicyPage readOnly={!ability.can('update', 'Policy')} />
+    </>
   );
 }

@@ -1,0 +1,97 @@
+import { configure, screen, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import type { DayItem } from '../../shared/schemas/schedule';
+import { json, sessionHandler, stubApi } from './support/fake-api';
+import { renderApp } from './support/render-app';
+
+const TODAY = '2026-12-01';
+
+function dayItem(overrides: Partial<DayItem> = {}): DayItem {
+  return {
+    id: 'c1c1c1c1-0000-4000-8000-000000000001',
+    infantId: 'a1a1a1a1-0000-4000-8000-000000000001',
+    kind: 'spot_check',
+    planKey: 'week-1',
+    dueAt: `${TODAY}T23:59:00.000Z`,
+    dueDate: TODAY,
+    status: 'planned',
+    doneAt: null,
+    infantName: 'Juniper Ashcombe',
+    homeAddress: '4 Quarry Lane, Tallow Ridge',
+    activeFlowLpm: 0.25,
+    correctedAge: '6 weeks 2 days',
+    ...overrides,
+  };
+}
+
+const DAY_ITEMS: DayItem[] = [
+  dayItem({
+    id: 'c1c1c1c1-0000-4000-8000-000000000002', infantId: 'a1a1a1a1-0000-4000-8000-000000000002', infantName: 'Wren Thackeray',
+    homeAddress: '2 Mill Row, Emberly', status: 'overdue', dueDate: '2026-11-28', dueAt: '2026-11-28T23:59:00.000Z', activeFlowLpm: 0.125,
+  }),
+  dayItem(),
+  dayItem({
+    id: 'c1c1c1c1-0000-4000-8000-000000000003', infantId: 'a1a1a1a1-0000-4000-8000-000000000003', infantName: 'Ada Brindlewood',
+    kind: 'room_air_challenge', homeAddress: '9 Saddle Way, High Saddle', activeFlowLpm: null,
+  }),
+];
+
+// The first visit loads the lazy page module; with every web test file running at once that can take a few seconds.
+configure({ asyncUtilTimeout: 5000 });
+
+describe('My day', () => {
+  it('when the day has checks, then they are listed in the order the server planned the round, with overdue said in words', async () => {
+    stubApi({
+      'GET /api/session': sessionHandler('nurse'),
+      'GET /api/my-day': () => json(200, { date: TODAY, items: DAY_ITEMS }),
+    });
+    renderApp('/nurse');
+
+    const list = await screen.findByRole('list', { name: 'Checks in route order' });
+    const cards = within(list).getAllByRole('listitem');
+    expect(cards.map((card) => within(card).getByRole('button').textContent)).toEqual([
+      expect.stringContaining('Wren Thackeray'),
+      expect.stringContaining('Juniper Ashcombe'),
+      expect.stringContaining('Ada Brindlewood'),
+    ]);
+
+    const first = within(cards[0]);
+    expect(first.getByText('Overdue since Sat 28 Nov')).toBeInTheDocument();
+    expect(first.getByText('Spot check')).toBeInTheDocument();
+    expect(first.getByText('Corrected age 6 weeks 2 days')).toBeInTheDocument();
+    expect(first.getByText('2 Mill Row, Emberly')).toBeInTheDocument();
+    expect(first.getByText('0.125 L/min')).toBeInTheDocument();
+
+    expect(within(cards[1]).getByText('Due today')).toBeInTheDocument();
+    expect(within(cards[1]).queryByText(/Overdue/)).not.toBeInTheDocument();
+    expect(within(cards[2]).getByText('Room-air challenge')).toBeInTheDocument();
+    expect(within(cards[2]).getByText('No approved setting')).toBeInTheDocument();
+    expect(screen.getByRole('heading', { name: /Tuesday 1 December · 3 checks, in route order/ })).toBeInTheDocument();
+  });
+
+  it('when a card is tapped, then its reading form opens with the current flow filled in', async () => {
+    stubApi({
+      'GET /api/session': sessionHandler('nurse'),
+      'GET /api/my-day': () => json(200, { date: TODAY, items: DAY_ITEMS }),
+    });
+    const { user } = renderApp('/nurse');
+    const card = await screen.findByRole('button', { name: /Wren Thackeray/ });
+    expect(card).toHaveAttribute('aria-expanded', 'false');
+    await user.click(card);
+    expect(card).toHaveAttribute('aria-expanded', 'true');
+    const form = screen.getByRole('form', { name: 'Spot reading' });
+    expect(within(form).getByLabelText('SpO2 (%)')).toHaveAttribute('inputmode', 'numeric');
+    expect(within(form).getByLabelText('Flow at the time (L/min)')).toHaveValue(0.125);
+    expect(within(form).getByLabelText('Weight (kg, optional)')).toHaveAttribute('inputmode', 'decimal');
+    expect(within(form).getAllByRole('radio').map((radio) => radio.closest('label')?.textContent)).toEqual(['Awake', 'Asleep', 'Feeding', 'Crying']);
+  });
+
+  it('when nothing is due, then the page says so', async () => {
+    stubApi({
+      'GET /api/session': sessionHandler('nurse'),
+      'GET /api/my-day': () => json(200, { date: TODAY, items: [] }),
+    });
+    renderApp('/nurse');
+    expect(await screen.findByText('Nothing due today.')).toBeInTheDocument();
+  });
+});

@@ -1,0 +1,149 @@
+import { configure, screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { DEFAULT_POLICY_SETTINGS, type Policy } from '../../shared/schemas/policy';
+import { apiError, json, PROGRAMME_ID, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
+import { renderApp } from './support/render-app';
+
+// The settings page is a long form; with every web test file running at once its first render can take a while.
+configure({ asyncUtilTimeout: 5000 });
+
+const policy = (version: number, settings = DEFAULT_POLICY_SETTINGS): Policy => ({
+  programmeId: PROGRAMME_ID, version, settings, createdAt: '2026-11-20T09:30:00.000Z', createdBy: { id: '00000001-1111-4111-8111-111111111111', name: 'Maren Holloway' },
+});
+
+const history = [
+  { version: 3, createdAt: '2026-11-02T10:00:00.000Z', createdBy: { id: '00000001-1111-4111-8111-111111111111', name: 'Maren Holloway' } },
+  { version: 4, createdAt: '2026-11-20T09:30:00.000Z', createdBy: { id: '00000001-1111-4111-8111-111111111111', name: 'Maren Holloway' } },
+];
+
+function stubPolicy(put: (request: FakeRequest) => Response, current: () => Policy = () => policy(4)) {
+  const puts: FakeRequest[] = [];
+  stubApi({
+    'GET /api/session': sessionHandler('admin'),
+    'GET /api/policy': () => json(200, current()),
+    'GET /api/policy/history': () => json(200, { items: history }),
+    'PUT /api/policy': (request) => {
+      puts.push(request);
+      return put(request);
+    },
+  });
+  return { puts };
+}
+
+async function openSettings() {
+  const app = renderApp('/admin/settings');
+  const form = await screen.findByRole('form', { name: 'Programme settings' });
+  return { ...app, form: within(form) };
+}
+
+describe('Programme settings', { timeout: 20_000 }, () => {
+  it('when opened, then each sourced default names its source and the settings are shown in the units people use', async () => {
+    stubPolicy(() => json(500));
+    const { form } = await openSettings();
+    expect(form.getByLabelText('Overnight mean SpO2, at least (%)')).toHaveAccessibleDescription(/Default 93 % — TSANZ 2020 \/ BTS 2009/);
+    expect(form.getByLabelText('Time below 90 % SpO2, less than (% of the night)')).toHaveAccessibleDescription(/Default 5 % — TSANZ 2020 \/ BTS 2009/);
+    expect(form.getByLabelText(/With pulmonary hypertension/)).toHaveAccessibleDescription(/Default 95 % — Starship guideline/);
+    expect(form.getByLabelText('First home check within (hours)')).toHaveAccessibleDescription(/Default 72 — common practice/);
+    expect(form.getByLabelText('Flowmeter steps down at a time')).toHaveAccessibleDescription(/common practice/);
+    expect(form.getByLabelText('Flowmeter steps (L/min)')).toHaveValue(DEFAULT_POLICY_SETTINGS.flowmeterStepsLpm.join(', '));
+    expect(form.getByLabelText(/Flag growth drift/)).toHaveValue(1);
+    expect(form.getByLabelText('Air pressure from elevation')).toHaveDisplayValue('International Standard Atmosphere (1976)');
+    const versions = await screen.findByRole('list', { name: 'Versions, newest first' });
+    expect(within(versions).getAllByRole('listitem').map((row) => row.textContent)).toEqual([
+      expect.stringMatching(/^Version 4In use/), expect.stringMatching(/^Version 3/),
+    ]);
+  });
+
+  it('when the steps are not ascending, then the form says so and nothing is sent', async () => {
+    const { puts } = stubPolicy(() => json(500));
+    const { user, form } = await openSettings();
+    const steps = form.getByLabelText('Flowmeter steps (L/min)');
+    await user.clear(steps);
+    await user.type(steps, '0.5, 0.25');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+    expect(await form.findByText('Flowmeter steps must be in ascending order without repeats')).toBeInTheDocument();
+    expect(steps).toHaveAttribute('aria-invalid', 'true');
+    expect(puts).toHaveLength(0);
+
+    await user.clear(steps);
+    await user.type(steps, '0.05, 0.1a');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+    expect(await form.findByText(/“0.1a” is not a number/)).toBeInTheDocument();
+    expect(puts).toHaveLength(0);
+  });
+
+  it('when saved, then the steps go as ascending numbers, the drift as a fraction, with the base version, and the new version is announced', async () => {
+    let saved: Policy | undefined;
+    const { puts } = stubPolicy(
+      (request) => {
+        saved = { ...policy(5), settings: (request.body as { settings: Policy['settings'] }).settings };
+        return json(200, saved);
+      },
+      () => saved ?? policy(4),
+    );
+    const { user, form } = await openSettings();
+    const steps = form.getByLabelText('Flowmeter steps (L/min)');
+    await user.clear(steps);
+    await user.type(steps, '0.05, 0.1,0.25 , 0.5');
+    const drift = form.getByLabelText(/Flag growth drift/);
+    await user.clear(drift);
+    await user.type(drift, '1.5');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+
+    await waitFor(() => expect(puts).toHaveLength(1));
+    expect(puts[0].body).toEqual({
+      baseVersion: 4,
+      settings: { ...DEFAULT_POLICY_SETTINGS, flowmeterStepsLpm: [0.05, 0.1, 0.25, 0.5], driftThresholdFio2: 0.015 },
+    });
+    expect(await screen.findByText('Saved as version 5.')).toBeInTheDocument();
+    expect(await screen.findByRole('button', { name: 'Save as version 6' })).toBeDisabled();
+    expect(screen.getByLabelText('Flowmeter steps (L/min)')).toHaveValue('0.05, 0.1, 0.25, 0.5');
+  });
+
+  it('when someone else saved meanwhile, then the 409 is explained and a reload brings the newer version', async () => {
+    let current = policy(4);
+    stubPolicy(() => {
+      current = policy(5, { ...DEFAULT_POLICY_SETTINGS, readingEditWindowMinutes: 45 });
+      return apiError(409, 'conflict', 'The settings were changed meanwhile (now version 5). Reload and make your change again.');
+    }, () => current);
+    const { user, form } = await openSettings();
+    const window = form.getByLabelText('Time to correct a saved reading (minutes)');
+    await user.clear(window);
+    await user.type(window, '20');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+
+    expect(await screen.findByText(/changed meanwhile \(now version 5\)/)).toBeInTheDocument();
+    expect(window).toHaveValue(20);
+    await user.click(screen.getByRole('button', { name: 'Reload the settings' }));
+    await waitFor(() => expect(screen.getByLabelText('Time to correct a saved reading (minutes)')).toHaveValue(45));
+    expect(screen.getByRole('button', { name: 'Save as version 6' })).toBeInTheDocument();
+    expect(screen.queryByText(/changed meanwhile/)).not.toBeInTheDocument();
+  });
+
+  it('when the server refuses a setting, then its message sits beside that field', async () => {
+    stubPolicy(() => apiError(400, 'validation_failed', 'Check the highlighted fields.', {
+      'settings.spo2Targets.overnightMeanMin': ['Must not be below the pulmonary hypertension target'],
+      'settings.flowmeterStepsLpm.2': ['Not a step this flowmeter has'],
+    }));
+    const { user, form } = await openSettings();
+    const mean = form.getByLabelText('Overnight mean SpO2, at least (%)');
+    await user.clear(mean);
+    await user.type(mean, '96');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+    expect(await form.findByText('Must not be below the pulmonary hypertension target')).toBeInTheDocument();
+    expect(mean).toHaveAttribute('aria-invalid', 'true');
+    expect(mean).toHaveValue(96);
+    expect(form.getByText('Not a step this flowmeter has')).toBeInTheDocument();
+  });
+
+  it('when a number is out of range, then the range is said in plain words', async () => {
+    const { puts } = stubPolicy(() => json(500));
+    const { user, form } = await openSettings();
+    const mean = form.getByLabelText('Overnight mean SpO2, at least (%)');
+    await user.clear(mean);
+    await user.type(mean, '80');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+    expect(await form.findByText('Use a value from 85 to 100')).toBeInTheDocument();
+    expect(puts).toHaveLength(0);
+  });
+});

@@ -1,0 +1,75 @@
+import { useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { Link, useParams } from 'react-router-dom';
+import type { Reading } from '../../../shared/schemas/readings';
+import { Alert } from '../../components/ui/alert';
+import { Card } from '../../components/ui/card';
+import { EmptyState } from '../../components/ui/empty-state';
+import { PageHeader } from '../../components/ui/page-header';
+import { Spinner } from '../../components/ui/spinner';
+import { useInfant } from '../../features/infants/api/get-infant';
+import { infantKeys } from '../../features/infants/api/infant-keys';
+import { myDayKeys } from '../../features/my-day/api/my-day-keys';
+import { ReadingForm } from '../../features/readings/components/reading-form';
+import { SavedReading } from '../../features/readings/components/saved-reading';
+import { useAppAbility } from '../../lib/ability';
+import { isApiError } from '../../lib/api-error';
+
+const backLink = (id: string) => (
+  <Link to={`/infants/${id}`} className="font-semibold text-brand-700 underline">
+    Back to the baby’s record
+  </Link>
+);
+
+/** "Log a reading" for any baby on the caseload, outside the day's planned checks. */
+export function Component() {
+  const { id = '' } = useParams();
+  const ability = useAppAbility();
+  const queryClient = useQueryClient();
+  const infant = useInfant(id);
+  const [savedIds, setSavedIds] = useState<string[]>([]);
+
+  if (!ability.can('create', 'Reading')) {
+    return (
+      <>
+        <PageHeader title="Log a reading" />
+        <EmptyState message="Readings are logged by the baby’s nurse or the coordinator.">{backLink(id)}</EmptyState>
+      </>
+    );
+  }
+  if (infant.isPending) return <Spinner label="Loading the baby" />;
+  if (infant.isError) {
+    if (isApiError(infant.error) && [400, 404].includes(infant.error.status)) {
+      return (
+        <>
+          <PageHeader title="No such baby in your records" />
+          <EmptyState message="This baby is not in your records. The link may be wrong, or the baby may be looked after by another team." />
+        </>
+      );
+    }
+    return <Alert>{infant.error.message}</Alert>;
+  }
+
+  const baby = infant.data;
+  const onSaved = (reading: Reading) => {
+    setSavedIds((ids) => [reading.id, ...ids]);
+    void queryClient.invalidateQueries({ queryKey: infantKeys.detail(baby.id) });
+    void queryClient.invalidateQueries({ queryKey: infantKeys.lists() });
+    void queryClient.invalidateQueries({ queryKey: myDayKeys.all });
+  };
+
+  return (
+    <>
+      <PageHeader title={`Log a reading: ${baby.name}`} intro={`Corrected age ${baby.correctedAge} · ${baby.home.address}`} actions={backLink(baby.id)} />
+      <div className="flex max-w-2xl flex-col gap-6">
+        {savedIds.map((readingId) => (
+          <SavedReading key={readingId} infantId={baby.id} readingId={readingId}
+            onDismiss={() => setSavedIds((ids) => ids.filter((other) => other !== readingId))} />
+        ))}
+        <Card title={savedIds.length ? 'Another reading' : 'Spot reading'}>
+          <ReadingForm infantId={baby.id} defaultFlowLpm={baby.activeSetting?.flowLpm ?? null} onSaved={onSaved} />
+        </Card>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,4 @@
+export const myDayKeys = {
+  all: ['my-day'] as const,
+  today: () => [...myDayKeys.all, 'today'] as const,
+};

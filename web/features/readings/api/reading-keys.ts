@@ -1,0 +1,7 @@
+export const readingKeys = {
+  all: ['readings'] as const,
+  lists: () => [...readingKeys.all, 'list'] as const,
+  list: (infantId: string) => [...readingKeys.lists(), infantId] as const,
+  details: () => [...readingKeys.all, 'detail'] as const,
+  detail: (readingId: string) => [...readingKeys.details(), readingId] as const,
+};

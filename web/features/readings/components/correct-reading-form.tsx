@@ -1,0 +1,63 @@
+import { FormProvider, useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { updateReadingSchema, type Reading, type UpdateReadingInput } from '../../../../shared/schemas/readings';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { errorMessage, isApiError } from '../../../lib/api-error';
+import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { useUpdateReading } from '../api/update-reading';
+import { FigureFields, NotesField, StateChoice } from './reading-fields';
+
+type Values = z.input<typeof updateReadingSchema>;
+const FIELDS = ['spo2', 'pulse', 'flowLpm', 'state', 'notes'] as const;
+
+const toValues = (r: Reading): Values => ({
+  spo2: r.spo2, pulse: r.pulse ?? undefined, flowLpm: r.flowLpm ?? undefined, state: r.state, notes: r.notes ?? undefined,
+});
+
+/** Only what changed is sent, so the record of the correction names the real change. */
+function changesOnly(values: UpdateReadingInput, before: Values): UpdateReadingInput {
+  return Object.fromEntries(
+    Object.entries(values).filter(([key, value]) => value !== undefined && value !== before[key as keyof Values]),
+  ) as UpdateReadingInput;
+}
+
+export function CorrectReadingForm({ reading, onDone }: { reading: Reading; onDone: () => void }) {
+  const update = useUpdateReading(reading.id);
+  const form = useForm<Values, unknown, UpdateReadingInput>({ resolver: zodResolver(updateReadingSchema), defaultValues: toValues(reading) });
+
+  const onSubmit = form.handleSubmit((values) => {
+    const patch = changesOnly(values, toValues(reading));
+    if (Object.keys(patch).length === 0) return onDone();
+    update.mutate(patch, {
+      onSuccess: onDone,
+      onError: (error) => {
+        const leftover = applyServerFieldErrors(error, form.setError, FIELDS);
+        if (leftover.length) form.setError('root.server', { type: 'server', message: leftover.join(' ') });
+      },
+    });
+  });
+
+  const fieldErrors = isApiError(update.error) && update.error.code === 'validation_failed';
+  const problem = form.formState.errors.root?.server?.message ?? (update.isError && !fieldErrors ? errorMessage(update.error) : undefined);
+
+  return (
+    <FormProvider {...form}>
+      <form onSubmit={onSubmit} noValidate aria-label="Correct the reading" className="flex flex-col gap-4">
+        {problem && <Alert>{problem}</Alert>}
+        <FigureFields />
+        <StateChoice />
+        <NotesField />
+        <div className="flex flex-wrap gap-3">
+          <Button type="submit" disabled={update.isPending}>
+            {update.isPending ? 'Saving…' : 'Save correction'}
+          </Button>
+          <Button variant="quiet" onClick={onDone} disabled={update.isPending}>
+            Cancel
+          </Button>
+        </div>
+      </form>
+    </FormProvider>
+  );
+}

@@ -1,0 +1,83 @@
+import { useRef } from 'react';
+import { FormProvider, useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { createReadingSchema, type CreateReadingInput, type Reading } from '../../../../shared/schemas/readings';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { TextField } from '../../../components/ui/field';
+import { errorMessage, isApiError } from '../../../lib/api-error';
+import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { useCreateReading } from '../api/create-reading';
+import { FigureFields, NotesField, StateChoice } from './reading-fields';
+import { asNumber } from './reading-values';
+import { TakenAtField } from './taken-at-field';
+
+export interface ReadingFormProps {
+  infantId: string;
+  /** The planned check this reading completes (from the nurse's day). */
+  checkId?: string;
+  /** The baby's current flow, so the usual case needs no typing. */
+  defaultFlowLpm?: number | null;
+  onSaved?: (reading: Reading) => void;
+}
+
+type Values = z.input<typeof createReadingSchema>;
+const FIELDS = ['takenAt', 'spo2', 'pulse', 'flowLpm', 'state', 'weightKg', 'notes'] as const;
+
+const freshValues = (checkId?: string, defaultFlowLpm?: number | null): Values =>
+  ({ takenAt: new Date().toISOString(), flowLpm: defaultFlowLpm ?? undefined, checkId }) as Values;
+
+/** The quick spot reading: a nurse at the door fills it with a thumb and saves it with one tap. */
+export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved }: ReadingFormProps) {
+  const create = useCreateReading(infantId);
+  // A second tap can land before the button re-renders as disabled; one reading must not be stored twice.
+  const sending = useRef(false);
+  const form = useForm<Values, unknown, CreateReadingInput>({
+    resolver: zodResolver(createReadingSchema),
+    defaultValues: freshValues(checkId, defaultFlowLpm),
+  });
+  const { register, formState, setError } = form;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    if (sending.current) return;
+    sending.current = true;
+    // "Now" means when it is saved, unless the nurse set the time herself.
+    const untouched = values.takenAt === formState.defaultValues?.takenAt;
+    const input = untouched ? { ...values, takenAt: new Date().toISOString() } : values;
+    try {
+      const reading = await create.mutateAsync(input);
+      form.reset(freshValues(checkId, defaultFlowLpm));
+      onSaved?.(reading);
+    } catch (error) {
+      const leftover = applyServerFieldErrors(error, setError, FIELDS);
+      if (leftover.length) setError('root.server', { type: 'server', message: leftover.join(' ') });
+      // On a phone the faulted field may be off screen: take the nurse to it.
+      const first = FIELDS.find((field) => isApiError(error) && error.details?.[field]);
+      if (first) form.setFocus(first);
+    } finally {
+      sending.current = false;
+    }
+  });
+
+  const fieldErrors = isApiError(create.error) && create.error.code === 'validation_failed';
+  const problem = formState.errors.root?.server?.message ?? (create.isError && !fieldErrors ? errorMessage(create.error) : undefined);
+  const busy = create.isPending || formState.isSubmitting;
+
+  return (
+    <FormProvider {...form}>
+      <form onSubmit={onSubmit} noValidate aria-label="Spot reading" className="flex flex-col gap-4">
+        {problem && <Alert>{problem}</Alert>}
+        <FigureFields />
+        <StateChoice />
+        <TextField label="Weight (kg, optional)" type="number" inputMode="decimal" step="any" autoComplete="off" className="min-h-12 text-xl tabular-nums"
+          hint="Only if the baby was weighed today" error={formState.errors.weightKg?.message} {...register('weightKg', asNumber)} />
+        <NotesField />
+        <TakenAtField control={form.control} />
+        <Button type="submit" size="lg" disabled={busy} className="w-full">
+          {busy ? 'Saving…' : 'Save reading'}
+        </Button>
+      </form>
+    </FormProvider>
+  );
+}
