@@ -30,5 +30,11 @@ export const dayItemSchema = checkSchema.extend({
   activeFlowLpm: z.number().nullable(),
   correctedAge: z.string(),
 });
-export const myDaySchema = z.object({ date: z.string(), items: z.array(dayItemSchema) });
+export const myDaySchema = z.object({
+  date: z.string(),
+  /** Due today or overdue, in route order. */
+  items: z.array(dayItemSchema),
+  /** Due in the next seven days, by date: what the round will bring (follow-up studies after a step down, etc.). */
+  upcoming: z.array(dayItemSchema).default([]),
+});
 export type DayItem = z.infer<typeof dayItemSchema>;

@@ -142,6 +142,9 @@ describe('stepping down', () => {
     expect(detail.status).toBe('stepping_down');
     const s = (await nurse.get(`/api/infants/${infant.id}/schedule`)).body;
     expect(s.upcoming.map((c: { planKey: string }) => c.planKey)).toContain(`follow-up-v${res.body.version}`);
+    const day = (await nurse.get('/api/my-day').expect(200)).body;
+    expect(day.upcoming.map((i: { planKey: string }) => i.planKey)).toContain(`follow-up-v${res.body.version}`);
+    expect(day.items.concat(day.upcoming).some((i: { kind: string }) => i.kind === 'step_down_review')).toBe(false);
   });
 
   it('when a follow-up study after a step down is below target, then stepping back up is proposed', async () => {

@@ -80,7 +80,7 @@ export function createChecksRepository(ds: DataSource) {
     },
 
     /** The nurse's day: open checks due by the end of `today`, on babies the caller may read, grouped by address. */
-    day: (acl: SqlFilter, today: string): Promise<DayRow[]> =>
+    day: (acl: SqlFilter, today: string, until: string): Promise<DayRow[]> =>
       ds.createQueryBuilder()
         .select(['c.id AS id', 'c.infant_id AS infant_id', 'c.kind AS kind', 'c.plan_key AS plan_key', 'c.due_at AS due_at', 'c.due_date::text AS due_date',
           'c.status AS status', 'c.done_at AS done_at', 'i.given_name AS given_name', 'i.family_name AS family_name', 'i.home_address AS home_address',
@@ -89,9 +89,11 @@ export function createChecksRepository(ds: DataSource) {
         .innerJoin('infants', 'i', 'i.id = c.infant_id')
         .leftJoin('prescriptions', 'p', "p.infant_id = i.id AND p.status = 'active'")
         .where("c.status IN ('planned','overdue')")
-        .andWhere('c.due_date <= :today', { today })
+        // Step-down reviews are the consultant's; the round holds what a nurse does at the door or overnight.
+        .andWhere("c.kind <> 'step_down_review'")
+        .andWhere('c.due_date <= :until', { until })
         .andWhere(acl.sql, acl.params)
-        .orderBy('i.home_address', 'ASC')
+        .orderBy(`CASE WHEN c.due_date <= '${'$'}{today}' THEN 0 ELSE 1 END`, 'ASC')
         .addOrderBy('c.due_at', 'ASC')
         .limit(300)
         .getRawMany(),

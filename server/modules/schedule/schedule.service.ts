@@ -6,6 +6,7 @@ import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
 import { NotFoundError } from '../../lib/errors';
 import { correctedAgeText } from '../infants/infants.mapper';
+import { addDays } from '../../../shared/clinical/dates';
 
 const toCheck = (c: CheckEntity): Check => ({
   id: c.id, infantId: c.infantId, kind: c.kind, planKey: c.planKey, dueAt: c.dueAt.toISOString(), dueDate: c.dueDate, status: c.status,
@@ -25,18 +26,16 @@ export function createScheduleService(repos: AppRepos) {
       };
     },
 
-    async day(ability: AppAbility, today: string): Promise<{ date: string; items: DayItem[] }> {
-      const rows = await repos.checks.day(accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), today);
-      return {
-        date: today,
-        items: rows.map((r) => ({
-          id: r.id, infantId: r.infant_id, kind: r.kind as DayItem['kind'], planKey: r.plan_key, dueAt: new Date(r.due_at).toISOString(), dueDate: r.due_date,
-          status: r.status as DayItem['status'], doneAt: r.done_at ? new Date(r.done_at).toISOString() : null,
-          infantName: `${r.given_name} ${r.family_name}`, homeAddress: r.home_address,
-          activeFlowLpm: r.active_flow_lpm === null ? null : Number(r.active_flow_lpm),
-          correctedAge: correctedAgeText(r.birth_date, r.ga_weeks, r.ga_days, today),
-        })),
-      };
+    async day(ability: AppAbility, today: string): Promise<{ date: string; items: DayItem[]; upcoming: DayItem[] }> {
+      const rows = await repos.checks.day(accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), today, addDays(today, 7));
+      const all = rows.map((r): DayItem => ({
+        id: r.id, infantId: r.infant_id, kind: r.kind as DayItem['kind'], planKey: r.plan_key, dueAt: new Date(r.due_at).toISOString(), dueDate: r.due_date,
+        status: r.status as DayItem['status'], doneAt: r.done_at ? new Date(r.done_at).toISOString() : null,
+        infantName: `${r.given_name} ${r.family_name}`, homeAddress: r.home_address,
+        activeFlowLpm: r.active_flow_lpm === null ? null : Number(r.active_flow_lpm),
+        correctedAge: correctedAgeText(r.birth_date, r.ga_weeks, r.ga_days, today),
+      }));
+      return { date: today, items: all.filter((i) => i.dueDate <= today), upcoming: all.filter((i) => i.dueDate > today) };
     },
   };
 }

@@ -22,4 +22,4 @@ export function countText(count: number): string {
 }
 
 /** An overnight study is completed by its recording, not by a spot reading taken at the door. */
-export const completesWithReading = (item: Pick<DayItem, 'kind'>) => item.kind !== 'overnight_study';
+export const completesWithReading = (item: Pick<DayItem, 'kind'>) => item.kind === 'spot_check';

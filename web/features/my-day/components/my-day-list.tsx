@@ -6,6 +6,7 @@ import { Spinner } from '../../../components/ui/spinner';
 import { useMyDay } from '../api/get-my-day';
 import { countText, formatLongDay } from './day-format';
 import { DayItemCard } from './day-item-card';
+import { ComingUp } from './coming-up';
 
 /** Today's and overdue checks in the order the server plans the round; one card open at a time. */
 export function MyDayList({ renderForm }: { renderForm: (item: DayItem) => ReactNode }) {
@@ -14,7 +15,7 @@ export function MyDayList({ renderForm }: { renderForm: (item: DayItem) => React
 
   if (day.isPending) return <Spinner label="Loading today’s checks" />;
   if (day.isError) return <Alert>{day.error.message}</Alert>;
-  const { date, items } = day.data;
+  const { date, items, upcoming } = day.data;
 
   return (
     <section aria-labelledby="day-heading" className="flex flex-col gap-3">
@@ -39,6 +40,7 @@ export function MyDayList({ renderForm }: { renderForm: (item: DayItem) => React
           ))}
         </ol>
       )}
+      <ComingUp items={upcoming} />
     </section>
   );
 }
