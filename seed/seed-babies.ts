@@ -12,6 +12,7 @@ import { replan } from '../server/modules/schedule/planning';
 import { DEMO_SITES, SALTMARSH_FAMILIES, demoBabies, type DemoBaby } from './demo-babies';
 
 type Slug = keyof typeof DEMO_SITES;
+const STREETS = ['Mill Lane', 'Quarry Row', 'Church Street', 'Heather Close', 'Station Road', 'Orchard Way', 'Kiln Lane'];
 
 async function staff(deps: AppDeps, email: string): Promise<Actor & { role: string }> {
   const u = await deps.repos.users.findByEmail(email);
@@ -28,7 +29,7 @@ function enrolment(b: DemoBaby, siteId: string, nurseId: string, consultantId: s
       birthWeightG: b.birthWeightG, weightKg: b.weightKg, weightDate: addDays(today, -3), diagnoses: b.diagnoses as EnrolInfantInput['baby']['diagnoses'],
     },
     hospital: { siteId, flowLpm: b.hospitalFlowLpm, source: b.hospitalSource, o2Percent: b.hospitalO2Percent },
-    home: { address: `${12 + b.key.length} Mill Lane, ${b.town.name}`, location: { elevationM: b.town.elevationM }, source: b.homeSource, o2Percent: b.homeSource === 'cylinder' ? 100 : 95 },
+    home: { address: `${3 + (Number(b.key.slice(-3)) * 7) % 90} ${STREETS[Number(b.key.slice(-3)) % STREETS.length]}, ${b.town.name}`, location: { elevationM: b.town.elevationM }, source: b.homeSource, o2Percent: b.homeSource === 'cylinder' ? 100 : 95 },
     care: { nurseId, consultantId },
     contacts: [{
       name: `${b.sex === 'female' ? 'Sam' : 'Alex'} ${b.familyName}`, relation: 'Parent', mobile: `+44 7700 900${String(100 + Number(b.key.slice(-3))).slice(-3)}`,
@@ -101,8 +102,15 @@ async function demoScheduleHistory(deps: AppDeps, programmeId: string) {
   await deps.ds.query(
     `UPDATE checks c SET status = 'done', done_at = c.due_at - interval '3 hours', done_by = i.nurse_id, done_ref = 'demo'
        FROM infants i
-      WHERE i.id = c.infant_id AND c.programme_id = $1 AND c.status = 'planned' AND c.due_at < now() - interval '1 day'
-        AND (c.kind = 'spot_check' OR c.due_at < now() - interval '4 days') AND abs(hashtext(i.id::text)) % 5 <> 0`,
+      WHERE i.id = c.infant_id AND c.programme_id = $1 AND c.status = 'planned' AND c.due_at < now()`,
+    [programmeId],
+  );
+  // One baby in five has missed its latest spot check, so the round shows what overdue looks like.
+  await deps.ds.query(
+    `UPDATE checks SET status = 'planned', done_at = NULL, done_by = NULL, done_ref = NULL
+      WHERE id IN (SELECT DISTINCT ON (c.infant_id) c.id FROM checks c
+                    WHERE c.programme_id = $1 AND c.done_ref = 'demo' AND c.kind = 'spot_check' AND abs(hashtext(c.infant_id::text)) % 5 = 0
+                    ORDER BY c.infant_id, c.due_at DESC)`,
     [programmeId],
   );
   await deps.repos.checks.markOverdue();

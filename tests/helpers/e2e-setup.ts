@@ -36,7 +36,7 @@ export default async function setup(project: TestProject) {
   await ds.query('DROP SCHEMA IF EXISTS public CASCADE');
   await ds.query('CREATE SCHEMA public');
   await ds.destroy();
-  const env = { ...process.env, NODE_ENV: 'test', DATABASE_URL: url, PORT: String(PORT), QUEUE_PREFIX: 'e2e', LOG_LEVEL: 'warn' };
+  const env = { ...process.env, NODE_ENV: 'test', DATABASE_URL: url, PORT: String(PORT), QUEUE_PREFIX: 'e2e', LOG_LEVEL: 'warn', SIGNIN_IP_LIMIT: '1000' };
   await run(['server/db/migrate.ts'], env);
   await run(['seed/main.ts'], env);
   children = [

@@ -1,0 +1,76 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { openBrowser, screenshot, type Browser } from '../helpers/browser';
+
+const base = inject('baseUrl');
+let browser: Browser;
+let page: Page;
+
+beforeAll(async () => {
+  browser = await openBrowser({ width: 390, height: 844 });
+  page = browser.page;
+});
+afterAll(() => browser?.close());
+
+async function signIn(email: string) {
+  await browser.context.clearCookies();
+  await page.goto(`${base}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill('nestflow-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+const api = (method: string, path: string, body?: unknown) =>
+  page.evaluate(async ({ method, path, body }) => {
+    const { csrfToken } = await (await fetch('/api/session')).json();
+    const res = await fetch(path, { method, headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken }, body: body ? JSON.stringify(body) : undefined });
+    return { status: res.status, body: await res.json().catch(() => null) };
+  }, { method, path, body });
+
+describe('monitoring on a phone', () => {
+  it("when the nurse opens a spot check on today's round, then one tap saves the reading and the check leaves the list", async () => {
+    await signIn('nurse@larkmoor.example');
+    await page.goto(`${base}/nurse`);
+    const day = await api('GET', '/api/my-day');
+    const spot = day.body.items.find((i: { kind: string }) => i.kind === 'spot_check');
+    expect(spot, 'the demo round has a spot check due or overdue').toBeTruthy();
+    await page.getByRole('button', { name: new RegExp(spot.infantName) }).first().click();
+    await page.getByLabel('SpO2 (%)').fill('94');
+    await page.getByLabel('Pulse (/min)').fill('138');
+    await page.getByLabel('Asleep').check();
+    await screenshot(page, 'nurse-day-reading-form-phone');
+    await page.getByRole('button', { name: 'Save reading' }).click();
+    await expect.poll(async () => (await api('GET', '/api/my-day')).body.items.some((i: { id: string }) => i.id === spot.id), { timeout: 10_000 }).toBe(false);
+    const readings = await api('GET', `/api/infants/${spot.infantId}/readings`);
+    expect(readings.body.items.at(-1)).toMatchObject({ spo2: 94, pulse: 138, state: 'asleep', checkId: spot.id });
+    await screenshot(page, 'nurse-day-after-save-phone');
+  });
+
+  it('when the consultant approves a requested step down, then the follow-up study shows on the nurse\'s list', async () => {
+    await signIn('nurse@larkmoor.example');
+    const babies = await api('GET', '/api/infants?status=on_oxygen&pageSize=50');
+    let requested: { id: string; infantId: string; version: number } | null = null;
+    for (const b of babies.body.items as Array<{ id: string }>) {
+      const res = await api('POST', `/api/infants/${b.id}/step-down-requests`, { reason: 'Settled on overnight oximetry, feeding and growing well' });
+      if (res.status === 201) {
+        requested = res.body;
+        break;
+      }
+    }
+    expect(requested, 'some baby on the nurse\'s caseload can step down').toBeTruthy();
+    await signIn('consultant@larkmoor.example');
+    await page.goto(`${base}/sign-off/${requested!.id}`);
+    await page.getByLabel('Approve as proposed').check();
+    await screenshot(page, 'step-down-review-phone');
+    await page.getByRole('button', { name: /^Approve/ }).last().click();
+    await page.waitForURL(`${base}/sign-off`);
+    await signIn('nurse@larkmoor.example');
+    await page.goto(`${base}/nurse`);
+    // The worker re-plans the baby's checks after the approval.
+    await expect.poll(async () => (await api('GET', '/api/my-day')).body.upcoming.some((i: { planKey: string }) => i.planKey === `follow-up-v${requested!.version}`), { timeout: 20_000 }).toBe(true);
+    await page.reload();
+    await page.getByText('Coming up this week').waitFor();
+    await screenshot(page, 'nurse-day-follow-up-phone');
+  });
+});
