@@ -49,6 +49,7 @@ const covers = (item: NavItem, path: string) => path === item.to || path.startsW
 const LINKED_PAGES: readonly { prefix: string; allowed: (role: Role, ability: AppAbility) => boolean }[] = [
   // A baby's full record is staff work; a family sees its own plan on the family page instead.
   { prefix: '/infants/', allowed: (role, a) => isStaffRole(role) && a.can('read', 'Infant') },
+  { prefix: '/recordings/', allowed: (role, a) => isStaffRole(role) && a.can('read', 'Recording') },
 ];
 
 export function canVisit(path: string, role: Role, ability: AppAbility): boolean {

@@ -52,9 +52,21 @@ export function createStepDownsService(ds: DataSource, repos: AppRepos) {
         if (pending.length) throw new ConflictError('A new setting is already waiting for sign-off for this baby.');
         const policy = await repos.policies.current(infant.programmeId, m);
         const next = nextStepDown({ flowLpm: active.approvedFlowLpm!, periods: active.periods }, policy.settings);
+        // The consultant decides on evidence: attach the latest analysed overnight study, if any.
+        const [study] = await m.query(
+          `SELECT id, mean_spo2, pct_below_90, valid_minutes FROM recordings WHERE infant_id = $1 AND status = 'done' ORDER BY coalesce(started_at, uploaded_at) DESC LIMIT 1`,
+          [infantId],
+        );
+        const studyEvidence = study
+          ? (() => {
+              const s = { meanSpo2: study.mean_spo2, pctBelow90: study.pct_below_90, validMinutes: study.valid_minutes };
+              const target = meetsOvernightTarget(s, policy.settings, infant.diagnoses.includes('pulmonary_hypertension'));
+              return { recordingId: study.id, ...s, targetMet: target.met, shortfalls: target.reasons };
+            })()
+          : {};
         return openStepProposal(repos, infant, active, {
           reason: 'step_down', flowLpm: next.setting.flowLpm, periods: next.setting.periods,
-          evidence: { kind: next.kind, label: next.label, requestedBy: actor.id, requestReason: reason },
+          evidence: { ...studyEvidence, kind: next.kind, label: next.label, requestedBy: actor.id, requestReason: reason },
         }, actor.id, m);
       });
     },

@@ -1,19 +1,33 @@
 import { useMemo } from 'react';
+import { subject } from '@casl/ability';
+import { useQueryClient } from '@tanstack/react-query';
 import { Link, useParams } from 'react-router-dom';
+import type { InfantDetail } from '../../../shared/schemas/infants';
+import type { Prescription } from '../../../shared/schemas/prescriptions';
 import { Alert } from '../../components/ui/alert';
 import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { Spinner } from '../../components/ui/spinner';
+import { ReadingsChart } from '../../features/charts/components/readings-chart';
 import { useInfant } from '../../features/infants/api/get-infant';
 import { useInfantPrescriptions } from '../../features/infants/api/get-infant-prescriptions';
+import { infantKeys } from '../../features/infants/api/infant-keys';
 import { AuditSection } from '../../features/infants/components/audit-section';
 import { ContactsSection } from '../../features/infants/components/contacts-section';
 import { DetailsSection } from '../../features/infants/components/details-section';
 import { InfantHeader } from '../../features/infants/components/infant-header';
 import { PlanSection } from '../../features/infants/components/plan-section';
 import { VersionsSection } from '../../features/infants/components/versions-section';
+import { useOvernightTargets } from '../../features/monitoring/api/get-overnight-targets';
+import { ReadingsSection } from '../../features/monitoring/components/readings-section';
+import { ScheduleSection } from '../../features/monitoring/components/schedule-section';
+import { StepDownAction } from '../../features/monitoring/components/step-down-action';
+import { StepEvidenceSection } from '../../features/monitoring/components/step-evidence-section';
+import { readingsDescription, targetBand } from '../../features/monitoring/components/target-band';
+import { RecordingsSection } from '../../features/recordings/components/recordings-section';
 import { useAppAbility } from '../../lib/ability';
 import { isApiError } from '../../lib/api-error';
+import { useSignedInUser } from '../../lib/signed-in-user';
 
 function NoSuchBaby() {
   return (
@@ -24,6 +38,54 @@ function NoSuchBaby() {
           Go to the caseload
         </Link>
       </EmptyState>
+    </>
+  );
+}
+
+/** Readings, recordings, checks and the step-down request: the monitoring half of the record. */
+function useMonitoring(infant: InfantDetail, versions: Prescription[]) {
+  const user = useSignedInUser();
+  const ability = useAppAbility();
+  const queryClient = useQueryClient();
+  const targets = useOvernightTargets();
+  // The same rules as the API: the coordinator, or the nurse whose caseload the baby is on.
+  // A fresh object per check: CASL stamps the subject type on the object it is given.
+  const own = (): Record<string, unknown> => ({ programmeId: user.programmeId, nurseId: infant.nurse?.id ?? null });
+  const ph = infant.diagnoses.includes('pulmonary_hypertension');
+  const setting = infant.activeSetting;
+  const onOxygen = !!setting && (setting.flowLpm > 0 || Object.values(setting.periods ?? {}).some((flow) => flow > 0));
+  return {
+    ph,
+    settings: targets.data?.settings,
+    band: targets.data ? targetBand(targets.data.settings, ph) : undefined,
+    canLog: ability.can('create', subject('Reading', own())),
+    canUpload: ability.can('create', subject('Recording', own())),
+    canStepDown: onOxygen && ability.can('create', subject('StepDown', own())),
+    waiting: versions.some((rx) => rx.status === 'preparing' || rx.status === 'proposed'),
+    // The new proposal changes the versions, the status and the trail, which all hang under the baby's detail key.
+    onStepDownRequested: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: infantKeys.detail(infant.id) }),
+        queryClient.invalidateQueries({ queryKey: infantKeys.lists() }),
+      ]),
+  };
+}
+
+function Monitoring({ infant, versions }: { infant: InfantDetail; versions: Prescription[] }) {
+  const m = useMonitoring(infant, versions);
+  return (
+    <>
+      {m.canStepDown && <StepDownAction infantId={infant.id} waiting={m.waiting} onRequested={() => void m.onStepDownRequested()} />}
+      <ScheduleSection infantId={infant.id} />
+      <ReadingsSection
+        infantId={infant.id}
+        canLog={m.canLog}
+        bandMin={m.band?.min}
+        chart={(readings) =>
+          m.band && <ReadingsChart readings={readings} band={m.band} description={readingsDescription(readings, m.band)} />
+        }
+      />
+      <RecordingsSection infantId={infant.id} canUpload={m.canUpload} settings={m.settings} pulmonaryHypertension={m.ph} />
     </>
   );
 }
@@ -49,16 +111,19 @@ export function Component() {
   return (
     <>
       <InfantHeader infant={infant.data} />
+      {/* The day-to-day monitoring sits in the first column, so on a phone it comes straight after the plan. */}
       <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         <div className="flex min-w-0 flex-col gap-6">
           <PlanSection
             infant={infant.data}
             prescriptions={{ data: prescriptions.data ? versions : undefined, isPending: prescriptions.isPending, error: prescriptions.error }}
           />
-          <DetailsSection infant={infant.data} canEdit={canEdit} />
-          <ContactsSection infant={infant.data} canEdit={canEdit} />
+          <Monitoring infant={infant.data} versions={versions} />
         </div>
         <div className="flex min-w-0 flex-col gap-6">
+          <DetailsSection infant={infant.data} canEdit={canEdit} />
+          <ContactsSection infant={infant.data} canEdit={canEdit} />
+          <StepEvidenceSection versions={versions} />
           <VersionsSection versions={versions} />
           {ability.can('read', 'AuditEvent') && prescriptions.data && (
             <AuditSection infantId={infant.data.id} versionsState={versions.map((rx) => `${rx.version}-${rx.status}`).join(',')} />

@@ -55,6 +55,24 @@ export function auditText(event: AuditEvent): string {
       return `Approved ${v} at ${flowText(num(details.approvedFlowLpm))}${typeof details.reason === 'string' && details.reason ? ` (${details.reason})` : ''}`;
     case 'prescription.rejected':
       return `Sent back ${v}${typeof details.reason === 'string' && details.reason ? `: ${details.reason}` : ''}`;
+    case 'prescription.step_down_proposed':
+      return `Proposed a step down, ${v}: ${flowText(num(details.flowLpm))}`;
+    case 'prescription.step_up_proposed':
+      return `Proposed stepping back up, ${v}: ${flowText(num(details.flowLpm))}`;
+    case 'prescription.leave_programme_proposed':
+      return `Proposed leaving the programme, ${v}`;
+    case 'reading.logged':
+      return 'Logged a spot reading';
+    case 'reading.family_reported':
+      return 'Family reported a home reading';
+    case 'reading.corrected':
+      return 'Corrected a spot reading';
+    case 'recording.uploaded':
+      return `Uploaded an overnight recording${typeof details.fileName === 'string' ? ` (${details.fileName})` : ''}`;
+    case 'recording.analysed':
+      return 'Analysed an overnight recording';
+    case 'recording.failed':
+      return 'An overnight recording could not be analysed';
     default:
       return event.action;
   }

@@ -1,0 +1,69 @@
+import { subject } from '@casl/ability';
+import { useQueryClient } from '@tanstack/react-query';
+import { Link, useNavigate, useParams } from 'react-router-dom';
+import { Alert } from '../../components/ui/alert';
+import { Card } from '../../components/ui/card';
+import { EmptyState } from '../../components/ui/empty-state';
+import { PageHeader } from '../../components/ui/page-header';
+import { Spinner } from '../../components/ui/spinner';
+import { useInfant } from '../../features/infants/api/get-infant';
+import { monitoringKeys } from '../../features/monitoring/api/monitoring-keys';
+import { RecordingUpload } from '../../features/recordings/components/recording-upload';
+import { useAppAbility } from '../../lib/ability';
+import { isApiError } from '../../lib/api-error';
+import { useSignedInUser } from '../../lib/signed-in-user';
+
+const backLink = (id: string) => (
+  <Link to={`/infants/${id}`} className="font-semibold text-brand-700 underline">
+    Back to the baby’s record
+  </Link>
+);
+
+/** Upload one night's oximetry for a baby; on success the recording page follows the analysis. */
+export function Component() {
+  const { id = '' } = useParams();
+  const navigate = useNavigate();
+  const queryClient = useQueryClient();
+  const user = useSignedInUser();
+  const ability = useAppAbility();
+  const infant = useInfant(id);
+
+  if (infant.isPending) return <Spinner label="Loading the baby" />;
+  if (infant.isError) {
+    if (isApiError(infant.error) && [400, 404].includes(infant.error.status)) {
+      return (
+        <>
+          <PageHeader title="No such baby in your records" />
+          <EmptyState message="This baby is not in your records. The link may be wrong, or the baby may be looked after by another team." />
+        </>
+      );
+    }
+    return <Alert>{infant.error.message}</Alert>;
+  }
+  const baby = infant.data;
+  // The same rule as the API: the coordinator, or the nurse whose caseload the baby is on.
+  if (!ability.can('create', subject('Recording', { programmeId: user.programmeId, nurseId: baby.nurse?.id ?? null } as Record<string, unknown>))) {
+    return (
+      <>
+        <PageHeader title="Upload an overnight recording" />
+        <EmptyState message="Recordings are uploaded by the coordinator or the baby’s nurse.">{backLink(baby.id)}</EmptyState>
+      </>
+    );
+  }
+
+  const onUploaded = (recordingId: string) => {
+    // An overnight study check may be done by this upload.
+    void queryClient.invalidateQueries({ queryKey: monitoringKeys.infant(baby.id) });
+    navigate(`/recordings/${recordingId}`);
+  };
+  return (
+    <>
+      <PageHeader title={`Upload an overnight recording: ${baby.name}`} intro={`Corrected age ${baby.correctedAge}`} actions={backLink(baby.id)} />
+      <div className="max-w-2xl">
+        <Card>
+          <RecordingUpload infantId={baby.id} onUploaded={onUploaded} />
+        </Card>
+      </div>
+    </>
+  );
+}

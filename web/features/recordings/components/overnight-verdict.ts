@@ -1,0 +1,27 @@
+import type { PolicySettings } from '../../../../shared/schemas/policy';
+import type { RecordingSummary } from '../../../../shared/schemas/recordings';
+import { meetsOvernightTarget } from '../../../../shared/schedule/step-down';
+
+export interface Verdict {
+  met: boolean;
+  /** "Meets the overnight target" or "Below the overnight target: …", always in words. */
+  text: string;
+  /** What the target is, from the programme's policy. */
+  targetText: string;
+}
+
+/** The same rule the server applies when it considers a step down, so the page and the proposal never disagree. */
+export function overnightVerdict(summary: RecordingSummary, settings: PolicySettings, pulmonaryHypertension: boolean): Verdict {
+  const result = meetsOvernightTarget(
+    { meanSpo2: summary.meanSpo2, pctBelow90: summary.pctBelow90, validMinutes: summary.validMinutes },
+    settings,
+    pulmonaryHypertension,
+  );
+  const t = settings.spo2Targets;
+  const meanMin = pulmonaryHypertension ? t.pulmonaryHypertensionMeanMin : t.overnightMeanMin;
+  return {
+    met: result.met,
+    text: result.met ? 'Meets the overnight target' : `Below the overnight target: ${result.reasons.join('; ')}`,
+    targetText: `Target: mean SpO2 at least ${meanMin} %${pulmonaryHypertension ? ' (pulmonary hypertension)' : ''} and less than ${t.pctBelow90Max} % of valid time below 90 %.`,
+  };
+}

@@ -1,0 +1,14 @@
+import type { Recording, RecordingTrace } from '../../../../shared/schemas/recordings';
+import { hoursMinutes, perHourText, shareText, spo2Text } from './recording-format';
+
+/** The chart in one sentence, for its caption and for anyone who cannot see the canvas. */
+export function traceDescription(recording: Recording, trace: RecordingTrace): string {
+  const s = recording.summary;
+  const deep = trace.events.filter((e) => e.deep).length;
+  const events = trace.events.length === 1 ? '1 desaturation event' : `${trace.events.length} desaturation events`;
+  const figures = s
+    ? `mean ${spo2Text(s.meanSpo2)}, lowest ${spo2Text(s.minSpo2)}, ${shareText(s.pctBelow90)} of valid time below ${trace.threshold} %, ` +
+      `${events} (ODI3 ${perHourText(s.odi3)}; ${deep} with a fall of 4 points or more)`
+    : events;
+  return `SpO2 over ${hoursMinutes(recording.durationMinutes)} h: ${figures}. The dashed line marks ${trace.threshold} %; shaded bands mark the events, listed in the table below.`;
+}
