@@ -1,5 +1,8 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import { openBrowser, screenshot, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');
@@ -73,4 +76,34 @@ describe('monitoring on a phone', () => {
     await page.getByText('Coming up this week').waitFor();
     await screenshot(page, 'nurse-day-follow-up-phone');
   });
+
+  it('when the coordinator uploads an overnight CSV, then the summary and the SpO2 trace with events appear without a reload', async () => {
+    await page.setViewportSize({ width: 1280, height: 900 });
+    await signIn('coordinator@larkmoor.example');
+    const babies = await api('GET', '/api/infants?status=on_oxygen&pageSize=1');
+    const infantId = babies.body.items[0].id as string;
+    // A made-up 8-hour night at 1 Hz in our documented format, with four dips to 84 % and a sensor-off spell.
+    const start = Date.parse('2026-11-29T21:00:00Z');
+    const rows = ['timestamp,spo2,pulse,status'];
+    for (let t = 0; t < 8 * 3600; t++) {
+      const dip = [3600, 9000, 15000, 21000].some((d) => t >= d && t < d + 30);
+      const off = t >= 12000 && t < 12060;
+      rows.push(off ? `${new Date(start + t * 1000).toISOString()},,,sensor off` : `${new Date(start + t * 1000).toISOString()},${dip ? 84 : 96},130,ok`);
+    }
+    const file = path.join(mkdtempSync(path.join(tmpdir(), 'nestflow-e2e-')), 'overnight-2026-11-29.csv');
+    writeFileSync(file, rows.join('\n') + '\n');
+    await page.goto(`${base}/infants/${infantId}/recordings/new`);
+    await page.getByLabel('Recording file (CSV)').setInputFiles(file);
+    await page.getByRole('button', { name: 'Upload recording' }).click();
+    await page.waitForURL(/\/recordings\/[0-9a-f-]{36}$/);
+    await page.getByText('Meets the overnight target').waitFor({ timeout: 30_000 });
+    const id = page.url().split('/').pop()!;
+    const stored = await api('GET', `/api/recordings/${id}`);
+    expect(stored.body).toMatchObject({ status: 'done', sampleCount: 8 * 3600 });
+    expect(stored.body.summary.odi3).toBeCloseTo(4 / (stored.body.summary.validMinutes / 60), 6);
+    await page.locator('figure canvas').first().waitFor();
+    await page.getByRole('table', { name: /Desaturation events/ }).waitFor();
+    await screenshot(page, 'recording-summary-chart');
+  });
 });
+
