@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, screenshot, type Browser } from '../helpers/browser';
+import { openBrowser, pageApi, screenshot, signInAndLand as landIn, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');
 let browser: Browser;
@@ -17,35 +17,23 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-async function signIn(email: string, password = 'nestflow-demo') {
-  await browser.context.clearCookies();
-  await page.goto(`${base}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
+// Each step of the journey starts only once the sign-in has landed on a home page.
+const signInAndLand = (email: string, password?: string) => landIn(browser, base, email, password);
+const api = (method: string, path: string, body?: unknown) => pageApi(page)(method, path, body);
 
-/** A same-origin API call from the signed-in page, with the session's CSRF token. */
-const api = (method: string, path: string, body?: unknown) =>
-  page.evaluate(async ({ method, path, body }) => {
-    const { csrfToken } = await (await fetch('/api/session')).json();
-    const res = await fetch(path, { method, headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken }, body: body ? JSON.stringify(body) : undefined });
-    return { status: res.status, body: await res.json().catch(() => null) };
-  }, { method, path, body });
 
 const next = () => page.getByRole('button', { name: /^Next/ }).click();
 
 describe('enrolment to an approved plan the family can read', () => {
   it('when the admin adds a family account, then it gets a one-time password', async () => {
-    await signIn('admin@larkmoor.example');
+    await signInAndLand('admin@larkmoor.example');
     const res = await api('POST', '/api/users', { email: familyEmail, name: 'Iris Ashvale', role: 'family' });
     expect(res.status).toBe(201);
     familyPassword = res.body.initialPassword;
   });
 
   it('when the coordinator enrols a baby living at 1,780 m, then the proposal appears on the record without a reload', async () => {
-    await signIn('coordinator@larkmoor.example');
+    await signInAndLand('coordinator@larkmoor.example');
     await page.goto(`${base}/enrol`);
     const [given, family] = babyName.split(' ');
     await page.getByLabel('Given name').fill(given);
@@ -92,7 +80,7 @@ describe('enrolment to an approved plan the family can read', () => {
   });
 
   it('when the consultant opens the proposal, then the working is shown line by line and approving makes it the plan', async () => {
-    await signIn('consultant@larkmoor.example');
+    await signInAndLand('consultant@larkmoor.example');
     await page.goto(`${base}/sign-off`);
     await page.getByRole('link', { name: `Review the proposal for ${babyName}` }).click();
     await page.getByText('Checks and working').waitFor();
@@ -108,7 +96,7 @@ describe('enrolment to an approved plan the family can read', () => {
 
   it('when the family signs in, then they see the approved flow in plain words and cannot open any other baby', async () => {
     await page.setViewportSize({ width: 390, height: 844 });
-    await signIn(familyEmail, familyPassword);
+    await signInAndLand(familyEmail, familyPassword);
     await page.waitForURL(`${base}/family`);
     const versions = await api('GET', `/api/infants/${infantId}/prescriptions`);
     const flow = versions.body.items[0].approvedFlowLpm as number;

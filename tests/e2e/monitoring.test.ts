@@ -3,7 +3,7 @@ import type { Page } from 'playwright-core';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { openBrowser, screenshot, type Browser } from '../helpers/browser';
+import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');
 let browser: Browser;
@@ -15,21 +15,9 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-async function signIn(email: string) {
-  await browser.context.clearCookies();
-  await page.goto(`${base}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('nestflow-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-}
+const signIn = (email: string) => signInAndLand(browser, base, email);
+const api = (method: string, path: string, body?: unknown) => pageApi(page)(method, path, body);
 
-const api = (method: string, path: string, body?: unknown) =>
-  page.evaluate(async ({ method, path, body }) => {
-    const { csrfToken } = await (await fetch('/api/session')).json();
-    const res = await fetch(path, { method, headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken }, body: body ? JSON.stringify(body) : undefined });
-    return { status: res.status, body: await res.json().catch(() => null) };
-  }, { method, path, body });
 
 describe('monitoring on a phone', () => {
   it("when the nurse opens a spot check on today's round, then one tap saves the reading and the check leaves the list", async () => {

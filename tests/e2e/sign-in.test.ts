@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, screenshot, type Browser } from '../helpers/browser';
+import { openBrowser, screenshot, signIn, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');
 let browser: Browser;
@@ -12,15 +12,6 @@ beforeAll(async () => {
 });
 afterAll(() => browser?.close());
 
-async function signIn(email: string, password = 'nestflow-demo') {
-  // Each case starts signed out, whatever the previous case left behind.
-  await browser.context.clearCookies();
-  await page.goto(`${base}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-}
-
 const roles = [
   { email: 'admin@larkmoor.example', path: '/admin', nav: ['Overview', 'People', 'Programme settings'] },
   { email: 'coordinator@larkmoor.example', path: '/coordinator', nav: ['Overview', 'Caseload', 'Enrol a baby'] },
@@ -31,7 +22,7 @@ const roles = [
 
 describe('signing in as each demo role', () => {
   it.each(roles)('when $email signs in, then their own home and navigation show, and sign-out works', async ({ email, path, nav }) => {
-    await signIn(email);
+    await signIn(browser, base, email);
     await page.waitForURL(`${base}${path}`);
     const navigation = page.getByRole('navigation').first();
     for (const label of nav) await navigation.getByRole('link', { name: label }).first().waitFor();
@@ -44,7 +35,7 @@ describe('signing in as each demo role', () => {
   });
 
   it('when the password is wrong, then one generic message shows and the e-mail stays typed', async () => {
-    await signIn('nurse@larkmoor.example', 'not-the-password');
+    await signIn(browser, base, 'nurse@larkmoor.example', 'not-the-password');
     await page.getByText('That e-mail and password do not match an active account.').waitFor();
     await expect(page.getByLabel('E-mail').inputValue()).resolves.toBe('nurse@larkmoor.example');
     await screenshot(page, 'sign-in-wrong-password');
@@ -52,7 +43,7 @@ describe('signing in as each demo role', () => {
 
   it('when a phone-sized screen is used, then the family home still fits', async () => {
     await page.setViewportSize({ width: 375, height: 760 });
-    await signIn('family@larkmoor.example');
+    await signIn(browser, base, 'family@larkmoor.example');
     await page.waitForURL(`${base}/family`);
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);

@@ -42,3 +42,41 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   await page.screenshot({ path: file, fullPage: true });
   return file;
 }
+
+/** Signs in through the form from a signed-out start, whatever the previous case left behind. */
+export async function signIn(browser: Browser, base: string, email: string, password = 'nestflow-demo'): Promise<void> {
+  const { page } = browser;
+  await browser.context.clearCookies();
+  await page.goto(`${base}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/** Signs in and waits until the app has moved on from the sign-in page. */
+export async function signInAndLand(browser: Browser, base: string, email: string, password?: string): Promise<void> {
+  await signIn(browser, base, email, password);
+  await browser.page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+export interface PageApiResult {
+  status: number;
+  body: any; // eslint-disable-line @typescript-eslint/no-explicit-any -- JSON of whichever route was called
+}
+
+/** A same-origin API call from the signed-in page, carrying the session's CSRF token like the app does. */
+export function pageApi(page: Page) {
+  return (method: string, path: string, body?: unknown): Promise<PageApiResult> =>
+    page.evaluate(
+      async ({ method, path, body }) => {
+        const { csrfToken } = await (await fetch('/api/session')).json();
+        const res = await fetch(path, {
+          method,
+          headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken },
+          body: body ? JSON.stringify(body) : undefined,
+        });
+        return { status: res.status, body: await res.json().catch(() => null) };
+      },
+      { method, path, body },
+    );
+}

@@ -1,10 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Queue, QueueEvents, Worker } from 'bullmq';
-import { JOBS, QUEUES, recordingJobId } from '../../shared/jobs/catalogue';
+import type { Queue, QueueEvents } from 'bullmq';
+import { JOBS, recordingJobId } from '../../shared/jobs/catalogue';
 import { createTestContext, type TestContext } from '../helpers/test-app';
+import { startClinicalQueue, type ClinicalQueue } from '../helpers/queues';
 import { signedInAgent } from '../helpers/agents';
 import { makeClinic } from '../helpers/infants';
-import { redisConnection } from '../../worker/queues';
 import { analyseRecordingProcessor, reconcileRecordings } from '../../worker/processors/analyse-recording.processor';
 import { analyseRecording } from '../../server/modules/recordings/analyse';
 import { storeUpload } from '../../server/modules/recordings/upload';
@@ -13,23 +13,17 @@ import { csvFromSamples, steadySamples } from '../fixtures/recordings/build-csv'
 import { enrolledBaby, uploadRecording } from '../fixtures/recordings/upload';
 
 let ctx: TestContext;
-let worker: Worker;
+let clinical: ClinicalQueue;
 let events: QueueEvents;
 let queue: Queue;
 beforeAll(async () => {
   ctx = await createTestContext();
-  const connection = redisConnection(ctx.deps.env.REDIS_URL);
-  const prefix = ctx.deps.env.QUEUE_PREFIX;
   // Enrolment also enqueues conversions on this queue; this worker only takes recordings and leaves the rest done.
-  worker = new Worker(QUEUES.clinical, async (job) => (job.name === JOBS.analyseRecording.name ? analyseRecordingProcessor(job, ctx.deps.ds, ctx.deps.repos) : null), { connection, prefix });
-  events = new QueueEvents(QUEUES.clinical, { connection, prefix });
-  queue = new Queue(QUEUES.clinical, { connection, prefix });
-  await events.waitUntilReady();
+  clinical = await startClinicalQueue(ctx, async (job) => (job.name === JOBS.analyseRecording.name ? analyseRecordingProcessor(job, ctx.deps.ds, ctx.deps.repos) : null));
+  ({ events, queue } = clinical);
 });
 afterAll(async () => {
-  await worker.close();
-  await events.close();
-  await queue.close();
+  await clinical.close();
   await ctx.close();
 });
 

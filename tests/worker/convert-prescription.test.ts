@@ -1,31 +1,25 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Queue, QueueEvents, Worker } from 'bullmq';
-import { JOBS, QUEUES, conversionJobId } from '../../shared/jobs/catalogue';
+import type { Queue, QueueEvents } from 'bullmq';
+import { JOBS, conversionJobId } from '../../shared/jobs/catalogue';
 import { createTestContext, type TestContext } from '../helpers/test-app';
+import { startClinicalQueue, type ClinicalQueue } from '../helpers/queues';
 import { enrolmentBody, makeClinic } from '../helpers/infants';
 import { enrolInfant } from '../../server/modules/infants/enrol';
-import { redisConnection } from '../../worker/queues';
 import { convertPrescriptionProcessor } from '../../worker/processors/convert-prescription.processor';
 import { reconcileConversions } from '../../worker/processors/reconcile-conversions.processor';
 import { computeProposal } from '../../server/modules/prescriptions/compute-proposal';
 
 let ctx: TestContext;
-let worker: Worker;
+let clinical: ClinicalQueue;
 let events: QueueEvents;
 let queue: Queue;
 beforeAll(async () => {
   ctx = await createTestContext();
-  const connection = redisConnection(ctx.deps.env.REDIS_URL);
-  const prefix = ctx.deps.env.QUEUE_PREFIX;
-  worker = new Worker(QUEUES.clinical, (job) => convertPrescriptionProcessor(job, ctx.deps.ds, ctx.deps.repos), { connection, prefix });
-  events = new QueueEvents(QUEUES.clinical, { connection, prefix });
-  queue = new Queue(QUEUES.clinical, { connection, prefix });
-  await events.waitUntilReady();
+  clinical = await startClinicalQueue(ctx, (job) => convertPrescriptionProcessor(job, ctx.deps.ds, ctx.deps.repos));
+  ({ events, queue } = clinical);
 });
 afterAll(async () => {
-  await worker.close();
-  await events.close();
-  await queue.close();
+  await clinical.close();
   await ctx.close();
 });
 

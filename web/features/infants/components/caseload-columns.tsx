@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { createColumnHelper, rowPaginationFeature, rowSortingFeature, tableFeatures, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import {
   INFANT_FLAG_LABELS,
   INFANT_SORTS,
@@ -10,9 +10,10 @@ import {
 } from '../../../../shared/schemas/infants';
 import { formatFlow, formatMmHg } from '../../../components/clinical/clinical-format';
 import { Badge } from '../../../components/ui/badge';
+import { urlSort } from '../../../components/ui/data-table/url-sort';
+import type { ServerTableFeatures } from '../../../components/ui/data-table/use-server-table';
 
-export const caseloadFeatures = tableFeatures({ rowSortingFeature, rowPaginationFeature });
-const helper = createColumnHelper<typeof caseloadFeatures, InfantSummary>();
+const helper = createColumnHelper<ServerTableFeatures, InfantSummary>();
 
 type Tone = Parameters<typeof Badge>[0]['tone'];
 export const STATUS_TONES: Record<InfantStatus, Tone> = {
@@ -82,18 +83,4 @@ const allColumns = helper.columns([
 export const caseloadColumnsFor = (role: string) =>
   role === 'nurse' ? allColumns.filter((column) => column.id !== 'nurse') : allColumns;
 
-type Sort = ListInfantsQuery['sort'];
-const SORTABLE = new Set(['name', 'correctedAge', 'elevation', 'status']);
-
-/** `-name` in the URL is `[{ id: 'name', desc: true }]` in the table; sorts without a column show unsorted headers. */
-export function sortToSorting(sort: Sort): SortingState {
-  const id = sort.replace(/^-/, '');
-  return SORTABLE.has(id) ? [{ id, desc: sort.startsWith('-') }] : [];
-}
-
-export function sortingToSort(sorting: SortingState, fallback: Sort): Sort {
-  const first = sorting[0];
-  if (!first) return fallback;
-  const candidate = `${first.desc ? '-' : ''}${first.id}`;
-  return (INFANT_SORTS as readonly string[]).includes(candidate) ? (candidate as Sort) : fallback;
-}
+export const caseloadSort = urlSort<ListInfantsQuery['sort']>(INFANT_SORTS, ['name', 'correctedAge', 'elevation', 'status']);

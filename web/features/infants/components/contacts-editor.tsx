@@ -3,7 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { replaceContactsSchema, type InfantDetail } from '../../../../shared/schemas/infants';
 import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
+import { FormActions } from '../../../components/ui/form-actions';
 import { errorMessage, isApiError } from '../../../lib/api-error';
 import { useSignedInUser } from '../../../lib/signed-in-user';
 import { useReplaceContacts } from '../api/update-infant';
@@ -45,14 +45,7 @@ export function ContactsEditor({ infant, onDone }: { infant: InfantDetail; onDon
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
         {save.isError && <Alert>{inline ? 'Check the highlighted fields.' : errorMessage(save.error)}</Alert>}
         <ContactFields defaultTimeZone={user.programmeTimeZone} />
-        <div className="flex flex-wrap gap-3">
-          <Button type="submit" disabled={save.isPending}>
-            {save.isPending ? 'Saving…' : 'Save contacts'}
-          </Button>
-          <Button variant="quiet" onClick={onDone} disabled={save.isPending}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions pending={save.isPending} submitLabel="Save contacts" onCancel={onDone} />
       </form>
     </FormProvider>
   );

@@ -7,12 +7,14 @@ import { updateInfantSchema, type InfantDetail, type UpdateInfantInput } from '.
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
+import { FormActions } from '../../../components/ui/form-actions';
 import { showToast } from '../../../components/ui/toast-store';
 import { errorMessage, isApiError } from '../../../lib/api-error';
+import { asNumber } from '../../../lib/form-values';
 import { infantQueryOptions } from '../api/get-infant';
 import { useUpdateInfant } from '../api/update-infant';
 import { HomeFields } from './enrol-home-step';
-import { asNumber, errorText } from './form-helpers';
+import { errorText } from './form-helpers';
 import { StaffSelect } from './staff-select';
 
 type DetailsValues = z.input<typeof updateInfantSchema>;
@@ -111,14 +113,7 @@ export function DetailsEditor({ infant, onDone }: { infant: InfantDetail; onDone
           <StaffSelect role="consultant" label="Consultant" error={err('consultantId')} {...register('consultantId')} />
         </div>
         <p className="text-sm text-ink-700">A change of weight or home opens a new proposal for the consultant.</p>
-        <div className="flex flex-wrap gap-3">
-          <Button type="submit" disabled={update.isPending}>
-            {update.isPending ? 'Saving…' : 'Save details'}
-          </Button>
-          <Button variant="quiet" onClick={onDone} disabled={update.isPending}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions pending={update.isPending} submitLabel="Save details" onCancel={onDone} />
       </form>
     </FormProvider>
   );

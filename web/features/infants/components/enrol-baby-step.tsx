@@ -1,9 +1,10 @@
 import { useFormContext } from 'react-hook-form';
 import { DIAGNOSES, DIAGNOSIS_LABELS } from '../../../../shared/schemas/infants';
 import { SelectField, TextField } from '../../../components/ui/field';
+import { asNumber } from '../../../lib/form-values';
 import { Choice, ChoiceGroup } from './choice-fields';
 import type { EnrolValues } from './enrol-values';
-import { asNumber, errorText } from './form-helpers';
+import { errorText } from './form-helpers';
 
 export function EnrolBabyStep() {
   const {

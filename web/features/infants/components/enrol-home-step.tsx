@@ -1,8 +1,9 @@
 import { useFormContext, useWatch } from 'react-hook-form';
 import { TextField } from '../../../components/ui/field';
+import { asNumber } from '../../../lib/form-values';
 import { Choice, ChoiceGroup, TextAreaField } from './choice-fields';
 import type { EnrolValues } from './enrol-values';
-import { asNumber, errorText } from './form-helpers';
+import { errorText } from './form-helpers';
 import { PlaceFields } from './place-fields';
 
 type HomeSource = EnrolValues['home']['source'];

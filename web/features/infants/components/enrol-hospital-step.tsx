@@ -2,10 +2,11 @@ import { useFormContext, useWatch } from 'react-hook-form';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { Spinner } from '../../../components/ui/spinner';
 import { Alert } from '../../../components/ui/alert';
+import { asNumber } from '../../../lib/form-values';
 import { useSites } from '../api/get-programme-data';
 import { Choice, ChoiceGroup } from './choice-fields';
 import type { EnrolValues } from './enrol-values';
-import { asNumber, errorText } from './form-helpers';
+import { errorText } from './form-helpers';
 
 type Source = EnrolValues['hospital']['source'];
 

@@ -1,10 +1,5 @@
 import { get, type FieldError, type FieldErrors, type FieldValues } from 'react-hook-form';
 
-/** Number boxes: empty is "not given" (undefined) so the schema says "Enter …", never NaN or 0. */
-export const asNumber = {
-  setValueAs: (value: unknown) => (value === '' || value === null || value === undefined ? undefined : Number(value)),
-};
-
 /**
  * The message for one field. zod's generic type message ("expected number, received undefined") only ever means
  * the box was left empty, so a plain "Enter …" replaces it where the shared schema has no wording of its own.

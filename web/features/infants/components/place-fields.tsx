@@ -1,8 +1,9 @@
 import { useState } from 'react';
 import { useFormContext, useWatch, type FieldValues, type Path } from 'react-hook-form';
 import { TextField } from '../../../components/ui/field';
+import { asNumber } from '../../../lib/form-values';
 import { Choice, ChoiceGroup } from './choice-fields';
-import { asNumber, errorText } from './form-helpers';
+import { errorText } from './form-helpers';
 
 export const PLACE_KEYS = ['elevationM', 'elevationFt', 'pressureMmHg'] as const;
 export type PlaceKey = (typeof PLACE_KEYS)[number];

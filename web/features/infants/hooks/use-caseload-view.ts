@@ -1,26 +1,20 @@
 import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import type { z } from 'zod';
 import { listInfantsQuerySchema, type ListInfantsQuery } from '../../../../shared/schemas/infants';
+import { readParam } from '../../../lib/url-param';
 
 const shape = listInfantsQuerySchema.shape;
 const DEFAULTS = listInfantsQuerySchema.parse({});
 
-// Each parameter falls back on its own, so one bad value in a shared link does not reset the whole view.
-function read<T>(schema: z.ZodType<T>, raw: string | null, fallback: T): T {
-  const result = schema.safeParse(raw ?? undefined);
-  return result.success ? result.data : fallback;
-}
-
 export function readCaseloadView(params: URLSearchParams): ListInfantsQuery {
   return {
-    page: read(shape.page, params.get('page'), DEFAULTS.page),
-    pageSize: read(shape.pageSize, params.get('pageSize'), DEFAULTS.pageSize),
-    sort: read(shape.sort, params.get('sort'), DEFAULTS.sort),
-    status: read(shape.status, params.get('status'), undefined),
-    flag: read(shape.flag, params.get('flag'), undefined),
-    q: read(shape.q, params.get('q'), undefined) || undefined,
-    scope: read(shape.scope, params.get('scope'), undefined),
+    page: readParam(shape.page, params.get('page'), DEFAULTS.page),
+    pageSize: readParam(shape.pageSize, params.get('pageSize'), DEFAULTS.pageSize),
+    sort: readParam(shape.sort, params.get('sort'), DEFAULTS.sort),
+    status: readParam(shape.status, params.get('status'), undefined),
+    flag: readParam(shape.flag, params.get('flag'), undefined),
+    q: readParam(shape.q, params.get('q'), undefined) || undefined,
+    scope: readParam(shape.scope, params.get('scope'), undefined),
   };
 }
 

@@ -1,6 +1,7 @@
 import { get, useFormContext, type FieldError } from 'react-hook-form';
 import type { z } from 'zod';
 import { TextField } from '../../../components/ui/field';
+import { asNumber } from '../../../lib/form-values';
 import type { PolicyFormValues } from './policy-values';
 import { rangeOf, rangeText, readableError } from './policy-sources';
 
@@ -23,10 +24,6 @@ interface NumberSettingProps {
   /** "Default 93 % · TSANZ 2020 / BTS 2009" */
   defaultText?: string;
 }
-
-const asNumber = {
-  setValueAs: (value: unknown) => (value === '' || value === null || value === undefined ? undefined : Number(value)),
-};
 
 export function NumberSetting({ name, label, schema, unit = '', scale = 1, defaultText }: NumberSettingProps) {
   const { register, formState } = useFormContext<PolicyFormValues>();

@@ -3,7 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { updateReadingSchema, type Reading, type UpdateReadingInput } from '../../../../shared/schemas/readings';
 import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
+import { FormActions } from '../../../components/ui/form-actions';
 import { errorMessage, isApiError } from '../../../lib/api-error';
 import { applyServerFieldErrors } from '../../../lib/form-errors';
 import { useUpdateReading } from '../api/update-reading';
@@ -49,14 +49,7 @@ export function CorrectReadingForm({ reading, onDone }: { reading: Reading; onDo
         <FigureFields />
         <StateChoice />
         <NotesField />
-        <div className="flex flex-wrap gap-3">
-          <Button type="submit" disabled={update.isPending}>
-            {update.isPending ? 'Saving…' : 'Save correction'}
-          </Button>
-          <Button variant="quiet" onClick={onDone} disabled={update.isPending}>
-            Cancel
-          </Button>
-        </div>
+        <FormActions pending={update.isPending} submitLabel="Save correction" onCancel={onDone} />
       </form>
     </FormProvider>
   );

@@ -3,7 +3,8 @@ import { useFormContext } from 'react-hook-form';
 import type { z } from 'zod';
 import { READING_STATES, READING_STATE_LABELS, type createReadingSchema } from '../../../../shared/schemas/readings';
 import { describedBy, TextField } from '../../../components/ui/field';
-import { asNumber, asOptionalText } from './reading-values';
+import { asNumber } from '../../../lib/form-values';
+import { asOptionalText } from './reading-values';
 
 /** The fields a new reading and a correction have in common; both forms use the same names as the shared schema. */
 export type ReadingFieldValues = Pick<z.input<typeof createReadingSchema>, 'spo2' | 'pulse' | 'flowLpm' | 'state' | 'notes'>;

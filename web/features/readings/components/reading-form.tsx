@@ -8,9 +8,9 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { errorMessage, isApiError } from '../../../lib/api-error';
 import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { asNumber } from '../../../lib/form-values';
 import { useCreateReading } from '../api/create-reading';
 import { FigureFields, NotesField, StateChoice } from './reading-fields';
-import { asNumber } from './reading-values';
 import { TakenAtField } from './taken-at-field';
 
 export interface ReadingFormProps {

@@ -1,11 +1,6 @@
 import { READING_STATE_LABELS, type Reading } from '../../../../shared/schemas/readings';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 
-/** Number boxes: empty means "not given" (undefined), so the schema says "Enter …" rather than seeing 0 or NaN. */
-export const asNumber = {
-  setValueAs: (value: unknown) => (value === '' || value === null || value === undefined ? undefined : Number(value)),
-};
-
 /** Empty notes are left out rather than stored as an empty string. */
 export const asOptionalText = {
   setValueAs: (value: unknown) => (typeof value === 'string' && value.trim() !== '' ? value : undefined),

@@ -3,8 +3,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { ROLES, ROLE_LABELS } from '../../../../shared/auth/roles';
 import { createUserSchema, type CreateUserInput } from '../../../../shared/schemas/users';
 import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
 import { SelectField, TextField } from '../../../components/ui/field';
+import { FormActions } from '../../../components/ui/form-actions';
 import { errorMessage, isApiError } from '../../../lib/api-error';
 import { applyServerFieldErrors } from '../../../lib/form-errors';
 import type { useCreateUser } from '../api/create-user';
@@ -59,14 +59,7 @@ export function AddPersonForm({ mutation, onCancel }: AddPersonFormProps) {
           ))}
         </SelectField>
       </div>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" disabled={mutation.isPending}>
-          {mutation.isPending ? 'Adding…' : 'Add person'}
-        </Button>
-        <Button variant="quiet" onClick={onCancel} disabled={mutation.isPending}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions pending={mutation.isPending} submitLabel="Add person" pendingLabel="Adding…" onCancel={onCancel} />
     </form>
   );
 }

@@ -1,12 +1,13 @@
-import { createColumnHelper, rowPaginationFeature, rowSortingFeature, tableFeatures, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { ROLE_LABELS } from '../../../../shared/auth/roles';
 import { USER_SORTS, type ListUsersQuery, type User } from '../../../../shared/schemas/users';
 import { Badge } from '../../../components/ui/badge';
+import { urlSort } from '../../../components/ui/data-table/url-sort';
+import type { ServerTableFeatures } from '../../../components/ui/data-table/use-server-table';
 import { formatDateTime } from '../../../lib/format';
 import { UserAccessAction } from './user-access-action';
 
-export const peopleFeatures = tableFeatures({ rowSortingFeature, rowPaginationFeature });
-const helper = createColumnHelper<typeof peopleFeatures, User>();
+const helper = createColumnHelper<ServerTableFeatures, User>();
 
 export const peopleColumns = helper.columns([
   helper.accessor('name', { header: 'Name', cell: (info) => <span className="font-semibold">{info.getValue()}</span> }),
@@ -31,18 +32,4 @@ export const peopleColumns = helper.columns([
   }),
 ]);
 
-type Sort = ListUsersQuery['sort'];
-const SORTABLE = new Set(['name', 'email', 'role']);
-
-/** `-name` in the URL is `[{ id: 'name', desc: true }]` in the table; sorts without a column show unsorted headers. */
-export function sortToSorting(sort: Sort): SortingState {
-  const id = sort.replace(/^-/, '');
-  return SORTABLE.has(id) ? [{ id, desc: sort.startsWith('-') }] : [];
-}
-
-export function sortingToSort(sorting: SortingState, fallback: Sort): Sort {
-  const first = sorting[0];
-  if (!first) return fallback;
-  const candidate = `${first.desc ? '-' : ''}${first.id}`;
-  return (USER_SORTS as readonly string[]).includes(candidate) ? (candidate as Sort) : fallback;
-}
+export const peopleSort = urlSort<ListUsersQuery['sort']>(USER_SORTS, ['name', 'email', 'role']);

@@ -1,24 +1,18 @@
 import { useCallback, useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import type { z } from 'zod';
 import { listUsersQuerySchema, type ListUsersQuery } from '../../../../shared/schemas/users';
+import { readParam } from '../../../lib/url-param';
 
 const shape = listUsersQuerySchema.shape;
 const DEFAULTS = listUsersQuerySchema.parse({});
 
-// Each parameter falls back on its own, so one bad value in a shared link does not reset the whole view.
-function read<T>(schema: z.ZodType<T>, raw: string | null, fallback: T): T {
-  const result = schema.safeParse(raw ?? undefined);
-  return result.success ? result.data : fallback;
-}
-
 export function readPeopleView(params: URLSearchParams): ListUsersQuery {
   return {
-    page: read(shape.page, params.get('page'), DEFAULTS.page),
-    pageSize: read(shape.pageSize, params.get('pageSize'), DEFAULTS.pageSize),
-    sort: read(shape.sort, params.get('sort'), DEFAULTS.sort),
-    role: read(shape.role, params.get('role'), undefined),
-    q: read(shape.q, params.get('q'), undefined) || undefined,
+    page: readParam(shape.page, params.get('page'), DEFAULTS.page),
+    pageSize: readParam(shape.pageSize, params.get('pageSize'), DEFAULTS.pageSize),
+    sort: readParam(shape.sort, params.get('sort'), DEFAULTS.sort),
+    role: readParam(shape.role, params.get('role'), undefined),
+    q: readParam(shape.q, params.get('q'), undefined) || undefined,
   };
 }
 

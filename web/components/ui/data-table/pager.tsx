@@ -1,16 +1,17 @@
-import type { ReactTable } from '@tanstack/react-table';
-import type { User } from '../../../../shared/schemas/users';
-import { Button } from '../../../components/ui/button';
-import type { peopleFeatures } from './people-columns';
+import type { ReactTable, RowData } from '@tanstack/react-table';
+import { Button } from '../button';
+import type { ServerTableFeatures } from './use-server-table';
 
 const PAGE_SIZES = [10, 25, 50, 100];
 
-interface PeoplePagerProps {
-  table: ReactTable<typeof peopleFeatures, User>;
+interface PagerProps<TData extends RowData> {
+  table: ReactTable<ServerTableFeatures, TData>;
   total: number;
+  /** What a row is, in the singular and the plural: `{ one: 'baby', other: 'babies' }`. */
+  noun: { one: string; other: string };
 }
 
-export function PeoplePager({ table, total }: PeoplePagerProps) {
+export function Pager<TData extends RowData>({ table, total, noun }: PagerProps<TData>) {
   const { pageIndex, pageSize } = table.state.pagination;
   const pages = Math.max(1, table.getPageCount());
   // A hand-edited link may ask for a size the menu does not list; show it rather than lie about it.
@@ -18,7 +19,7 @@ export function PeoplePager({ table, total }: PeoplePagerProps) {
   return (
     <nav aria-label="Pages" className="flex flex-wrap items-center justify-between gap-3">
       <p className="text-ink-700">
-        Page {pageIndex + 1} of {pages} · {total} {total === 1 ? 'person' : 'people'}
+        Page {pageIndex + 1} of {pages} · {total} {total === 1 ? noun.one : noun.other}
       </p>
       <div className="flex flex-wrap items-center gap-2">
         <label className="flex items-center gap-2 text-sm text-ink-700">

@@ -1,27 +1,29 @@
 import type { ReactNode } from 'react';
-import type { Header } from '@tanstack/react-table';
-import type { InfantSummary } from '../../../../shared/schemas/infants';
-import type { caseloadFeatures } from './caseload-columns';
-
-type CaseloadHeader = Header<typeof caseloadFeatures, InfantSummary, unknown>;
+import type { Header, RowData } from '@tanstack/react-table';
+import type { ServerTableFeatures } from './use-server-table';
 
 const arrows = { asc: '▲', desc: '▼' } as const;
 const words = { asc: 'ascending', desc: 'descending' } as const;
 
+interface SortHeaderProps<TData extends RowData> {
+  header: Header<ServerTableFeatures, TData, unknown>;
+  children: ReactNode;
+  className: string;
+}
+
 /** The header cell carries aria-sort and the sort direction in words, not only an arrow. */
-export function CaseloadSortHeader({ header, children, className = '' }: { header: CaseloadHeader; children: ReactNode; className?: string }) {
+export function SortHeader<TData extends RowData>({ header, children, className }: SortHeaderProps<TData>) {
   const sorted = header.column.getIsSorted();
-  const base = `px-2 py-2 font-semibold ${className}`;
-  if (header.isPlaceholder) return <th className={base} />;
+  if (header.isPlaceholder) return <th className={className} />;
   if (!header.column.getCanSort()) {
     return (
-      <th scope="col" className={base}>
+      <th scope="col" className={className}>
         {children}
       </th>
     );
   }
   return (
-    <th scope="col" className={base} aria-sort={sorted ? words[sorted] : 'none'}>
+    <th scope="col" className={className} aria-sort={sorted ? words[sorted] : 'none'}>
       <button
         type="button"
         onClick={header.column.getToggleSortingHandler()}
