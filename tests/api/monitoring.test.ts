@@ -169,6 +169,26 @@ describe('stepping down', () => {
     expect(proposal!.evidence).toMatchObject({ targetMet: true, recordingId: 'r2' });
   });
 
+  it('when off oxygen past the observation period with a satisfactory study, then leaving the programme is proposed and approval ends the plan', async () => {
+    const { infant, nurse, consultant } = await babyAtHome();
+    let next = (await post(nurse, `/api/infants/${infant.id}/step-down-requests`, { reason: 'Ready' })).body;
+    // Walk the ladder to "off": lower steps, then night-only, then off.
+    for (let i = 0; i < 30 && next.proposedFlowLpm !== 0; i++) {
+      await post(consultant, `/api/prescriptions/${next.id}/decision`, { decision: 'approve' }).expect(200);
+      next = (await post(nurse, `/api/infants/${infant.id}/step-down-requests`, { reason: 'Ready' }).expect(201)).body;
+    }
+    expect(next).toMatchObject({ proposedFlowLpm: 0, evidence: { kind: 'off' } });
+    await post(consultant, `/api/prescriptions/${next.id}/decision`, { decision: 'approve' }).expect(200);
+    expect((await nurse.get(`/api/infants/${infant.id}`)).body.status).toBe('off_oxygen');
+    await ctx.deps.ds.query(`UPDATE infants SET off_oxygen_since = now() - interval '30 days' WHERE id = $1`, [infant.id]);
+    await ctx.deps.ds.query(`UPDATE prescriptions SET decided_at = now() - interval '30 days' WHERE infant_id = $1 AND status = 'active'`, [infant.id]);
+    const service = createStepDownsService(ctx.deps.ds, ctx.deps.repos);
+    const leave = await service.considerStudy(infant.id, { recordingId: 'r9', recordedAt: new Date(), meanSpo2: 96.5, pctBelow90: 0.2, validMinutes: 600 });
+    expect(leave).toMatchObject({ reason: 'leave_programme', status: 'proposed' });
+    await post(consultant, `/api/prescriptions/${leave!.id}/decision`, { decision: 'approve' }).expect(200);
+    expect((await nurse.get(`/api/infants/${infant.id}`)).body.status).toBe('left_programme');
+  });
+
   it('when a family or consultant asks for a step down, then 403', async () => {
     const { infant, clinic, consultant } = await babyAtHome();
     const family = await signedInAgent(ctx.app, clinic.people.family.email);

@@ -68,7 +68,7 @@ describe('Family plan', () => {
     stubFamily([juniper], { [juniper.id]: [waiting] });
     renderApp('/family');
     expect(await screen.findByText("Your baby's home oxygen plan will show here once the consultant has approved it.")).toBeInTheDocument();
-    expect(screen.queryByText(/litres per minute/)).not.toBeInTheDocument();
+    expect(screen.queryByText(/Set the flowmeter to/)).not.toBeInTheDocument();
     for (const word of JARGON) expect(document.body).not.toHaveTextContent(word);
   });
 
@@ -80,5 +80,29 @@ describe('Family plan', () => {
     await user.click(within(picker).getByRole('link', { name: 'Juniper Ashcombe' }));
     expect(await screen.findByText('Set the flowmeter to 0.25 litres per minute, day and night')).toBeInTheDocument();
     expect(within(picker).getByRole('link', { name: 'Juniper Ashcombe' })).toHaveAttribute('aria-current', 'page');
+  });
+});
+
+describe('a reading from home', () => {
+  it('when a parent sends a reading, then it goes to their baby without a weight and in their words', async () => {
+    const calls: Array<{ url: string; body: unknown }> = [];
+    stubApi({
+      'GET /api/session': sessionHandler('family'),
+      'GET /api/infants': () => json(200, { items: [juniper], total: 1 }),
+      [`GET /api/infants/${juniper.id}/prescriptions`]: () => json(200, { items: [plan(juniper.id)] }),
+      [`POST /api/infants/${juniper.id}/readings`]: (request) => {
+        calls.push({ url: String(request.url), body: request.body });
+        return json(201, { id: '9d9d9d9d-0000-4000-8000-000000000001', infantId: juniper.id, checkId: null, takenAt: new Date().toISOString(), spo2: 94, pulse: null, flowLpm: null, state: 'asleep', weightKg: null, notes: null, familyReported: true, createdBy: { id: '00000005-1111-4111-8111-111111111111', name: 'Rosa' }, createdAt: new Date().toISOString(), editableUntil: null });
+      },
+    });
+    const { user } = renderApp('/family');
+    await user.type(await screen.findByLabelText('Oxygen level shown on the monitor (%)'), '94');
+    await user.click(screen.getByLabelText('Asleep'));
+    expect(screen.queryByLabelText(/Weight/)).not.toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Send the reading to the team' }));
+    await screen.findByText('Thank you: the team can see your reading.');
+    expect(calls).toHaveLength(1);
+    expect(calls[0].body).toMatchObject({ spo2: 94, state: 'asleep' });
+    expect(calls[0].body).not.toHaveProperty('weightKg');
   });
 });

@@ -1,9 +1,16 @@
 import { Card } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';
+import { useSearchParams } from 'react-router-dom';
 import { OurPlan } from '../../features/family/components/our-plan';
+import { useOurBabies } from '../../features/family/api/get-our-babies';
+import { ReadingForm } from '../../features/readings/components/reading-form';
+import { showToast } from '../../components/ui/toast-store';
 
 /** Phone-first and large type: families read this at home, often one-handed, often tired. */
 export function Component() {
+  const [params] = useSearchParams();
+  const babies = useOurBabies().data ?? [];
+  const baby = babies.find((b) => b.id === params.get('baby')) ?? babies[0];
   return (
     <div className="mx-auto flex max-w-2xl flex-col gap-5 text-lg">
       <div>
@@ -11,6 +18,15 @@ export function Component() {
         <p className="mt-2 text-xl leading-relaxed text-ink-700">Your baby's oxygen at home, and your next visits.</p>
       </div>
       <OurPlan />
+      {baby && (
+        <Card title="Tell the team a reading">
+          <p className="mb-3 text-lg text-ink-700">
+            If you check your baby's oxygen level at home, you can send it here. It is marked as taken by the family.
+            It does not replace calling the team if you are worried.
+          </p>
+          <ReadingForm infantId={baby.id} forFamily onSaved={() => showToast('ok', 'Thank you: the team can see your reading.')} />
+        </Card>
+      )}
       <Card title="Next visits">
         <EmptyState large message="Visits booked by your home-care team will show here." />
       </Card>

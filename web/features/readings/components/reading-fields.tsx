@@ -11,18 +11,25 @@ export type ReadingFieldValues = Pick<z.input<typeof createReadingSchema>, 'spo2
 
 const bigNumber = 'min-h-12 text-xl tabular-nums';
 
-export function FigureFields() {
+// A family reads the numbers off the home oximeter and the flowmeter; the labels use their words.
+const LABELS = {
+  staff: { spo2: 'SpO2 (%)', pulse: 'Pulse (/min)', flow: 'Flow at the time (L/min)', flowHint: '0 if the baby was off oxygen' },
+  family: { spo2: 'Oxygen level shown on the monitor (%)', pulse: 'Heart rate shown on the monitor', flow: 'Flowmeter setting (litres per minute)', flowHint: '0 if your baby was not on oxygen' },
+};
+
+export function FigureFields({ forFamily = false }: { forFamily?: boolean }) {
+  const words = LABELS[forFamily ? 'family' : 'staff'];
   const { register, formState } = useFormContext<ReadingFieldValues>();
   const { errors } = formState;
   return (
     <div className="grid grid-cols-2 gap-3">
-      <TextField label="SpO2 (%)" type="number" inputMode="numeric" autoComplete="off" className={bigNumber}
+      <TextField label={words.spo2} type="number" inputMode="numeric" autoComplete="off" className={bigNumber}
         error={errors.spo2?.message} {...register('spo2', asNumber)} />
-      <TextField label="Pulse (/min)" type="number" inputMode="numeric" autoComplete="off" className={bigNumber}
+      <TextField label={words.pulse} type="number" inputMode="numeric" autoComplete="off" className={bigNumber}
         error={errors.pulse?.message} {...register('pulse', asNumber)} />
       <div className="col-span-2">
-        <TextField label="Flow at the time (L/min)" type="number" inputMode="decimal" step="any" autoComplete="off" className={bigNumber}
-          hint="0 if the baby was off oxygen" error={errors.flowLpm?.message} {...register('flowLpm', asNumber)} />
+        <TextField label={words.flow} type="number" inputMode="decimal" step="any" autoComplete="off" className={bigNumber}
+          hint={words.flowHint} error={errors.flowLpm?.message} {...register('flowLpm', asNumber)} />
       </div>
     </div>
   );

@@ -20,6 +20,8 @@ export interface ReadingFormProps {
   /** The baby's current flow, so the usual case needs no typing. */
   defaultFlowLpm?: number | null;
   onSaved?: (reading: Reading) => void;
+  /** A parent's home reading: no weight (the team weighs the baby) and wording for a family. */
+  forFamily?: boolean;
 }
 
 type Values = z.input<typeof createReadingSchema>;
@@ -29,7 +31,7 @@ const freshValues = (checkId?: string, defaultFlowLpm?: number | null): Values =
   ({ takenAt: new Date().toISOString(), flowLpm: defaultFlowLpm ?? undefined, checkId }) as Values;
 
 /** The quick spot reading: a nurse at the door fills it with a thumb and saves it with one tap. */
-export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved }: ReadingFormProps) {
+export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFamily = false }: ReadingFormProps) {
   const create = useCreateReading(infantId);
   // A second tap can land before the button re-renders as disabled; one reading must not be stored twice.
   const sending = useRef(false);
@@ -68,14 +70,16 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved }: Read
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Spot reading" className="flex flex-col gap-4">
         {problem && <Alert>{problem}</Alert>}
-        <FigureFields />
+        <FigureFields forFamily={forFamily} />
         <StateChoice />
-        <TextField label="Weight (kg, optional)" type="number" inputMode="decimal" step="any" autoComplete="off" className="min-h-12 text-xl tabular-nums"
-          hint="Only if the baby was weighed today" error={formState.errors.weightKg?.message} {...register('weightKg', asNumber)} />
+        {!forFamily && (
+          <TextField label="Weight (kg, optional)" type="number" inputMode="decimal" step="any" autoComplete="off" className="min-h-12 text-xl tabular-nums"
+            hint="Only if the baby was weighed today" error={formState.errors.weightKg?.message} {...register('weightKg', asNumber)} />
+        )}
         <NotesField />
         <TakenAtField control={form.control} />
         <Button type="submit" size="lg" disabled={busy} className="w-full">
-          {busy ? 'Saving…' : 'Save reading'}
+          {busy ? 'Saving…' : forFamily ? 'Send the reading to the team' : 'Save reading'}
         </Button>
       </form>
     </FormProvider>
