@@ -46,6 +46,9 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 /** Signs in through the form from a signed-out start, whatever the previous case left behind. */
 export async function signIn(browser: Browser, base: string, email: string, password = 'nestflow-demo'): Promise<void> {
   const { page } = browser;
+  // Leave the app first: a request still in flight could otherwise set the previous person's rolling session
+  // cookie again after it was cleared, and the sign-in page would then redirect to their home.
+  await page.goto('about:blank');
   await browser.context.clearCookies();
   await page.goto(`${base}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
