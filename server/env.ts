@@ -5,6 +5,9 @@ const boolFromString = z
   .enum(['true', 'false', '1', '0'])
   .transform((v) => v === 'true' || v === '1');
 
+// Empty means "not set": lets SMS_API_BASE= switch the SMS sender to the hosted service.
+const optionalUrl = z.union([z.literal(''), z.url()]).optional();
+
 const envSchema = z
   .object({
     NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -23,6 +26,21 @@ const envSchema = z
     SIGNIN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
     WEB_DIST: z.string().default('dist/web'),
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
+    // Defaults point the senders at the local fakes (fakes/mail, fakes/sms); real credentials reach the hosted ones.
+    SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+    SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2526),
+    SMTP_SECURE: boolFromString.default(false),
+    SMTP_USER: z.string().min(1).optional(),
+    SMTP_PASS: z.string().min(1).optional(),
+    MAIL_FROM: z.string().min(3).default('Nestflow <no-reply@nestflow.example>'),
+    TWILIO_ACCOUNT_SID: z.string().regex(/^AC[0-9a-fA-F]{32}$/).default('AC00000000000000000000000000000000'),
+    TWILIO_AUTH_TOKEN: z.string().min(8).default('nestflow-fake-sms-auth-token'),
+    TWILIO_FROM: z.string().min(3).default('+15005550006'),
+    SMS_API_BASE: optionalUrl.default('http://127.0.0.1:3102'),
+    FAKE_MAIL_HTTP_PORT: z.coerce.number().int().min(0).max(65535).default(3101),
+    FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2526),
+    FAKE_SMS_PORT: z.coerce.number().int().min(0).max(65535).default(3102),
+    INBOUND_WEBHOOK_URL: optionalUrl,
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {

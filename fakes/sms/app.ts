@@ -1,0 +1,117 @@
+import { randomBytes } from 'node:crypto';
+import { createServer } from 'node:http';
+import express, { type Request, type Response } from 'express';
+import { createFailureSwitch } from '../lib/failure-switch';
+import { createInspectionRouter } from '../lib/inspection-router';
+import { closeHttp, listenOn } from '../lib/listen';
+import { forwardInbound, type InboundForwarding } from './inbound';
+
+export interface FakeSmsMessage {
+  sid: string;
+  accountSid: string;
+  to: string;
+  from: string;
+  body: string;
+  dateCreated: string;
+  /** Kept so tests can prove the request came through the SDK's own client, not a hand-made call. */
+  userAgent: string | null;
+  authUser: string | null;
+}
+
+export interface FakeSms {
+  port: number;
+  messages(): readonly FakeSmsMessage[];
+  close(): Promise<void>;
+}
+
+export interface FakeSmsOptions extends InboundForwarding {
+  port: number;
+  host?: string;
+}
+
+const newSid = (prefix: string) => prefix + randomBytes(16).toString('hex');
+// The hosted API dates its resources in RFC 2822 form.
+const rfc2822 = (d: Date) => d.toUTCString().replace('GMT', '+0000');
+
+function providerError(res: Response, status: number, code: number, message: string): void {
+  res.status(status).json({ code, message, more_info: `https://www.twilio.com/docs/errors/${code}`, status });
+}
+
+function basicUser(req: Request): string | null {
+  const match = /^Basic\s+(.+)$/i.exec(req.get('authorization') ?? '');
+  if (!match) return null;
+  const decoded = Buffer.from(match[1], 'base64').toString('utf8');
+  const colon = decoded.indexOf(':');
+  return colon > 0 && colon < decoded.length - 1 ? decoded.slice(0, colon) : null;
+}
+
+export async function startFakeSms(opts: FakeSmsOptions): Promise<FakeSms> {
+  const store: FakeSmsMessage[] = [];
+  const failures = createFailureSwitch();
+  const app = express();
+  app.disable('x-powered-by');
+  app.use(createInspectionRouter({ name: 'sms', list: () => store, clear: () => void store.splice(0), failures }));
+
+  app.post('/2010-04-01/Accounts/:sid/Messages.json', express.urlencoded({ extended: false }), (req, res) => {
+    const accountSid = String(req.params.sid);
+    const user = basicUser(req);
+    if (!user) return providerError(res, 401, 20003, 'Authenticate');
+    // API keys (SK…) may authenticate for an account; otherwise the user must be the account in the path.
+    if (!accountSid.startsWith('AC') || (user !== accountSid && !user.startsWith('SK'))) {
+      return providerError(res, 404, 20404, 'The requested resource was not found');
+    }
+    const mode = failures.next();
+    if (mode === 'timeout') return;
+    if (mode === '5xx') return providerError(res, 500, 20500, 'Internal Server Error');
+    if (mode === '4xx') return providerError(res, 400, 21211, 'The To number is not valid');
+
+    const { To: to, From: from, Body: body } = (req.body ?? {}) as Record<string, string | undefined>;
+    if (!to) return providerError(res, 400, 21604, "A 'To' phone number is required.");
+    if (!from) return providerError(res, 400, 21603, "A 'From' phone number is required.");
+    if (!body) return providerError(res, 400, 21602, 'Message body is required.');
+
+    const now = new Date();
+    const message: FakeSmsMessage = {
+      sid: newSid('SM'),
+      accountSid,
+      to,
+      from,
+      body,
+      dateCreated: now.toISOString(),
+      userAgent: req.get('user-agent') ?? null,
+      authUser: user,
+    };
+    store.push(message);
+    res.status(201).json({
+      sid: message.sid,
+      account_sid: accountSid,
+      to,
+      from,
+      body,
+      status: 'queued',
+      direction: 'outbound-api',
+      num_segments: '1',
+      date_created: rfc2822(now),
+      date_updated: rfc2822(now),
+      date_sent: null,
+      error_code: null,
+      error_message: null,
+      api_version: '2010-04-01',
+      uri: `/2010-04-01/Accounts/${accountSid}/Messages/${message.sid}.json`,
+    });
+  });
+
+  app.post('/inbound', express.json(), express.urlencoded({ extended: false }), async (req, res) => {
+    const { from, body } = (req.body ?? {}) as { from?: unknown; body?: unknown };
+    if (typeof from !== 'string' || !from || typeof body !== 'string') {
+      res.status(400).json({ error: { code: 'validation', message: 'Expected { from, body }' } });
+      return;
+    }
+    const result = await forwardInbound(opts, { from, body, messageSid: newSid('SM') });
+    res.status(result.ok ? 200 : 502).json(result);
+  });
+
+  const http = createServer(app);
+  const port = await listenOn(http, opts.port, opts.host ?? '127.0.0.1');
+  return { port, messages: () => store, close: () => closeHttp(http) };
+}
