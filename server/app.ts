@@ -28,6 +28,8 @@ import { createReadingsService } from './modules/readings/readings.service';
 import { readingsRouters } from './modules/readings/readings.router';
 import { createStepDownsService } from './modules/step-downs/step-downs.service';
 import { stepDownsRouter } from './modules/step-downs/step-downs.router';
+import { createVisitsService } from './modules/visits/visits.service';
+import { visitsRouters } from './modules/visits/visits.router';
 import { createRecordingsService } from './modules/recordings/recordings.service';
 import { infantRecordingsRouter, recordingsRouter } from './modules/recordings/recordings.router';
 
@@ -93,6 +95,9 @@ export function createApp(deps: AppDeps): Express {
   api.use('/conversions', conversionsRouter(repos.policies));
   api.use('/infants', infantsRouter(createInfantsService(deps.ds, repos, deps.jobs), prescriptions));
   api.use('/infants', schedule.infants, readings.infants, stepDownsRouter(createStepDownsService(deps.ds, repos)));
+  const visits = visitsRouters(createVisitsService(deps.ds, repos));
+  api.use('/infants', visits.infants);
+  api.use('/visits', visits.visits);
   api.use('/my-day', schedule.day);
   api.use('/readings', readings.readings);
   api.use('/prescriptions', prescriptionsRouter(prescriptions));

@@ -14,6 +14,7 @@ import { createPrescriptionsRepository } from './db/repositories/prescriptions.r
 import { createJobProducer, type JobProducer } from './jobs/producer';
 import { createChecksRepository } from './db/repositories/checks.repository';
 import { createReadingsRepository } from './db/repositories/readings.repository';
+import { createVisitsRepository } from './db/repositories/visits.repository';
 import { createRecordingsRepository } from './db/repositories/recordings.repository';
 import { createLogger, type Logger } from './lib/logger';
 
@@ -40,6 +41,7 @@ export function createRepos(ds: DataSource) {
     prescriptions: createPrescriptionsRepository(ds),
     checks: createChecksRepository(ds),
     readings: createReadingsRepository(ds),
+    visits: createVisitsRepository(ds),
     recordings: createRecordingsRepository(ds),
   };
 }

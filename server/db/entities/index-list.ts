@@ -8,11 +8,12 @@ import { SiteEntity } from './site.entity';
 import { UserEntity } from './user.entity';
 import { CheckEntity } from './check.entity';
 import { ReadingEntity } from './reading.entity';
+import { VisitEntity } from './visit.entity';
 import { RecordingEntity } from './recording.entity';
 import { RecordingSamplesEntity } from './recording-samples.entity';
 
 // Listed explicitly (no glob) so tsx, Vitest and the TypeORM CLI load the same set.
 export const ENTITIES = [
   ProgrammeEntity, UserEntity, AuditEventEntity, SiteEntity, ProgrammePolicyEntity, InfantEntity, FamilyContactEntity, PrescriptionEntity,
-  CheckEntity, ReadingEntity, RecordingEntity, RecordingSamplesEntity,
+  CheckEntity, ReadingEntity, VisitEntity, RecordingEntity, RecordingSamplesEntity,
 ];

@@ -2,5 +2,6 @@ import { Foundation1764633600000 } from './1764633600000-Foundation';
 import { Enrolment1764720000000 } from './1764720000000-Enrolment';
 import { Recordings1764806400000 } from './1764806400000-Recordings';
 import { Monitoring1764892800000 } from './1764892800000-Monitoring';
+import { Visits1764979200000 } from './1764979200000-Visits';
 
-export const MIGRATIONS = [Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000];
+export const MIGRATIONS = [Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000, Visits1764979200000];
