@@ -1,9 +1,9 @@
 import { Card } from '../../components/ui/card';
-import { EmptyState } from '../../components/ui/empty-state';
 import { useSearchParams } from 'react-router-dom';
 import { OurPlan } from '../../features/family/components/our-plan';
 import { useOurBabies } from '../../features/family/api/get-our-babies';
 import { ReadingForm } from '../../features/readings/components/reading-form';
+import { NextVisits } from '../../features/visits/components/next-visits';
 import { showToast } from '../../components/ui/toast-store';
 
 /** Phone-first and large type: families read this at home, often one-handed, often tired. */
@@ -27,9 +27,7 @@ export function Component() {
           <ReadingForm infantId={baby.id} forFamily onSaved={() => showToast('ok', 'Thank you: the team can see your reading.')} />
         </Card>
       )}
-      <Card title="Next visits">
-        <EmptyState large message="Visits booked by your home-care team will show here." />
-      </Card>
+      <NextVisits infantId={baby?.id} />
       <section className="rounded-2xl border-2 border-danger-600 bg-danger-50 p-5">
         <h2 className="text-2xl font-bold text-danger-800">In an emergency</h2>
         <p className="mt-2 text-xl leading-relaxed text-ink-900">

@@ -25,6 +25,7 @@ import { StepDownAction } from '../../features/monitoring/components/step-down-a
 import { StepEvidenceSection } from '../../features/monitoring/components/step-evidence-section';
 import { readingsDescription, targetBand } from '../../features/monitoring/components/target-band';
 import { RecordingsSection } from '../../features/recordings/components/recordings-section';
+import { VisitsSection } from '../../features/visits/components/visits-section';
 import { useAppAbility } from '../../lib/ability';
 import { isApiError } from '../../lib/api-error';
 import { useSignedInUser } from '../../lib/signed-in-user';
@@ -60,6 +61,7 @@ function useMonitoring(infant: InfantDetail, versions: Prescription[]) {
     band: targets.data ? targetBand(targets.data.settings, ph) : undefined,
     canLog: ability.can('create', subject('Reading', own())),
     canUpload: ability.can('create', subject('Recording', own())),
+    canManageVisits: ability.can('create', subject('Visit', own())),
     canStepDown: onOxygen && ability.can('create', subject('StepDown', own())),
     waiting: versions.some((rx) => rx.status === 'preparing' || rx.status === 'proposed'),
     // The new proposal changes the versions, the status and the trail, which all hang under the baby's detail key.
@@ -77,6 +79,7 @@ function Monitoring({ infant, versions }: { infant: InfantDetail; versions: Pres
     <>
       {m.canStepDown && <StepDownAction infantId={infant.id} waiting={m.waiting} onRequested={() => void m.onStepDownRequested()} />}
       <ScheduleSection infantId={infant.id} />
+      <VisitsSection infantId={infant.id} canManage={m.canManageVisits} />
       <ReadingsSection
         infantId={infant.id}
         canLog={m.canLog}

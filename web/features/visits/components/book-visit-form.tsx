@@ -1,0 +1,57 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { bookVisitSchema, VISIT_KIND_LABELS, VISIT_KINDS, type BookVisitInput } from '../../../../shared/schemas/visits';
+import { Alert } from '../../../components/ui/alert';
+import { SelectField, TextField } from '../../../components/ui/field';
+import { FormActions } from '../../../components/ui/form-actions';
+import { errorMessage, isApiError } from '../../../lib/api-error';
+import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { asNumber } from '../../../lib/form-values';
+import { useBookVisit } from '../api/book-visit';
+import { useVisitStaff } from '../api/get-visit-staff';
+
+type Values = z.input<typeof bookVisitSchema>;
+const FIELDS = ['kind', 'date', 'time', 'durationMinutes', 'staffId', 'purpose'] as const;
+const DEFAULTS = { kind: 'home_visit', date: '', time: '', durationMinutes: 45, staffId: '', purpose: '' } satisfies Values;
+
+export function BookVisitForm({ infantId, onClose }: { infantId: string; onClose: () => void }) {
+  const book = useBookVisit(infantId);
+  const team = useVisitStaff();
+  const form = useForm<Values, unknown, BookVisitInput>({ resolver: zodResolver(bookVisitSchema), defaultValues: DEFAULTS });
+  const { register, formState: { errors }, setError } = form;
+
+  const onSubmit = form.handleSubmit((input) =>
+    book.mutate(input, {
+      onSuccess: onClose,
+      onError: (error) => {
+        const leftover = applyServerFieldErrors(error, setError, FIELDS);
+        if (leftover.length) setError('root.server', { type: 'server', message: leftover.join(' ') });
+      },
+    }),
+  );
+
+  const fieldErrors = isApiError(book.error) && book.error.code === 'validation_failed';
+  const problem = errors.root?.server?.message ?? (book.isError && !fieldErrors ? errorMessage(book.error) : undefined);
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Book a visit" className="flex flex-col gap-4">
+      {problem && <Alert>{problem}</Alert>}
+      <SelectField label="Kind of visit" error={errors.kind?.message} {...register('kind')}>
+        {VISIT_KINDS.map((kind) => <option key={kind} value={kind}>{VISIT_KIND_LABELS[kind]}</option>)}
+      </SelectField>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField label="Date" type="date" error={errors.date?.message} {...register('date')} />
+        <TextField label="Time" type="time" hint="The family's local time" error={errors.time?.message} {...register('time')} />
+      </div>
+      <TextField label="Length (minutes)" type="number" inputMode="numeric" error={errors.durationMinutes?.message}
+        {...register('durationMinutes', asNumber)} />
+      <SelectField label="Who will see the family" error={errors.staffId?.message} {...register('staffId')}>
+        <option value="">{team.isPending ? 'Loading the team…' : 'Choose someone'}</option>
+        {team.staff.map((person) => <option key={person.id} value={person.id}>{person.name}</option>)}
+      </SelectField>
+      <TextField label="What it is for" error={errors.purpose?.message} {...register('purpose')} />
+      <FormActions pending={book.isPending} submitLabel="Book the visit" pendingLabel="Booking…" onCancel={onClose} />
+    </form>
+  );
+}

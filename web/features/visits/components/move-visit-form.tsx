@@ -1,0 +1,48 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { moveVisitSchema, type MoveVisitInput, type Visit } from '../../../../shared/schemas/visits';
+import { Alert } from '../../../components/ui/alert';
+import { TextField } from '../../../components/ui/field';
+import { FormActions } from '../../../components/ui/form-actions';
+import { errorMessage, isApiError } from '../../../lib/api-error';
+import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { useMoveVisit } from '../api/move-visit';
+
+const STALE = 'Someone changed this visit while you were editing. It has been reloaded: check it and try again.';
+
+export function MoveVisitForm({ visit, onClose }: { visit: Visit; onClose: () => void }) {
+  const move = useMoveVisit(visit);
+  const form = useForm<MoveVisitInput>({
+    resolver: zodResolver(moveVisitSchema),
+    defaultValues: { rowVersion: visit.rowVersion, date: visit.date, time: visit.time },
+  });
+  const { register, formState: { errors }, setError } = form;
+
+  // The version is read at send time, so a try after a 409 (and the reload) starts from the fresh one.
+  const onSubmit = form.handleSubmit((values) =>
+    move.mutate({ ...values, rowVersion: visit.rowVersion }, {
+      onSuccess: onClose,
+      onError: (error) => {
+        const leftover = applyServerFieldErrors(error, setError, ['date', 'time']);
+        if (leftover.length) setError('root.server', { type: 'server', message: leftover.join(' ') });
+      },
+    }),
+  );
+
+  const stale = isApiError(move.error) && move.error.status === 409;
+  const fieldErrors = isApiError(move.error) && move.error.code === 'validation_failed';
+  const problem = stale
+    ? STALE
+    : errors.root?.server?.message ?? (move.isError && !fieldErrors ? errorMessage(move.error) : undefined);
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Move the visit" className="flex flex-col gap-3">
+      {problem && <Alert tone={stale ? 'warn' : 'danger'}>{problem}</Alert>}
+      <div className="grid gap-3 sm:grid-cols-2">
+        <TextField label="New date" type="date" error={errors.date?.message} {...register('date')} />
+        <TextField label="New time" type="time" hint="The family's local time" error={errors.time?.message} {...register('time')} />
+      </div>
+      <FormActions pending={move.isPending} submitLabel="Move the visit" pendingLabel="Moving…" onCancel={onClose} />
+    </form>
+  );
+}
