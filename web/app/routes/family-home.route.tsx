@@ -18,6 +18,14 @@ export function Component() {
         <p className="mt-2 text-xl leading-relaxed text-ink-700">Your baby's oxygen at home, and your next visits.</p>
       </div>
       <OurPlan />
+      <NextVisits infantId={baby?.id} />
+      <section className="rounded-2xl border-2 border-danger-600 bg-danger-50 p-5">
+        <h2 className="text-2xl font-bold text-danger-800">In an emergency</h2>
+        <p className="mt-2 text-xl leading-relaxed text-ink-900">
+          If you are worried your baby is seriously unwell, call your local emergency number straight away, then
+          tell your home-care team.
+        </p>
+      </section>
       {baby && (
         <Card title="Tell the team a reading">
           <p className="mb-3 text-lg text-ink-700">
@@ -27,14 +35,6 @@ export function Component() {
           <ReadingForm infantId={baby.id} forFamily onSaved={() => showToast('ok', 'Thank you: the team can see your reading.')} />
         </Card>
       )}
-      <NextVisits infantId={baby?.id} />
-      <section className="rounded-2xl border-2 border-danger-600 bg-danger-50 p-5">
-        <h2 className="text-2xl font-bold text-danger-800">In an emergency</h2>
-        <p className="mt-2 text-xl leading-relaxed text-ink-900">
-          If you are worried your baby is seriously unwell, call your local emergency number straight away, then
-          tell your home-care team.
-        </p>
-      </section>
     </div>
   );
 }
