@@ -1,13 +1,9 @@
 import { useMemo } from 'react';
 import { subject } from '@casl/ability';
 import { useQueryClient } from '@tanstack/react-query';
-import { Link, useParams } from 'react-router-dom';
+import { useParams } from 'react-router-dom';
 import type { InfantDetail } from '../../../shared/schemas/infants';
 import type { Prescription } from '../../../shared/schemas/prescriptions';
-import { Alert } from '../../components/ui/alert';
-import { EmptyState } from '../../components/ui/empty-state';
-import { PageHeader } from '../../components/ui/page-header';
-import { Spinner } from '../../components/ui/spinner';
 import { ReadingsChart } from '../../features/charts/components/readings-chart';
 import { useInfant } from '../../features/infants/api/get-infant';
 import { useInfantPrescriptions } from '../../features/infants/api/get-infant-prescriptions';
@@ -27,21 +23,9 @@ import { readingsDescription, targetBand } from '../../features/monitoring/compo
 import { RecordingsSection } from '../../features/recordings/components/recordings-section';
 import { VisitsSection } from '../../features/visits/components/visits-section';
 import { useAppAbility } from '../../lib/ability';
-import { isApiError } from '../../lib/api-error';
+import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 import { useSignedInUser } from '../../lib/signed-in-user';
 
-function NoSuchBaby() {
-  return (
-    <>
-      <PageHeader title="No such baby in your records" />
-      <EmptyState message="This baby is not in your records. The link may be wrong, or the baby may be looked after by another team.">
-        <Link to="/caseload" className="font-semibold text-brand-700 underline">
-          Go to the caseload
-        </Link>
-      </EmptyState>
-    </>
-  );
-}
 
 /** Readings, recordings, checks and the step-down request: the monitoring half of the record. */
 function useMonitoring(infant: InfantDetail, versions: Prescription[]) {
@@ -103,12 +87,8 @@ export function Component() {
     [prescriptions.data],
   );
 
-  if (infant.isPending) return <Spinner label="Loading the record" />;
-  if (infant.isError) {
-    // 400 (not an id) and 404 (unknown, or another programme's) read the same to the person.
-    if (isApiError(infant.error) && [400, 404].includes(infant.error.status)) return <NoSuchBaby />;
-    return <Alert>{infant.error.message}</Alert>;
-  }
+  const fallback = infantLoadFallback(infant, 'Loading the record', true);
+  if (fallback || !infant.data) return fallback;
 
   const canEdit = ability.can('update', 'Infant');
   return (

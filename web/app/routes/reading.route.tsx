@@ -2,18 +2,16 @@ import { useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, useParams } from 'react-router-dom';
 import type { Reading } from '../../../shared/schemas/readings';
-import { Alert } from '../../components/ui/alert';
 import { Card } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
-import { Spinner } from '../../components/ui/spinner';
 import { useInfant } from '../../features/infants/api/get-infant';
 import { infantKeys } from '../../features/infants/api/infant-keys';
 import { myDayKeys } from '../../features/my-day/api/my-day-keys';
 import { ReadingForm } from '../../features/readings/components/reading-form';
 import { SavedReading } from '../../features/readings/components/saved-reading';
 import { useAppAbility } from '../../lib/ability';
-import { isApiError } from '../../lib/api-error';
+import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 
 const backLink = (id: string) => (
   <Link to={`/infants/${id}`} className="font-semibold text-brand-700 underline">
@@ -37,18 +35,8 @@ export function Component() {
       </>
     );
   }
-  if (infant.isPending) return <Spinner label="Loading the baby" />;
-  if (infant.isError) {
-    if (isApiError(infant.error) && [400, 404].includes(infant.error.status)) {
-      return (
-        <>
-          <PageHeader title="No such baby in your records" />
-          <EmptyState message="This baby is not in your records. The link may be wrong, or the baby may be looked after by another team." />
-        </>
-      );
-    }
-    return <Alert>{infant.error.message}</Alert>;
-  }
+  const fallback = infantLoadFallback(infant, 'Loading the baby');
+  if (fallback || !infant.data) return fallback;
 
   const baby = infant.data;
   const onSaved = (reading: Reading) => {

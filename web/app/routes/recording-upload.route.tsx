@@ -1,16 +1,14 @@
 import { subject } from '@casl/ability';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { Alert } from '../../components/ui/alert';
 import { Card } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
-import { Spinner } from '../../components/ui/spinner';
 import { useInfant } from '../../features/infants/api/get-infant';
 import { monitoringKeys } from '../../features/monitoring/api/monitoring-keys';
 import { RecordingUpload } from '../../features/recordings/components/recording-upload';
 import { useAppAbility } from '../../lib/ability';
-import { isApiError } from '../../lib/api-error';
+import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 import { useSignedInUser } from '../../lib/signed-in-user';
 
 const backLink = (id: string) => (
@@ -28,18 +26,8 @@ export function Component() {
   const ability = useAppAbility();
   const infant = useInfant(id);
 
-  if (infant.isPending) return <Spinner label="Loading the baby" />;
-  if (infant.isError) {
-    if (isApiError(infant.error) && [400, 404].includes(infant.error.status)) {
-      return (
-        <>
-          <PageHeader title="No such baby in your records" />
-          <EmptyState message="This baby is not in your records. The link may be wrong, or the baby may be looked after by another team." />
-        </>
-      );
-    }
-    return <Alert>{infant.error.message}</Alert>;
-  }
+  const fallback = infantLoadFallback(infant, 'Loading the baby');
+  if (fallback || !infant.data) return fallback;
   const baby = infant.data;
   // The same rule as the API: the coordinator, or the nurse whose caseload the baby is on.
   if (!ability.can('create', subject('Recording', { programmeId: user.programmeId, nurseId: baby.nurse?.id ?? null } as Record<string, unknown>))) {

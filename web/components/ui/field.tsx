@@ -1,4 +1,4 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes } from 'react';
+import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
 interface FieldFrameProps {
   id: string;
@@ -82,6 +82,30 @@ export function SelectField({ label, hint, error, id, className = '', children, 
       >
         {children}
       </select>
+    </FieldFrame>
+  );
+}
+
+interface TextAreaFieldProps extends TextareaHTMLAttributes<HTMLTextAreaElement> {
+  label: string;
+  hint?: string;
+  error?: string;
+  ref?: Ref<HTMLTextAreaElement>;
+}
+
+export function TextAreaField({ label, hint, error, id, ...textarea }: TextAreaFieldProps) {
+  const generated = useId();
+  const fieldId = id ?? generated;
+  return (
+    <FieldFrame id={fieldId} label={label} hint={hint} error={error}>
+      <textarea
+        id={fieldId}
+        rows={3}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(fieldId, hint, error)}
+        className={`block w-full rounded-lg border bg-surface-0 px-3 py-2 text-base text-ink-900 ${error ? 'border-danger-600' : 'border-surface-300'}`}
+        {...textarea}
+      />
     </FieldFrame>
   );
 }

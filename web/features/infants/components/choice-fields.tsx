@@ -1,4 +1,4 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type TextareaHTMLAttributes } from 'react';
+import { useId, type InputHTMLAttributes, type ReactNode, type Ref } from 'react';
 import { describedBy } from '../../../components/ui/field';
 
 function ErrorLine({ id, error }: { id: string; error?: string }) {
@@ -48,38 +48,5 @@ export function Choice({ label, type = 'radio', className = '', ...input }: Choi
       <input type={type} className="size-5 shrink-0 accent-brand-600" {...input} />
       <span>{label}</span>
     </label>
-  );
-}
-
-interface TextAreaFieldProps extends TextareaHTMLAttributes<HTMLTextAreaElement> {
-  label: string;
-  hint?: string;
-  error?: string;
-  ref?: Ref<HTMLTextAreaElement>;
-}
-
-export function TextAreaField({ label, hint, error, id, ...textarea }: TextAreaFieldProps) {
-  const generated = useId();
-  const fieldId = id ?? generated;
-  return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={fieldId} className="font-semibold text-ink-900">
-        {label}
-      </label>
-      {hint && (
-        <p id={`${fieldId}-hint`} className="text-sm text-ink-500">
-          {hint}
-        </p>
-      )}
-      <textarea
-        id={fieldId}
-        rows={3}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(fieldId, hint, error)}
-        className={`block w-full rounded-lg border bg-surface-0 px-3 py-2 text-base text-ink-900 ${error ? 'border-danger-600' : 'border-surface-300'}`}
-        {...textarea}
-      />
-      <ErrorLine id={`${fieldId}-error`} error={error} />
-    </div>
   );
 }

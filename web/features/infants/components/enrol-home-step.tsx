@@ -1,7 +1,8 @@
 import { useFormContext, useWatch } from 'react-hook-form';
 import { TextField } from '../../../components/ui/field';
 import { asNumber } from '../../../lib/form-values';
-import { Choice, ChoiceGroup, TextAreaField } from './choice-fields';
+import { TextAreaField } from '../../../components/ui/field';
+import { Choice, ChoiceGroup } from './choice-fields';
 import type { EnrolValues } from './enrol-values';
 import { errorText } from './form-helpers';
 import { PlaceFields } from './place-fields';

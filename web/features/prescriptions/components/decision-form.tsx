@@ -4,7 +4,7 @@ import type { Prescription } from '../../../../shared/schemas/prescriptions';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { SelectField } from '../../../components/ui/field';
+import { SelectField, TextAreaField } from '../../../components/ui/field';
 import { errorMessage, isApiError } from '../../../lib/api-error';
 import { applyServerFieldErrors } from '../../../lib/form-errors';
 import type { useDecidePrescription } from '../api/decide-prescription';
@@ -14,7 +14,6 @@ import {
   type DecisionFormValues,
 } from './decision-rules';
 import { PeriodFlows } from './period-flows';
-import { ReasonField } from './reason-field';
 import { StepOptions } from './step-options';
 
 const SERVER_FIELDS: readonly Path<DecisionFormValues>[] = ['flowLpm', 'reason', 'periods.awake', 'periods.asleep', 'periods.feeding'];
@@ -72,7 +71,7 @@ export function DecisionForm({ rx, steps, mutation, onDecided }: DecisionFormPro
         </SelectField>
       )}
       {below && <Alert tone="warn">{BELOW_REQUIRED_WARNING}</Alert>}
-      <ReasonField
+      <TextAreaField
         label={reasonRequired ? 'Reason (required)' : 'Note for the record (optional)'}
         hint={mode === 'send_back' ? 'The team sees this with the returned proposal.' : undefined}
         error={errors.reason?.message}
