@@ -34,6 +34,59 @@ export const stepDownRulesSchema = z.strictObject({
   offOxygenObservationDays: int(1, 180, 'days'),
 });
 
+const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: 'Use a time like 08:00' });
+
+/** When messages go out; every time is the recipient's own local time. */
+export const reminderRulesSchema = z.strictObject({
+  /** Families: the day before a visit, at this time. */
+  dayBeforeAt: clock,
+  /** Families: on the morning of a visit, at this time (moved to the end of quiet hours if it falls inside them). */
+  morningOfAt: clock,
+  /** No message starts inside [quietStart, quietEnd); one that would is held until quietEnd. */
+  quietStart: clock,
+  quietEnd: clock,
+  /** Nurses' and consultants' morning digests. */
+  staffDigestAt: clock,
+  /** A proposal waiting longer than this goes into the consultants' digest. */
+  signOffWaitingHours: int(1, 24 * 14, 'hours'),
+});
+
+const phoneNumber = z.string().trim().regex(/^\+?[0-9][0-9 ()-]{1,22}$/, { error: 'Use digits, spaces and an optional leading +' });
+
+/** Who a family calls, shown on the family page and the printed care plan. */
+export const programmeContactsSchema = z.strictObject({
+  phones: z
+    .array(z.strictObject({
+      label: z.string().trim().min(2, { error: 'Name this number' }).max(80),
+      number: phoneNumber,
+      when: z.string().trim().max(160, { error: 'At most 160 characters' }),
+    }))
+    .max(8, { error: 'At most 8 numbers' }),
+  /** The local emergency number (999, 112, 911 …). */
+  emergencyNumber: z.string().trim().regex(/^[0-9]{2,6}$/, { error: 'Use the short emergency number, digits only' }),
+});
+
+/**
+ * A cylinder the programme's supplier delivers: its labelled contents when full and the pressure it is full at.
+ * Contents left ≈ contents × (gauge − residual) ÷ full pressure (the factor method, clinical-methods.md §7).
+ */
+export const cylinderTypeSchema = z.strictObject({
+  id: z.string().regex(/^[a-z0-9-]{1,40}$/, { error: 'Lower-case letters, digits and dashes' }),
+  name: z.string().trim().min(2, { error: 'Name the cylinder' }).max(80),
+  contentLitres: z.number({ error: 'Enter the contents in litres' }).positive().max(20000),
+  unit: z.enum(['bar', 'psi']),
+  fullPressure: z.number({ error: 'Enter the full pressure' }).positive().max(5000),
+  residualPressure: z.number({ error: 'Enter the pressure to change it at' }).min(0).max(5000),
+}).refine((c) => c.residualPressure < c.fullPressure, { path: ['residualPressure'], error: 'Must be below the full pressure' });
+export type CylinderType = z.infer<typeof cylinderTypeSchema>;
+
+export const equipmentSupplySchema = z.strictObject({
+  cylinders: z.array(cylinderTypeSchema).max(20)
+    .refine((list) => new Set(list.map((c) => c.id)).size === list.length, { error: 'Each cylinder needs its own id' }),
+  /** Extra supply on top of the computed need, as a percentage (a programme decision). */
+  reservePercent: int(0, 200, 'a percentage'),
+});
+
 /** A programme's clinical settings; every change is a new numbered version. */
 export const policySettingsSchema = z.strictObject({
   flowmeterStepsLpm: z
@@ -48,6 +101,9 @@ export const policySettingsSchema = z.strictObject({
   schedule: scheduleRulesSchema,
   stepDown: stepDownRulesSchema,
   readingEditWindowMinutes: int(0, 24 * 60, 'minutes'),
+  reminders: reminderRulesSchema,
+  contacts: programmeContactsSchema,
+  supply: equipmentSupplySchema,
 });
 export type PolicySettings = z.infer<typeof policySettingsSchema>;
 
@@ -63,6 +119,18 @@ export const DEFAULT_POLICY_SETTINGS: PolicySettings = {
   // Common practice: one flowmeter step at a time, night-only below 0.1 L/min, then off; 4 weeks off before leaving.
   stepDown: { stepsPerDecrease: 1, sleepOnlyBelowLpm: 0.1, minDaysBetweenStepDowns: 14, offOxygenObservationDays: 28 },
   readingEditWindowMinutes: 30,
+  // Quiet hours 21:00–08:00 as the product asks; the other times and the 24 h wait are common practice defaults.
+  reminders: { dayBeforeAt: '17:00', morningOfAt: '08:00', quietStart: '21:00', quietEnd: '08:00', staffDigestAt: '08:00', signOffWaitingHours: 24 },
+  // Placeholders until an admin enters the programme's own numbers.
+  contacts: { phones: [], emergencyNumber: '999' },
+  // Demo defaults only (a supplier's labelled sizes vary, clinical-methods.md §7); reserve: common practice.
+  supply: {
+    cylinders: [
+      { id: 'small-portable', name: 'Small portable (460 L at 230 bar)', contentLitres: 460, unit: 'bar', fullPressure: 230, residualPressure: 20 },
+      { id: 'large-home', name: 'Large home cylinder (1360 L at 137 bar)', contentLitres: 1360, unit: 'bar', fullPressure: 137, residualPressure: 14 },
+    ],
+    reservePercent: 50,
+  },
 };
 
 /** Older stored versions lack newer sections; fill them from the defaults section by section. */
@@ -74,6 +142,9 @@ export function withPolicyDefaults(stored: Partial<PolicySettings>): PolicySetti
     spo2Targets: { ...d.spo2Targets, ...stored.spo2Targets },
     schedule: { ...d.schedule, ...stored.schedule },
     stepDown: { ...d.stepDown, ...stored.stepDown },
+    reminders: { ...d.reminders, ...stored.reminders },
+    contacts: { ...d.contacts, ...stored.contacts },
+    supply: { ...d.supply, ...stored.supply },
   };
 }
 

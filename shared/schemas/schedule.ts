@@ -30,11 +30,28 @@ export const dayItemSchema = checkSchema.extend({
   activeFlowLpm: z.number().nullable(),
   correctedAge: z.string(),
 });
+/** A visit booked for the signed-in nurse today (family's local date and time). */
+export const dayVisitSchema = z.object({
+  id: z.uuid(),
+  infantId: z.uuid(),
+  infantName: z.string(),
+  homeAddress: z.string(),
+  kind: z.enum(['home_visit', 'clinic_review']),
+  date: z.string(),
+  time: z.string(),
+  startsAt: z.string(),
+  durationMinutes: z.number(),
+  purpose: z.string(),
+});
+export type DayVisit = z.infer<typeof dayVisitSchema>;
+
 export const myDaySchema = z.object({
   date: z.string(),
   /** Due today or overdue, in route order. */
   items: z.array(dayItemSchema),
   /** Due in the next seven days, by date: what the round will bring (follow-up studies after a step down, etc.). */
   upcoming: z.array(dayItemSchema).default([]),
+  /** Visits booked with the signed-in person today, by start time. */
+  visits: z.array(dayVisitSchema).default([]),
 });
 export type DayItem = z.infer<typeof dayItemSchema>;
