@@ -113,3 +113,8 @@ stop_redis() { redis-cli -h 127.0.0.1 -p "$1" shutdown nosave >/dev/null 2>&1 ||
 ensure_chromium() {
   command -v chromium >/dev/null || apt_install chromium
 }
+
+# The care-plan tests read the generated PDF back as text.
+ensure_pdftotext() {
+  command -v pdftotext >/dev/null || apt_install poppler-utils
+}

@@ -19,6 +19,7 @@ ensure_database nestflow_test
 ensure_database nestflow_e2e
 if ensure_redis_running "$REDIS_TEST_PORT"; then REDIS_STARTED_HERE=1; fi
 ensure_chromium
+ensure_pdftotext
 
 export NODE_ENV=test
 export PG_PORT REDIS_TEST_PORT

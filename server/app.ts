@@ -29,9 +29,18 @@ import { readingsRouters } from './modules/readings/readings.router';
 import { createStepDownsService } from './modules/step-downs/step-downs.service';
 import { stepDownsRouter } from './modules/step-downs/step-downs.router';
 import { createVisitsService } from './modules/visits/visits.service';
+import { smsInboundRouter } from './modules/sms-inbound/sms-inbound.router';
+import { messagesRouter } from './modules/messages/messages.router';
+import { createMessagesService } from './modules/messages/messages.service';
+import { preferencesRouter } from './modules/preferences/preferences.router';
+import { createPreferencesService } from './modules/preferences/preferences.service';
 import { visitsRouters } from './modules/visits/visits.router';
 import { createRecordingsService } from './modules/recordings/recordings.service';
 import { infantRecordingsRouter, recordingsRouter } from './modules/recordings/recordings.router';
+import { createJourneysService } from './modules/journeys/journeys.service';
+import { journeysRouters } from './modules/journeys/journeys.router';
+import { createCarePlanService } from './modules/care-plan/care-plan.service';
+import { carePlanRouter } from './modules/care-plan/care-plan.router';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -73,6 +82,8 @@ export function createApp(deps: AppDeps): Express {
 
   const api = express.Router();
   api.use('/health', healthRouter(deps.ds, deps.redis));
+  // Provider callbacks carry a signature instead of a session or a CSRF token.
+  api.use('/webhooks/sms', smsInboundRouter({ ds: deps.ds, repos, logger: deps.logger, authToken: env.TWILIO_AUTH_TOKEN, webhookUrl: env.INBOUND_WEBHOOK_URL }));
   api.use(express.json({ limit: '200kb' }));
   api.use(createSessionMiddleware(env, deps.sessionPool));
   api.use(passport.session());
@@ -95,15 +106,20 @@ export function createApp(deps: AppDeps): Express {
   api.use('/conversions', conversionsRouter(repos.policies));
   api.use('/infants', infantsRouter(createInfantsService(deps.ds, repos, deps.jobs), prescriptions));
   api.use('/infants', schedule.infants, readings.infants, stepDownsRouter(createStepDownsService(deps.ds, repos)));
-  const visits = visitsRouters(createVisitsService(deps.ds, repos));
+  const visits = visitsRouters(createVisitsService(deps.ds, repos, deps.jobs));
   api.use('/infants', visits.infants);
   api.use('/visits', visits.visits);
   api.use('/my-day', schedule.day);
   api.use('/readings', readings.readings);
   api.use('/prescriptions', prescriptionsRouter(prescriptions));
+  api.use('/messages', messagesRouter(createMessagesService(deps.ds, repos, deps.jobs)));
+  api.use('/me/preferences', preferencesRouter(createPreferencesService(deps.ds, repos)));
   const recordings = createRecordingsService(deps.ds, repos, deps.jobs);
   api.use('/infants', infantRecordingsRouter(recordings));
   api.use('/recordings', recordingsRouter(recordings));
+  const journeys = journeysRouters(createJourneysService(deps.ds, repos));
+  api.use('/infants', journeys.infants, carePlanRouter(createCarePlanService(repos)));
+  api.use('/journeys', journeys.journeys);
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -16,6 +16,8 @@ import { createChecksRepository } from './db/repositories/checks.repository';
 import { createReadingsRepository } from './db/repositories/readings.repository';
 import { createVisitsRepository } from './db/repositories/visits.repository';
 import { createRecordingsRepository } from './db/repositories/recordings.repository';
+import { createRemindersRepository } from './db/repositories/reminders.repository';
+import { createJourneysRepository } from './db/repositories/journeys.repository';
 import { createLogger, type Logger } from './lib/logger';
 
 /** Everything the app needs from the outside world, built once per process and closed in order on shutdown. */
@@ -43,6 +45,8 @@ export function createRepos(ds: DataSource) {
     readings: createReadingsRepository(ds),
     visits: createVisitsRepository(ds),
     recordings: createRecordingsRepository(ds),
+    journeys: createJourneysRepository(ds),
+    reminders: createRemindersRepository(ds),
   };
 }
 export type AppRepos = ReturnType<typeof createRepos>;
@@ -55,7 +59,7 @@ export async function createDeps(env: Env, name = 'api'): Promise<AppDeps> {
   const sessionPool = new pg.Pool({ connectionString: env.DATABASE_URL, max: 5, application_name: `nestflow-${name}-sessions` });
   sessionPool.on('error', () => undefined);
   const logger = createLogger(env.NODE_ENV === 'test' ? 'silent' : env.LOG_LEVEL, name);
-  return { env, ds, redis, sessionPool, logger, repos: createRepos(ds), jobs: createJobProducer(env.REDIS_URL, env.QUEUE_PREFIX, logger) };
+  return { env, ds, redis, sessionPool, logger, repos: createRepos(ds), jobs: createJobProducer(env.REDIS_URL, env.QUEUE_PREFIX, logger, { attempts: env.REMINDER_ATTEMPTS, backoffMs: env.REMINDER_BACKOFF_MS }) };
 }
 
 export async function closeDeps(deps: AppDeps): Promise<void> {

@@ -41,6 +41,13 @@ const envSchema = z
     FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2526),
     FAKE_SMS_PORT: z.coerce.number().int().min(0).max(65535).default(3102),
     INBOUND_WEBHOOK_URL: optionalUrl,
+    // Message delivery: attempts per message (exponential backoff from the base delay), how often the reconciler
+    // looks for due messages in PostgreSQL, and how many go out at once per worker.
+    REMINDER_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(6),
+    REMINDER_BACKOFF_MS: z.coerce.number().int().min(10).max(3_600_000).default(30_000),
+    REMINDER_RECONCILE_MS: z.coerce.number().int().min(200).max(3_600_000).default(30_000),
+    REMINDER_CONCURRENCY: z.coerce.number().int().min(1).max(100).default(8),
+    SEND_TIMEOUT_MS: z.coerce.number().int().min(100).max(120_000).default(10_000),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {

@@ -14,6 +14,13 @@ import { analyseRecordingProcessor, reconcileRecordings } from './processors/ana
 import { planningProcessor } from './processors/planning.processor';
 import { replan } from '../server/modules/schedule/planning';
 import { upsertSchedules } from './schedules';
+import { deliverReminderProcessor } from './processors/deliver-reminder.processor';
+import { createDelivery } from '../server/modules/reminders/delivery';
+import { reconcileReminders } from '../server/modules/reminders/reconcile';
+import { planDigests } from '../server/modules/reminders/digests';
+import { addReminderJobs } from '../server/jobs/reminder-jobs';
+import { createMailSender } from '../server/notifications/mail-sender';
+import { createSmsSender } from '../server/notifications/sms-sender';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL, 'worker');
@@ -25,19 +32,33 @@ const connection = redisConnection(env.REDIS_URL);
 const prefix = env.QUEUE_PREFIX;
 
 const maintenanceQueue = new Queue(QUEUES.maintenance, { connection, prefix });
-await upsertSchedules(maintenanceQueue);
+const messagesQueue = new Queue(QUEUES.messages, { connection, prefix });
+const reminderJobs = { attempts: env.REMINDER_ATTEMPTS, backoffMs: env.REMINDER_BACKOFF_MS };
+const scheduleOptions = { reconcileRemindersMs: env.REMINDER_RECONCILE_MS };
+await upsertSchedules(maintenanceQueue, scheduleOptions);
+// A Redis that comes back empty has lost the schedules too; upserting again on every reconnect restores them.
+(await maintenanceQueue.getBackend().client).on('ready', () => {
+  upsertSchedules(maintenanceQueue, scheduleOptions).catch((err) => logger.warn('schedules not restored yet', { err: (err as Error).message }));
+});
+const mail = createMailSender(env, { timeoutMs: env.SEND_TIMEOUT_MS });
+const sms = createSmsSender(env, { timeoutMs: env.SEND_TIMEOUT_MS });
+const delivery = createDelivery({ ds, repos, mail, sms, logger, enqueue: (rows) => addReminderJobs(messagesQueue, rows, reminderJobs) });
 // Pick up anything left 'preparing' while no worker was running.
 await reconcileConversions(repos, jobs, 0);
 await reconcileRecordings(repos, jobs, 0, 0);
 // Schedules move on with time (the plan looks a fixed number of weeks ahead), so start from a fresh plan.
 await replan(repos, {});
 await repos.checks.markOverdue();
+await planDigests(ds, repos);
+await reconcileReminders(repos, messagesQueue, reminderJobs);
 
 const maintenance = new Worker(
   QUEUES.maintenance,
   async (job) => {
     if (job.name === JOBS.pruneSessions.name) return pruneSessions(ds);
     if (job.name === JOBS.markOverdue.name) return { replanned: await replan(repos, {}), overdue: await repos.checks.markOverdue() };
+    if (job.name === JOBS.reconcileReminders.name) return { enqueued: await reconcileReminders(repos, messagesQueue, reminderJobs) };
+    if (job.name === JOBS.planDigests.name) return { planned: (await planDigests(ds, repos)).length };
     if (job.name === JOBS.reconcileConversions.name) {
       return { conversions: await reconcileConversions(repos, jobs), recordings: await reconcileRecordings(repos, jobs) };
     }
@@ -55,7 +76,11 @@ const clinical = new Worker(
   { connection, prefix, concurrency: 4 },
 );
 const planning = new Worker(QUEUES.planning, (job) => planningProcessor(job, repos), { connection, prefix, concurrency: 1 });
-for (const [name, w] of [[QUEUES.maintenance, maintenance], [QUEUES.clinical, clinical], [QUEUES.planning, planning]] as const) {
+// A short lock lets another worker take over a crashed one's messages quickly; the ledger guards against doubles.
+const messages = new Worker(QUEUES.messages, (job) => deliverReminderProcessor(job, delivery), {
+  connection, prefix, concurrency: env.REMINDER_CONCURRENCY, lockDuration: 15_000, stalledInterval: 5_000, maxStalledCount: 10,
+});
+for (const [name, w] of [[QUEUES.maintenance, maintenance], [QUEUES.clinical, clinical], [QUEUES.planning, planning], [QUEUES.messages, messages]] as const) {
   w.on('failed', (job, err) => logger.warn('job failed', { queue: name, job: job?.name, attempts: job?.attemptsMade, err: err.message }));
 }
 logger.info('worker started', { queues: Object.values(QUEUES) });
@@ -66,8 +91,9 @@ async function shutdown(signal: string) {
   closing = true;
   logger.info('worker shutting down', { signal });
   // Let active jobs finish before the connections go.
-  await Promise.all([maintenance.close(), clinical.close(), planning.close()]);
-  await maintenanceQueue.close();
+  await Promise.all([maintenance.close(), clinical.close(), planning.close(), messages.close()]);
+  await Promise.all([maintenanceQueue.close(), messagesQueue.close()]);
+  mail.close();
   await jobs.close();
   await ds.destroy();
   process.exit(0);

@@ -101,6 +101,35 @@ export async function startFakeSms(opts: FakeSmsOptions): Promise<FakeSms> {
     });
   });
 
+  // The list resource, filtered like the hosted one by To, From and sent date (DateSent> is day-granular there).
+  app.get('/2010-04-01/Accounts/:sid/Messages.json', (req, res) => {
+    const accountSid = String(req.params.sid);
+    const user = basicUser(req);
+    if (!user) return providerError(res, 401, 20003, 'Authenticate');
+    if (!accountSid.startsWith('AC') || (user !== accountSid && !user.startsWith('SK'))) {
+      return providerError(res, 404, 20404, 'The requested resource was not found');
+    }
+    const query = req.query as Record<string, string | undefined>;
+    const after = query['DateSent>'] ? Date.parse(query['DateSent>']) : null;
+    const pageSize = Math.min(1000, Number(query.PageSize ?? 50) || 50);
+    const matches = store
+      .filter((m) => m.accountSid === accountSid && (!query.To || m.to === query.To) && (!query.From || m.from === query.From))
+      .filter((m) => after === null || Date.parse(m.dateCreated) >= after)
+      .slice(-pageSize)
+      .reverse();
+    const uri = req.originalUrl;
+    res.json({
+      messages: matches.map((m) => ({
+        sid: m.sid, account_sid: m.accountSid, to: m.to, from: m.from, body: m.body, status: 'delivered', direction: 'outbound-api',
+        date_created: rfc2822(new Date(m.dateCreated)), date_updated: rfc2822(new Date(m.dateCreated)), date_sent: rfc2822(new Date(m.dateCreated)),
+        num_segments: '1', error_code: null, error_message: null, api_version: '2010-04-01',
+        uri: `/2010-04-01/Accounts/${accountSid}/Messages/${m.sid}.json`,
+      })),
+      page: 0, page_size: pageSize, start: 0, end: Math.max(0, matches.length - 1),
+      uri, first_page_uri: uri, next_page_uri: null, previous_page_uri: null,
+    });
+  });
+
   app.post('/inbound', express.json(), express.urlencoded({ extended: false }), async (req, res) => {
     const { from, body } = (req.body ?? {}) as { from?: unknown; body?: unknown };
     if (typeof from !== 'string' || !from || typeof body !== 'string') {

@@ -1,12 +1,18 @@
 import { Queue, type JobsOptions } from 'bullmq';
 import { JOBS, QUEUES, conversionJobId, planDedupId, recordingJobId, replanJobId, type JobKey, type JobPayload } from '../../shared/jobs/catalogue';
 import type { Logger } from '../lib/logger';
+import { addReminderJobs, type ReminderJobOptions } from './reminder-jobs';
+
+/** How far ahead due reminders are put on the queue (as delayed jobs); the rest wait in PostgreSQL. */
+export const REMINDER_LOOK_AHEAD_MS = 2 * 60_000;
 
 export interface JobProducer {
   enqueueConversion(prescriptionId: string): Promise<void>;
   enqueuePlanInfant(infantId: string): Promise<void>;
   enqueueReplanProgramme(programmeId: string, policyVersion: number): Promise<void>;
   enqueueAnalysis(recordingId: string): Promise<void>;
+  /** Reminders due soon go to the queue at once; later ones are picked up by the reconciler nearer the time. */
+  enqueueReminders(rows: ReadonlyArray<{ id: string; send_at: Date | string; status?: string }>): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -16,7 +22,7 @@ const JOB_OPTIONS = { attempts: 5, backoff: { type: 'exponential', delay: 2000 }
  * Enqueues after the database commit. If Redis is away the row stays pending in PostgreSQL and the worker's
  * reconciler enqueues it later, so a failed enqueue is logged, never surfaced as a failed request.
  */
-export function createJobProducer(redisUrl: string, prefix: string, logger: Logger): JobProducer {
+export function createJobProducer(redisUrl: string, prefix: string, logger: Logger, reminderOptions: ReminderJobOptions = { attempts: 6, backoffMs: 30_000 }): JobProducer {
   const u = new URL(redisUrl);
   const connection = {
     host: u.hostname, port: Number(u.port || 6379), db: u.pathname.length > 1 ? Number(u.pathname.slice(1)) : 0,
@@ -41,6 +47,14 @@ export function createJobProducer(redisUrl: string, prefix: string, logger: Logg
       add('replanProgramme', { programmeId, policyVersion }, { jobId: replanJobId(programmeId, policyVersion) }),
     // A finally failed analysis job is removed so the reconciler can enqueue the still-unfinished recording again.
     enqueueAnalysis: (recordingId) => add('analyseRecording', { recordingId }, { jobId: recordingJobId(recordingId), removeOnFail: true }),
+    async enqueueReminders(rows) {
+      const soon = rows.filter((r) => (r.status ?? 'scheduled') === 'scheduled' && new Date(r.send_at).getTime() <= Date.now() + REMINDER_LOOK_AHEAD_MS);
+      try {
+        await addReminderJobs(queues.get(QUEUES.messages)!, soon, reminderOptions);
+      } catch (err) {
+        logger.warn('enqueue deferred to reconciler', { job: JOBS.deliverReminder.name, count: soon.length, err: (err as Error).message });
+      }
+    },
     close: async () => {
       await Promise.all([...queues.values()].map((q) => q.close()));
     },

@@ -9,6 +9,8 @@ export interface MailMessage {
   subject: string;
   text: string;
   html?: string;
+  /** Fixed per reminder, so a repeat after an attempt of unknown outcome is the same message to the recipient's system. */
+  messageId?: string;
 }
 
 export interface MailSender {
@@ -57,6 +59,7 @@ export function createMailSender(env: MailEnv, opts: { timeoutMs?: number } = {}
           subject: message.subject,
           text: message.text,
           html: message.html,
+          messageId: message.messageId,
         });
         return { providerId: info.messageId };
       } catch (err) {

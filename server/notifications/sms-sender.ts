@@ -12,6 +12,11 @@ export interface SmsMessage {
 
 export interface SmsSender {
   send(message: SmsMessage): Promise<{ providerId: string }>;
+  /**
+   * The provider's own record of a message with this body to this number since a moment: how an attempt whose
+   * outcome is unknown (the worker died after sending, a time-out) is settled without sending twice.
+   */
+  findSent(message: SmsMessage, since: Date): Promise<{ providerId: string } | null>;
 }
 
 const DEFAULT_TIMEOUT_MS = 10_000;
@@ -56,6 +61,17 @@ export function createSmsSender(env: SmsEnv, opts: { timeoutMs?: number } = {}):
       try {
         const message = await client.messages.create({ to, from: env.TWILIO_FROM, body });
         return { providerId: message.sid };
+      } catch (err) {
+        throw classify(err);
+      }
+    },
+    async findSent({ to, body }, since) {
+      try {
+        // The provider filters by sent date at day granularity; the exact moment and body are checked here.
+        const day = new Date(Date.UTC(since.getUTCFullYear(), since.getUTCMonth(), since.getUTCDate()));
+        const found = await client.messages.list({ to, from: env.TWILIO_FROM, dateSentAfter: day, pageSize: 100, limit: 500 });
+        const match = found.find((m) => m.body === body && (m.dateCreated ? m.dateCreated.getTime() >= since.getTime() - 60_000 : true));
+        return match ? { providerId: match.sid } : null;
       } catch (err) {
         throw classify(err);
       }

@@ -18,6 +18,7 @@ export const SUBJECTS = [
   'Message',
   'Journey',
   'StepDown',
+  'Preferences',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -41,7 +42,7 @@ function adminRules({ can }: Builder, p: string) {
   can(['read', 'create', 'update', 'disable'], 'User', { programmeId: p });
   can('read', 'AuditEvent', { programmeId: p });
   can(['read', 'update'], 'Policy', { programmeId: p });
-  can('read', 'Message', { programmeId: p });
+  can(['read', 'update'], 'Message', { programmeId: p });
   can('read', STAFF_READ_ALL, { programmeId: p });
 }
 
@@ -53,7 +54,8 @@ function coordinatorRules({ can }: Builder, p: string) {
   can('read', STAFF_READ_ALL, { programmeId: p });
   can(['create', 'update'], ['Infant', 'Visit', 'Journey'], { programmeId: p });
   can('create', ['Recording', 'Reading', 'StepDown'], { programmeId: p });
-  can('read', 'Message', { programmeId: p });
+  // The message log, and sending a failed message again.
+  can(['read', 'update'], 'Message', { programmeId: p });
   can('create', 'ConversionPreview');
 }
 
@@ -87,6 +89,8 @@ function familyRules({ can }: Builder, p: string, infantIds: readonly string[]) 
   can('read', 'Prescription', { ...own, status: 'active' });
   can('read', ['Visit', 'Journey'], own);
   can('create', ['Journey', 'Reading'], own);
+  // Their own contact details, channel, consents, language and reminder switch.
+  can(['read', 'update'], 'Preferences');
 }
 
 /** The one definition of who may do what; the API enforces it in routes and queries, the web only hides. */

@@ -5,6 +5,7 @@ export const QUEUES = {
   maintenance: 'maintenance',
   clinical: 'clinical',
   planning: 'planning',
+  messages: 'messages',
 } as const;
 
 export const JOBS = {
@@ -22,6 +23,9 @@ export const JOBS = {
     payload: z.strictObject({ programmeId: z.uuid(), policyVersion: z.number().int() }),
   },
   markOverdue: { queue: QUEUES.maintenance, name: 'mark-overdue', payload: z.strictObject({}) },
+  deliverReminder: { queue: QUEUES.messages, name: 'deliver-reminder', payload: z.strictObject({ reminderId: z.uuid() }) },
+  reconcileReminders: { queue: QUEUES.maintenance, name: 'reconcile-reminders', payload: z.strictObject({}) },
+  planDigests: { queue: QUEUES.maintenance, name: 'plan-digests', payload: z.strictObject({}) },
   analyseRecording: { queue: QUEUES.clinical, name: 'analyse-recording', payload: z.strictObject({ recordingId: z.uuid() }) },
 } as const;
 
@@ -37,3 +41,5 @@ export const replanJobId = (programmeId: string, policyVersion: number) => `repl
 export const planDedupId = (infantId: string) => `plan-${infantId}`;
 /** One analysis per uploaded recording, whatever retries, reconciles or double sends happen. */
 export const recordingJobId = (recordingId: string) => `analyse-${recordingId}`;
+/** The reminder id is the job id: re-adding a reminder while its job waits, runs or retries is a no-op. */
+export const reminderJobId = (reminderId: string) => reminderId;

@@ -55,3 +55,4 @@ export const myDaySchema = z.object({
   visits: z.array(dayVisitSchema).default([]),
 });
 export type DayItem = z.infer<typeof dayItemSchema>;
+export type MyDay = z.infer<typeof myDaySchema>;

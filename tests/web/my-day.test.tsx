@@ -1,6 +1,6 @@
 import { configure, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { DayItem } from '../../shared/schemas/schedule';
+import type { DayItem, DayVisit } from '../../shared/schemas/schedule';
 import { json, sessionHandler, stubApi } from './support/fake-api';
 import { renderApp } from './support/render-app';
 
@@ -35,6 +35,22 @@ const DAY_ITEMS: DayItem[] = [
     kind: 'room_air_challenge', homeAddress: '9 Saddle Way, High Saddle', activeFlowLpm: null,
   }),
 ];
+
+function dayVisit(overrides: Partial<DayVisit> = {}): DayVisit {
+  return {
+    id: 'd4d4d4d4-0000-4000-8000-000000000001',
+    infantId: 'a1a1a1a1-0000-4000-8000-000000000001',
+    infantName: 'Juniper Ashcombe',
+    homeAddress: '4 Quarry Lane, Tallow Ridge',
+    kind: 'home_visit',
+    date: TODAY,
+    time: '09:30',
+    startsAt: `${TODAY}T09:30:00.000Z`,
+    durationMinutes: 45,
+    purpose: 'Spot check and weight',
+    ...overrides,
+  };
+}
 
 // The first visit loads the lazy page module; with every web test file running at once that can take a few seconds.
 configure({ asyncUtilTimeout: 5000 });
@@ -84,6 +100,60 @@ describe('My day', () => {
     expect(within(form).getByLabelText('Flow at the time (L/min)')).toHaveValue(0.125);
     expect(within(form).getByLabelText('Weight (kg, optional)')).toHaveAttribute('inputmode', 'decimal');
     expect(within(form).getAllByRole('radio').map((radio) => radio.closest('label')?.textContent)).toEqual(['Awake', 'Asleep', 'Feeding', 'Crying']);
+  });
+
+  it('when visits are booked with the nurse today, then they come first, by start time, with baby, address, kind, purpose and length', async () => {
+    stubApi({
+      'GET /api/session': sessionHandler('nurse'),
+      'GET /api/my-day': () => json(200, {
+        date: TODAY,
+        items: DAY_ITEMS,
+        visits: [
+          dayVisit(),
+          dayVisit({
+            id: 'd4d4d4d4-0000-4000-8000-000000000002', infantId: 'a1a1a1a1-0000-4000-8000-000000000003', infantName: 'Ada Brindlewood',
+            homeAddress: '9 Saddle Way, High Saddle', kind: 'clinic_review', time: '14:00', startsAt: `${TODAY}T14:00:00.000Z`,
+            durationMinutes: 90, purpose: 'Review before the room-air challenge',
+          }),
+        ],
+      }),
+    });
+    renderApp('/nurse');
+
+    const list = await screen.findByRole('list', { name: 'Visits by start time' });
+    expect(screen.getByRole('heading', { name: 'Visits today · 2 visits, by start time' })).toBeInTheDocument();
+    const visits = within(list).getAllByRole('listitem');
+    expect(visits).toHaveLength(2);
+
+    const first = within(visits[0]);
+    expect(first.getByText('09:30')).toBeInTheDocument();
+    expect(first.getByRole('link', { name: 'Juniper Ashcombe' })).toHaveAttribute('href', '/infants/a1a1a1a1-0000-4000-8000-000000000001');
+    expect(first.getByText('4 Quarry Lane, Tallow Ridge')).toBeInTheDocument();
+    expect(first.getByText('Home visit')).toBeInTheDocument();
+    expect(first.getByText('Spot check and weight')).toBeInTheDocument();
+    expect(first.getByText('45 minutes')).toBeInTheDocument();
+
+    const second = within(visits[1]);
+    expect(second.getByText('14:00')).toBeInTheDocument();
+    expect(second.getByRole('link', { name: 'Ada Brindlewood' })).toBeInTheDocument();
+    expect(second.getByText('Clinic review')).toBeInTheDocument();
+    expect(second.getByText('1 hour 30 minutes')).toBeInTheDocument();
+
+    // The visits sit above the round, whose checks are still all there.
+    const checks = screen.getByRole('list', { name: 'Checks in route order' });
+    expect(list.compareDocumentPosition(checks) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect(within(checks).getAllByRole('listitem')).toHaveLength(3);
+  });
+
+  it('when no visit is booked today, then the visits section says so in words', async () => {
+    stubApi({
+      'GET /api/session': sessionHandler('nurse'),
+      'GET /api/my-day': () => json(200, { date: TODAY, items: DAY_ITEMS, visits: [] }),
+    });
+    renderApp('/nurse');
+    expect(await screen.findByText('No visits are booked with you today.')).toBeInTheDocument();
+    expect(screen.queryByRole('list', { name: 'Visits by start time' })).not.toBeInTheDocument();
+    expect(screen.getByRole('list', { name: 'Checks in route order' })).toBeInTheDocument();
   });
 
   it('when nothing is due, then the page says so', async () => {

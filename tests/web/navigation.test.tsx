@@ -5,8 +5,8 @@ import { json, sessionHandler, stubApi } from './support/fake-api';
 import { currentUrl, renderApp } from './support/render-app';
 
 const cases: { role: Role; home: string; heading: string; items: string[] }[] = [
-  { role: 'admin', home: '/admin', heading: 'Overview', items: ['Overview', 'People', 'Programme settings'] },
-  { role: 'coordinator', home: '/coordinator', heading: 'Overview', items: ['Overview', 'Caseload', 'Enrol a baby'] },
+  { role: 'admin', home: '/admin', heading: 'Overview', items: ['Overview', 'People', 'Programme settings', 'Messages'] },
+  { role: 'coordinator', home: '/coordinator', heading: 'Overview', items: ['Overview', 'Caseload', 'Enrol a baby', 'Messages'] },
   { role: 'nurse', home: '/nurse', heading: 'My day', items: ['My day', 'Caseload'] },
   { role: 'consultant', home: '/consultant', heading: 'Overview', items: ['Overview', 'Sign-off queue', 'Caseload'] },
   { role: 'family', home: '/family', heading: 'Our plan', items: ['Our plan'] },

@@ -146,4 +146,133 @@ describe('Programme settings', { timeout: 20_000 }, () => {
     expect(await form.findByText('Use a value from 85 to 100')).toBeInTheDocument();
     expect(puts).toHaveLength(0);
   });
+
+  it('when opened, then reminder times, the family numbers and the cylinder list are shown from the stored version', async () => {
+    stubPolicy(() => json(500), () => policy(4, {
+      ...DEFAULT_POLICY_SETTINGS,
+      contacts: { phones: [{ label: 'Home oxygen nurses', number: '+44 1632 960001', when: 'Weekdays 08:00–18:00' }], emergencyNumber: '112' },
+    }));
+    const { form } = await openSettings();
+    expect(form.getByLabelText('Families: reminder the day before a visit, at')).toHaveValue('17:00');
+    expect(form.getByLabelText('Quiet hours start at')).toHaveValue('21:00');
+    expect(form.getByLabelText('Quiet hours end at')).toHaveValue('08:00');
+    expect(form.getByLabelText(/proposals waiting longer than/)).toHaveValue(24);
+    const phone = within(form.getByRole('group', { name: 'Phone number 1' }));
+    expect(phone.getByLabelText('Who answers')).toHaveValue('Home oxygen nurses');
+    expect(phone.getByLabelText('Number')).toHaveValue('+44 1632 960001');
+    expect(form.getByLabelText('Local emergency number')).toHaveValue('112');
+    const second = within(form.getByRole('group', { name: 'Cylinder 2' }));
+    expect(second.getByLabelText('Name')).toHaveValue('Large home cylinder (1360 L at 137 bar)');
+    expect(second.getByLabelText('Contents when full (litres)')).toHaveValue(1360);
+    expect(second.getByLabelText('Pressure when full (bar)')).toHaveValue(137);
+    expect(form.getByLabelText('Extra supply on top of the need (%)')).toHaveValue(50);
+  });
+
+  it('when numbers and cylinders are added and removed, then the saved settings carry exactly those rows and the new times', async () => {
+    let saved: Policy | undefined;
+    const { puts } = stubPolicy(
+      (request) => {
+        saved = { ...policy(5), settings: (request.body as { settings: Policy['settings'] }).settings };
+        return json(200, saved);
+      },
+      () => saved ?? policy(4),
+    );
+    const { user, form } = await openSettings();
+    const quietStart = form.getByLabelText('Quiet hours start at');
+    await user.clear(quietStart);
+    await user.type(quietStart, '20:30');
+
+    await user.click(form.getByRole('button', { name: 'Add a phone number' }));
+    const phone = within(form.getByRole('group', { name: 'Phone number 1' }));
+    await user.type(phone.getByLabelText('Who answers'), 'Home oxygen nurses');
+    await user.type(phone.getByLabelText('Number'), '+44 1632 960001');
+    await user.type(phone.getByLabelText('When to call'), 'Weekdays 08:00–18:00');
+
+    await user.click(form.getByRole('button', { name: 'Remove cylinder 1' }));
+    await user.click(form.getByRole('button', { name: 'Add a cylinder type' }));
+    const added = within(form.getByRole('group', { name: 'Cylinder 2' }));
+    await user.type(added.getByLabelText('Name'), 'Travel cylinder');
+    await user.selectOptions(added.getByLabelText('Pressure unit'), 'psi');
+    await user.type(added.getByLabelText('Contents when full (litres)'), '170');
+    await user.type(added.getByLabelText('Pressure when full (psi)'), '2000');
+    await user.type(added.getByLabelText('Change the cylinder at (psi)'), '200');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+
+    await waitFor(() => expect(puts).toHaveLength(1));
+    const sent = (puts[0].body as { settings: Policy['settings'] }).settings;
+    expect(sent.reminders).toEqual({ ...DEFAULT_POLICY_SETTINGS.reminders, quietStart: '20:30' });
+    expect(sent.contacts).toEqual({ phones: [{ label: 'Home oxygen nurses', number: '+44 1632 960001', when: 'Weekdays 08:00–18:00' }], emergencyNumber: '999' });
+    expect(sent.supply).toEqual({
+      cylinders: [
+        DEFAULT_POLICY_SETTINGS.supply.cylinders[1],
+        { id: 'cylinder-2', name: 'Travel cylinder', contentLitres: 170, unit: 'psi', fullPressure: 2000, residualPressure: 200 },
+      ],
+      reservePercent: 50,
+    });
+    expect(await screen.findByText('Saved as version 5.')).toBeInTheDocument();
+  });
+
+  it('when a new row breaks the shared rules, then each message sits in its own row and nothing is sent', async () => {
+    const { puts } = stubPolicy(() => json(500));
+    const { user, form } = await openSettings();
+    await user.click(form.getByRole('button', { name: 'Add a phone number' }));
+    const phone = within(form.getByRole('group', { name: 'Phone number 1' }));
+    await user.type(phone.getByLabelText('Who answers'), 'Ward');
+    await user.type(phone.getByLabelText('Number'), 'call the ward');
+
+    await user.click(form.getByRole('button', { name: 'Add a cylinder type' }));
+    const added = within(form.getByRole('group', { name: 'Cylinder 3' }));
+    await user.type(added.getByLabelText('Name'), 'Travel cylinder');
+    await user.type(added.getByLabelText('Contents when full (litres)'), '460');
+    await user.type(added.getByLabelText('Pressure when full (bar)'), '137');
+    await user.type(added.getByLabelText('Change the cylinder at (bar)'), '140');
+    const first = within(form.getByRole('group', { name: 'Cylinder 1' }));
+    await user.clear(first.getByLabelText('Contents when full (litres)'));
+    const emergency = form.getByLabelText('Local emergency number');
+    await user.clear(emergency);
+    await user.type(emergency, '+999');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+
+    expect(await phone.findByText('Use digits, spaces and an optional leading +')).toBeInTheDocument();
+    expect(phone.getByLabelText('Number')).toHaveAttribute('aria-invalid', 'true');
+    expect(added.getByText('Must be below the full pressure')).toBeInTheDocument();
+    expect(added.getByLabelText('Change the cylinder at (bar)')).toHaveAttribute('aria-invalid', 'true');
+    expect(first.getByText('Enter the contents in litres')).toBeInTheDocument();
+    expect(within(form.getByRole('group', { name: 'Cylinder 2' })).queryByText(/Enter|Must be/)).not.toBeInTheDocument();
+    expect(form.getByText('Use the short emergency number, digits only')).toBeInTheDocument();
+    expect(puts).toHaveLength(0);
+  });
+
+  it('when two cylinders share a code, then the list says so before anything is sent', async () => {
+    const { puts } = stubPolicy(() => json(500));
+    const { user, form } = await openSettings();
+    const code = within(form.getByRole('group', { name: 'Cylinder 2' })).getByLabelText('Code');
+    await user.clear(code);
+    await user.type(code, 'small-portable');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+    expect(await form.findByText('Each cylinder needs its own id')).toBeInTheDocument();
+    expect(puts).toHaveLength(0);
+  });
+
+  it('when the server refuses a row or a reminder time, then its message sits beside that box in that row', async () => {
+    stubPolicy(() => apiError(400, 'validation_failed', 'Check the highlighted fields.', {
+      'settings.supply.cylinders.1.fullPressure': ['The supplier fills this size to 230 bar'],
+      'settings.reminders.quietEnd': ['Quiet hours must last at least one hour'],
+      'settings.contacts.phones.4.number': ['A row the form does not have'],
+    }));
+    const { user, form } = await openSettings();
+    const reserve = form.getByLabelText('Extra supply on top of the need (%)');
+    await user.clear(reserve);
+    await user.type(reserve, '60');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+
+    const second = within(form.getByRole('group', { name: 'Cylinder 2' }));
+    expect(await second.findByText('The supplier fills this size to 230 bar')).toBeInTheDocument();
+    expect(second.getByLabelText('Pressure when full (bar)')).toHaveAttribute('aria-invalid', 'true');
+    expect(within(form.getByRole('group', { name: 'Cylinder 1' })).getByLabelText('Pressure when full (bar)')).not.toHaveAttribute('aria-invalid');
+    expect(form.getByLabelText('Quiet hours end at')).toHaveAccessibleDescription(/Quiet hours must last at least one hour/);
+    // A message for a box the form does not have goes above the form rather than being lost.
+    expect(form.getAllByRole('alert').some((alert) => alert.textContent?.includes('A row the form does not have'))).toBe(true);
+    expect(reserve).toHaveValue(60);
+  });
 });

@@ -12,6 +12,7 @@ export interface NavItem {
 }
 
 const caseload: NavItem = { to: '/caseload', label: 'Caseload', icon: 'list', allowed: (a) => a.can('read', 'Infant') };
+const messageLog: NavItem = { to: '/messages', label: 'Messages', icon: 'list', allowed: (a) => a.can('read', 'Message') };
 
 /**
  * Whose work each page is, in menu order; the first item is the role's home.
@@ -22,11 +23,13 @@ export const NAV_BY_ROLE: Record<Role, readonly NavItem[]> = {
     { to: '/admin', label: 'Overview', icon: 'home', allowed: (a) => a.can('read', 'Programme') },
     { to: '/admin/people', label: 'People', icon: 'people', allowed: (a) => a.can('create', 'User') },
     { to: '/admin/settings', label: 'Programme settings', icon: 'settings', allowed: (a) => a.can('update', 'Policy') },
+    messageLog,
   ],
   coordinator: [
     { to: '/coordinator', label: 'Overview', icon: 'home', allowed: (a) => a.can('read', 'Programme') },
     caseload,
     { to: '/enrol', label: 'Enrol a baby', icon: 'add', allowed: (a) => a.can('create', 'Infant') },
+    messageLog,
   ],
   nurse: [{ to: '/nurse', label: 'My day', icon: 'day', allowed: (a) => a.can('update', 'Visit') }, caseload],
   consultant: [
@@ -50,6 +53,8 @@ const LINKED_PAGES: readonly { prefix: string; allowed: (role: Role, ability: Ap
   // A baby's full record is staff work; a family sees its own plan on the family page instead.
   { prefix: '/infants/', allowed: (role, a) => isStaffRole(role) && a.can('read', 'Infant') },
   { prefix: '/recordings/', allowed: (role, a) => isStaffRole(role) && a.can('read', 'Recording') },
+  // A family sees its approved trips on the family page; the check with its working is staff work.
+  { prefix: '/journeys/', allowed: (role, a) => isStaffRole(role) && a.can('read', 'Journey') },
 ];
 
 export function canVisit(path: string, role: Role, ability: AppAbility): boolean {

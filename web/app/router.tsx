@@ -17,12 +17,19 @@ const rolePages: RouteObject[] = [
   { path: 'infants/:id', lazy: () => import('./routes/infant-record.route') },
   { path: 'infants/:id/reading', lazy: () => import('./routes/reading.route') },
   { path: 'infants/:id/recordings/new', lazy: () => import('./routes/recording-upload.route') },
+  { path: 'infants/:id/cylinder', lazy: () => import('./routes/infant-cylinder.route') },
+  { path: 'infants/:id/journeys/new', lazy: () => import('./routes/infant-journey.route') },
+  { path: 'journeys/:journeyId', lazy: () => import('./routes/journey-review.route') },
   { path: 'recordings/:id', lazy: () => import('./routes/recording.route') },
   { path: 'nurse', lazy: () => import('./routes/nurse-home.route') },
   { path: 'consultant', lazy: () => import('./routes/consultant-home.route') },
   { path: 'sign-off', lazy: () => import('./routes/sign-off.route') },
   { path: 'sign-off/:prescriptionId', lazy: () => import('./routes/sign-off-review.route') },
   { path: 'family', lazy: () => import('./routes/family-home.route') },
+  { path: 'family/cylinder', lazy: () => import('./routes/family-cylinder.route') },
+  { path: 'family/journey', lazy: () => import('./routes/family-journey.route') },
+  { path: 'family/preferences', lazy: () => import('./routes/family-preferences.route') },
+  { path: 'messages', lazy: () => import('./routes/messages.route') },
 ];
 
 export const appRoutes: RouteObject[] = [

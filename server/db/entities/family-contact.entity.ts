@@ -17,6 +17,9 @@ export class FamilyContactEntity {
   @Column({ type: 'text' }) language: string;
   @Column({ type: 'text', name: 'time_zone' }) timeZone: string;
   @Column({ type: 'smallint' }) position: number;
+  /** The family's own switch for visit reminders (opt-out). */
+  @Column({ type: 'boolean', name: 'reminders_enabled', default: true }) remindersEnabled: boolean;
+  @Column({ type: 'integer', name: 'row_version', default: 1 }) rowVersion: number;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' }) updatedAt: Date;
 }

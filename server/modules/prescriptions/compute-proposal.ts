@@ -3,6 +3,7 @@ import { convertPrescription } from '../../../shared/clinical/conversion';
 import type { PrescriptionConversionInput } from '../../../shared/clinical/conversion-types';
 import type { InfantFlag } from '../../../shared/schemas/infants';
 import type { AppRepos } from '../../deps';
+import { createReminderPlanner } from '../reminders/reminders.planner';
 
 export type ComputeOutcome = 'proposed' | 'skipped' | 'missing';
 
@@ -42,6 +43,8 @@ export async function computeProposal(ds: DataSource, repos: AppRepos, prescript
       },
       m,
     );
+    // The consultants' digest for this proposal is written with it; it lists only what still waits when it goes.
+    await createReminderPlanner(repos).proposalWaiting(rx.programmeId, rx.computedAt, (await repos.policies.current(rx.programmeId, m)).settings, m);
     return 'proposed';
   });
 }

@@ -18,7 +18,7 @@ export function scheduleRouters(service: ScheduleService) {
   day.use(requireUser);
   day.get('/', async (req, res) => {
     assertCanAny(req, 'read', 'Reading');
-    res.json(await service.day(req.ability, todayIn(currentUser(req).programmeTimeZone)));
+    res.json(await service.day(req.ability, todayIn(currentUser(req).programmeTimeZone), currentUser(req).id));
   });
   return { infants, day };
 }

@@ -1,5 +1,5 @@
 import type { AppAbility } from '../../../shared/auth/ability';
-import type { Check, DayItem } from '../../../shared/schemas/schedule';
+import type { Check, DayItem, MyDay } from '../../../shared/schemas/schedule';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import type { CheckEntity } from '../../db/entities/check.entity';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
@@ -26,7 +26,7 @@ export function createScheduleService(repos: AppRepos) {
       };
     },
 
-    async day(ability: AppAbility, today: string): Promise<{ date: string; items: DayItem[]; upcoming: DayItem[] }> {
+    async day(ability: AppAbility, today: string, userId: string): Promise<MyDay> {
       const rows = await repos.checks.day(accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), today, addDays(today, 7));
       const all = rows.map((r): DayItem => ({
         id: r.id, infantId: r.infant_id, kind: r.kind as DayItem['kind'], planKey: r.plan_key, dueAt: new Date(r.due_at).toISOString(), dueDate: r.due_date,
@@ -35,7 +35,14 @@ export function createScheduleService(repos: AppRepos) {
         activeFlowLpm: r.active_flow_lpm === null ? null : Number(r.active_flow_lpm),
         correctedAge: correctedAgeText(r.birth_date, r.ga_weeks, r.ga_days, today),
       }));
-      return { date: today, items: all.filter((i) => i.dueDate <= today), upcoming: all.filter((i) => i.dueDate > today) };
+      const visits = await repos.visits.forStaffOn(userId, today, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS));
+      return {
+        date: today, items: all.filter((i) => i.dueDate <= today), upcoming: all.filter((i) => i.dueDate > today),
+        visits: visits.map((v) => ({
+          id: v.id, infantId: v.infantId, infantName: v.infantName, homeAddress: v.homeAddress, kind: v.kind, date: v.localDate, time: v.localTime,
+          startsAt: v.startsAt.toISOString(), durationMinutes: v.durationMinutes, purpose: v.purpose,
+        })),
+      };
     },
   };
 }

@@ -8,6 +8,7 @@ import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { PrescriptionEntity } from '../../db/entities/prescription.entity';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
+import { createReminderPlanner } from '../reminders/reminders.planner';
 import { ConflictError, ForbiddenError, NotFoundError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 
@@ -33,6 +34,7 @@ export async function openStepProposal(repos: AppRepos, infant: InfantEntity, ac
   );
   infant.flags = [...new Set([...infant.flags, 'new_setting_waiting' as const])];
   await repos.infants.save(infant, m);
+  await createReminderPlanner(repos).proposalWaiting(infant.programmeId, new Date(), (await repos.policies.current(infant.programmeId, m)).settings, m);
   await repos.audit.append({ programmeId: infant.programmeId, actorId, action: `prescription.${p.reason}_proposed`, entityType: 'infant', entityId: infant.id, details: { prescriptionId: rx.id, version, flowLpm: p.flowLpm, periods: p.periods } }, m);
   return rx;
 }

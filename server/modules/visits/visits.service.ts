@@ -10,6 +10,8 @@ import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
+import type { JobProducer } from '../../jobs/producer';
+import { createReminderPlanner, type VisitFacts } from '../reminders/reminders.planner';
 
 const fields = (i: InfantEntity) => ({ programmeId: i.programmeId, infantId: i.id, nurseId: i.nurseId } as Record<string, unknown>);
 
@@ -32,7 +34,14 @@ async function checkStaff(repos: AppRepos, staffId: string, programmeId: string)
   }
 }
 
-export function createVisitsService(ds: DataSource, repos: AppRepos) {
+const facts = (v: VisitEntity): VisitFacts => ({
+  id: v.id, programmeId: v.programmeId, infantId: v.infantId, kind: v.kind, startsAt: v.startsAt, localDate: v.localDate, localTime: v.localTime,
+  timeZone: v.timeZone, staffId: v.staffId, purpose: v.purpose, rowVersion: v.rowVersion,
+});
+
+export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
+  const planner = createReminderPlanner(repos);
+
   async function toDto(rows: VisitEntity[]): Promise<Visit[]> {
     const names = await repos.infants.peopleNames(rows.map((v) => v.staffId));
     return rows.map((v) => ({
@@ -66,9 +75,11 @@ export function createVisitsService(ds: DataSource, repos: AppRepos) {
           durationMinutes: input.durationMinutes, staffId: input.staffId, purpose: input.purpose, status: 'booked', rowVersion: 1, createdBy: actor.id,
         }, m);
         await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'visit.booked', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { visitId: v.id, date: input.date, time: input.time, kind: input.kind } }, m);
-        return v;
+        const reminders = await planner.visitBooked(facts(v), (await repos.policies.current(infant.programmeId, m)).settings, m);
+        return { v, reminders };
       });
-      return (await toDto([visit]))[0];
+      await jobs.enqueueReminders(visit.reminders);
+      return (await toDto([visit.v]))[0];
     },
 
     async move(ability: AppAbility, actor: Actor, id: string, input: MoveVisitInput) {
@@ -86,9 +97,17 @@ export function createVisitsService(ds: DataSource, repos: AppRepos) {
         });
         await repos.visits.save(visit, m);
         await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'visit.moved', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { visitId: visit.id, before, after: { date, time, staffId: visit.staffId } } }, m);
-        return visit;
+        const whenChanged = before.date !== date || before.time !== time;
+        const settings = (await repos.policies.current(infant.programmeId, m)).settings;
+        // A new time cancels the old reminders, tells the family and plans new ones; a new purpose or person only
+        // re-plans the reminders, which carry both.
+        const reminders = whenChanged
+          ? await planner.visitChanged(facts(visit), 'visit-moved', settings, m)
+          : (await repos.reminders.cancelForVisit(visit.id, m), await planner.visitBooked(facts(visit), settings, m));
+        return { visit, reminders };
       });
-      return (await toDto([saved]))[0];
+      await jobs.enqueueReminders(saved.reminders);
+      return (await toDto([saved.visit]))[0];
     },
 
     async cancel(ability: AppAbility, actor: Actor, id: string, reason: string) {
@@ -97,9 +116,11 @@ export function createVisitsService(ds: DataSource, repos: AppRepos) {
         Object.assign(visit, { status: 'cancelled', cancelReason: reason, rowVersion: visit.rowVersion + 1 });
         await repos.visits.save(visit, m);
         await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'visit.cancelled', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { visitId: visit.id, reason } }, m);
-        return visit;
+        const reminders = await planner.visitChanged(facts(visit), 'visit-cancelled', (await repos.policies.current(infant.programmeId, m)).settings, m);
+        return { visit, reminders };
       });
-      return (await toDto([saved]))[0];
+      await jobs.enqueueReminders(saved.reminders);
+      return (await toDto([saved.visit]))[0];
     },
 
     async list(ability: AppAbility, infantId: string) {

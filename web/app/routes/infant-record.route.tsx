@@ -14,6 +14,7 @@ import { DetailsSection } from '../../features/infants/components/details-sectio
 import { InfantHeader } from '../../features/infants/components/infant-header';
 import { PlanSection } from '../../features/infants/components/plan-section';
 import { VersionsSection } from '../../features/infants/components/versions-section';
+import { JourneysSection } from '../../features/journeys/components/journeys-section';
 import { useOvernightTargets } from '../../features/monitoring/api/get-overnight-targets';
 import { ReadingsSection } from '../../features/monitoring/components/readings-section';
 import { ScheduleSection } from '../../features/monitoring/components/schedule-section';
@@ -106,6 +107,7 @@ export function Component() {
         <div className="flex min-w-0 flex-col gap-6">
           <DetailsSection infant={infant.data} canEdit={canEdit} />
           <ContactsSection infant={infant.data} canEdit={canEdit} />
+          <JourneysSection infantId={infant.data.id} canRequest={ability.can('create', 'Journey')} />
           <StepEvidenceSection versions={versions} />
           <VersionsSection versions={versions} />
           {ability.can('read', 'AuditEvent') && prescriptions.data && (

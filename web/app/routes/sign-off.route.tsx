@@ -1,11 +1,16 @@
 import { PageHeader } from '../../components/ui/page-header';
 import { SignOffQueue } from '../../features/prescriptions/components/sign-off-queue';
+import { WaitingJourneys } from '../../features/journeys/components/waiting-journeys';
 
 export function Component() {
   return (
     <>
       <PageHeader title="Sign-off queue" intro="Proposed home settings waiting for your decision, longest wait first." />
       <SignOffQueue />
+      <section aria-labelledby="journeys-waiting" className="mt-8 flex flex-col gap-3">
+        <h2 id="journeys-waiting" className="text-xl font-bold text-ink-900">Journey checks waiting</h2>
+        <WaitingJourneys />
+      </section>
     </>
   );
 }

@@ -23,7 +23,8 @@ export function formatKpa(mmHg: number): string {
   return mmHgToKPa(mmHg).toFixed(1);
 }
 
-export function formatWorkingValue(value: number | null, unit: WorkingUnit): string {
+/** Conversion units get their own precision; other sheets (a journey's minutes, cylinders, ft) read to 0.1. */
+export function formatWorkingValue(value: number | null, unit: WorkingUnit | (string & {})): string {
   if (value === null) return '—';
   switch (unit) {
     case 'fraction':
@@ -38,5 +39,7 @@ export function formatWorkingValue(value: number | null, unit: WorkingUnit): str
       return `${Number(value.toFixed(3))} kg`;
     case '%':
       return `${Number(value.toFixed(1))} %`;
+    default:
+      return `${Number(value.toFixed(1)).toLocaleString('en-GB')} ${unit}`;
   }
 }

@@ -2,8 +2,11 @@ import type { ConversionModel } from '../../../shared/clinical/conversion-types'
 import type { WorkingLine } from '../../../shared/clinical/working';
 import { formatWorkingValue } from './clinical-format';
 
+/** A conversion's lines, or any other worked sheet whose lines name their own unit (a journey's supply sheet). */
+type SheetLine = Omit<WorkingLine, 'unit'> & { unit: WorkingLine['unit'] | (string & {}) };
+
 interface WorkingTableProps {
-  working: readonly WorkingLine[];
+  working: readonly SheetLine[];
   warnings?: readonly { code: string; message: string }[];
   model?: Pick<ConversionModel, 'pressure' | 'cannula' | 'version'> & Partial<ConversionModel>;
   caption?: string;

@@ -1,4 +1,5 @@
 import type { Prescription } from '../../../../shared/schemas/prescriptions';
+import { CarePlanLink } from '../../../components/clinical/care-plan-link';
 import { Cautions } from '../../../components/clinical/cautions';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -26,6 +27,9 @@ export function PlanCard({ plan }: { plan: Prescription | null }) {
             Approved{plan.decidedBy?.name ? ` by ${plan.decidedBy.name}` : ''} on {longDate.format(new Date(plan.decidedAt))}.
           </p>
         )}
+        <div>
+          <CarePlanLink infantId={plan.infantId} />
+        </div>
         <Cautions variant="family" />
       </div>
     </Card>

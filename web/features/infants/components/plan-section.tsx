@@ -1,5 +1,7 @@
+import { Link } from 'react-router-dom';
 import type { InfantDetail } from '../../../../shared/schemas/infants';
 import type { Prescription } from '../../../../shared/schemas/prescriptions';
+import { CarePlanLink } from '../../../components/clinical/care-plan-link';
 import { Cautions } from '../../../components/clinical/cautions';
 import { formatFraction } from '../../../components/clinical/clinical-format';
 import { settingText } from '../../../components/clinical/setting-text';
@@ -44,7 +46,7 @@ export function PlanSection({ infant, prescriptions }: PlanSectionProps) {
   const proposed = versions.find((rx) => rx.status === 'proposed');
   const latest = versions[0];
   return (
-    <Card title="Plan">
+    <Card title="Plan" actions={setting ? <CarePlanLink infantId={infant.id} size="small" /> : undefined}>
       <div className="flex flex-col gap-4">
         {setting ? (
           <div>
@@ -72,6 +74,11 @@ export function PlanSection({ infant, prescriptions }: PlanSectionProps) {
             Version {latest.version} was sent back{latest.decidedBy ? ` by ${latest.decidedBy.name}` : ''}
             {latest.decisionReason ? `: ${latest.decisionReason}` : '.'}
           </Alert>
+        )}
+        {setting && (
+          <Link to={`/infants/${infant.id}/cylinder`} className="self-start font-semibold text-brand-700 underline">
+            How long will a cylinder last?
+          </Link>
         )}
         <Cautions variant="staff" />
       </div>

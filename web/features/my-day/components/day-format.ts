@@ -23,3 +23,18 @@ export function countText(count: number): string {
 
 /** An overnight study is completed by its recording, not by a spot reading taken at the door. */
 export const completesWithReading = (item: Pick<DayItem, 'kind'>) => item.kind === 'spot_check';
+
+export function visitCountText(count: number): string {
+  return count === 1 ? '1 visit' : `${count} visits`;
+}
+
+/** "45 minutes", "1 hour", "1 hour 30 minutes". */
+export function lengthText(minutes: number): string {
+  const hours = Math.floor(minutes / 60);
+  const rest = minutes % 60;
+  const parts = [
+    hours > 0 ? `${hours} ${hours === 1 ? 'hour' : 'hours'}` : '',
+    rest > 0 || hours === 0 ? `${rest} ${rest === 1 ? 'minute' : 'minutes'}` : '',
+  ];
+  return parts.filter(Boolean).join(' ');
+}

@@ -11,7 +11,10 @@ type NumberPath =
   | `settings.stepDown.${keyof PolicyFormValues['settings']['stepDown']}`
   | 'settings.cannulaMaxFlowLpm'
   | 'settings.driftThresholdFio2'
-  | 'settings.readingEditWindowMinutes';
+  | 'settings.readingEditWindowMinutes'
+  | 'settings.reminders.signOffWaitingHours'
+  | 'settings.supply.reservePercent'
+  | `settings.supply.cylinders.${number}.${'contentLitres' | 'fullPressure' | 'residualPressure'}`;
 
 interface NumberSettingProps {
   name: NumberPath;

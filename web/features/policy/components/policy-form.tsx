@@ -1,24 +1,20 @@
 import { useState } from 'react';
 import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { useQueryClient } from '@tanstack/react-query';
-import { DEFAULT_POLICY_SETTINGS, type Policy, type UpdatePolicyInput } from '../../../../shared/schemas/policy';
+import type { Policy, UpdatePolicyInput } from '../../../../shared/schemas/policy';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { errorMessage, isApiError } from '../../../lib/api-error';
 import { policyQueryOptions } from '../api/get-policy';
 import { useUpdatePolicy } from '../api/update-policy';
+import { ContactsSection } from './contacts-section';
 import { EquipmentSection, ReadingsSection } from './equipment-section';
+import { formPathFor } from './policy-errors';
 import { policyResolver } from './policy-resolver';
 import { ScheduleSection, SteppingDownSection, TargetsSection } from './policy-sections';
 import { toFormValues, type PolicyFormValues } from './policy-values';
-
-/** Every setting's dotted path, as the server names them in a 400's details. */
-function settingPaths(value: object, prefix: string): string[] {
-  return Object.entries(value).flatMap(([key, child]) =>
-    child && typeof child === 'object' && !Array.isArray(child) ? settingPaths(child, `${prefix}.${key}`) : [`${prefix}.${key}`],
-  );
-}
-const FIELD_PATHS = new Set(settingPaths(DEFAULT_POLICY_SETTINGS, 'settings'));
+import { RemindersSection } from './reminders-section';
+import { SupplySection } from './supply-section';
 
 export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boolean }) {
   const queryClient = useQueryClient();
@@ -33,9 +29,8 @@ export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boo
         if (isApiError(error) && error.code === 'conflict') return setConflict(error.message);
         const leftover: string[] = [];
         for (const [path, messages] of Object.entries((isApiError(error) && error.details) || {})) {
-          // A fault in one step ("settings.flowmeterStepsLpm.3") belongs to the one steps box.
-          const field = path.replace(/\.\d+$/, '');
-          if (FIELD_PATHS.has(field)) form.setError(field as Path<PolicyFormValues>, { type: 'server', message: messages.join(' ') });
+          const field = formPathFor(path, form.getValues());
+          if (field) form.setError(field as Path<PolicyFormValues>, { type: 'server', message: messages.join(' ') });
           else leftover.push(messages.join(' '));
         }
         if (leftover.length) form.setError('root.server', { type: 'server', message: leftover.join(' ') });
@@ -71,7 +66,10 @@ export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boo
           <ScheduleSection />
           <SteppingDownSection />
           <EquipmentSection />
+          <SupplySection />
           <ReadingsSection />
+          <RemindersSection />
+          <ContactsSection />
         </fieldset>
         {!readOnly && (
           <div className="sticky bottom-20 z-10 flex flex-wrap items-center gap-3 rounded-2xl border border-surface-200 bg-surface-0 p-3 shadow-md lg:bottom-4">

@@ -1,4 +1,4 @@
-import type { Policy, PolicySettings, UpdatePolicyInput } from '../../../../shared/schemas/policy';
+import type { CylinderType, Policy, PolicySettings, UpdatePolicyInput } from '../../../../shared/schemas/policy';
 
 /**
  * The form's own shape: the same paths as the shared schema (so server 400 details land on the right field), but the
@@ -6,11 +6,19 @@ import type { Policy, PolicySettings, UpdatePolicyInput } from '../../../../shar
  */
 export type PolicyFormValues = {
   baseVersion: number;
-  settings: Omit<PolicySettings, 'flowmeterStepsLpm' | 'driftThresholdFio2'> & {
+  settings: Omit<PolicySettings, 'flowmeterStepsLpm' | 'driftThresholdFio2' | 'supply'> & {
     flowmeterStepsLpm: string;
     driftThresholdFio2: number | undefined;
+    supply: Omit<PolicySettings['supply'], 'cylinders'> & { cylinders: CylinderValues[] };
   };
 };
+
+type CylinderNumber = 'contentLitres' | 'fullPressure' | 'residualPressure';
+/**
+ * A newly added cylinder's number boxes start empty (null, not undefined: react-hook-form fills an undefined box from
+ * the form's first values, which would copy the numbers of whichever cylinder first had that place in the list).
+ */
+export type CylinderValues = Omit<CylinderType, CylinderNumber> & { [K in CylinderNumber]: number | null | undefined };
 
 // Percentage points and fractions differ by exactly 100; rounding hides float noise such as 1.4000000000000001.
 const tidy = (n: number, digits: number) => Number(n.toFixed(digits));
@@ -51,6 +59,8 @@ export function toCandidate(values: PolicyFormValues, steps: StepsParse): Update
       ...values.settings,
       flowmeterStepsLpm: steps.ok ? steps.steps : [],
       driftThresholdFio2: (drift === undefined ? undefined : pointsToFraction(drift)) as number,
+      // Empty boxes stay empty (null or undefined), so the schema answers "Enter …" for them.
+      supply: values.settings.supply as PolicySettings['supply'],
     },
   };
 }

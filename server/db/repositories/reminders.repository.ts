@@ -1,0 +1,144 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { Channel, ListMessagesQuery, MessageStatus, MessageTemplate } from '../../../shared/schemas/messages';
+import type { SqlFilter } from '../../auth/casl-to-sql';
+
+export interface ReminderRow {
+  id: string;
+  programme_id: string;
+  infant_id: string | null;
+  visit_id: string | null;
+  template: MessageTemplate;
+  contact_id: string | null;
+  user_id: string | null;
+  recipient_name: string;
+  channel: Channel | null;
+  to_address: string | null;
+  language: string;
+  time_zone: string;
+  data: Record<string, unknown>;
+  dedupe_key: string;
+  send_at: Date;
+  not_after: Date | null;
+  status: MessageStatus;
+  reason: string | null;
+  attempts: number;
+  provider_id: string | null;
+  last_error: string | null;
+  sent_at: Date | null;
+  created_at: Date;
+}
+
+export interface NewReminder {
+  programmeId: string;
+  infantId?: string | null;
+  visitId?: string | null;
+  template: MessageTemplate;
+  contactId?: string | null;
+  userId?: string | null;
+  recipientName: string;
+  channel?: Channel | null;
+  toAddress?: string | null;
+  language?: string;
+  timeZone: string;
+  data?: Record<string, unknown>;
+  dedupeKey: string;
+  sendAt: Date;
+  notAfter?: Date | null;
+  status?: 'scheduled' | 'skipped';
+  reason?: string | null;
+}
+
+export interface DeliveryRow {
+  reminder_id: string;
+  state: 'sending' | 'retrying' | 'sent' | 'failed';
+  channel: Channel;
+  to_address: string;
+  attempts: number;
+  started_at: Date;
+  provider_id: string | null;
+}
+
+const COLUMNS = ['programme_id', 'infant_id', 'visit_id', 'template', 'contact_id', 'user_id', 'recipient_name', 'channel', 'to_address', 'language', 'time_zone', 'data', 'dedupe_key', 'send_at', 'not_after', 'status', 'reason'];
+
+const SORTS: Record<ListMessagesQuery['sort'], string> = {
+  sendAt: 'r.send_at ASC, r.id', '-sendAt': 'r.send_at DESC, r.id', status: 'r.status ASC, r.send_at DESC', '-status': 'r.status DESC, r.send_at DESC',
+};
+
+export function createRemindersRepository(ds: DataSource) {
+  const q = (m?: EntityManager) => m ?? ds.manager;
+  return {
+    /** Inserts many in one statement; a row whose dedupe key exists already is left as it is. Returns the new rows' ids and send times. */
+    async insertMany(rows: NewReminder[], m: EntityManager): Promise<Array<{ id: string; send_at: Date; status: string }>> {
+      if (rows.length === 0) return [];
+      const params: unknown[] = [];
+      const tuples = rows.map((r) => {
+        const values = [r.programmeId, r.infantId ?? null, r.visitId ?? null, r.template, r.contactId ?? null, r.userId ?? null, r.recipientName,
+          r.channel ?? null, r.toAddress ?? null, r.language ?? 'en', r.timeZone, JSON.stringify(r.data ?? {}), r.dedupeKey, r.sendAt, r.notAfter ?? null,
+          r.status ?? 'scheduled', r.reason ?? null];
+        return `(${values.map((v) => `$${params.push(v)}`).join(',')})`;
+      });
+      return q(m).query(
+        `INSERT INTO reminders (${COLUMNS.join(',')}) VALUES ${tuples.join(',')} ON CONFLICT (dedupe_key) DO NOTHING RETURNING id, send_at, status`,
+        params,
+      );
+    },
+
+    /** Pending reminders of a visit become cancelled (the visit moved or was called off). */
+    cancelForVisit: (visitId: string, m: EntityManager): Promise<unknown> =>
+      q(m).query(`UPDATE reminders SET status = 'cancelled', reason = 'visit-changed', updated_at = now() WHERE visit_id = $1 AND status = 'scheduled'`, [visitId]),
+
+    lockForDelivery: async (id: string, m: EntityManager): Promise<ReminderRow | null> =>
+      (await q(m).query(`SELECT * FROM reminders WHERE id = $1 FOR UPDATE`, [id]))[0] ?? null,
+
+    findById: async (id: string, m?: EntityManager): Promise<ReminderRow | null> => (await q(m).query(`SELECT * FROM reminders WHERE id = $1`, [id]))[0] ?? null,
+
+    update: (id: string, set: Partial<Record<'status' | 'reason' | 'channel' | 'to_address' | 'send_at' | 'provider_id' | 'last_error' | 'sent_at' | 'attempts' | 'recipient_name' | 'language', unknown>>, m?: EntityManager): Promise<unknown> => {
+      const keys = Object.keys(set);
+      const params = [id, ...keys.map((k) => (set as Record<string, unknown>)[k])];
+      return q(m).query(`UPDATE reminders SET ${keys.map((k, i) => `${k} = $${i + 2}`).join(', ')}, updated_at = now() WHERE id = $1`, params);
+    },
+
+    delivery: async (reminderId: string, m: EntityManager): Promise<DeliveryRow | null> =>
+      (await q(m).query(`SELECT * FROM deliveries WHERE reminder_id = $1 FOR UPDATE`, [reminderId]))[0] ?? null,
+
+    /** Records an attempt about to leave; the previous state (if any) tells the caller whether an earlier attempt may have gone out. */
+    startAttempt: (reminderId: string, channel: Channel, toAddress: string, m: EntityManager): Promise<unknown> =>
+      q(m).query(
+        `INSERT INTO deliveries (reminder_id, state, channel, to_address, attempts, started_at) VALUES ($1, 'sending', $2, $3, 1, now())
+         ON CONFLICT (reminder_id) DO UPDATE SET state = 'sending', channel = $2, to_address = $3, attempts = deliveries.attempts + 1,
+           started_at = CASE WHEN deliveries.state = 'sending' THEN deliveries.started_at ELSE now() END`,
+        [reminderId, channel, toAddress],
+      ),
+
+    finishAttempt: (reminderId: string, state: 'sent' | 'retrying' | 'failed', providerId: string | null, m?: EntityManager): Promise<unknown> =>
+      q(m).query(`UPDATE deliveries SET state = $2, provider_id = COALESCE($3, provider_id), finished_at = now() WHERE reminder_id = $1`, [reminderId, state, providerId]),
+
+    /** Scheduled reminders due within the look-ahead, oldest first: what the reconciler (re-)enqueues. */
+    due: (lookAheadMs: number, limit: number): Promise<Array<{ id: string; send_at: Date }>> =>
+      ds.query(`SELECT id, send_at FROM reminders WHERE status = 'scheduled' AND send_at <= now() + ($1 || ' milliseconds')::interval ORDER BY send_at LIMIT $2`, [String(lookAheadMs), limit]),
+
+    /** The message log: messages about babies the caller may read, plus the caller programme's staff messages. */
+    async list(query: ListMessagesQuery, programmeId: string, infantAcl: SqlFilter) {
+      const named: Record<string, unknown> = { ...infantAcl.params, programmeId, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
+      const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR EXISTS (SELECT 1 FROM infants i WHERE i.id = r.infant_id AND ${infantAcl.sql}))`];
+      for (const key of ['status', 'channel', 'template', 'infantId'] as const) {
+        if (query[key]) {
+          named[key] = query[key];
+          where.push(`r.${key === 'infantId' ? 'infant_id' : key} = :${key}`);
+        }
+      }
+      const [sql, params] = ds.driver.escapeQueryWithParameters(
+        `SELECT r.*, inf.given_name || ' ' || inf.family_name AS infant_name, count(*) OVER () AS total
+           FROM reminders r LEFT JOIN infants inf ON inf.id = r.infant_id
+          WHERE ${where.join(' AND ')} ORDER BY ${SORTS[query.sort]} LIMIT :limit OFFSET :offset`,
+        named,
+      );
+      const rows: Array<ReminderRow & { infant_name: string | null; total: string }> = await ds.query(sql, params);
+      if (rows.length || query.page === 1) return { rows, total: rows.length ? Number(rows[0].total) : 0 };
+      // A page past the end still reports the real total so the table can step back.
+      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT count(*)::int AS n FROM reminders r WHERE ${where.join(' AND ')}`, named);
+      return { rows, total: (await ds.query(countSql, countParams))[0].n as number };
+    },
+  };
+}
+export type RemindersRepository = ReturnType<typeof createRemindersRepository>;

@@ -1,0 +1,49 @@
+import type { DataSource } from 'typeorm';
+import { subject } from '@casl/ability';
+import type { AppAbility } from '../../../shared/auth/ability';
+import { SKIP_REASONS, type ListMessagesQuery, type Message, type MessagesPage, type SkipReason } from '../../../shared/schemas/messages';
+import { accessibleWhere } from '../../auth/casl-to-sql';
+import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
+import type { ReminderRow } from '../../db/repositories/reminders.repository';
+import type { AppRepos } from '../../deps';
+import type { JobProducer } from '../../jobs/producer';
+import { ConflictError, ForbiddenError, NotFoundError } from '../../lib/errors';
+import type { Actor } from '../../lib/http';
+
+function toDto(r: ReminderRow & { infant_name?: string | null }): Message {
+  return {
+    id: r.id, template: r.template, channel: r.channel, status: r.status,
+    reason: r.reason ? (SKIP_REASONS[r.reason as SkipReason] ?? r.reason) : null,
+    recipient: { kind: r.contact_id || !r.user_id ? 'family' : 'staff', name: r.recipient_name, address: r.to_address },
+    infant: r.infant_id ? { id: r.infant_id, name: r.infant_name ?? '' } : null,
+    sendAt: new Date(r.send_at).toISOString(), sentAt: r.sent_at ? new Date(r.sent_at).toISOString() : null,
+    attempts: r.attempts, providerId: r.provider_id, lastError: r.last_error, createdAt: new Date(r.created_at).toISOString(),
+  };
+}
+
+export function createMessagesService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
+  return {
+    async list(ability: AppAbility, programmeId: string, query: ListMessagesQuery): Promise<MessagesPage> {
+      const { rows, total } = await repos.reminders.list(query, programmeId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS));
+      return { items: rows.map(toDto), total };
+    },
+
+    /** A failed message goes again now, as a fresh attempt series; the ledger keeps what happened before. */
+    async retry(ability: AppAbility, actor: Actor, id: string): Promise<Message> {
+      const row = await ds.transaction(async (m) => {
+        const r = await repos.reminders.lockForDelivery(id, m);
+        if (!r || !ability.can('read', subject('Message', { programmeId: r.programme_id } as Record<string, unknown>))) throw new NotFoundError('No such message in your programme.');
+        if (!ability.can('update', subject('Message', { programmeId: r.programme_id } as Record<string, unknown>))) throw new ForbiddenError('You cannot send messages again.');
+        if (r.status !== 'failed') throw new ConflictError(`Only a failed message can be sent again (this one is ${r.status}).`);
+        await m.query(`UPDATE deliveries SET state = 'retrying' WHERE reminder_id = $1`, [id]);
+        await repos.reminders.update(id, { status: 'scheduled', send_at: new Date(), reason: null }, m);
+        await repos.audit.append({ programmeId: r.programme_id, actorId: actor.id, action: 'message.retried', entityType: r.infant_id ? 'infant' : 'message', entityId: r.infant_id ?? r.id, ip: actor.ip, details: { messageId: r.id, template: r.template } }, m);
+        return (await repos.reminders.findById(id, m))!;
+      });
+      await jobs.enqueueReminders([row]);
+      const [named] = row.infant_id ? await ds.query(`SELECT given_name || ' ' || family_name AS name FROM infants WHERE id = $1`, [row.infant_id]) : [];
+      return toDto({ ...row, infant_name: named?.name ?? null });
+    },
+  };
+}
+export type MessagesService = ReturnType<typeof createMessagesService>;

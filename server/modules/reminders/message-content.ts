@@ -1,0 +1,101 @@
+import type { EntityManager } from 'typeorm';
+import { PRESCRIPTION_REASON_LABELS, type PrescriptionReason } from '../../../shared/schemas/prescriptions';
+import { CHECK_KIND_LABELS, type CheckKind } from '../../../shared/schemas/schedule';
+import { MESSAGE_TEMPLATE_LABELS, type MessageTemplate } from '../../../shared/schemas/messages';
+import type { PolicySettings } from '../../../shared/schemas/policy';
+import type { ReminderRow } from '../../db/repositories/reminders.repository';
+
+const KIND_LABELS: Record<string, Record<string, string>> = {
+  en: { home_visit: 'home visit', clinic_review: 'clinic review' },
+  es: { home_visit: 'visita a domicilio', clinic_review: 'revisión en la clínica' },
+};
+
+function dateText(iso: string, timeZone: string, language: string): string {
+  return new Intl.DateTimeFormat(language, { weekday: 'long', day: 'numeric', month: 'long', timeZone }).format(new Date(iso));
+}
+
+/** A plain date (YYYY-MM-DD) in words, without any time zone shift. */
+function plainDateText(date: string, language: string): string {
+  return new Intl.DateTimeFormat(language, { weekday: 'long', day: 'numeric', month: 'long', timeZone: 'UTC' }).format(new Date(`${date}T12:00:00Z`));
+}
+
+export interface ContentContext {
+  reminder: ReminderRow;
+  language: string;
+  programmeName: string;
+  settings: PolicySettings;
+  now: Date;
+}
+
+/**
+ * The values a template is filled with, read when the message goes (a digest lists what is due at that moment).
+ * Null means there is nothing to say any more, and the message is skipped.
+ */
+export async function messageView(ctx: ContentContext, m: EntityManager): Promise<Record<string, unknown> | null> {
+  const { reminder: r, language } = ctx;
+  const d = r.data as Record<string, string | boolean | number>;
+  const common = {
+    recipientName: r.recipient_name, programmeName: ctx.programmeName, programmePhone: ctx.settings.contacts.phones[0]?.number ?? null,
+  };
+  const lang = language.split('-')[0];
+  switch (r.template as MessageTemplate) {
+    case 'visit-day-before':
+    case 'visit-morning':
+    case 'visit-moved':
+    case 'visit-cancelled':
+      return {
+        ...common, babyName: d.babyName, kindLabel: (KIND_LABELS[lang] ?? KIND_LABELS.en)[String(d.kind)], staffName: d.staffName,
+        purpose: d.purpose, timeText: d.time, dateText: dateText(String(d.startsAt), String(d.timeZone), language),
+      };
+    case 'journey-day-before':
+      return { ...common, ...d, dateText: plainDateText(String(d.departOn), language) };
+    case 'delivery-failed':
+      return { ...common, ...d, templateLabel: MESSAGE_TEMPLATE_LABELS[d.template as MessageTemplate] ?? d.template, channelLabel: d.channel === 'sms' ? 'text message' : 'e-mail' };
+    case 'nurse-digest': {
+      const today = String(d.date);
+      const checks: Array<{ kind: CheckKind; due_date: string; status: string; given_name: string; family_name: string; home_address: string }> = await m.query(
+        `SELECT c.kind, to_char(c.due_date, 'YYYY-MM-DD') AS due_date, c.status, i.given_name, i.family_name, i.home_address
+           FROM checks c JOIN infants i ON i.id = c.infant_id
+          WHERE i.nurse_id = $1 AND i.programme_id = $2 AND c.status IN ('planned','overdue') AND c.due_date <= $3
+          ORDER BY c.due_date, i.family_name LIMIT 100`,
+        [r.user_id, r.programme_id, today],
+      );
+      const visits: Array<{ local_time: string; kind: string; purpose: string; given_name: string; family_name: string; home_address: string }> = await m.query(
+        `SELECT v.local_time, v.kind, v.purpose, i.given_name, i.family_name, i.home_address
+           FROM visits v JOIN infants i ON i.id = v.infant_id
+          WHERE v.staff_id = $1 AND v.programme_id = $2 AND v.status = 'booked' AND v.local_date = $3 ORDER BY v.starts_at LIMIT 50`,
+        [r.user_id, r.programme_id, today],
+      );
+      if (checks.length === 0 && visits.length === 0) return null;
+      return {
+        ...common, dateText: plainDateText(today, 'en'), checkCount: checks.length, visitCount: visits.length,
+        checks: checks.map((c) => ({
+          babyName: `${c.given_name} ${c.family_name}`, kindLabel: CHECK_KIND_LABELS[c.kind], address: c.home_address,
+          dueText: c.due_date < today ? `overdue since ${plainDateText(c.due_date, 'en')}` : 'due today',
+        })),
+        visits: visits.map((v) => ({ timeText: v.local_time, babyName: `${v.given_name} ${v.family_name}`, kindLabel: KIND_LABELS.en[v.kind], purpose: v.purpose, address: v.home_address })),
+      };
+    }
+    case 'consultant-digest': {
+      const hours = ctx.settings.reminders.signOffWaitingHours;
+      const items: Array<{ given_name: string; family_name: string; reason: string; proposed_flow_lpm: string | null; since: Date }> = await m.query(
+        `SELECT i.given_name, i.family_name, p.reason, p.proposed_flow_lpm, COALESCE(p.computed_at, p.created_at) AS since
+           FROM prescriptions p JOIN infants i ON i.id = p.infant_id
+          WHERE p.programme_id = $1 AND p.status = 'proposed' AND COALESCE(p.computed_at, p.created_at) <= $2
+          ORDER BY since LIMIT 100`,
+        [r.programme_id, new Date(ctx.now.getTime() - hours * 3_600_000)],
+      );
+      if (items.length === 0) return null;
+      return {
+        ...common, count: items.length, waitingHours: hours,
+        items: items.map((p) => ({
+          babyName: `${p.given_name} ${p.family_name}`,
+          summary: `${PRESCRIPTION_REASON_LABELS[p.reason as PrescriptionReason] ?? p.reason}${p.proposed_flow_lpm === null ? '' : `, ${Number(p.proposed_flow_lpm)} L/min proposed`}`,
+          sinceText: new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: r.time_zone }).format(new Date(p.since)),
+        })),
+      };
+    }
+    default:
+      return null;
+  }
+}

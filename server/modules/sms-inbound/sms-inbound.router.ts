@@ -1,0 +1,60 @@
+import express, { Router } from 'express';
+import twilio from 'twilio';
+import type { DataSource } from 'typeorm';
+import { z } from 'zod';
+import type { AppRepos } from '../../deps';
+import type { Logger } from '../../lib/logger';
+import { smsNumber } from '../../../shared/reminders/recipient';
+
+// Replies that mean "no more texts" on SMS networks (common practice).
+const STOP_WORDS = new Set(['STOP', 'STOPALL', 'UNSUBSCRIBE', 'CANCEL', 'END', 'QUIT']);
+
+const inboundSchema = z.object({ From: z.string().min(3).max(40), Body: z.string().max(2000), MessageSid: z.string().max(64).optional() });
+
+/**
+ * The provider's webhook for replies. It carries no session: the request is trusted only when its signature checks
+ * out against our auth token and the webhook address configured with the provider. A STOP reply withdraws SMS
+ * consent for every contact with that number, which every later message respects.
+ */
+export function smsInboundRouter(opts: { ds: DataSource; repos: AppRepos; logger: Logger; authToken: string; webhookUrl: string | undefined }) {
+  const router = Router();
+  router.post('/', express.urlencoded({ extended: false, limit: '20kb' }), async (req, res) => {
+    if (!opts.webhookUrl) {
+      res.status(503).json({ error: { code: 'not_configured', message: 'Inbound SMS is not configured (INBOUND_WEBHOOK_URL).' } });
+      return;
+    }
+    const signature = req.get('x-twilio-signature') ?? '';
+    const params = (req.body ?? {}) as Record<string, string>;
+    if (!signature || !twilio.validateRequest(opts.authToken, signature, opts.webhookUrl, params)) {
+      res.status(403).json({ error: { code: 'forbidden', message: 'Signature does not match.' } });
+      return;
+    }
+    const parsed = inboundSchema.safeParse(params);
+    if (!parsed.success) {
+      res.status(400).json({ error: { code: 'validation', message: 'Expected From and Body.' } });
+      return;
+    }
+    const word = parsed.data.Body.trim().toUpperCase();
+    if (STOP_WORDS.has(word)) {
+      const from = smsNumber(parsed.data.From);
+      await opts.ds.transaction(async (m) => {
+        const rows: Array<{ id: string; infant_id: string; programme_id: string }> = await m.query(
+          `UPDATE family_contacts SET consent_sms = false, row_version = row_version + 1, updated_at = now()
+            WHERE mobile IS NOT NULL AND regexp_replace(mobile, '[^0-9+]', '', 'g') = $1 AND consent_sms
+            RETURNING id, infant_id, programme_id`,
+          [from],
+        );
+        for (const c of rows) {
+          await opts.repos.audit.append({
+            programmeId: c.programme_id, actorId: null, action: 'contact.sms_stopped', entityType: 'infant', entityId: c.infant_id,
+            details: { contactId: c.id, word, messageSid: parsed.data.MessageSid ?? null },
+          }, m);
+        }
+        opts.logger.info('sms stop honoured', { contacts: rows.length });
+      });
+    }
+    // An empty reply: the provider sends nothing back on our behalf.
+    res.type('text/xml').send('<?xml version="1.0" encoding="UTF-8"?><Response></Response>');
+  });
+  return router;
+}

@@ -1,0 +1,142 @@
+import { screen, within } from '@testing-library/react';
+import axe from 'axe-core';
+import { describe, expect, it } from 'vitest';
+import { OXYGEN_SAFETY_POINTS, WARNING_SIGNS } from '../../shared/family/care-text';
+import type { InfantDetail, InfantSummary } from '../../shared/schemas/infants';
+import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '../../shared/schemas/policy';
+import type { Prescription } from '../../shared/schemas/prescriptions';
+import { json, PROGRAMME_ID, sessionHandler, stubApi } from './support/fake-api';
+import { renderApp } from './support/render-app';
+
+const BABY_ID = '5c5c5c5c-0000-4000-8000-000000000071';
+const baby: InfantSummary = {
+  id: BABY_ID, name: 'Juniper Ashcombe', correctedAge: '6 weeks', homeElevationM: 610, homePressureMmHg: 706.5,
+  activeFlowLpm: 0.25, status: 'on_oxygen', nurse: null, consultant: null, flags: [],
+};
+
+const approved: Prescription = {
+  id: '7b7b7b7b-0000-4000-8000-000000000071', infantId: BABY_ID, version: 2, status: 'active', reason: 'enrolment', input: {},
+  conversion: null, computedAt: '2025-11-30T10:00:02.000Z', requiredFlowLpm: 0.21, proposedFlowLpm: 0.25, approvedFlowLpm: 0.25,
+  approvedFio2: 0.31, source: 'concentrator', sourceO2Percent: 95, periods: null, evidence: null,
+  decidedBy: { id: '00000004-1111-4111-8111-111111111111', name: 'Dr Ilse Varga' }, decidedAt: '2025-11-30T11:00:00.000Z',
+  decisionReason: null, createdAt: '2025-11-30T10:00:00.000Z',
+};
+
+// Fictional numbers in the UK drama range (01632 960xxx), as the demo scenario asks.
+const contacts: PolicySettings['contacts'] = {
+  phones: [
+    { label: 'Home oxygen nurses', number: '+44 (0)1632 960 123', when: 'Weekdays 8am to 6pm, for questions about the oxygen or the plan' },
+    { label: 'Children’s ward', number: '01632 960 456', when: 'Evenings, nights and weekends' },
+  ],
+  emergencyNumber: '999',
+};
+
+function stubFamily(options: { plans?: Prescription[]; contacts?: PolicySettings['contacts'] } = {}) {
+  return stubApi({
+    'GET /api/session': sessionHandler('family'),
+    'GET /api/infants': () => json(200, { items: [baby], total: 1 }),
+    [`GET /api/infants/${BABY_ID}/prescriptions`]: () => json(200, { items: options.plans ?? [approved] }),
+    [`GET /api/infants/${BABY_ID}/visits`]: () => json(200, { items: [] }),
+    [`GET /api/infants/${BABY_ID}/journeys`]: () => json(200, { items: [] }),
+    'GET /api/policy': () =>
+      json(200, { programmeId: PROGRAMME_ID, version: 3, createdAt: null, settings: { ...DEFAULT_POLICY_SETTINGS, contacts: options.contacts ?? contacts } }),
+  });
+}
+
+const opened = () => screen.findByRole('heading', { level: 1, name: 'Our plan' }, { timeout: 5000 });
+
+describe('Family home: who to call', () => {
+  it('when the policy lists numbers, then each is a dial link with its label and when to call', async () => {
+    stubFamily();
+    renderApp('/family');
+    await opened();
+    const list = await screen.findByRole('list', { name: 'Numbers to call' });
+    const items = within(list).getAllByRole('listitem');
+    expect(items).toHaveLength(2);
+    expect(items[0]).toHaveTextContent('Home oxygen nurses');
+    expect(items[0]).toHaveTextContent('Weekdays 8am to 6pm, for questions about the oxygen or the plan');
+    // The dialler gets digits and the leading + only, without the "(0)" written for callers at home (common
+    // practice); the number is shown as the programme wrote it.
+    expect(within(items[0]).getByRole('link', { name: 'Call Home oxygen nurses on +44 (0)1632 960 123' })).toHaveAttribute('href', 'tel:+441632960123');
+    expect(within(items[1]).getByRole('link', { name: 'Call Children’s ward on 01632 960 456' })).toHaveAttribute('href', 'tel:01632960456');
+  });
+
+  it('when there is an emergency number, then the emergency section names it and dials it', async () => {
+    stubFamily({ contacts: { phones: [], emergencyNumber: '112' } });
+    renderApp('/family');
+    await opened();
+    const section = screen.getByRole('region', { name: 'In an emergency' });
+    expect(await within(section).findByText(/call 112 straight away/)).toBeInTheDocument();
+    expect(within(section).getByRole('link', { name: 'Call the emergency number, 112' })).toHaveAttribute('href', 'tel:112');
+    expect(screen.getByText('Your home-care team will give you the numbers to call. Keep them by the phone.')).toBeInTheDocument();
+  });
+});
+
+describe('Family home: warning signs and oxygen safety', () => {
+  it('when the page opens, then every warning sign and safety point from the shared care text is listed', async () => {
+    stubFamily();
+    renderApp('/family');
+    await opened();
+    const signs = within(screen.getByRole('list', { name: 'Warning signs' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(signs).toEqual([...WARNING_SIGNS]);
+    expect(signs.some((sign) => /blue, grey or very pale/.test(sign ?? ''))).toBe(true);
+    const safety = within(screen.getByRole('list', { name: 'Oxygen safety at home' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(safety).toEqual([...OXYGEN_SAFETY_POINTS]);
+    expect(safety.join(' ')).toMatch(/smoking/);
+    expect(safety.join(' ')).toMatch(/upright/);
+  });
+});
+
+describe('Family home: the printed care plan', () => {
+  it('when there is an approved plan, then a download link points at the baby’s care-plan PDF', async () => {
+    stubFamily();
+    renderApp('/family');
+    const link = await screen.findByRole('link', { name: /Download care plan \(PDF\)/ }, { timeout: 5000 });
+    expect(link).toHaveAttribute('href', `/api/infants/${BABY_ID}/care-plan.pdf`);
+    expect(link).toHaveAttribute('download');
+  });
+
+  it('when only a proposal exists, then there is no care plan to download', async () => {
+    stubFamily({ plans: [{ ...approved, status: 'proposed', approvedFlowLpm: null, decidedAt: null, decidedBy: null }] });
+    renderApp('/family');
+    expect(await screen.findByText("Your baby's home oxygen plan will show here once the consultant has approved it.", undefined, { timeout: 5000 })).toBeInTheDocument();
+    expect(screen.queryByRole('link', { name: /Download care plan/ })).not.toBeInTheDocument();
+  });
+
+  it('when the coordinator opens a record with an approved setting, then the plan section offers the same PDF', async () => {
+    const record: InfantDetail = {
+      id: BABY_ID, name: 'Juniper Ashcombe', givenName: 'Juniper', familyName: 'Ashcombe', sex: 'female', birthDate: '2025-08-10',
+      gestation: { weeks: 29, days: 3 }, correctedAge: '6 weeks', postmenstrualAge: '46+0 weeks', chronologicalAge: '17 weeks',
+      birthWeightG: 1210, weightKg: 3.4, weightDate: '2025-11-28', diagnoses: ['chronic_lung_disease'],
+      site: { id: '3d3d3d3d-0000-4000-8000-000000000071', name: 'Larkmoor Regional Children’s Hospital', elevationM: 95 },
+      hospital: { flowLpm: 0.1, source: 'cylinder', o2Percent: 100 },
+      home: { address: '4 Quarry Lane, Wrenbrook', location: { elevationM: 610 }, source: 'concentrator', o2Percent: 95 },
+      homeElevationM: 610, homePressureMmHg: 706.5, activeFlowLpm: 0.25, status: 'on_oxygen', flags: [], nurse: null, consultant: null,
+      activeSetting: { prescriptionId: approved.id, version: 2, flowLpm: 0.25, source: 'concentrator', sourceO2Percent: 95, effectiveFio2: 0.31, periods: null, approvedAt: approved.decidedAt },
+      contacts: [], rowVersion: 1, enrolledAt: '2025-11-30T10:00:00.000Z',
+    };
+    stubApi({
+      'GET /api/session': sessionHandler('coordinator'),
+      [`GET /api/infants/${BABY_ID}`]: () => json(200, record),
+      [`GET /api/infants/${BABY_ID}/prescriptions`]: () => json(200, { items: [approved] }),
+    });
+    renderApp(`/infants/${BABY_ID}`);
+    const plan = (await screen.findByRole('heading', { level: 2, name: 'Plan' }, { timeout: 5000 })).closest('section')!;
+    expect(within(plan).getByRole('link', { name: /Download care plan \(PDF\)/ })).toHaveAttribute('href', `/api/infants/${BABY_ID}/care-plan.pdf`);
+    expect(within(plan).getByRole('link', { name: 'How long will a cylinder last?' })).toHaveAttribute('href', `/infants/${BABY_ID}/cylinder`);
+  });
+});
+
+describe('Family home: accessibility', () => {
+  it('when everything is on the page, then axe finds no serious or critical problems', { timeout: 30_000 }, async () => {
+    stubFamily();
+    renderApp('/family');
+    await opened();
+    await screen.findByRole('list', { name: 'Numbers to call' });
+    await screen.findByRole('link', { name: /Download care plan/ });
+    // jsdom cannot compute colours, so contrast is left to the browser test.
+    const result = await axe.run(document.body, { rules: { 'color-contrast': { enabled: false } } });
+    const serious = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id);
+    expect(serious).toEqual([]);
+  });
+});

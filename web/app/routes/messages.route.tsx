@@ -1,0 +1,19 @@
+import { Card } from '../../components/ui/card';
+import { PageHeader } from '../../components/ui/page-header';
+import { MessageTable } from '../../features/messages/components/message-table';
+import { useSignedInUser } from '../../lib/signed-in-user';
+
+export function Component() {
+  const { programmeTimeZone } = useSignedInUser();
+  return (
+    <>
+      <PageHeader
+        title="Messages"
+        intro={`Every reminder and notice the programme planned, sent, held back or failed to send. Times are the programme's (${programmeTimeZone}).`}
+      />
+      <Card>
+        <MessageTable />
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,33 @@
+import { emergencyCallText, WARNING_SIGNS, WARNING_SIGNS_INTRO } from '../../../../shared/family/care-text';
+import { useProgrammeContacts } from '../api/get-programme-contacts';
+import { PhoneLink } from './phone-link';
+
+const WITHOUT_NUMBER = 'If you are worried your baby is seriously unwell, call your local emergency number straight away, then tell your home oxygen team.';
+
+/** The warning signs and the emergency number, in the same words as the printed care plan. */
+export function EmergencySection() {
+  const contacts = useProgrammeContacts();
+  const number = contacts.data?.emergencyNumber;
+  return (
+    <section aria-labelledby="emergency-heading" className="flex flex-col gap-4 rounded-2xl border-2 border-danger-600 bg-danger-50 p-5">
+      <h2 id="emergency-heading" className="text-2xl font-bold text-danger-800">
+        In an emergency
+      </h2>
+      <p className="text-xl leading-relaxed text-ink-900">{number ? emergencyCallText(number) : WITHOUT_NUMBER}</p>
+      {number && (
+        <div>
+          <PhoneLink number={number} callWho="Call the emergency number," tone="danger" />
+        </div>
+      )}
+      <div className="flex flex-col gap-2">
+        <h3 className="text-xl font-bold text-ink-900">Warning signs that need help now</h3>
+        <p className="text-lg leading-relaxed text-ink-900">{WARNING_SIGNS_INTRO}</p>
+        <ul aria-label="Warning signs" className="flex list-disc flex-col gap-2 pl-6 text-lg leading-relaxed text-ink-900">
+          {WARNING_SIGNS.map((sign) => (
+            <li key={sign}>{sign}</li>
+          ))}
+        </ul>
+      </div>
+    </section>
+  );
+}

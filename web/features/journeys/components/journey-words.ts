@@ -1,0 +1,45 @@
+import type { Journey, JourneyPeriod } from '../../../../shared/schemas/journeys';
+import { addDays } from '../../../../shared/clinical/dates';
+
+// Journey dates are the family's calendar days; formatting them at UTC noon keeps any browser zone from moving them.
+const asUtcNoon = (date: string) => new Date(`${date}T12:00:00Z`);
+const longDay = new Intl.DateTimeFormat('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+const shortDay = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+
+export const dayWords = (date: string) => longDay.format(asUtcNoon(date));
+export const shortDayWords = (date: string) => shortDay.format(asUtcNoon(date));
+
+export function datesWords(request: Journey['request']): string {
+  return request.departOn === request.returnOn
+    ? `on ${dayWords(request.departOn)}`
+    : `from ${dayWords(request.departOn)} to ${dayWords(request.returnOn)}`;
+}
+
+export const PERIOD_WORDS: Record<JourneyPeriod, string> = { awake: 'When awake', asleep: 'When asleep', feeding: 'When feeding' };
+
+export function hoursWords(hours: number): string {
+  return `${Number(hours.toFixed(1)).toLocaleString('en-GB')} ${hours === 1 ? 'hour' : 'hours'}`;
+}
+
+export function wayWords(request: Journey['request']): string {
+  if (request.mode === 'road') {
+    return request.destinationElevationM === null ? 'By road' : `By road, ${request.destinationElevationM.toLocaleString('en-GB')} m above sea level`;
+  }
+  const cabin = (request.cabinAltitudeFt ?? 8000).toLocaleString('en-GB');
+  return `By air, planned for a cabin at ${cabin} ft`;
+}
+
+/** YYYY-MM-DD in a time zone: the programme's calendar, which the server also checks dates against. */
+export function todayIn(timeZone: string, now = new Date()): string {
+  const parts = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(now);
+  const part = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
+  return `${part('year')}-${part('month')}-${part('day')}`;
+}
+
+/** An approved trip shows on the family page from this many days before leaving until the day of return. */
+export const SHOW_TRIP_DAYS_BEFORE = 7;
+
+export function tripIsCurrent(journey: Journey, today: string): boolean {
+  return journey.status === 'approved' && journey.plan !== null
+    && today >= addDays(journey.request.departOn, -SHOW_TRIP_DAYS_BEFORE) && today <= journey.request.returnOn;
+}

@@ -1,0 +1,40 @@
+import { Alert } from '../../../components/ui/alert';
+import { Pager } from '../../../components/ui/data-table/pager';
+import { TableFrame } from '../../../components/ui/data-table/table-frame';
+import { useServerTable } from '../../../components/ui/data-table/use-server-table';
+import { EmptyState } from '../../../components/ui/empty-state';
+import { Spinner } from '../../../components/ui/spinner';
+import { errorMessage } from '../../../lib/api-error';
+import { useMessages } from '../api/get-messages';
+import { useMessageLogView } from '../hooks/use-message-log-view';
+import { messageColumns, messageSort } from './message-columns';
+import { MessageFilters } from './message-filters';
+
+/** Every message the programme planned or sent, newest first unless the URL says otherwise. */
+export function MessageTable() {
+  const { query, update } = useMessageLogView();
+  const messages = useMessages(query);
+  const table = useServerTable({ columns: messageColumns, result: messages.data, view: query, update, sort: messageSort });
+
+  const filtered = Boolean(query.status || query.channel || query.template || query.infantId);
+  return (
+    <div className="flex flex-col gap-4">
+      <MessageFilters query={query} update={update} />
+      {messages.isPending ? (
+        <Spinner label="Loading the messages" />
+      ) : messages.isError ? (
+        <Alert>{errorMessage(messages.error)}</Alert>
+      ) : (
+        <>
+          <p className="text-sm text-ink-500 md:hidden">Swipe the table sideways to see every column.</p>
+          <TableFrame table={table} caption={`Messages, ${messages.data.total} in all`} minWidth="min-w-[72rem]"
+            busy={messages.isPlaceholderData} compact />
+          {messages.data.items.length === 0 && (
+            <EmptyState message={filtered ? 'No message matches these filters.' : 'No messages yet: reminders show here as soon as they are planned.'} />
+          )}
+          <Pager table={table} total={messages.data.total} noun={{ one: 'message', other: 'messages' }} />
+        </>
+      )}
+    </div>
+  );
+}

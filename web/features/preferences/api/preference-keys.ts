@@ -1,0 +1,4 @@
+export const preferenceKeys = {
+  all: ['preferences'] as const,
+  mine: () => [...preferenceKeys.all, 'mine'] as const,
+};
