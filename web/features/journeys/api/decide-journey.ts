@@ -1,11 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { journeyResponseSchema, type Journey, type JourneyDecisionInput } from '../../../../shared/schemas/journeys';
+import { journeyResponseSchema, journeySchema, type JourneyDecisionInput } from '../../../../shared/schemas/journeys';
 import { api } from '../../../lib/api-client';
 import { isApiError } from '../../../lib/api-error';
 import { journeyKeys } from './journey-keys';
 
 const describe = (data: unknown) => {
-  const journey = data as Journey;
+  const journey = journeySchema.parse(data);
   const verb = journey.status === 'approved' ? 'approved' : 'not approved';
   return `${journey.infantName}: the journey plan to ${journey.request.destinationName} is ${verb}.`;
 };

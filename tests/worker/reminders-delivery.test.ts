@@ -1,0 +1,201 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { planVisitReminders } from '../../shared/reminders/timing';
+import { reconcileReminders } from '../../server/modules/reminders/reconcile';
+import { createTestContext, type TestContext } from '../helpers/test-app';
+import { signedInAgent, type Agent } from '../helpers/agents';
+import { enrolmentBody, makeClinic } from '../helpers/infants';
+import { policyWithoutQuietHours, startMessaging, waitFor, type Messaging } from '../helpers/messaging';
+
+let ctx: TestContext;
+let msg: Messaging;
+beforeAll(async () => {
+  ctx = await createTestContext();
+  msg = await startMessaging(ctx.deps);
+});
+afterAll(async () => {
+  await msg?.close();
+  await ctx?.close();
+});
+
+const future = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+const post = (a: Agent, path: string, body: unknown) => a.post(path).set('X-CSRF-Token', a.csrf).send(body as object);
+const visitBody = (staffId: string, over: Record<string, unknown> = {}) => ({ kind: 'home_visit', date: future(5), time: '10:30', durationMinutes: 45, staffId, purpose: 'Spot check and weight', ...over });
+
+interface Row { id: string; template: string; status: string; reason: string | null; send_at: Date; channel: string | null; to_address: string | null; attempts: number; provider_id: string | null; contact_id: string | null; user_id: string | null; last_error: string | null }
+const rowsOf = (visitId: string): Promise<Row[]> => ctx.deps.ds.query(`SELECT * FROM reminders WHERE visit_id = $1 ORDER BY send_at, template`, [visitId]);
+
+/** "Time passes": the reminders' moment is brought to now, as a fake clock would, and the reconciler runs. */
+async function makeDue(ids: string[]) {
+  await ctx.deps.ds.query(`UPDATE reminders SET send_at = now() WHERE id = ANY($1)`, [ids]);
+  await reconcileReminders(ctx.deps.repos, msg.queue, msg.jobOptions);
+}
+const settled = (ids: string[]) => waitFor('reminders to settle', async () => {
+  const rows: Row[] = await ctx.deps.ds.query(`SELECT * FROM reminders WHERE id = ANY($1)`, [ids]);
+  return rows.every((r) => r.status !== 'scheduled') && rows;
+});
+
+async function family(opts: { timeZone?: string; channel?: 'sms' | 'email' } = {}) {
+  const clinic = await makeClinic(ctx.deps);
+  await policyWithoutQuietHours(ctx.deps, clinic.programme.id);
+  const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
+  const body = enrolmentBody(clinic);
+  body.contacts[0] = { ...body.contacts[0], timeZone: opts.timeZone ?? 'America/Denver', mobile: `+44 7700 9${String(Math.floor(Math.random() * 1e5)).padStart(5, '0')}`,
+    email: `parent-${Math.random().toString(36).slice(2, 8)}@test.example`, consentEmail: true, preferredChannel: opts.channel ?? 'sms' };
+  const infant = (await post(coord, '/api/infants', body).expect(201)).body;
+  return { clinic, coord, infant, contact: body.contacts[0] };
+}
+
+describe('reminders on real PostgreSQL, Redis and both fakes', () => {
+  it('when a visit is booked, then one reminder row per reminder is written at the right moments and each goes out exactly once', async () => {
+    const { clinic, coord, infant, contact } = await family({ timeZone: 'America/Denver' });
+    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id)).expect(201)).body;
+    const rows = await rowsOf(visit.id);
+    expect(rows.map((r) => r.template)).toEqual(['visit-day-before', 'visit-morning']);
+    // The moments follow the family's own clock (Denver) and the policy times: 17:00 the day before, 08:00 on the day.
+    const expected = planVisitReminders({ date: visit.date, time: visit.time, timeZone: 'America/Denver', startsAt: new Date(visit.startsAt) },
+      { dayBeforeAt: '17:00', morningOfAt: '08:00', quietStart: '00:00', quietEnd: '00:00' }, new Date());
+    expect(rows.map((r) => new Date(r.send_at).toISOString())).toEqual(expected.map((e) => e.sendAt.toISOString()));
+    expect(rows.every((r) => r.status === 'scheduled' && r.channel === 'sms' && r.to_address === contact.mobile!.replace(/ /g, ''))).toBe(true);
+
+    await makeDue(rows.map((r) => r.id));
+    const done = await settled(rows.map((r) => r.id));
+    expect(done.map((r) => r.status)).toEqual(['sent', 'sent']);
+    const inbox = msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''));
+    expect(inbox).toHaveLength(2);
+    expect(inbox.map((m) => m.body).join('\n')).toContain('home visit tomorrow');
+    expect(inbox.map((m) => m.body).join('\n')).toContain('home visit is today at 10:30');
+    expect(new Set(done.map((r) => r.provider_id))).toEqual(new Set(inbox.map((m) => m.sid)));
+    // The SDK's own client made the call, not a hand-made request.
+    expect(inbox[0].userAgent).toMatch(/twilio-node/);
+
+    // A second reconcile and a direct second delivery are no-ops: the ledger says sent.
+    await reconcileReminders(ctx.deps.repos, msg.queue, msg.jobOptions);
+    expect(await msg.delivery.deliver(rows[0].id, { finalAttempt: false })).toBe('already-done');
+    await new Promise((r) => setTimeout(r, 300));
+    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(2);
+  });
+
+  it('when a visit is moved, then its pending reminders are cancelled, the family is told at once and new reminders are planned', async () => {
+    const { clinic, coord, infant, contact } = await family({ channel: 'email', timeZone: 'Europe/London' });
+    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const before = await rowsOf(visit.id);
+    const moved = (await coord.patch(`/api/visits/${visit.id}`).set('X-CSRF-Token', coord.csrf).send({ rowVersion: visit.rowVersion, date: future(6), time: '14:15' }).expect(200)).body;
+    const after = await rowsOf(visit.id);
+    expect(after.filter((r) => before.some((b) => b.id === r.id)).map((r) => [r.status, r.reason])).toEqual([['cancelled', 'visit-changed'], ['cancelled', 'visit-changed']]);
+    const note = after.find((r) => r.template === 'visit-moved')!;
+    expect(after.filter((r) => r.status === 'scheduled' && r.template !== 'visit-moved').map((r) => r.template).sort()).toEqual(['visit-day-before', 'visit-morning']);
+    // The note was due now, so the API put it on the queue itself.
+    const [sent] = await settled([note.id]);
+    expect(sent.status).toBe('sent');
+    const mails = msg.mail.messages().filter((m) => m.envelope.to.includes(contact.email!));
+    expect(mails).toHaveLength(1);
+    expect(mails[0].subject).toContain(`New time for Test's home visit`);
+    expect(mails[0].text).toContain(`${moved.time}`);
+    expect(mails[0].headers['message-id']).toBe(`<reminder-${note.id}@nestflow.invalid>`);
+
+    // Cancelling: the new reminders go too, and a cancellation note is sent.
+    await post(coord, `/api/visits/${visit.id}/cancel`, { reason: 'Family away' }).expect(200);
+    const last = await rowsOf(visit.id);
+    expect(last.filter((r) => r.status === 'scheduled' && r.template.startsWith('visit-day') )).toHaveLength(0);
+    const cancelNote = last.find((r) => r.template === 'visit-cancelled')!;
+    await settled([cancelNote.id]);
+    expect(msg.mail.messages().filter((m) => m.envelope.to.includes(contact.email!)).map((m) => m.subject).at(-1)).toMatch(/is cancelled/);
+  });
+
+  it('when the SMS provider answers 5xx twice, then the message is retried with backoff and sent once on the third attempt', async () => {
+    const { clinic, coord, infant, contact } = await family();
+    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const [first] = await rowsOf(visit.id);
+    await fetch(`http://127.0.0.1:${msg.sms.port}/fail`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ mode: '5xx', count: 2 }) });
+    await makeDue([first.id]);
+    const [done] = await settled([first.id]);
+    expect(done).toMatchObject({ status: 'sent', attempts: 3 });
+    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(1);
+  });
+
+  it('when the SMS provider answers 4xx, then the message fails after one attempt and every coordinator gets an e-mail alert', async () => {
+    const { clinic, coord, infant } = await family();
+    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const [first] = await rowsOf(visit.id);
+    await fetch(`http://127.0.0.1:${msg.sms.port}/fail`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ mode: '4xx', count: 1 }) });
+    await makeDue([first.id]);
+    const [done] = await settled([first.id]);
+    expect(done).toMatchObject({ status: 'failed', attempts: 1 });
+    expect(done.last_error).toMatch(/not valid/);
+    const alert = await waitFor('the coordinator alert', async () => {
+      const [a] = await ctx.deps.ds.query(`SELECT * FROM reminders WHERE template = 'delivery-failed' AND dedupe_key LIKE $1`, [`delivery-failed-${first.id}-%`]);
+      return a?.status === 'sent' && a;
+    });
+    expect(alert.to_address).toBe(clinic.people.coordinator.email);
+    const mail = msg.mail.messages().find((m) => m.envelope.to.includes(clinic.people.coordinator.email));
+    expect(mail?.subject).toMatch(/could not be delivered/);
+    expect(mail?.text).toContain('The To number is not valid');
+    // Sending it again by hand (the message log) goes through now that the provider is well.
+    const retried = await post(coord, `/api/messages/${first.id}/retry`, {}).expect(200);
+    expect(retried.body.message.status).toBe('scheduled');
+    const [again] = await settled([first.id]);
+    expect(again.status).toBe('sent');
+  });
+
+  it('when an earlier attempt reached the provider but the worker died before writing "sent", then the next attempt finds it and does not send again', async () => {
+    const { clinic, coord, infant, contact } = await family();
+    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const [first] = await rowsOf(visit.id);
+    await ctx.deps.ds.query(`UPDATE reminders SET send_at = now() WHERE id = $1`, [first.id]);
+    // What a crash leaves behind: the provider has the message, the ledger says "sending" since a minute ago.
+    const claimed = await msg.delivery.deliver(first.id, { finalAttempt: false });
+    expect(claimed).toBe('sent');
+    await ctx.deps.ds.query(`UPDATE reminders SET status = 'scheduled', provider_id = NULL WHERE id = $1`, [first.id]);
+    await ctx.deps.ds.query(`UPDATE deliveries SET state = 'sending', started_at = now() - interval '1 minute' WHERE reminder_id = $1`, [first.id]);
+    expect(await msg.delivery.deliver(first.id, { finalAttempt: false })).toBe('recovered');
+    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(1);
+  });
+
+  it('when the family turned reminders off or has no consent, then the reminder is skipped with the reason, and nothing is sent', async () => {
+    const { clinic, coord, infant, contact } = await family();
+    await ctx.deps.ds.query(`UPDATE family_contacts SET reminders_enabled = false WHERE infant_id = $1`, [infant.id]);
+    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const rows = await rowsOf(visit.id);
+    expect(rows.map((r) => [r.status, r.reason])).toEqual([['skipped', 'opted-out'], ['skipped', 'opted-out']]);
+    // Consent withdrawn after booking: decided again at send time.
+    await ctx.deps.ds.query(`UPDATE family_contacts SET reminders_enabled = true, consent_sms = false, consent_email = false WHERE infant_id = $1`, [infant.id]);
+    const other = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id, { date: future(8) }))).body;
+    const pending = await rowsOf(other.id);
+    expect(pending.map((r) => r.reason)).toEqual(['no-consent', 'no-consent']);
+    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(0);
+  });
+
+  it('when a nurse has checks due, then the morning digest lists them; a consultant digest goes only when proposals have waited too long', async () => {
+    const { clinic } = await family();
+    const { planDigests } = await import('../../server/modules/reminders/digests');
+    // 06:00 in the programme's zone, before the digest time: rows are planned, not sent.
+    const [prog] = await ctx.deps.ds.query(`SELECT time_zone FROM programmes WHERE id = $1`, [clinic.programme.id]);
+    const { instantAtOrAfter, localParts } = await import('../../shared/reminders/timing');
+    const today = localParts(new Date(), prog.time_zone).date;
+    const created = await planDigests(ctx.deps.ds, ctx.deps.repos, instantAtOrAfter(today, '06:00', prog.time_zone));
+    const mine = await ctx.deps.ds.query(`SELECT * FROM reminders WHERE programme_id = $1 AND template IN ('nurse-digest','consultant-digest')`, [clinic.programme.id]);
+    expect(mine.map((r: Row) => r.template)).toContain('nurse-digest');
+    // The enrolment proposal has not waited 24 h yet, so no consultant digest.
+    expect(mine.map((r: Row) => r.template)).not.toContain('consultant-digest');
+    // Planning again adds nothing.
+    const again = await planDigests(ctx.deps.ds, ctx.deps.repos, instantAtOrAfter(today, '06:30', prog.time_zone));
+    expect(again.filter((r) => created.some((c) => c.id === r.id))).toHaveLength(0);
+    const digest = mine.find((r: Row) => r.template === 'nurse-digest' && r.user_id === clinic.people.nurse.id);
+    // Nothing due yet (the baby's plan is not approved, so no checks are planned): the digest is skipped, not sent empty.
+    const empty = await msg.delivery.deliver(digest.id, { finalAttempt: false, now: new Date(digest.send_at) });
+    expect(empty).toBe('skipped');
+    await ctx.deps.ds.query(`UPDATE reminders SET status = 'scheduled', reason = NULL WHERE id = $1`, [digest.id]);
+    await ctx.deps.ds.query(
+      `INSERT INTO checks (programme_id, infant_id, plan_key, kind, due_at, due_date, status)
+       SELECT programme_id, id, 'test-spot', 'spot_check', now(), $2, 'planned' FROM infants WHERE programme_id = $1`,
+      [clinic.programme.id, today],
+    );
+    await makeDue([digest.id]);
+    const [sent] = await settled([digest.id]);
+    expect(sent.status).toBe('sent');
+    const mail = msg.mail.messages().find((m) => m.envelope.to.includes(clinic.people.nurse.email));
+    expect(mail?.subject).toMatch(/Your Nestflow day/);
+    expect(mail?.text).toMatch(/Checks due today or overdue/);
+    expect(mail?.text).toContain('Test Baby');
+  });
+});
