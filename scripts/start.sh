@@ -27,6 +27,8 @@ export NODE_ENV="${NODE_ENV:-development}"
 export DATABASE_URL="${DATABASE_URL:-postgres://postgres@127.0.0.1:$PG_PORT/${PG_DATABASE:-nestflow}}"
 export REDIS_URL="${REDIS_URL:-redis://127.0.0.1:$REDIS_PORT}"
 export PORT="${PORT:-3000}"
+# The fake SMS server forwards replies (STOP) to the API's webhook, signed like the hosted service signs them.
+export INBOUND_WEBHOOK_URL="${INBOUND_WEBHOOK_URL:-http://127.0.0.1:$PORT/api/webhooks/sms}"
 
 log "Applying database migrations"
 node --import tsx server/db/migrate.ts

@@ -42,7 +42,9 @@ await upsertSchedules(maintenanceQueue, scheduleOptions);
 });
 const mail = createMailSender(env, { timeoutMs: env.SEND_TIMEOUT_MS });
 const sms = createSmsSender(env, { timeoutMs: env.SEND_TIMEOUT_MS });
-const delivery = createDelivery({ ds, repos, mail, sms, logger, enqueue: (rows) => addReminderJobs(messagesQueue, rows, reminderJobs) });
+const delivery = createDelivery({ ds, repos, mail, sms, logger, enqueue: (rows) => addReminderJobs(messagesQueue, rows, reminderJobs),
+  // Three sender time-outs: an attempt older than that cannot still be waiting on the provider.
+  inFlightGuardMs: 3 * env.SEND_TIMEOUT_MS });
 // Pick up anything left 'preparing' while no worker was running.
 await reconcileConversions(repos, jobs, 0);
 await reconcileRecordings(repos, jobs, 0, 0);

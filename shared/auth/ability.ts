@@ -84,6 +84,8 @@ function consultantRules({ can }: Builder, p: string) {
 function familyRules({ can }: Builder, p: string, infantIds: readonly string[]) {
   const own = { programmeId: p, infantId: { $in: [...infantIds] } };
   can('read', 'Programme', { id: p });
+  // The programme's numbers to call and its cylinder list; the settings hold no one's personal data.
+  can('read', 'Policy', { programmeId: p });
   can('read', 'Infant', { programmeId: p, id: { $in: [...infantIds] } });
   // Families only ever see an approved plan.
   can('read', 'Prescription', { ...own, status: 'active' });

@@ -51,7 +51,12 @@ export function outsideQuietHours(instant: Date, timeZone: string, q: QuietHours
   const local = localParts(instant, timeZone);
   // Before the end time on the same local day (early morning) → that morning; otherwise (late evening) → next morning.
   const date = minutesOf(local.time) < minutesOf(q.quietEnd) ? local.date : addDays(local.date, 1);
-  return instantAtOrAfter(date, q.quietEnd, timeZone);
+  const end = instantAtOrAfter(date, q.quietEnd, timeZone);
+  if (end.getTime() > instant.getTime()) return end;
+  // In the hour repeated when clocks go back, the first of two equal wall-clock times can lie before the instant
+  // itself (quiet until 01:30, now 01:10 the second time round): the end is then the second 01:30.
+  const offsetMs = (at: Date) => -new TZDate(at.getTime(), timeZone).getTimezoneOffset() * 60_000;
+  return new Date(end.getTime() + offsetMs(end) - offsetMs(instant));
 }
 
 export interface VisitTiming {

@@ -36,15 +36,27 @@ export default async function setup(project: TestProject) {
   await ds.query('DROP SCHEMA IF EXISTS public CASCADE');
   await ds.query('CREATE SCHEMA public');
   await ds.destroy();
-  const env = { ...process.env, NODE_ENV: 'test', DATABASE_URL: url, PORT: String(PORT), QUEUE_PREFIX: 'e2e', LOG_LEVEL: 'warn', SIGNIN_IP_LIMIT: '1000' };
+  // The fake mail and SMS servers run beside the API, on ports next to it, as `npm start` runs them.
+  const fakes = { FAKE_MAIL_HTTP_PORT: String(PORT + 1), FAKE_SMTP_PORT: String(PORT + 2), FAKE_SMS_PORT: String(PORT + 3) };
+  const env = {
+    ...process.env, NODE_ENV: 'test', DATABASE_URL: url, PORT: String(PORT), QUEUE_PREFIX: 'e2e', LOG_LEVEL: 'warn', SIGNIN_IP_LIMIT: '1000', ...fakes,
+    SMTP_PORT: fakes.FAKE_SMTP_PORT, SMS_API_BASE: `http://127.0.0.1:${fakes.FAKE_SMS_PORT}`, INBOUND_WEBHOOK_URL: `http://127.0.0.1:${PORT}/api/webhooks/sms`,
+    REMINDER_RECONCILE_MS: '2000',
+  };
   await run(['server/db/migrate.ts'], env);
   await run(['seed/main.ts'], env);
   children = [
     spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], { env, stdio: 'inherit' }),
     spawn(process.execPath, ['--import', 'tsx', 'worker/main.ts'], { env, stdio: 'inherit' }),
+    spawn(process.execPath, ['--import', 'tsx', 'fakes/mail/main.ts'], { env, stdio: 'inherit' }),
+    spawn(process.execPath, ['--import', 'tsx', 'fakes/sms/main.ts'], { env, stdio: 'inherit' }),
   ];
   await waitForHealth(`http://127.0.0.1:${PORT}/api/health`, 30_000);
+  await waitForHealth(`http://127.0.0.1:${fakes.FAKE_SMS_PORT}/health`, 30_000);
+  await waitForHealth(`http://127.0.0.1:${fakes.FAKE_MAIL_HTTP_PORT}/health`, 30_000);
   project.provide('baseUrl', `http://127.0.0.1:${PORT}`);
+  project.provide('fakeSmsUrl', `http://127.0.0.1:${fakes.FAKE_SMS_PORT}`);
+  project.provide('fakeMailUrl', `http://127.0.0.1:${fakes.FAKE_MAIL_HTTP_PORT}`);
   return async () => {
     for (const c of children) c.kill('SIGTERM');
     await Promise.all(children.map((c) => new Promise((r) => (c.exitCode !== null ? r(null) : c.once('exit', r)))));
@@ -54,5 +66,7 @@ export default async function setup(project: TestProject) {
 declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string;
+    fakeSmsUrl: string;
+    fakeMailUrl: string;
   }
 }

@@ -165,6 +165,18 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(0);
   });
 
+  it("when the coordinator edits the family's contacts, then a person who stays keeps their reminder switch and their pending reminders", async () => {
+    const { clinic, coord, infant, contact } = await family();
+    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    await ctx.deps.ds.query(`UPDATE family_contacts SET reminders_enabled = false WHERE infant_id = $1`, [infant.id]);
+    const second = { ...contact, name: 'Parent Two', relation: 'Father', mobile: '+44 7700 955555', email: 'two@test.example' };
+    await coord.put(`/api/infants/${infant.id}/contacts`).set('X-CSRF-Token', coord.csrf).send({ contacts: [contact, second] }).expect(200);
+    const rows: Array<{ id: string; name: string; reminders_enabled: boolean }> = await ctx.deps.ds.query(`SELECT id, name, reminders_enabled FROM family_contacts WHERE infant_id = $1 ORDER BY position`, [infant.id]);
+    expect(rows.map((r) => [r.name, r.reminders_enabled])).toEqual([[contact.name, false], ['Parent Two', true]]);
+    const pending = await rowsOf(visit.id);
+    expect(pending.every((r) => r.contact_id === rows[0].id)).toBe(true);
+  });
+
   it('when a nurse has checks due, then the morning digest lists them; a consultant digest goes only when proposals have waited too long', async () => {
     const { clinic } = await family();
     const { planDigests } = await import('../../server/modules/reminders/digests');

@@ -7,20 +7,39 @@ export function createContactsRepository(ds: DataSource) {
   return {
     listForInfant: (infantId: string, m?: EntityManager) => repo(m).find({ where: { infantId }, order: { position: 'ASC' } }),
 
-    /** Replaces the contact list, keeping the family account link of a contact whose e-mail stays the same. */
+    /**
+     * Replaces the contact list. A person who stays on it (same e-mail, else same mobile, else same name) keeps
+     * their family account link and their own reminder switch, and their pending reminders follow them to the new
+     * row instead of being orphaned.
+     */
     async replace(infantId: string, programmeId: string, contacts: ContactInput[], m: EntityManager) {
       const existing = await repo(m).find({ where: { infantId } });
-      const links = new Map(existing.filter((c) => c.userId && c.email).map((c) => [c.email, c.userId]));
-      await repo(m).delete({ infantId });
-      const rows = contacts.map((c, position) =>
-        repo(m).create({
-          infantId, programmeId, position,
-          name: c.name, relation: c.relation, mobile: c.mobile ?? null, email: c.email ?? null,
-          preferredChannel: c.preferredChannel, consentSms: c.consentSms, consentEmail: c.consentEmail,
-          language: c.language, timeZone: c.timeZone, userId: (c.email && links.get(c.email)) || null,
-        }),
-      );
-      return repo(m).save(rows);
+      const digits = (v: string | null | undefined) => (v ? v.replace(/[^0-9+]/g, '') : null);
+      const sameAs = (c: ContactInput) =>
+        existing.find((e) => c.email && e.email === c.email) ??
+        existing.find((e) => c.mobile && digits(e.mobile) === digits(c.mobile)) ??
+        existing.find((e) => e.name.trim().toLowerCase() === c.name.trim().toLowerCase());
+      const rows = contacts.map((c, position) => {
+        const before = sameAs(c);
+        return {
+          before,
+          row: repo(m).create({
+            infantId, programmeId, position,
+            name: c.name, relation: c.relation, mobile: c.mobile ?? null, email: c.email ?? null,
+            preferredChannel: c.preferredChannel, consentSms: c.consentSms, consentEmail: c.consentEmail,
+            language: c.language, timeZone: c.timeZone,
+            userId: (c.email && before?.email === c.email && before.userId) || null,
+            remindersEnabled: before?.remindersEnabled ?? true,
+            rowVersion: (before?.rowVersion ?? 0) + 1,
+          }),
+        };
+      });
+      const saved = await repo(m).save(rows.map((r) => r.row));
+      for (const [n, r] of rows.entries()) {
+        if (r.before) await m.query(`UPDATE reminders SET contact_id = $2 WHERE contact_id = $1 AND status = 'scheduled'`, [r.before.id, saved[n].id]);
+      }
+      if (existing.length) await repo(m).delete(existing.map((e) => e.id));
+      return saved;
     },
 
     /** Links contacts to family accounts of the same programme with the same e-mail, so those can sign in and see the baby. */

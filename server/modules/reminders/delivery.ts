@@ -16,9 +16,9 @@ const FAMILY_REMINDERS = new Set<MessageTemplate>(['visit-day-before', 'visit-mo
 
 /**
  * An attempt that started this recently may still be in flight in another worker (a job that looked stalled);
- * until then a second attempt stands back rather than risk sending twice. Longer than the senders' time-out.
+ * until then a second attempt stands back rather than risk sending twice. Must be longer than the senders' time-out.
  */
-export const IN_FLIGHT_GUARD_MS = 30_000;
+export const DEFAULT_IN_FLIGHT_GUARD_MS = 30_000;
 
 export type DeliveryOutcome =
   | 'sent' | 'recovered' | 'already-done' | 'not-yet' | 'held-quiet-hours' | 'skipped' | 'failed' | 'in-flight-elsewhere' | 'missing';
@@ -31,6 +31,7 @@ export interface DeliveryDeps {
   logger: Logger;
   /** Enqueues reminders made while delivering (the coordinator's alert on a failure). */
   enqueue(rows: Array<{ id: string; send_at: Date }>): Promise<void>;
+  inFlightGuardMs?: number;
 }
 
 interface Claim {
@@ -79,7 +80,7 @@ export function createDelivery(deps: DeliveryDeps) {
         return 'already-done';
       }
       if (new Date(r.send_at).getTime() > now.getTime() + 5_000) return 'not-yet';
-      if (ledger?.state === 'sending' && now.getTime() - new Date(ledger.started_at).getTime() < IN_FLIGHT_GUARD_MS) return 'in-flight-elsewhere';
+      if (ledger?.state === 'sending' && now.getTime() - new Date(ledger.started_at).getTime() < (deps.inFlightGuardMs ?? DEFAULT_IN_FLIGHT_GUARD_MS)) return 'in-flight-elsewhere';
 
       const skip = async (reason: string) => {
         await repos.reminders.update(id, { status: 'skipped', reason }, m);

@@ -81,6 +81,21 @@ describe('quiet hours (default 21:00–08:00, London in winter = UTC)', () => {
   });
 });
 
+describe('quiet hours ending inside the hour repeated as clocks go back', () => {
+  const toHalfPastOne = { quietStart: '00:00', quietEnd: '01:30' };
+  it('when the message is due in the first pass of the hour, then it goes at the first 01:30 (summer time)', () => {
+    // 01:10 BST = 00:10 UTC.
+    expect(iso(outsideQuietHours(at('2026-10-25T00:10:00Z'), 'Europe/London', toHalfPastOne))).toBe('2026-10-25T00:30:00.000Z');
+  });
+
+  it('when the message is due in the second pass, then it goes at the second 01:30, never before it was due', () => {
+    // 01:10 GMT = 01:10 UTC; the first 01:30 (00:30 UTC) is already 40 minutes gone.
+    expect(iso(outsideQuietHours(at('2026-10-25T01:10:00Z'), 'Europe/London', toHalfPastOne))).toBe('2026-10-25T01:30:00.000Z');
+    // Denver: 01:10 MST = 08:10 UTC → 01:30 MST = 08:30 UTC.
+    expect(iso(outsideQuietHours(at('2026-11-01T08:10:00Z'), 'America/Denver', toHalfPastOne))).toBe('2026-11-01T08:30:00.000Z');
+  });
+});
+
 describe('local wall-clock times across clock changes', () => {
   it('when the time was skipped as clocks went forward, then the first minute that exists is used', () => {
     expect(iso(instantAtOrAfter('2026-03-29', '01:30', 'Europe/London'))).toBe('2026-03-29T01:00:00.000Z');
