@@ -4,6 +4,7 @@ import { closeDeps, createDeps } from '../server/deps';
 import { seedPeople } from './seed-people';
 import { seedBabies } from './seed-babies';
 import { seedMonitoring } from './seed-monitoring';
+import { seedVisits } from './seed-visits';
 
 const env = loadEnv();
 if (env.NODE_ENV === 'production') {
@@ -15,7 +16,8 @@ try {
   const people = await seedPeople(deps);
   const babies = (await seedBabies(deps, 'larkmoor', 40)) + (await seedBabies(deps, 'saltmarsh', 12));
   const studies = await seedMonitoring(deps, 'larkmoor');
-  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies).`);
+  const visits = await seedVisits(deps, 'larkmoor');
+  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s)).`);
 } finally {
   await closeDeps(deps);
 }

@@ -89,7 +89,7 @@ describe('Family preferences', { timeout: 20_000 }, () => {
 
     await user.click(reminders);
     expect(reminders).toHaveAttribute('aria-checked', 'false');
-    expect(reminders).toHaveAccessibleDescription('We will not send you visit reminders. Your nurse can still call you.');
+    expect(reminders).toHaveAccessibleDescription('We will not send you visit reminders. We will still tell you if a visit is moved or cancelled, and your nurse can still call you.');
     await user.click(form.getByRole('button', { name: 'Save my choices' }));
 
     await waitFor(() => expect(puts).toHaveLength(1));

@@ -8,7 +8,7 @@ export function Component() {
     <>
       <PageHeader
         title="Programme settings"
-        intro="Saturation targets, the check schedule, stepping down and the equipment your programme uses. Each save is a new version; checks are planned again from it."
+        intro="Saturation targets, the check schedule, stepping down, the equipment and cylinders your programme uses, the numbers families call and when messages go out. Each save is a new version; checks are planned again from it."
       />
       <PolicyPage readOnly={!ability.can('update', 'Policy')} />
     </>

@@ -43,7 +43,7 @@ export const messageColumns = helper.columns([
   helper.accessor('providerId', {
     header: 'Provider id',
     enableSorting: false,
-    cell: (info) => <span className="break-all font-mono text-sm">{info.getValue() ?? '—'}</span>,
+    cell: (info) => <span className="inline-block max-w-36 break-all font-mono text-xs">{info.getValue() ?? '—'}</span>,
   }),
   helper.accessor('infant', {
     header: 'Baby',

@@ -2,7 +2,7 @@ import { useId } from 'react';
 import { useController, useFormContext } from 'react-hook-form';
 import type { PreferencesFormValues } from './preference-values';
 
-export const REMINDERS_OFF_WORDS = 'We will not send you visit reminders. Your nurse can still call you.';
+export const REMINDERS_OFF_WORDS = 'We will not send you visit reminders. We will still tell you if a visit is moved or cancelled, and your nurse can still call you.';
 export const REMINDERS_ON_WORDS = 'We will remind you the day before each visit and on the morning of the visit.';
 
 /** One large on/off control with its meaning in words beside it, so turning reminders off is easy and understood. */

@@ -1,0 +1,259 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { cylinderTime } from '../../shared/clinical/cylinder-time';
+import { addDays } from '../../shared/clinical/dates';
+import {
+  OXYGEN_SAFETY_POINTS, PERIOD_LABELS, WARNING_SIGNS, emergencyCallText, flowInWords, flowText,
+} from '../../shared/family/care-text';
+import { JOURNEY_PERIODS } from '../../shared/schemas/journeys';
+import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
+
+const base = inject('baseUrl');
+const require = createRequire(import.meta.url);
+const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
+
+let browser: Browser;
+let page: Page;
+
+beforeAll(async () => {
+  browser = await openBrowser({ width: 390, height: 844 });
+  page = browser.page;
+});
+afterAll(() => browser?.close());
+
+const signIn = (email: string) => signInAndLand(browser, base, email);
+const api = (method: string, url: string, body?: unknown) => pageApi(page)(method, url, body);
+
+// Fictional programme numbers (the UK's drama range, never a real line) so the family page has numbers to show.
+const PHONES = [
+  { label: 'Home oxygen nurses', number: '+44 (0)1632 960 123', when: 'Weekdays 08:00–18:00, for questions about the oxygen or a visit' },
+  { label: 'Children’s ward, out of hours', number: '01632 960 456', when: 'Evenings, nights and weekends' },
+];
+const DESTINATION = 'Port Callowmere';
+const HOURS_AWAY = 9;
+
+interface Baby { id: string; name: string }
+interface Plan { approvedFlowLpm: number; periods: Record<'awake' | 'asleep' | 'feeding', number> | null }
+let baby: Baby;
+let plan: Plan;
+let emergencyNumber = '';
+let journeyId = '';
+
+/** The programme's calendar day, as the server checks journey dates against it. */
+function todayIn(timeZone: string): string {
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+}
+
+/** Written here on its own, not borrowed from the page's code: whole minutes, rounded down, as a family reads them. */
+function hoursAndMinutes(minutes: number): string {
+  const whole = Math.floor(minutes + 1e-9);
+  const [h, m] = [Math.floor(whole / 60), whole % 60];
+  const unit = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+  if (h === 0) return unit(m, 'minute');
+  return m === 0 ? unit(h, 'hour') : `${unit(h, 'hour')} and ${unit(m, 'minute')}`;
+}
+
+/** The distinct flows the approved plan uses, highest first; off parts of the day use no cylinder. */
+function flowsInUse(p: Plan): number[] {
+  const flows = p.periods ? JOURNEY_PERIODS.map((k) => p.periods![k]) : [p.approvedFlowLpm];
+  return [...new Set(flows.filter((f) => f > 0))].sort((a, b) => b - a);
+}
+
+const spaced = (text: string) => text.replace(/\s+/g, ' ').trim();
+
+interface AxeViolation { id: string; impact: string | null; targets: string[] }
+
+async function seriousViolations(): Promise<AxeViolation[]> {
+  await page.evaluate(axeSource);
+  const found = await page.evaluate(async () => {
+    const result = await (window as unknown as { axe: { run: () => Promise<{ violations: Array<{ id: string; impact: string | null; nodes: Array<{ target: unknown[] }> }> }> } }).axe.run();
+    return result.violations.map((v) => ({ id: v.id, impact: v.impact, targets: v.nodes.map((n) => n.target.map(String).join(' ')) }));
+  });
+  return found.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+}
+
+const report = (violations: AxeViolation[]) => violations.map((v) => `${v.id} (${v.impact}): ${v.targets.join(', ')}`).join('\n');
+
+describe('a family on a phone: plan, cylinder time, a flight check, the printed plan', () => {
+  it('when the admin has entered the programme\'s numbers, then the family reads the approved plan, who to call, the warning signs and oxygen safety', async () => {
+    await signIn('admin@larkmoor.example');
+    const policy = await api('GET', '/api/policy');
+    const settings = { ...policy.body.settings, contacts: { ...policy.body.settings.contacts, phones: PHONES } };
+    const saved = await api('PUT', '/api/policy', { baseVersion: policy.body.version, settings });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    emergencyNumber = settings.contacts.emergencyNumber;
+
+    await signIn('family@larkmoor.example');
+    await page.waitForURL(`${base}/family`);
+    const babies = await api('GET', '/api/infants');
+    expect(babies.body.items).toHaveLength(1);
+    baby = babies.body.items[0];
+    const versions = await api('GET', `/api/infants/${baby.id}/prescriptions`);
+    plan = versions.body.items.find((rx: { status: string }) => rx.status === 'active');
+    expect(plan?.approvedFlowLpm, 'the demo family\'s baby has an approved plan').toBeGreaterThan(0);
+
+    await page.getByRole('heading', { name: 'Our plan', level: 1 }).waitFor();
+    await page.getByText(`For ${baby.name}`).waitFor();
+    const planCard = page.locator('section', { has: page.getByRole('heading', { name: 'Home oxygen plan' }) });
+    for (const flow of flowsInUse(plan)) {
+      await planCard.getByText(`${flow} ${flow === 1 ? 'litre' : 'litres'} per minute`).first().waitFor();
+    }
+    await page.getByRole('complementary', { name: 'Keep your baby safe' }).waitFor();
+
+    const calls = page.getByRole('list', { name: 'Numbers to call' });
+    await calls.waitFor();
+    for (const phone of PHONES) {
+      const link = calls.getByRole('link', { name: `Call ${phone.label} on ${phone.number}` });
+      await link.waitFor();
+      expect(await link.getAttribute('href')).toMatch(/^tel:\+?[0-9]+$/);
+      await calls.getByText(phone.when).waitFor();
+    }
+    await page.getByText(emergencyCallText(emergencyNumber)).waitFor();
+    expect(await page.getByRole('link', { name: `Call the emergency number, ${emergencyNumber}` }).getAttribute('href')).toBe(`tel:${emergencyNumber}`);
+
+    const signs = page.getByRole('list', { name: 'Warning signs' }).getByRole('listitem');
+    expect(await signs.allTextContents()).toEqual([...WARNING_SIGNS]);
+    const safety = page.getByRole('list', { name: 'Oxygen safety at home' }).getByRole('listitem');
+    expect(await safety.allTextContents()).toEqual([...OXYGEN_SAFETY_POINTS]);
+    await screenshot(page, 'family-journey-1-plan-phone');
+  });
+
+  it('when the family reads a cylinder gauge, then the time shown is what the shared cylinder-time method gives', async () => {
+    // Anchor for the method itself: E cylinder factor 0.28 L/psi, 2000 psi, residual 200 psi, 2 L/min → 252 min
+    // (clinical-methods.md §7 check value, formula and factor from the Virginia EMS cylinder guidance sheet).
+    expect(cylinderTime({ cylinder: { contentLitres: 0.28 * 2200, fullPressure: 2200, residualPressure: 200 }, gauge: 2000, flowLpm: 2, reservePercent: 0 }).minutesTotal).toBeCloseTo(252, 9);
+
+    await page.getByRole('link', { name: 'Work out cylinder time' }).click();
+    await page.waitForURL(/\/family\/cylinder/);
+    const supply = (await api('GET', '/api/policy')).body.settings.supply as {
+      cylinders: Array<{ id: string; name: string; contentLitres: number; unit: string; fullPressure: number; residualPressure: number }>;
+      reservePercent: number;
+    };
+    const cylinder = supply.cylinders.find((c) => c.id === 'large-home') ?? supply.cylinders[0];
+    expect(cylinder, 'the programme lists cylinders').toBeTruthy();
+    const gauge = Math.round(cylinder.fullPressure * 0.7);
+
+    await page.getByLabel('Which cylinder?').selectOption(cylinder.id);
+    await page.getByLabel(/What does the gauge read\?/).fill(String(gauge));
+    await page.getByRole('button', { name: 'Work out how long it lasts' }).click();
+    const result = page.getByRole('list', { name: 'How long it lasts' });
+    await result.waitFor();
+    for (const flow of flowsInUse(plan)) {
+      const time = cylinderTime({ cylinder, gauge, flowLpm: flow, reservePercent: supply.reservePercent });
+      const item = result.getByRole('listitem').filter({ hasText: `At ${flow} ${flow === 1 ? 'litre' : 'litres'} per minute` });
+      await expect.poll(async () => spaced((await item.textContent()) ?? '')).toContain(
+        `Lasts about ${hoursAndMinutes(time.minutesTotal!)}, until the gauge reads ${cylinder.residualPressure} ${cylinder.unit}.`,
+      );
+      expect(spaced((await item.textContent()) ?? '')).toContain(`Change it or plan a refill before ${hoursAndMinutes(time.minutesBeforeReserve!)} from now`);
+    }
+    await screenshot(page, 'family-journey-2-cylinder-phone');
+  });
+
+  it('when the family asks for a flight check, then the page says it waits for the consultant and shows no numbers yet', async () => {
+    await page.getByRole('link', { name: 'Back to our plan' }).click();
+    await page.getByRole('link', { name: 'Ask for a trip check' }).click();
+    await page.waitForURL(/\/family\/journey/);
+    const session = (await api('GET', '/api/session')).body;
+    const today = todayIn(session.user.programmeTimeZone);
+    await page.getByLabel('By air').check();
+    await page.getByLabel('Where are you going?').fill(DESTINATION);
+    await page.getByLabel('Leaving on').fill(addDays(today, 2));
+    await page.getByLabel('Back home on').fill(addDays(today, 6));
+    await page.getByLabel('Hours away from your home oxygen supply').fill(String(HOURS_AWAY));
+    await screenshot(page, 'family-journey-3-flight-form-phone');
+    await page.getByRole('button', { name: 'Send to the consultant' }).click();
+    await page.getByRole('heading', { name: 'Sent: waiting for the consultant' }).waitFor();
+    await page.getByText(`The trip to ${DESTINATION}`, { exact: false }).waitFor();
+    await screenshot(page, 'family-journey-3-sent-phone');
+
+    const journeys = await api('GET', `/api/infants/${baby.id}/journeys`);
+    const asked = journeys.body.items.find((j: { request: { destinationName: string } }) => j.request.destinationName === DESTINATION);
+    expect(asked).toMatchObject({ status: 'waiting', plan: null, request: { mode: 'flight', departOn: addDays(today, 2), returnOn: addDays(today, 6), hoursAway: HOURS_AWAY } });
+    journeyId = asked.id;
+
+    await page.getByRole('link', { name: 'Back to our plan' }).last().click();
+    await page.getByRole('list', { name: 'Your trips' }).getByText(`Your trip to ${DESTINATION}`, { exact: false }).waitFor();
+    expect(await page.getByRole('list', { name: 'Your trips' }).textContent()).toContain('waiting for the consultant to check it');
+  });
+
+  it('when the consultant approves the flight check from the sign-off page, then it leaves the waiting list', async () => {
+    await signIn('consultant@larkmoor.example');
+    await page.goto(`${base}/sign-off`);
+    const waiting = page.locator('section', { has: page.getByRole('heading', { name: 'Journey checks waiting' }) });
+    await waiting.getByRole('link', { name: `Review the trip to ${DESTINATION} for ${baby.name}` }).click();
+    await page.waitForURL(`${base}/journeys/${journeyId}`);
+    await page.getByText('PROPOSAL — not approved', { exact: false }).waitFor();
+    await page.getByLabel('Approve the journey plan').check();
+    await screenshot(page, 'family-journey-4-review-phone');
+    await page.getByRole('button', { name: 'Approve', exact: true }).click();
+    await page.waitForURL(`${base}/sign-off`);
+    const decided = await api('GET', `/api/journeys/${journeyId}`);
+    expect(decided.body.journey.status).toBe('approved');
+  });
+
+  it('when the family opens their page again, then the trip plan shows the flow there and the cylinders to take', async () => {
+    await signIn('family@larkmoor.example');
+    await page.waitForURL(`${base}/family`);
+    const { journey } = (await api('GET', `/api/journeys/${journeyId}`)).body;
+    const trip = page.getByRole('region', { name: `Your trip to ${DESTINATION}` });
+    await trip.waitFor();
+    const flows = (journey.plan.periods as Array<{ flowLpm: number | null }>).map((p) => p.flowLpm);
+    expect(flows.every((f) => f !== null), 'a flight at 8,000 ft stays within the cannula for the demo baby').toBe(true);
+    for (const flow of new Set(flows)) await trip.getByText(`${flow} ${flow === 1 ? 'litre' : 'litres'} per minute`, { exact: false }).first().waitFor();
+    const take = trip.getByRole('list', { name: 'Cylinders to take' }).getByRole('listitem');
+    const expected = (journey.plan.cylinders as Array<{ name: string; count: number | null }>).filter((c) => c.count !== null && c.count > 0);
+    expect(expected.length).toBeGreaterThan(0);
+    expect((await take.allTextContents()).map(spaced)).toEqual(expected.map((c) => `${c.count} × ${c.name}`));
+    await screenshot(page, 'family-journey-5-trip-plan-phone');
+  });
+
+  it('when the family downloads the care plan, then the PDF has a safe name, the approved flow as printed and the trip', async () => {
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('link', { name: 'Download care plan (PDF)' }).click(),
+    ]);
+    const name = download.suggestedFilename();
+    expect(name).toMatch(/^[A-Za-z0-9][A-Za-z0-9._-]*\.pdf$/);
+    const file = path.join(mkdtempSync(path.join(tmpdir(), 'nestflow-care-plan-')), name);
+    await download.saveAs(file);
+    expect(readFileSync(file).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    const text = spaced(execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }));
+    const line = (flow: number) => (flow === 0 ? 'off (no oxygen)' : `${flowText(flow)}: ${flowInWords(flow)}`);
+    if (plan.periods === null) expect(text).toContain(`Day and night: ${line(plan.approvedFlowLpm)}`);
+    else for (const p of JOURNEY_PERIODS) expect(text).toContain(`${PERIOD_LABELS[p]}: ${line(plan.periods[p])}`);
+    expect(text).toContain(`Approved journey: ${DESTINATION}`);
+    for (const phone of PHONES) expect(text).toContain(phone.number);
+  });
+
+  it('when axe checks each family page, then none has a serious or critical violation', async () => {
+    const pages: Array<[string, () => Promise<void>]> = [
+      ['/family', () => page.getByRole('region', { name: `Your trip to ${DESTINATION}` }).waitFor()],
+      ['/family/cylinder', async () => {
+        await page.getByLabel('Which cylinder?').selectOption({ index: 1 });
+        await page.getByLabel(/What does the gauge read\?/).fill('50');
+        await page.getByRole('button', { name: 'Work out how long it lasts' }).click();
+        await page.getByRole('list', { name: 'How long it lasts' }).waitFor();
+      }],
+      ['/family/journey', async () => {
+        // With the form's own messages showing, so the error state is checked too.
+        await page.getByRole('button', { name: 'Send to the consultant' }).click();
+        await page.getByText('Leaving on').waitFor();
+      }],
+      ['/family/preferences', () => page.getByRole('heading', { name: 'Contact details and reminders', level: 1 }).waitFor()],
+    ];
+    const failures: string[] = [];
+    for (const [url, ready] of pages) {
+      await page.goto(`${base}${url}`);
+      await ready();
+      const serious = await seriousViolations();
+      if (serious.length) failures.push(`${url}\n${report(serious)}`);
+      await screenshot(page, `family-journey-7-axe${url.replaceAll('/', '-')}`);
+    }
+    expect(failures, failures.join('\n\n')).toEqual([]);
+  });
+});
