@@ -13,8 +13,10 @@ export async function seedVisits(deps: AppDeps, programmeSlug: string): Promise<
   const already = await ds.query(`SELECT 1 FROM visits v JOIN programmes p ON p.id = v.programme_id WHERE p.slug = $1 LIMIT 1`, [programmeSlug]);
   if (already.length) return 0;
   const babies: Array<{ id: string; nurse_id: string }> = await ds.query(
-    `SELECT i.id, i.nurse_id FROM infants i JOIN programmes pr ON pr.id = i.programme_id
-      WHERE pr.slug = $1 AND i.status IN ('on_oxygen', 'stepping_down') ORDER BY i.family_name, i.given_name LIMIT 5`,
+    // The demo nurse's own babies first, so their round shows visits.
+    `SELECT i.id, i.nurse_id FROM infants i JOIN programmes pr ON pr.id = i.programme_id JOIN users u ON u.id = i.nurse_id
+      WHERE pr.slug = $1 AND i.status IN ('on_oxygen', 'stepping_down')
+      ORDER BY (u.email LIKE 'nurse@%') DESC, i.family_name, i.given_name LIMIT 5`,
     [programmeSlug],
   );
   const [coordinator] = await ds.query(
@@ -25,8 +27,8 @@ export async function seedVisits(deps: AppDeps, programmeSlug: string): Promise<
   const actor = { id: user.id, programmeId: user.programmeId, ip: null, role: 'coordinator', timeZone: user.programmeTimeZone };
   const visits = createVisitsService(ds, repos, deps.jobs);
   const now = localParts(new Date(), user.programmeTimeZone);
-  // Today's visit at the next whole hour that is still in the working day, else tomorrow morning.
-  const nextHour = Number(now.time.slice(0, 2)) + 1;
+  // Today's visit at the next whole hour of the working day (09:00–18:00), else tomorrow morning.
+  const nextHour = Math.max(9, Number(now.time.slice(0, 2)) + 1);
   const plan = [
     nextHour <= 18 ? { date: now.date, time: `${String(nextHour).padStart(2, '0')}:00` } : { date: addDays(now.date, 1), time: '09:30' },
     { date: addDays(now.date, 1), time: '11:00' },
