@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync } from 'node:fs';
@@ -25,6 +25,12 @@ beforeAll(async () => {
   page = browser.page;
 });
 afterAll(() => browser?.close());
+// A failed step leaves a picture of what the family saw, beside the others.
+beforeEach(({ task, onTestFailed }) => {
+  onTestFailed(async () => {
+    await screenshot(page, `family-journey-failed-${task.name.slice(5, 40).replace(/[^a-z0-9]+/gi, '-')}`).catch(() => undefined);
+  });
+});
 
 const signIn = (email: string) => signInAndLand(browser, base, email);
 const api = (method: string, url: string, body?: unknown) => pageApi(page)(method, url, body);
