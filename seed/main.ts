@@ -5,6 +5,8 @@ import { seedPeople } from './seed-people';
 import { seedBabies } from './seed-babies';
 import { seedMonitoring } from './seed-monitoring';
 import { seedVisits } from './seed-visits';
+import { seedJourneys } from './seed-journeys';
+import { seedPolicies } from './seed-policy';
 
 const env = loadEnv();
 if (env.NODE_ENV === 'production') {
@@ -14,10 +16,12 @@ if (env.NODE_ENV === 'production') {
 const deps = await createDeps(env, 'seed');
 try {
   const people = await seedPeople(deps);
+  await seedPolicies(deps);
   const babies = (await seedBabies(deps, 'larkmoor', 40)) + (await seedBabies(deps, 'saltmarsh', 12));
   const studies = await seedMonitoring(deps, 'larkmoor');
   const visits = await seedVisits(deps, 'larkmoor');
-  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s)).`);
+  const journeys = await seedJourneys(deps, 'larkmoor');
+  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s), ${journeys} journey check(s)).`);
 } finally {
   await closeDeps(deps);
 }

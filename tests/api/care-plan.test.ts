@@ -73,7 +73,8 @@ describe('GET /api/infants/:id/care-plan.pdf', () => {
     const approved = (await post(consultant, `/api/journeys/${j.id}/decision`, { decision: 'approve', rowVersion: 1 }).expect(200)).body.journey;
     const { text, pages } = await download(family, infant.id);
     expect(text).toContain('Approved journey: Tallow Ridge visit');
-    expect(text).toContain(`Awake there: ${approved.plan.periods[0].flowLpm} L/min`);
+    expect(text).toContain(`Awake on the flight: ${approved.plan.periods[0].flowLpm} L/min`);
+    expect(text).toContain("Only for the trip (on the flight); at home keep to your usual setting above.");
     expect(text).toMatch(/hypoxic challenge test/);
     expect(pages).toBeLessThanOrEqual(2);
   });

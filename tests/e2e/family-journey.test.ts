@@ -40,7 +40,8 @@ const PHONES = [
   { label: 'Home oxygen nurses', number: '+44 (0)1632 960 123', when: 'Weekdays 08:00–18:00, for questions about the oxygen or a visit' },
   { label: 'Children’s ward, out of hours', number: '01632 960 456', when: 'Evenings, nights and weekends' },
 ];
-const DESTINATION = 'Port Callowmere';
+// Its own name each run, so a re-run against the same database never finds an earlier trip.
+const DESTINATION = `Port Callowmere ${Date.now().toString(36).slice(-4).toUpperCase()}`;
 const HOURS_AWAY = 9;
 
 interface Baby { id: string; name: string }
@@ -198,6 +199,8 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     await screenshot(page, 'family-journey-4-review-phone');
     await page.getByRole('button', { name: 'Approve', exact: true }).click();
     await page.waitForURL(`${base}/sign-off`);
+    await page.getByRole('heading', { name: 'Journey checks waiting' }).waitFor();
+    await expect.poll(() => waiting.getByRole('link', { name: `Review the trip to ${DESTINATION} for ${baby.name}` }).count()).toBe(0);
     const decided = await api('GET', `/api/journeys/${journeyId}`);
     expect(decided.body.journey.status).toBe('approved');
   });
@@ -208,6 +211,10 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     const { journey } = (await api('GET', `/api/journeys/${journeyId}`)).body;
     const trip = page.getByRole('region', { name: `Your trip to ${DESTINATION}` });
     await trip.waitFor();
+    // A flight with no higher destination is planned for the cabin only; the card must not read as a new home setting.
+    expect(journey.plan.destination.kind).toBe('aircraft-cabin');
+    await trip.getByText('On the flight:', { exact: true }).waitFor();
+    await trip.getByText('Only for the trip: at home, keep to your usual setting.').waitFor();
     const flows = (journey.plan.periods as Array<{ flowLpm: number | null }>).map((p) => p.flowLpm);
     expect(flows.every((f) => f !== null), 'a flight at 8,000 ft stays within the cannula for the demo baby').toBe(true);
     for (const flow of new Set(flows)) await trip.getByText(`${flow} ${flow === 1 ? 'litre' : 'litres'} per minute`, { exact: false }).first().waitFor();
@@ -232,6 +239,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     const line = (flow: number) => (flow === 0 ? 'off (no oxygen)' : `${flowText(flow)}: ${flowInWords(flow)}`);
     if (plan.periods === null) expect(text).toContain(`Day and night: ${line(plan.approvedFlowLpm)}`);
     else for (const p of JOURNEY_PERIODS) expect(text).toContain(`${PERIOD_LABELS[p]}: ${line(plan.periods[p])}`);
+    // The plan prints the approved trip leaving soonest; ours leaves in 2 days, before any demo trip of the family's.
     expect(text).toContain(`Approved journey: ${DESTINATION}`);
     for (const phone of PHONES) expect(text).toContain(phone.number);
   });

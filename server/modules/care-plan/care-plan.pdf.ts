@@ -78,8 +78,11 @@ function journeySection(doc: PDFKit.PDFDocument, w: ReturnType<typeof writer>, j
   if (doc.y > doc.page.height - doc.page.margins.bottom - 160) doc.addPage();
   w.heading(`Approved journey: ${j.destinationName}`);
   w.para(`${JOURNEY_MODE_LABELS[j.mode]}, ${j.departOn} to ${j.returnOn}, ${j.hoursAway} hour(s) away from the home supply.`);
+  // Say where these flows apply, so nobody sets the trip's flow at home.
+  const where = j.mode === 'flight' ? 'on the flight' : `while at ${j.destinationName}`;
+  w.para(`Only for the trip (${where}); at home keep to your usual setting above.`);
   for (const p of j.periods) {
-    w.para(`${PERIOD_LABELS[p.period]} there: ${p.flowLpm === null ? 'ask your team (more than the cannula can give)' : flowLine(p.flowLpm)}`, true);
+    w.para(`${PERIOD_LABELS[p.period]} ${where}: ${p.flowLpm === null ? 'ask your team (more than the cannula can give)' : flowLine(p.flowLpm)}`, true);
   }
   const take = j.cylinders.filter((c) => c.count !== null).map((c) => `${c.name}: take ${c.count}`);
   if (take.length) w.para(`Cylinders (any one of these): ${take.join('; ')}.`);

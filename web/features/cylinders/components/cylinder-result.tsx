@@ -1,3 +1,4 @@
+import { useEffect, useRef } from 'react';
 import { cylinderTime } from '../../../../shared/clinical/cylinder-time';
 import type { CylinderType } from '../../../../shared/schemas/policy';
 import { flowWords } from '../../../components/clinical/setting-text';
@@ -45,8 +46,13 @@ function FlowResult({ cylinder, gauge, flow, reservePercent, now }: Omit<Cylinde
 
 /** The time left for each flow the approved setting uses; durations are rounded down, never up. */
 export function CylinderResult({ cylinder, gauge, flows, reservePercent, now }: CylinderResultProps) {
+  const section = useRef<HTMLElement>(null);
+  // On a phone the answer lands below the button, out of sight: bring each new answer into view.
+  useEffect(() => {
+    section.current?.scrollIntoView?.({ block: 'start' });
+  }, [now]);
   return (
-    <section aria-labelledby="cylinder-result-heading" aria-live="polite" className="flex flex-col gap-3">
+    <section ref={section} aria-labelledby="cylinder-result-heading" aria-live="polite" className="flex scroll-mt-4 flex-col gap-3">
       <h2 id="cylinder-result-heading" className="text-2xl font-bold text-ink-900">
         {cylinder.name} at {gauge} {cylinder.unit}
       </h2>

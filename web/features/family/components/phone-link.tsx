@@ -22,10 +22,11 @@ export function PhoneLink({ number, callWho, tone = 'brand' }: PhoneLinkProps) {
     <a
       href={telHref(number)}
       aria-label={`${callWho} ${number}`}
-      className={`inline-flex min-h-13 items-center justify-center gap-2 rounded-xl px-5 text-2xl font-bold tabular-nums ${colours}`}
+      className={`inline-flex min-h-13 max-w-full items-center justify-center gap-2 rounded-xl px-3 text-[clamp(1.0625rem,5.2vw,1.5rem)] font-bold tabular-nums sm:px-5 ${colours}`}
     >
       <span aria-hidden="true">☎</span>
-      {number}
+      {/* One line, sized to the screen: a number broken across lines is easy to misread or misdial. */}
+      <span className="whitespace-nowrap">{number}</span>
     </a>
   );
 }

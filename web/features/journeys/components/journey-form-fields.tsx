@@ -71,13 +71,26 @@ function PlaceFields() {
   );
 }
 
+// A date box left empty fails the shared format rule; its "like 2026-12-03" example does not match the picker the
+// phone shows, so an empty box asks for the day instead.
+const dayError = (value: unknown, message: string | undefined, ask: string) => (message && !value ? ask : message);
+
 function WhenFields() {
   const { register, formState: { errors } } = useFormContext<CreateJourneyFormValues>();
+  const [departOn, returnOn] = useWatch<CreateJourneyFormValues, ['departOn', 'returnOn']>({ name: ['departOn', 'returnOn'] });
   return (
     <>
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Leaving on" type="date" className={big} error={errors.departOn?.message} {...register('departOn')} />
-        <TextField label="Back home on" type="date" className={big} error={errors.returnOn?.message} {...register('returnOn')} />
+        <TextField
+          label="Leaving on" type="date" className={big}
+          error={dayError(departOn, errors.departOn?.message, 'Choose the day you leave')}
+          {...register('departOn')}
+        />
+        <TextField
+          label="Back home on" type="date" className={big}
+          error={dayError(returnOn, errors.returnOn?.message, 'Choose the day you come home')}
+          {...register('returnOn')}
+        />
       </div>
       <TextField
         label="Hours away from your home oxygen supply"

@@ -57,6 +57,15 @@ function CylindersToTake({ plan }: { plan: JourneyPlan }) {
   );
 }
 
+/**
+ * The card shows from a week before leaving, under the home plan: say when its setting applies, so no one moves
+ * the flowmeter to the trip's setting at home.
+ */
+function whenItApplies(request: Journey['request'], plan: JourneyPlan): string {
+  if (request.mode === 'road') return `While you are in ${request.destinationName}:`;
+  return plan.destination.kind === 'aircraft-cabin' ? 'On the flight:' : `On the flight and while you are in ${request.destinationName}:`;
+}
+
 /** An approved trip, for the family: the flow there and what to take, in the same plain words as the home plan. */
 export function TripCard({ journey }: { journey: Journey & { plan: JourneyPlan } }) {
   const { request, plan } = journey;
@@ -71,7 +80,11 @@ export function TripCard({ journey }: { journey: Journey & { plan: JourneyPlan }
           {journey.decision ? ` (${journey.decision.by.name})` : ''}.
         </p>
       </div>
-      <FlowThere plan={plan} />
+      <div className="flex flex-col gap-2">
+        <p className="text-xl font-semibold text-ink-900">{whenItApplies(request, plan)}</p>
+        <FlowThere plan={plan} />
+        <p className="text-lg text-ink-700">Only for the trip: at home, keep to your usual setting.</p>
+      </div>
       <CylindersToTake plan={plan} />
       <aside aria-label={`Before you go to ${request.destinationName}`} className="rounded-xl border border-straw-300 bg-straw-50 p-4 text-lg leading-relaxed text-straw-900">
         <h3 className="mb-2 text-xl font-bold">Before you go</h3>

@@ -1,0 +1,25 @@
+import { DEFAULT_POLICY_SETTINGS } from '../shared/schemas/policy';
+import type { AppDeps } from '../server/deps';
+
+/**
+ * The demo programmes' numbers for families (fictional: the 01632 960xxx range is set aside for drama), saved as
+ * a first policy version the way an admin would; a programme that already has a version is left alone.
+ */
+export async function seedPolicies(deps: AppDeps): Promise<number> {
+  const demo: Record<string, Array<{ label: string; number: string; when: string }>> = {
+    larkmoor: [
+      { label: 'Home oxygen nurses', number: '+44 1632 960 214', when: 'Weekdays 08:00–18:00, for questions about the oxygen or the plan' },
+      { label: 'Children’s ward (out of hours)', number: '+44 1632 960 877', when: 'Evenings, nights and weekends' },
+      { label: 'Oxygen supplier', number: '+44 1632 960 555', when: 'Cylinder deliveries and equipment faults, any time' },
+    ],
+    saltmarsh: [{ label: 'Outreach team', number: '+44 1632 960 390', when: 'Weekdays 09:00–17:00' }],
+  };
+  let n = 0;
+  for (const [slug, phones] of Object.entries(demo)) {
+    const programme = await deps.repos.programmes.findBySlug(slug);
+    if (!programme || (await deps.repos.policies.current(programme.id)).version > 0) continue;
+    await deps.repos.policies.insertVersion(programme.id, 1, { ...DEFAULT_POLICY_SETTINGS, contacts: { phones, emergencyNumber: '999' } }, null);
+    n++;
+  }
+  return n;
+}
