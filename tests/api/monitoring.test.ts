@@ -221,7 +221,13 @@ describe('programme policy', () => {
     expect(bad.body.error.details['settings.flowmeterStepsLpm']).toBeDefined();
     const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
     await coord.put('/api/policy').set('X-CSRF-Token', coord.csrf).send({ baseVersion: 0, settings: current.settings }).expect(403);
+    // A family reads its programme's numbers and cylinder list from the policy, but can never change it.
     const family = await signedInAgent(ctx.app, clinic.people.family.email);
-    await family.get('/api/policy').expect(403);
+    const read = await family.get('/api/policy').expect(200);
+    expect(read.body.settings.contacts.emergencyNumber).toBe(current.settings.contacts.emergencyNumber);
+    await family.put('/api/policy').set('X-CSRF-Token', family.csrf).send({ baseVersion: current.version, settings: current.settings }).expect(403);
+    const other = await makeClinic(ctx.deps);
+    const stranger = await signedInAgent(ctx.app, other.people.family.email);
+    expect((await stranger.get('/api/policy').expect(200)).body.programmeId).toBe(other.programme.id);
   });
 });
