@@ -79,7 +79,7 @@ function journeySection(doc: PDFKit.PDFDocument, w: ReturnType<typeof writer>, j
   w.heading(`Approved journey: ${j.destinationName}`);
   w.para(`${JOURNEY_MODE_LABELS[j.mode]}, ${j.departOn} to ${j.returnOn}, ${j.hoursAway} hour(s) away from the home supply.`);
   // Say where these flows apply, so nobody sets the trip's flow at home.
-  const where = j.mode === 'flight' ? 'on the flight' : `while at ${j.destinationName}`;
+  const where = j.mode === 'flight' ? 'on the flight' : `while away at ${j.destinationName}`;
   w.para(`Only for the trip (${where}); at home keep to your usual setting above.`);
   for (const p of j.periods) {
     w.para(`${PERIOD_LABELS[p.period]} ${where}: ${p.flowLpm === null ? 'ask your team (more than the cannula can give)' : flowLine(p.flowLpm)}`, true);

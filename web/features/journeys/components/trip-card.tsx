@@ -62,7 +62,7 @@ function CylindersToTake({ plan }: { plan: JourneyPlan }) {
  * the flowmeter to the trip's setting at home.
  */
 function whenItApplies(request: Journey['request'], plan: JourneyPlan): string {
-  if (request.mode === 'road') return `While you are in ${request.destinationName}:`;
+  if (request.mode === 'road') return `While you are away at ${request.destinationName}:`;
   return plan.destination.kind === 'aircraft-cabin' ? 'On the flight:' : `On the flight and while you are in ${request.destinationName}:`;
 }
 
