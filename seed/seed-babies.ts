@@ -10,6 +10,7 @@ import { computeProposal } from '../server/modules/prescriptions/compute-proposa
 import { decidePrescription } from '../server/modules/prescriptions/decide';
 import { replan } from '../server/modules/schedule/planning';
 import { DEMO_SITES, SALTMARSH_FAMILIES, demoBabies, type DemoBaby } from './demo-babies';
+import { DEMO_PEOPLE } from './demo-people';
 
 type Slug = keyof typeof DEMO_SITES;
 const STREETS = ['Mill Lane', 'Quarry Row', 'Church Street', 'Heather Close', 'Station Road', 'Orchard Way', 'Kiln Lane'];
@@ -32,7 +33,8 @@ function enrolment(b: DemoBaby, siteId: string, nurseId: string, consultantId: s
     home: { address: `${3 + (Number(b.key.slice(-3)) * 7) % 90} ${STREETS[Number(b.key.slice(-3)) % STREETS.length]}, ${b.town.name}`, location: { elevationM: b.town.elevationM }, source: b.homeSource, o2Percent: b.homeSource === 'cylinder' ? 100 : 95 },
     care: { nurseId, consultantId },
     contacts: [{
-      name: `${b.sex === 'female' ? 'Sam' : 'Alex'} ${b.familyName}`, relation: 'Parent', mobile: `+44 7700 900${String(100 + Number(b.key.slice(-3))).slice(-3)}`,
+      // The baby with a family account is that person's baby: the contact carries their name.
+      name: DEMO_PEOPLE.find((p) => p.email === familyEmail)?.name ?? `${b.sex === 'female' ? 'Sam' : 'Alex'} ${b.familyName}`, relation: 'Parent', mobile: `+44 7700 900${String(100 + Number(b.key.slice(-3))).slice(-3)}`,
       email: familyEmail ?? `${b.familyName.toLowerCase()}.family@example.org`, preferredChannel: Number(b.key.slice(-1)) % 2 ? 'sms' : 'email',
       consentSms: true, consentEmail: true, language: 'en', timeZone: 'Europe/London',
     }],
