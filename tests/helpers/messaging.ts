@@ -36,7 +36,8 @@ export async function startMessaging(deps: AppDeps, opts: { attempts?: number; b
   const prefix = env.QUEUE_PREFIX;
   const queue = new Queue(QUEUES.messages, { connection, prefix });
   const jobOptions = { attempts: opts.attempts ?? 4, backoffMs: opts.backoffMs ?? 50 };
-  const delivery = createDelivery({ ds: deps.ds, repos: deps.repos, mail: mailSender, sms: smsSender, logger: deps.logger, enqueue: (rows) => addReminderJobs(queue, rows, jobOptions) });
+  const delivery = createDelivery({ ds: deps.ds, repos: deps.repos, mail: mailSender, sms: smsSender, logger: deps.logger, enqueue: (rows) => addReminderJobs(queue, rows, jobOptions),
+    inFlightGuardMs: 3 * (opts.timeoutMs ?? 1000) });
   const worker = new Worker(QUEUES.messages, (job) => deliverReminderProcessor(job, delivery), { connection, prefix, concurrency: 4 });
   await worker.waitUntilReady();
   return {

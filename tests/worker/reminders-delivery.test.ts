@@ -113,6 +113,26 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(1);
   });
 
+  it('when the SMS provider never answers, then the attempt counts as unknown, the provider is asked, and the message is sent once', async () => {
+    const { clinic, coord, infant, contact } = await family();
+    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const [first] = await rowsOf(visit.id);
+    await fetch(`http://127.0.0.1:${msg.sms.port}/fail`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ mode: 'timeout', count: 1 }) });
+    await makeDue([first.id]);
+    const timedOut = await waitFor('the time-out to be recorded', async () => (await rowsOf(visit.id)).find((r) => r.id === first.id && r.last_error));
+    expect(timedOut.last_error).toMatch(/time/i);
+    const [ledger] = await ctx.deps.ds.query(`SELECT state FROM deliveries WHERE reminder_id = $1`, [first.id]);
+    expect(ledger.state).toBe('sending');
+    // The reconciler (here run by hand, as its scheduler would) picks it up again once the attempt is surely over.
+    const done = await waitFor('the retry after the time-out', async () => {
+      await reconcileReminders(ctx.deps.repos, msg.queue, msg.jobOptions);
+      const [r] = await ctx.deps.ds.query(`SELECT * FROM reminders WHERE id = $1`, [first.id]);
+      return r.status === 'sent' && r;
+    }, 20_000, 500);
+    expect(done.attempts).toBeGreaterThanOrEqual(2);
+    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(1);
+  });
+
   it('when the SMS provider answers 4xx, then the message fails after one attempt and every coordinator gets an e-mail alert', async () => {
     const { clinic, coord, infant } = await family();
     const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
