@@ -25,7 +25,7 @@ const failedData = { familyName: 'Rowan Ashby', babyName: 'Ava', template: 'visi
 async function viewFor(template: MessageTemplate, language = 'en', over: Record<string, unknown> = {}) {
   if (template === 'nurse-digest') {
     return {
-      recipientName: 'Nurse Hale', programmeName: PROGRAMME, programmePhone: PHONE, dateText: 'Thursday, December 3', checkCount: 1, visitCount: 1,
+      recipientName: 'Nurse Hale', programmeName: PROGRAMME, programmePhone: PHONE, dateText: 'Thursday 3 December', checkCount: 1, visitCount: 1,
       checks: [{ babyName: 'Ava Ashby', kindLabel: 'Spot check', dueText: 'due today', address: '1 Mill Lane, Emberly' }],
       visits: [{ timeText: '10:00', babyName: 'Ava Ashby', kindLabel: 'home visit', purpose: 'Spot check and weight', address: '1 Mill Lane, Emberly' }],
       ...over,
@@ -79,7 +79,7 @@ describe('message templates', () => {
   it('when the family is reminded the day before by SMS, then the text reads in full with the programme number', async () => {
     const out = renderMessage('visit-day-before', 'sms', 'en', await viewFor('visit-day-before'));
     expect(out.text).toBe(
-      `Nestflow: Ava has a home visit tomorrow, Thursday, December 3 at 10:00 with Nurse Hale. Can't make it? Call ${PROGRAMME} on ${PHONE}. Reply STOP to stop texts.`,
+      `Nestflow: Ava has a home visit tomorrow, Thursday 3 December at 10:00 with Nurse Hale. Can't make it? Call ${PROGRAMME} on ${PHONE}. Reply STOP to stop texts.`,
     );
   });
 
@@ -111,7 +111,7 @@ describe('languages', () => {
     expect(templateLanguage('fr', 'visit-moved', 'email')).toBe('en');
     const out = renderMessage('visit-moved', 'email', 'fr', await viewFor('visit-moved'));
     expect(out.language).toBe('en');
-    expect(out.subject).toBe("New time for Ava's home visit: Thursday, December 3 at 10:00");
+    expect(out.subject).toBe("New time for Ava's home visit: Thursday 3 December at 10:00");
   });
 
   it('when Spanish has no template for a message (journeys), then English is used for that message only', () => {

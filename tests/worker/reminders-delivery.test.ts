@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { planVisitReminders } from '../../shared/reminders/timing';
+import { localParts, planVisitReminders } from '../../shared/reminders/timing';
 import { reconcileReminders } from '../../server/modules/reminders/reconcile';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent, type Agent } from '../helpers/agents';
@@ -73,6 +73,22 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     expect(await msg.delivery.deliver(rows[0].id, { finalAttempt: false })).toBe('already-done');
     await new Promise((r) => setTimeout(r, 300));
     expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(2);
+  });
+
+  it("when a second contact lives in another time zone, then their reminders follow their own clock and date", async () => {
+    const { clinic, coord, infant, contact } = await family({ timeZone: 'Europe/London' });
+    const abroad = { ...contact, name: 'Grandparent Abroad', relation: 'Grandmother', mobile: '+64 21 555 0101', email: 'abroad@test.example', timeZone: 'Pacific/Auckland' };
+    await coord.put(`/api/infants/${infant.id}/contacts`).set('X-CSRF-Token', coord.csrf).send({ contacts: [contact, abroad] }).expect(200);
+    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id, { time: '14:30' }))).body;
+    const rows = await ctx.deps.ds.query(`SELECT r.template, r.send_at, c.time_zone FROM reminders r JOIN family_contacts c ON c.id = r.contact_id WHERE r.visit_id = $1 ORDER BY r.send_at`, [visit.id]);
+    const rules = { dayBeforeAt: '17:00', morningOfAt: '08:00', quietStart: '00:00', quietEnd: '00:00' };
+    const startsAt = new Date(visit.startsAt);
+    for (const tz of ['Europe/London', 'Pacific/Auckland']) {
+      // 14:30 in London is 03:30 the next day in Auckland (UTC+13 in December): each contact's day comes from their clock.
+      const expected = planVisitReminders({ ...localParts(startsAt, tz), timeZone: tz, startsAt }, rules, new Date()).map((e) => e.sendAt.toISOString());
+      expect(rows.filter((r: { time_zone: string }) => r.time_zone === tz).map((r: { send_at: Date }) => new Date(r.send_at).toISOString())).toEqual(expected);
+    }
+    expect(localParts(startsAt, 'Pacific/Auckland').date).not.toBe(visit.date);
   });
 
   it('when a visit is moved, then its pending reminders are cancelled, the family is told at once and new reminders are planned', async () => {

@@ -53,12 +53,13 @@ export function createChecksRepository(ds: DataSource) {
 
     /** Daily: open checks past their due time become overdue and flag their babies. */
     markOverdue: async (): Promise<number> => {
-      const rows: Array<{ infant_id: string }> = await ds.query(
-        `WITH o AS (UPDATE checks SET status = 'overdue', updated_at = now() WHERE status = 'planned' AND due_at < now() RETURNING infant_id)
-         UPDATE infants SET flags = array_append(flags, 'check_overdue') WHERE id IN (SELECT infant_id FROM o) AND NOT ('check_overdue' = ANY(flags))
-         RETURNING id AS infant_id`,
+      // A bare UPDATE … RETURNING comes back from the driver as [rows, count]; a SELECT over the CTEs gives rows.
+      const [row]: Array<{ n: number }> = await ds.query(
+        `WITH o AS (UPDATE checks SET status = 'overdue', updated_at = now() WHERE status = 'planned' AND due_at < now() RETURNING infant_id),
+              f AS (UPDATE infants SET flags = array_append(flags, 'check_overdue') WHERE id IN (SELECT infant_id FROM o) AND NOT ('check_overdue' = ANY(flags)) RETURNING id)
+         SELECT count(*)::int AS n FROM f`,
       );
-      return rows.length;
+      return row.n;
     },
 
     forInfant: (infantId: string) => repo().find({ where: { infantId }, order: { dueAt: 'ASC' } }),

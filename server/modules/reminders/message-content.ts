@@ -10,13 +10,16 @@ const KIND_LABELS: Record<string, Record<string, string>> = {
   es: { home_visit: 'visita a domicilio', clinic_review: 'revisión en la clínica' },
 };
 
+// Plain 'en' reads as British English ("Thursday 3 December"); a regional code such as en-US is kept as given.
+const locale = (language: string) => (language === 'en' ? 'en-GB' : language);
+
 function dateText(iso: string, timeZone: string, language: string): string {
-  return new Intl.DateTimeFormat(language, { weekday: 'long', day: 'numeric', month: 'long', timeZone }).format(new Date(iso));
+  return new Intl.DateTimeFormat(locale(language), { weekday: 'long', day: 'numeric', month: 'long', timeZone }).format(new Date(iso));
 }
 
 /** A plain date (YYYY-MM-DD) in words, without any time zone shift. */
 function plainDateText(date: string, language: string): string {
-  return new Intl.DateTimeFormat(language, { weekday: 'long', day: 'numeric', month: 'long', timeZone: 'UTC' }).format(new Date(`${date}T12:00:00Z`));
+  return new Intl.DateTimeFormat(locale(language), { weekday: 'long', day: 'numeric', month: 'long', timeZone: 'UTC' }).format(new Date(`${date}T12:00:00Z`));
 }
 
 export interface ContentContext {

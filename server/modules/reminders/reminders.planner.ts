@@ -52,7 +52,9 @@ export function createReminderPlanner(repos: AppRepos) {
       const rows: NewReminder[] = [];
       for (const c of contacts) {
         // Each contact's own wall clock decides when "the day before" and "the morning" are.
-        for (const p of planVisitReminders({ date: v.localDate, time: v.localTime, timeZone: c.timeZone, startsAt: v.startsAt }, settings.reminders, now)) {
+        // The visit's date and time on this contact's clock (a relative abroad may be a day ahead or behind).
+        const local = c.timeZone === v.timeZone ? { date: v.localDate, time: v.localTime } : localParts(v.startsAt, c.timeZone);
+        for (const p of planVisitReminders({ ...local, timeZone: c.timeZone, startsAt: v.startsAt }, settings.reminders, now)) {
           const base = { programmeId: v.programmeId, infantId: v.infantId, visitId: v.id, data, sendAt: p.sendAt, notAfter: p.notAfter,
             dedupeKey: `visit-${v.id}-v${v.rowVersion}-${p.template}-${c.id}` };
           const row = familyRow(c, p.template, 'reminder', base);
