@@ -213,6 +213,27 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     expect(pending.every((r) => r.contact_id === rows[0].id)).toBe(true);
   });
 
+  it('when the consultant approves a journey, then the family is reminded the day before departure with the flow there and the cylinders', async () => {
+    const { approvedBaby } = await import('../helpers/approved-baby');
+    const { journeyReminderAt } = await import('../../shared/reminders/timing');
+    const { clinic, infant, family: familyAgent, consultant } = await approvedBaby(ctx.deps, ctx.app);
+    await policyWithoutQuietHours(ctx.deps, clinic.programme.id);
+    const departOn = future(3);
+    const j = (await post(familyAgent, `/api/infants/${infant.id}/journeys`, { mode: 'road', destinationName: 'Cindermoor Heights', destinationElevationM: 900, departOn, returnOn: future(5), hoursAway: 4 }).expect(201)).body.journey;
+    expect((await ctx.deps.ds.query(`SELECT 1 FROM reminders WHERE infant_id = $1 AND template = 'journey-day-before'`, [infant.id])).length).toBe(0);
+    const approved = (await post(consultant, `/api/journeys/${j.id}/decision`, { decision: 'approve', rowVersion: j.rowVersion }).expect(200)).body.journey;
+    const rows = await ctx.deps.ds.query(`SELECT r.*, c.mobile, c.time_zone AS tz FROM reminders r JOIN family_contacts c ON c.id = r.contact_id WHERE r.infant_id = $1 AND r.template = 'journey-day-before'`, [infant.id]);
+    expect(rows).toHaveLength(1);
+    expect(new Date(rows[0].send_at).toISOString()).toBe(journeyReminderAt(departOn, rows[0].tz, { dayBeforeAt: '17:00', morningOfAt: '08:00', quietStart: '00:00', quietEnd: '00:00' }).toISOString());
+    await makeDue([rows[0].id]);
+    const [sent] = await settled([rows[0].id]);
+    expect(sent.status).toBe('sent');
+    const text = msg.sms.messages().find((m) => m.to === rows[0].mobile.replace(/[^0-9+]/g, ''))?.body ?? '';
+    expect(text).toContain('trip to Cindermoor Heights tomorrow');
+    expect(text).toContain(`${approved.plan.periods[0].flowLpm} L/min`);
+    expect(text).toMatch(/take \d+ × /);
+  });
+
   it('when a nurse has checks due, then the morning digest lists them; a consultant digest goes only when proposals have waited too long', async () => {
     const { clinic } = await family();
     const { planDigests } = await import('../../server/modules/reminders/digests');
