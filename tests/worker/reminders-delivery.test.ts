@@ -267,4 +267,26 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     expect(mail?.text).toMatch(/Checks due today or overdue/);
     expect(mail?.text).toContain('Test Baby');
   });
+
+  it('when a proposal and a journey check have waited longer than the policy allows, then the consultant digest lists both', async () => {
+    const { approvedBaby } = await import('../helpers/approved-baby');
+    const { clinic, infant, family: familyAgent } = await approvedBaby(ctx.deps, ctx.app);
+    await policyWithoutQuietHours(ctx.deps, clinic.programme.id);
+    await post(familyAgent, `/api/infants/${infant.id}/journeys`, { mode: 'flight', destinationName: 'Saltgate Isles', departOn: future(10), returnOn: future(12), hoursAway: 5 }).expect(201);
+    // The journey check planned the consultant's digest in its own transaction.
+    const [digest] = await ctx.deps.ds.query(`SELECT * FROM reminders WHERE programme_id = $1 AND template = 'consultant-digest' AND user_id = $2`, [clinic.programme.id, clinic.people.consultant.id]);
+    expect(digest).toBeTruthy();
+    // Brought forward to now, nothing has waited 24 h yet: the digest would be empty, so it is skipped.
+    await ctx.deps.ds.query(`UPDATE reminders SET send_at = now() WHERE id = $1`, [digest.id]);
+    expect(await msg.delivery.deliver(digest.id, { finalAttempt: false })).toBe('skipped');
+    // A day passes for the journey check.
+    await ctx.deps.ds.query(`UPDATE journeys SET created_at = now() - interval '30 hours' WHERE infant_id = $1`, [infant.id]);
+    await ctx.deps.ds.query(`UPDATE reminders SET status = 'scheduled', reason = NULL WHERE id = $1`, [digest.id]);
+    await makeDue([digest.id]);
+    const [sent] = await settled([digest.id]);
+    expect(sent.status).toBe('sent');
+    const mail = msg.mail.messages().find((m) => m.envelope.to.includes(clinic.people.consultant.email));
+    expect(mail?.subject).toBe('Nestflow: 1 waiting for your sign-off for more than 24 hours');
+    expect(mail?.text).toContain('journey check for a trip to Saltgate Isles');
+  });
 });

@@ -75,6 +75,8 @@ export function createJourneysService(ds: DataSource, repos: AppRepos) {
           programmeId: infant.programmeId, actorId: actor.id, action: 'journey.requested', entityType: 'infant', entityId: infant.id, ip: actor.ip,
           details: { journeyId: j.id, mode: j.mode, destinationName: j.destinationName, departOn: j.departOn, returnOn: j.returnOn, prescriptionId: rx.id, exceedsCannula: plan.exceedsCannula },
         }, m);
+        // Waiting for a consultant like a proposed setting: the consultants' digest is planned with it.
+        await createReminderPlanner(repos).proposalWaiting(infant.programmeId, new Date(), policy.settings, m);
         return j;
       });
       return one(journey, `${infant.givenName} ${infant.familyName}`, audience);

@@ -24,8 +24,9 @@ export async function planDigests(ds: DataSource, repos: AppRepos, now = new Dat
     const people: Array<{ id: string; name: string; email: string; role: 'nurse' | 'consultant' }> = await ds.query(
       `SELECT u.id, u.name, u.email, u.role FROM users u
         WHERE u.programme_id = $1 AND NOT u.disabled
-          AND (u.role = 'nurse' OR (u.role = 'consultant' AND EXISTS (
-            SELECT 1 FROM prescriptions rx WHERE rx.programme_id = $1 AND rx.status = 'proposed' AND COALESCE(rx.computed_at, rx.created_at) <= $2)))`,
+          AND (u.role = 'nurse' OR (u.role = 'consultant' AND (
+            EXISTS (SELECT 1 FROM prescriptions rx WHERE rx.programme_id = $1 AND rx.status = 'proposed' AND COALESCE(rx.computed_at, rx.created_at) <= $2)
+            OR EXISTS (SELECT 1 FROM journeys j WHERE j.programme_id = $1 AND j.status = 'waiting' AND j.created_at <= $2))))`,
       [p.id, waitingSince],
     );
     const rows: NewReminder[] = people.map((u) => ({

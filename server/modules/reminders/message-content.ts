@@ -81,10 +81,15 @@ export async function messageView(ctx: ContentContext, m: EntityManager): Promis
     }
     case 'consultant-digest': {
       const hours = ctx.settings.reminders.signOffWaitingHours;
-      const items: Array<{ given_name: string; family_name: string; reason: string; proposed_flow_lpm: string | null; since: Date }> = await m.query(
-        `SELECT i.given_name, i.family_name, p.reason, p.proposed_flow_lpm, COALESCE(p.computed_at, p.created_at) AS since
+      // Proposed settings and journey checks alike wait for a consultant's decision.
+      const items: Array<{ given_name: string; family_name: string; reason: string | null; proposed_flow_lpm: string | null; destination: string | null; since: Date }> = await m.query(
+        `SELECT i.given_name, i.family_name, p.reason, p.proposed_flow_lpm, NULL AS destination, COALESCE(p.computed_at, p.created_at) AS since
            FROM prescriptions p JOIN infants i ON i.id = p.infant_id
           WHERE p.programme_id = $1 AND p.status = 'proposed' AND COALESCE(p.computed_at, p.created_at) <= $2
+         UNION ALL
+         SELECT i.given_name, i.family_name, NULL, NULL, j.destination_name, j.created_at
+           FROM journeys j JOIN infants i ON i.id = j.infant_id
+          WHERE j.programme_id = $1 AND j.status = 'waiting' AND j.created_at <= $2
           ORDER BY since LIMIT 100`,
         [r.programme_id, new Date(ctx.now.getTime() - hours * 3_600_000)],
       );
@@ -93,7 +98,9 @@ export async function messageView(ctx: ContentContext, m: EntityManager): Promis
         ...common, count: items.length, waitingHours: hours,
         items: items.map((p) => ({
           babyName: `${p.given_name} ${p.family_name}`,
-          summary: `${PRESCRIPTION_REASON_LABELS[p.reason as PrescriptionReason] ?? p.reason}${p.proposed_flow_lpm === null ? '' : `, ${Number(p.proposed_flow_lpm)} L/min proposed`}`,
+          summary: p.destination !== null
+            ? `journey check for a trip to ${p.destination}`
+            : `${PRESCRIPTION_REASON_LABELS[p.reason as PrescriptionReason] ?? p.reason}${p.proposed_flow_lpm === null ? '' : `, ${Number(p.proposed_flow_lpm)} L/min proposed`}`,
           sinceText: new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: r.time_zone }).format(new Date(p.since)),
         })),
       };
