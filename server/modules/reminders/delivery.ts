@@ -90,14 +90,15 @@ export function createDelivery(deps: DeliveryDeps) {
       if ('skip' in to) return skip(to.skip);
       const notAfter = r.not_after ? new Date(r.not_after) : null;
       if (notAfter && now.getTime() > notAfter.getTime()) return skip('no-longer-needed');
-      // Quiet hours are checked again at send time: a queue that ran late must not wake a family at night.
-      if (ledger?.state !== 'sending' && inQuietHours(now, to.timeZone, settingsQuiet(await policyOf(r.programme_id, m)))) {
-        const later = outsideQuietHours(now, to.timeZone, settingsQuiet(await policyOf(r.programme_id, m)));
+      const settings = await policyOf(r.programme_id, m);
+      // Quiet hours are checked again at send time: a queue that ran late must not wake a family at night. (An
+      // attempt of unknown outcome is settled first, whatever the hour: it may already have gone.)
+      if (ledger?.state !== 'sending' && inQuietHours(now, to.timeZone, settings.reminders)) {
+        const later = outsideQuietHours(now, to.timeZone, settings.reminders);
         if (notAfter && later.getTime() > notAfter.getTime()) return skip('quiet-hours');
         await repos.reminders.update(id, { send_at: later }, m);
         return 'held-quiet-hours';
       }
-      const settings = await policyOf(r.programme_id, m);
       const [programme] = await m.query(`SELECT name FROM programmes WHERE id = $1`, [r.programme_id]);
       const view = await messageView({ reminder: { ...r, recipient_name: to.name }, language: to.language, programmeName: programme.name, settings, now }, m);
       if (!view) return skip('nothing-to-send');
@@ -114,7 +115,6 @@ export function createDelivery(deps: DeliveryDeps) {
   async function policyOf(programmeId: string, m: EntityManager) {
     return (await repos.policies.current(programmeId, m)).settings;
   }
-  const settingsQuiet = (s: Awaited<ReturnType<typeof policyOf>>) => s.reminders;
 
   async function markSent(id: string, providerId: string) {
     await ds.transaction(async (m) => {
