@@ -81,7 +81,7 @@ describe('Message log', () => {
     expect(failed.getByText('Failed')).toBeInTheDocument();
     expect(failed.getByText('Mailbox unavailable (550)')).toBeInTheDocument();
     expect(failed.getByText('E-mail')).toBeInTheDocument();
-    expect(failed.getByText('3')).toBeInTheDocument();
+    expect(failed.getByText('3 attempts')).toBeInTheDocument();
     expect(failed.getByRole('button', { name: /Send again/ })).toBeInTheDocument();
 
     const skipped = within(rows[2]);

@@ -39,11 +39,19 @@ export const messageColumns = helper.columns([
   helper.accessor('channel', { header: 'Channel', enableSorting: false, cell: (info) => channelText(info.getValue()) }),
   helper.accessor('template', { header: 'Message type', enableSorting: false, cell: (info) => MESSAGE_TEMPLATE_LABELS[info.getValue()] }),
   helper.accessor('status', { header: 'Status', cell: (info) => <MessageStatusCell message={info.row.original} /> }),
-  helper.accessor('attempts', { header: 'Attempts', enableSorting: false, cell: (info) => <span className="tabular-nums">{info.getValue()}</span> }),
-  helper.accessor('providerId', {
-    header: 'Provider id',
+  // Attempts and the provider's id share a column, so the baby and "Send again" stay on screen at desk width.
+  helper.accessor('attempts', {
+    header: 'Delivery',
     enableSorting: false,
-    cell: (info) => <span className="inline-block max-w-36 break-all font-mono text-xs">{info.getValue() ?? '—'}</span>,
+    cell: (info) => {
+      const { attempts, providerId } = info.row.original;
+      return (
+        <span className="flex flex-col">
+          <span className="tabular-nums">{attempts === 1 ? '1 attempt' : `${attempts} attempts`}</span>
+          {providerId && <span className="max-w-32 truncate font-mono text-xs text-ink-700" title={providerId}>{providerId}</span>}
+        </span>
+      );
+    },
   }),
   helper.accessor('infant', {
     header: 'Baby',
