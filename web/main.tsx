@@ -7,11 +7,14 @@ import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router-dom';
 import { AppProviders, createAppQueryClient } from './app/providers';
 import { createAppRouter } from './app/router';
+import { sessionQueryOptions } from './features/session/api/session-keys';
 
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html must contain #root');
 
 const queryClient = createAppQueryClient();
+// Who is signed in is needed by every page: ask now, in parallel with loading the first page's code.
+void queryClient.prefetchQuery(sessionQueryOptions());
 const router = createAppRouter();
 
 createRoot(container).render(
