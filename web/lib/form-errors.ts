@@ -1,5 +1,5 @@
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
-import { isApiError } from './api-error';
+import { errorMessage, isApiError } from './api-error';
 
 /**
  * Put a 400's per-field messages beside the fields the form has. Returns what is left to show above the form
@@ -18,4 +18,13 @@ export function applyServerFieldErrors<T extends FieldValues>(
     else leftover.push(message);
   }
   return leftover;
+}
+
+/**
+ * What to show above a form after a failed save: a server message for fields the form does not have (set on
+ * `root.server`), else the error in words unless it was a 400 already shown beside the fields.
+ */
+export function formProblem(rootMessage: string | undefined, mutation: { isError: boolean; error: unknown }): string | undefined {
+  const shownBesideFields = isApiError(mutation.error) && mutation.error.code === 'validation_failed';
+  return rootMessage ?? (mutation.isError && !shownBesideFields ? errorMessage(mutation.error) : undefined);
 }

@@ -4,8 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { createJourneySchemaOn, type CreateJourneyFormValues, type CreateJourneyInput, type Journey } from '../../../../shared/schemas/journeys';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { errorMessage, isApiError } from '../../../lib/api-error';
-import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { useCreateJourney } from '../api/create-journey';
 import { JourneyFormFields } from './journey-form-fields';
 
@@ -45,8 +44,7 @@ export function JourneyForm({ infantId, today, onSent }: JourneyFormProps) {
     }
   });
 
-  const fieldErrors = isApiError(create.error) && create.error.code === 'validation_failed';
-  const problem = formState.errors.root?.server?.message ?? (create.isError && !fieldErrors ? errorMessage(create.error) : undefined);
+  const problem = formProblem(formState.errors.root?.server?.message, create);
   const busy = create.isPending || formState.isSubmitting;
   return (
     <FormProvider {...form}>

@@ -7,8 +7,8 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { describedBy } from '../../../components/ui/field';
-import { errorMessage, isApiError } from '../../../lib/api-error';
-import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { isApiError } from '../../../lib/api-error';
+import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { useRequestStepDown } from '../api/request-step-down';
 
 interface StepDownActionProps {
@@ -35,7 +35,7 @@ function StepDownForm({ infantId, onRequested, onClose }: Omit<StepDownActionPro
     }),
   );
   const conflict = isApiError(request.error) && request.error.status === 409;
-  const problem = errors.root?.server?.message ?? (request.isError && !(isApiError(request.error) && request.error.code === 'validation_failed') ? errorMessage(request.error) : undefined);
+  const problem = formProblem(errors.root?.server?.message, request);
   const hint = 'What you saw that makes the baby ready: readings, the last overnight study, feeding and growth.';
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Ask to step down" className="flex flex-col gap-3">

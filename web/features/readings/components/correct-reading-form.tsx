@@ -4,8 +4,7 @@ import type { z } from 'zod';
 import { updateReadingSchema, type Reading, type UpdateReadingInput } from '../../../../shared/schemas/readings';
 import { Alert } from '../../../components/ui/alert';
 import { FormActions } from '../../../components/ui/form-actions';
-import { errorMessage, isApiError } from '../../../lib/api-error';
-import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { useUpdateReading } from '../api/update-reading';
 import { FigureFields, NotesField, StateChoice } from './reading-fields';
 
@@ -39,8 +38,7 @@ export function CorrectReadingForm({ reading, onDone }: { reading: Reading; onDo
     });
   });
 
-  const fieldErrors = isApiError(update.error) && update.error.code === 'validation_failed';
-  const problem = form.formState.errors.root?.server?.message ?? (update.isError && !fieldErrors ? errorMessage(update.error) : undefined);
+  const problem = formProblem(form.formState.errors.root?.server?.message, update);
 
   return (
     <FormProvider {...form}>

@@ -6,8 +6,8 @@ import { createReadingSchema, type CreateReadingInput, type Reading } from '../.
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
-import { errorMessage, isApiError } from '../../../lib/api-error';
-import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { isApiError } from '../../../lib/api-error';
+import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { asNumber } from '../../../lib/form-values';
 import { useCreateReading } from '../api/create-reading';
 import { FigureFields, NotesField, StateChoice } from './reading-fields';
@@ -62,8 +62,7 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
     }
   });
 
-  const fieldErrors = isApiError(create.error) && create.error.code === 'validation_failed';
-  const problem = formState.errors.root?.server?.message ?? (create.isError && !fieldErrors ? errorMessage(create.error) : undefined);
+  const problem = formProblem(formState.errors.root?.server?.message, create);
   const busy = create.isPending || formState.isSubmitting;
 
   return (

@@ -5,8 +5,7 @@ import { bookVisitSchema, VISIT_KIND_LABELS, VISIT_KINDS, type BookVisitInput } 
 import { Alert } from '../../../components/ui/alert';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
-import { errorMessage, isApiError } from '../../../lib/api-error';
-import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { asNumber } from '../../../lib/form-values';
 import { useBookVisit } from '../api/book-visit';
 import { useVisitStaff } from '../api/get-visit-staff';
@@ -31,8 +30,7 @@ export function BookVisitForm({ infantId, onClose }: { infantId: string; onClose
     }),
   );
 
-  const fieldErrors = isApiError(book.error) && book.error.code === 'validation_failed';
-  const problem = errors.root?.server?.message ?? (book.isError && !fieldErrors ? errorMessage(book.error) : undefined);
+  const problem = formProblem(errors.root?.server?.message, book);
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Book a visit" className="flex flex-col gap-4">

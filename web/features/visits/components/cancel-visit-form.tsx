@@ -5,8 +5,7 @@ import { cancelVisitSchema, type Visit } from '../../../../shared/schemas/visits
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
-import { errorMessage, isApiError } from '../../../lib/api-error';
-import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { useCancelVisit } from '../api/cancel-visit';
 
 type Values = z.infer<typeof cancelVisitSchema>;
@@ -26,8 +25,7 @@ export function CancelVisitForm({ visit, onClose }: { visit: Visit; onClose: () 
     }),
   );
 
-  const fieldErrors = isApiError(cancel.error) && cancel.error.code === 'validation_failed';
-  const problem = errors.root?.server?.message ?? (cancel.isError && !fieldErrors ? errorMessage(cancel.error) : undefined);
+  const problem = formProblem(errors.root?.server?.message, cancel);
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Cancel the visit" className="flex flex-col gap-3">

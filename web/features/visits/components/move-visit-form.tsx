@@ -4,8 +4,8 @@ import { moveVisitSchema, type MoveVisitInput, type Visit } from '../../../../sh
 import { Alert } from '../../../components/ui/alert';
 import { TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
-import { errorMessage, isApiError } from '../../../lib/api-error';
-import { applyServerFieldErrors } from '../../../lib/form-errors';
+import { isApiError } from '../../../lib/api-error';
+import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { useMoveVisit } from '../api/move-visit';
 
 const STALE = 'Someone changed this visit while you were editing. It has been reloaded: check it and try again.';
@@ -30,10 +30,7 @@ export function MoveVisitForm({ visit, onClose }: { visit: Visit; onClose: () =>
   );
 
   const stale = isApiError(move.error) && move.error.status === 409;
-  const fieldErrors = isApiError(move.error) && move.error.code === 'validation_failed';
-  const problem = stale
-    ? STALE
-    : errors.root?.server?.message ?? (move.isError && !fieldErrors ? errorMessage(move.error) : undefined);
+  const problem = stale ? STALE : formProblem(errors.root?.server?.message, move);
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Move the visit" className="flex flex-col gap-3">
