@@ -4,6 +4,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import type { Policy, UpdatePolicyInput } from '../../../../shared/schemas/policy';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { ConflictNotice } from '../../../components/ui/conflict-notice';
 import { errorMessage, isApiError } from '../../../lib/api-error';
 import { policyQueryOptions } from '../api/get-policy';
 import { useUpdatePolicy } from '../api/update-policy';
@@ -52,14 +53,7 @@ export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boo
   return (
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Programme settings" className="flex flex-col gap-5">
-        {conflict && (
-          <div role="alert" className="flex flex-col gap-2 rounded-lg border border-warn-200 bg-warn-50 p-3 text-warn-800">
-            <p className="font-semibold">{conflict}</p>
-            <div>
-              <Button variant="secondary" size="sm" onClick={reload}>Reload the settings</Button>
-            </div>
-          </div>
-        )}
+        {conflict && <ConflictNotice message={conflict} actionLabel="Reload the settings" onReload={reload} />}
         {problem && <Alert>{problem}</Alert>}
         <fieldset disabled={readOnly} className="flex min-w-0 flex-col gap-5">
           <TargetsSection />

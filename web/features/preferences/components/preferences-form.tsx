@@ -4,7 +4,7 @@ import { useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import type { Preferences, UpdatePreferencesInput } from '../../../../shared/schemas/preferences';
 import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
+import { ConflictNotice } from '../../../components/ui/conflict-notice';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
 import { errorMessage, isApiError } from '../../../lib/api-error';
@@ -53,14 +53,7 @@ export function PreferencesForm({ preferences }: { preferences: Preferences }) {
   return (
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Contact details and reminders" className="flex flex-col gap-6 text-lg">
-        {conflict && (
-          <div role="alert" className="flex flex-col gap-3 rounded-xl border-2 border-warn-600 bg-warn-50 p-4 text-warn-800">
-            <p className="text-xl font-semibold">{CHANGED_ELSEWHERE}</p>
-            <div>
-              <Button variant="secondary" size="lg" onClick={reload}>Reload my details</Button>
-            </div>
-          </div>
-        )}
+        {conflict && <ConflictNotice large message={CHANGED_ELSEWHERE} actionLabel="Reload my details" onReload={reload} />}
         {problem && <Alert>{problem}</Alert>}
         <RemindersSwitch />
         <section className="flex flex-col gap-4">
