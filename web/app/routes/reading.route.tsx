@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import { Link, useParams } from 'react-router-dom';
+import { useParams } from 'react-router-dom';
 import type { Reading } from '../../../shared/schemas/readings';
 import { Card } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';
@@ -12,12 +12,8 @@ import { ReadingForm } from '../../features/readings/components/reading-form';
 import { SavedReading } from '../../features/readings/components/saved-reading';
 import { useAppAbility } from '../../lib/ability';
 import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
+import { BackToRecordLink } from '../../features/infants/components/back-to-record-link';
 
-const backLink = (id: string) => (
-  <Link to={`/infants/${id}`} className="font-semibold text-brand-700 underline">
-    Back to the baby’s record
-  </Link>
-);
 
 /** "Log a reading" for any baby on the caseload, outside the day's planned checks. */
 export function Component() {
@@ -31,7 +27,7 @@ export function Component() {
     return (
       <>
         <PageHeader title="Log a reading" />
-        <EmptyState message="Readings are logged by the baby’s nurse or the coordinator.">{backLink(id)}</EmptyState>
+        <EmptyState message="Readings are logged by the baby’s nurse or the coordinator."><BackToRecordLink infantId={id} /></EmptyState>
       </>
     );
   }
@@ -48,7 +44,7 @@ export function Component() {
 
   return (
     <>
-      <PageHeader title={`Log a reading: ${baby.name}`} intro={`Corrected age ${baby.correctedAge} · ${baby.home.address}`} actions={backLink(baby.id)} />
+      <PageHeader title={`Log a reading: ${baby.name}`} intro={`Corrected age ${baby.correctedAge} · ${baby.home.address}`} actions={<BackToRecordLink infantId={baby.id} />} />
       <div className="flex max-w-2xl flex-col gap-6">
         {savedIds.map((readingId) => (
           <SavedReading key={readingId} infantId={baby.id} readingId={readingId}

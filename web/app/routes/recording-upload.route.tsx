@@ -1,6 +1,6 @@
 import { subject } from '@casl/ability';
 import { useQueryClient } from '@tanstack/react-query';
-import { Link, useNavigate, useParams } from 'react-router-dom';
+import { useNavigate, useParams } from 'react-router-dom';
 import { Card } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
@@ -10,12 +10,8 @@ import { RecordingUpload } from '../../features/recordings/components/recording-
 import { useAppAbility } from '../../lib/ability';
 import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 import { useSignedInUser } from '../../lib/signed-in-user';
+import { BackToRecordLink } from '../../features/infants/components/back-to-record-link';
 
-const backLink = (id: string) => (
-  <Link to={`/infants/${id}`} className="font-semibold text-brand-700 underline">
-    Back to the baby’s record
-  </Link>
-);
 
 /** Upload one night's oximetry for a baby; on success the recording page follows the analysis. */
 export function Component() {
@@ -34,7 +30,7 @@ export function Component() {
     return (
       <>
         <PageHeader title="Upload an overnight recording" />
-        <EmptyState message="Recordings are uploaded by the coordinator or the baby’s nurse.">{backLink(baby.id)}</EmptyState>
+        <EmptyState message="Recordings are uploaded by the coordinator or the baby’s nurse."><BackToRecordLink infantId={baby.id} /></EmptyState>
       </>
     );
   }
@@ -46,7 +42,7 @@ export function Component() {
   };
   return (
     <>
-      <PageHeader title={`Upload an overnight recording: ${baby.name}`} intro={`Corrected age ${baby.correctedAge}`} actions={backLink(baby.id)} />
+      <PageHeader title={`Upload an overnight recording: ${baby.name}`} intro={`Corrected age ${baby.correctedAge}`} actions={<BackToRecordLink infantId={baby.id} />} />
       <div className="max-w-2xl">
         <Card>
           <RecordingUpload infantId={baby.id} onUploaded={onUploaded} />

@@ -22,6 +22,7 @@ import { RecordingSummaryCard } from '../../features/recordings/components/recor
 import { traceDescription } from '../../features/recordings/components/trace-description';
 import { errorMessage, isApiError } from '../../lib/api-error';
 import { formatDateTime } from '../../lib/format';
+import { BackToRecordLink } from '../../features/infants/components/back-to-record-link';
 
 /** When the analysis settles, the baby's flags, checks and perhaps a new step proposal change with it. */
 function useRefreshBabyWhenSettled(recording: Recording | undefined) {
@@ -111,7 +112,7 @@ export function Component() {
       <PageHeader
         title={`Overnight recording: ${baby.name}`}
         intro={`${when} · corrected age ${baby.correctedAge}`}
-        actions={<Link to={`/infants/${baby.id}`} className="font-semibold text-brand-700 underline">Back to the baby’s record</Link>}
+        actions={<BackToRecordLink infantId={baby.id} />}
       />
       <div className="mb-4 flex items-center gap-2">
         <span className="text-ink-700">Status:</span>

@@ -3,6 +3,7 @@ import { DIAGNOSIS_LABELS } from '../../../../shared/schemas/infants';
 import { Button } from '../../../components/ui/button';
 import { useSites, useStaff } from '../api/get-programme-data';
 import type { EnrolValues } from './enrol-values';
+import { FactList } from '../../../components/ui/fact-list';
 
 const SEX_WORDS: Record<string, string> = { female: 'Female', male: 'Male', unknown: 'Not known' };
 const HOSPITAL_SOURCE_WORDS: Record<string, string> = { cylinder: 'wall or cylinder', concentrator: 'concentrator', blended: 'blended' };
@@ -26,14 +27,7 @@ function Section({ title, step, onEdit, rows }: { title: string; step: number; o
           Change
         </Button>
       </div>
-      <dl className="grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[12rem_1fr]">
-        {rows.map(([label, value]) => (
-          <div key={label} className="contents">
-            <dt className="text-ink-500">{label}</dt>
-            <dd className="text-ink-900">{value}</dd>
-          </div>
-        ))}
-      </dl>
+      <FactList facts={rows} className="grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[12rem_1fr]" />
     </section>
   );
 }

@@ -3,6 +3,7 @@ import { JOURNEY_STATUS_LABELS, type Journey } from '../../../../shared/schemas/
 import { Badge } from '../../../components/ui/badge';
 import { formatDateTime } from '../../../lib/format';
 import { hoursWords, shortDayWords, wayWords } from './journey-words';
+import { FactList } from '../../../components/ui/fact-list';
 
 export const STATUS_TONES = { waiting: 'warn', approved: 'ok', declined: 'danger' } as const;
 
@@ -23,14 +24,7 @@ export function JourneyRequestFacts({ journey }: { journey: Journey }) {
         <h2 className="text-xl font-bold text-ink-900">{journey.infantName}</h2>
         <Badge tone={STATUS_TONES[journey.status]}>{JOURNEY_STATUS_LABELS[journey.status]}</Badge>
       </div>
-      <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
-        {facts.map(([label, value]) => (
-          <div key={label} className="contents">
-            <dt className="text-ink-500">{label}</dt>
-            <dd className="text-ink-900">{value}</dd>
-          </div>
-        ))}
-      </dl>
+      <FactList facts={facts} className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1" />
     </section>
   );
 }

@@ -3,6 +3,7 @@ import type { InfantDetail } from '../../../../shared/schemas/infants';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { formatDateTime } from '../../../lib/format';
 import { homePlaceText } from './home-place';
+import { FactList } from '../../../components/ui/fact-list';
 
 function CurrentPlan({ active }: { active: InfantDetail['activeSetting'] }) {
   if (!active) return <>None yet</>;
@@ -26,14 +27,7 @@ export function ReviewHeader({ infant }: { infant: InfantDetail }) {
   return (
     <section aria-label="Baby" className="rounded-2xl border border-surface-200 bg-surface-0 p-4 shadow-sm sm:p-6">
       <h2 className="text-xl font-bold text-ink-900">{infant.name}</h2>
-      <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
-        {facts.map(([label, value]) => (
-          <div key={label} className="contents">
-            <dt className="text-ink-500">{label}</dt>
-            <dd className="text-ink-900">{value}</dd>
-          </div>
-        ))}
-      </dl>
+      <FactList facts={facts} className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1" />
     </section>
   );
 }
