@@ -72,7 +72,7 @@ const recording: Recording = {
   uploadedAt: '2025-04-19T07:00:00.000Z', uploadedBy: { id: nurse.id, name: nurse.name }, timeFormat: 'iso',
   startedAt: '2025-04-18T20:00:00.000Z', durationMinutes: 600, sampleCount: 36000, samplePeriodSec: 1, skippedRows: 0,
   analysisVersion: 'nestflow-oximetry-1.0.0', analysedAt: '2025-04-19T07:00:05.000Z',
-  summary: { validMinutes: 540, meanSpo2: 92.4, medianSpo2: 93, minSpo2: 80, pctBelow90: 6.1, pctBelow92: 20, pctBelow93: 40, odi3: 4, odi4: 2, meanPulse: 141 },
+  summary: { validMinutes: 540, meanSpo2: 92.4, medianSpo2: 93, minSpo2: 80, pctBelow90: 6.1, pctBelow92: 20, pctBelow93: 40, odi3: 4, odi4: 2, meanPulse: 141, judged: true, minValidMinutes: 300, minEventSeconds: 10 },
 };
 
 function stubRecord(role: Role, extra: Record<string, (request: FakeRequest) => Response | Promise<Response>> = {}, versions = [version({})]) {

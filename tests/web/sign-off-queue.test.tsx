@@ -18,7 +18,7 @@ function queueItem(n: number, overrides: Partial<QueueItem> = {}): QueueItem {
     reason: 'enrolment',
     proposedFlowLpm: 0.25,
     feasible: true,
-    warningCount: 0,
+    warningCount: 0, unmetChecks: 0,
     waitingSince: hoursAgo(1),
     ...overrides,
   };
