@@ -58,13 +58,13 @@ describe('Sign-off queue', () => {
     const second = within(cards[1]);
     expect(second.getByText('Home elevation or pressure changed')).toBeInTheDocument();
     expect(second.getByText('Measured 612.4 mmHg')).toBeInTheDocument();
-    expect(second.getByText('Cannot be given by cannula — decide')).toBeInTheDocument();
+    expect(second.getByText('No setting reaches the target — decide')).toBeInTheDocument();
     expect(second.getByText('1 check')).toBeInTheDocument();
     expect(second.getByText('5 hours ago')).toBeInTheDocument();
 
     expect(within(cards[2]).getByText('Weight changed')).toBeInTheDocument();
     expect(within(cards[2]).getByText('0.125 L/min')).toBeInTheDocument();
-    expect(within(cards[2]).getByText('No checks')).toBeInTheDocument();
+    expect(within(cards[2]).getByText('No points to check')).toBeInTheDocument();
     expect(within(cards[2]).getByRole('link', { name: 'Review the proposal for Wren Tallis' })).toHaveAttribute(
       'href', `/sign-off/${items[2].prescriptionId}`,
     );
