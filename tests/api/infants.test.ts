@@ -141,7 +141,10 @@ describe('PATCH /api/infants/:id', () => {
     const [rx] = (await consultant.get(`/api/infants/${infant.id}/prescriptions`).expect(200)).body.items;
     await consultant.post(`/api/prescriptions/${rx.id}/decision`).set('X-CSRF-Token', consultant.csrf).send({ decision: 'approve' }).expect(200);
     const before = (await coord.get(`/api/infants/${infant.id}`).expect(200)).body;
-    const res = await coord.patch(`/api/infants/${infant.id}`).set('X-CSRF-Token', coord.csrf).send({ rowVersion: before.rowVersion, weightKg: 3.2, weightDate: '2026-11-28' }).expect(200);
+    const unconfirmed = await coord.patch(`/api/infants/${infant.id}`).set('X-CSRF-Token', coord.csrf).send({ rowVersion: before.rowVersion, weightKg: 3.2, weightDate: '2026-11-28' }).expect(422);
+    // 2 → 3.2 kg is a 60 % change: the coordinator must confirm it (common practice: > 20 % within 14 days)
+    expect(unconfirmed.body.error).toMatchObject({ code: 'needs_confirmation', details: { weightKg: [expect.stringMatching(/60 % more than 2 kg/)] } });
+    const res = await coord.patch(`/api/infants/${infant.id}`).set('X-CSRF-Token', coord.csrf).send({ rowVersion: before.rowVersion, weightKg: 3.2, weightDate: '2026-11-28', weightConfirmed: true }).expect(200);
     expect(res.body.flags).toEqual(expect.arrayContaining(['growth_drift', 'new_setting_waiting']));
     expect(res.body.status).toBe('on_oxygen');
     const versions = (await coord.get(`/api/infants/${infant.id}/prescriptions`).expect(200)).body.items;
