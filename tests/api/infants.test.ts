@@ -35,6 +35,20 @@ describe('POST /api/infants', () => {
     expect(audit.map((a) => a.action).sort()).toEqual(['infant.enrolled', 'prescription.requested']);
   });
 
+  it('when 0.32 kg is typed for 3.2 kg, then 422 asks to confirm and nothing is stored; once confirmed it is saved', async () => {
+    // common practice: a weight under 1.0 kg at discharge home is rare enough to check (shared/clinical/weight-check.ts)
+    const clinic = await makeClinic(ctx.deps);
+    const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
+    const body = enrolmentBody(clinic, { weightKg: 0.32 });
+    const res = await coord.post('/api/infants').set('X-CSRF-Token', coord.csrf).send(body).expect(422);
+    expect(res.body.error).toMatchObject({ code: 'needs_confirmation', details: { 'baby.weightKg': [expect.stringMatching(/^0.32 kg is under 1 kg/)] } });
+    const [{ n }] = await ctx.deps.ds.query(`SELECT count(*)::int n FROM infants WHERE programme_id = $1`, [clinic.programme.id]);
+    expect(n).toBe(0);
+    await coord.post('/api/infants').set('X-CSRF-Token', coord.csrf).send({ ...body, baby: { ...body.baby, weightConfirmed: true } }).expect(201);
+    const tiny = await coord.post('/api/infants').set('X-CSRF-Token', coord.csrf).send(enrolmentBody(clinic, { weightKg: 0.05 })).expect(400);
+    expect(tiny.body.error.details['baby.weightKg']).toEqual(['At least 0.3 kg']);
+  });
+
   it('when the same form is submitted twice, then one baby and one proposal exist', async () => {
     const clinic = await makeClinic(ctx.deps);
     const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
