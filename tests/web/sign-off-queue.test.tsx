@@ -51,7 +51,7 @@ describe('Sign-off queue', () => {
     expect(first.getByText('1,240 m')).toBeInTheDocument();
     expect(first.getByText('Enrolment')).toBeInTheDocument();
     expect(first.getByText('0.25 L/min')).toBeInTheDocument();
-    expect(first.getByText('2 checks')).toBeInTheDocument();
+    expect(first.getByText('2 points to check')).toBeInTheDocument();
     expect(first.getByText('2 days ago')).toBeInTheDocument();
     expect(first.getByText('Larkmoor Regional Children’s Hospital')).toBeInTheDocument();
 
@@ -59,7 +59,7 @@ describe('Sign-off queue', () => {
     expect(second.getByText('Home elevation or pressure changed')).toBeInTheDocument();
     expect(second.getByText('Measured 612.4 mmHg')).toBeInTheDocument();
     expect(second.getByText('No setting reaches the target — decide')).toBeInTheDocument();
-    expect(second.getByText('1 check')).toBeInTheDocument();
+    expect(second.getByText('1 point to check')).toBeInTheDocument();
     expect(second.getByText('5 hours ago')).toBeInTheDocument();
 
     expect(within(cards[2]).getByText('Weight changed')).toBeInTheDocument();
