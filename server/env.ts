@@ -46,6 +46,8 @@ const envSchema = z
     FAKE_MAIL_HTTP_PORT: z.coerce.number().int().min(0).max(65535).default(3101),
     FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2526),
     FAKE_SMS_PORT: z.coerce.number().int().min(0).max(65535).default(3102),
+    // Where the fakes keep what they received (npm start: .data/fakes), so a restarted fake loses nothing; empty: memory.
+    FAKE_INBOX_DIR: z.string().default(''),
     INBOUND_WEBHOOK_URL: optionalUrl,
     // Message delivery: attempts per message (exponential backoff from the base delay), how often the reconciler
     // looks for due messages in PostgreSQL, and how many go out at once per worker.

@@ -4,7 +4,7 @@ import { reconcileReminders } from '../../server/modules/reminders/reconcile';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent, type Agent } from '../helpers/agents';
 import { enrolmentBody, makeClinic } from '../helpers/infants';
-import { policyWithoutQuietHours, startMessaging, waitFor, type Messaging } from '../helpers/messaging';
+import { bringForward, policyWithoutQuietHours, startMessaging, waitFor, type Messaging } from '../helpers/messaging';
 
 let ctx: TestContext;
 let msg: Messaging;
@@ -158,8 +158,13 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     const [done] = await settled([first.id]);
     expect(done).toMatchObject({ status: 'failed', attempts: 1 });
     expect(done.last_error).toMatch(/not valid/);
+    // The failure joins the coordinator's alert for this period, which goes when the period ends: here, now.
+    const [pending] = await ctx.deps.ds.query(`SELECT * FROM reminders WHERE template = 'delivery-failed' AND programme_id = $1`, [clinic.programme.id]);
+    expect(pending.data.failures.map((f: { reminderId: string }) => f.reminderId)).toEqual([first.id]);
+    await bringForward(ctx.deps, msg.queue, [pending.id]);
+    await makeDue([pending.id]);
     const alert = await waitFor('the coordinator alert', async () => {
-      const [a] = await ctx.deps.ds.query(`SELECT * FROM reminders WHERE template = 'delivery-failed' AND dedupe_key LIKE $1`, [`delivery-failed-${first.id}-%`]);
+      const [a] = await ctx.deps.ds.query(`SELECT * FROM reminders WHERE id = $1`, [pending.id]);
       return a?.status === 'sent' && a;
     });
     expect(alert.to_address).toBe(clinic.people.coordinator.email);
