@@ -60,5 +60,6 @@ echo
 status=0
 wait "$SUPERVISOR" || status=$?
 SUPERVISOR=""
-log "The process supervisor ended (exit $status): a child kept crashing; stopping the rest"
+if [ "$status" = 0 ]; then log "The process supervisor stopped its children"; else
+  log "The process supervisor ended (exit $status): a child kept crashing; stopping the rest"; fi
 exit "$status"
