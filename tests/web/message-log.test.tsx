@@ -97,6 +97,15 @@ describe('Message log', () => {
     expect(screen.getByText('Page 1 of 1 · 4 messages')).toBeInTheDocument();
   });
 
+  it('when an e-mail\'s outcome is unknown, then the row says to check before sending again and still offers it', async () => {
+    stubLog({ rows: () => [message(5, { status: 'unknown', channel: 'email', reason: 'Outcome unknown — check before sending again', sentAt: null, attempts: 2, providerId: null, lastError: 'No mail search is configured to check' })] });
+    renderApp('/messages');
+    const [row] = await bodyRows();
+    expect(within(row).getByText('Outcome unknown — check before sending again')).toBeInTheDocument();
+    expect(within(row).getByText('It may already have reached them (No mail search is configured to check).')).toBeInTheDocument();
+    expect(within(row).getByRole('button', { name: /Send again/ })).toBeInTheDocument();
+  });
+
   it('when "Send again" is pressed, then the retry is posted with the CSRF token, a toast confirms it and the list is read again', async () => {
     let retried = false;
     const posts: FakeRequest[] = [];

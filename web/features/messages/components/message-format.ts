@@ -6,7 +6,7 @@ export const MESSAGE_STATUS_LABELS: Record<MessageStatus, string> = {
   failed: 'Failed',
   skipped: 'Not sent',
   cancelled: 'Called off',
-  unknown: 'Outcome unknown',
+  unknown: 'Outcome unknown — check before sending again',
 };
 
 export const CHANNEL_LABELS: Record<Channel, string> = { sms: 'SMS', email: 'E-mail' };
@@ -32,7 +32,7 @@ export function statusDetail(message: Pick<Message, 'status' | 'reason' | 'lastE
     case 'scheduled':
       return message.lastError ? `Last try failed: ${message.lastError}` : null;
     case 'unknown':
-      return 'Check with the family before sending again: it may already have reached them.';
+      return `It may already have reached them${message.lastError ? ` (${message.lastError})` : ''}.`;
     case 'sent':
       return null;
   }
