@@ -78,7 +78,7 @@ describe('coordinator alerts for failed family messages', () => {
     const r = { programme_id: clinic.programme.id, infant_id: infantId };
     // Fixed instants: 09:10 and 09:50 UTC share a period; 10:05 is the next one.
     const at = (t: string) => new Date(`2026-03-29T${t}:00Z`);
-    const add = (n: number, t: string) => ctx.deps.ds.transaction((m) => addToFailureAlerts(m, r, item(n), settings, at(t)));
+    const add = (n: number, t: string) => ctx.deps.ds.transaction((m) => addToFailureAlerts(ctx.deps.repos, m, r, item(n), settings, at(t)));
     const [a] = await add(1, '09:10');
     const [b] = await add(2, '09:50');
     expect(b.id).toBe(a.id);

@@ -151,7 +151,7 @@ export function createDelivery(deps: DeliveryDeps) {
       }
       if (!c.reminder.contact_id) return [];
       const [infant] = c.reminder.infant_id ? await m.query(`SELECT given_name FROM infants WHERE id = $1`, [c.reminder.infant_id]) : [];
-      return addToFailureAlerts(m, c.reminder, {
+      return addToFailureAlerts(repos, m, c.reminder, {
         reminderId: c.reminder.id, outcome, familyName: c.reminder.recipient_name, babyName: infant?.given_name ?? '', template: c.reminder.template,
         channel: c.channel, address: c.address, error, at: now.toISOString(),
       }, await policyOf(c.reminder.programme_id, m), now);

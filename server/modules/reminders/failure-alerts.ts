@@ -1,6 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import type { Channel, MessageTemplate } from '../../../shared/schemas/messages';
 import type { PolicySettings } from '../../../shared/schemas/policy';
+import type { AppRepos } from '../../deps';
 
 /** One family message a coordinator must look at: it failed, or whether it went is unknown. */
 export interface FailureItem {
@@ -28,6 +29,7 @@ export function alertPeriod(now: Date, minutes: number, ahead = 0): { index: num
  * period's alert instead, so nothing is lost and nothing is listed twice. Returns the alert rows to enqueue.
  */
 export async function addToFailureAlerts(
+  repos: Pick<AppRepos, 'reminders'>,
   m: EntityManager,
   r: { programme_id: string; infant_id: string | null },
   item: FailureItem,
@@ -41,14 +43,10 @@ export async function addToFailureAlerts(
   for (const u of coordinators) {
     for (let ahead = 0; ahead < 3; ahead += 1) {
       const period = alertPeriod(now, settings.reminders.failureAlertPeriodMinutes, ahead);
-      const [row] = await m.query(
-        `INSERT INTO reminders (programme_id, template, user_id, recipient_name, channel, to_address, time_zone, data, dedupe_key, send_at)
-         VALUES ($1, 'delivery-failed', $2, $3, 'email', $4, $5, jsonb_build_object('failures', jsonb_build_array($6::jsonb)), $7, $8)
-         ON CONFLICT (dedupe_key) DO UPDATE SET data = jsonb_set(reminders.data, '{failures}', (reminders.data -> 'failures') || (EXCLUDED.data -> 'failures')), updated_at = now()
-           WHERE reminders.status = 'scheduled' AND NOT EXISTS (SELECT 1 FROM deliveries d WHERE d.reminder_id = reminders.id)
-         RETURNING id, send_at`,
-        [r.programme_id, u.id, u.name, u.email, programme.time_zone, JSON.stringify(item), `delivery-failed-${r.programme_id}-${u.id}-${period.index}`, period.endsAt],
-      );
+      const row = await repos.reminders.appendToAlert({
+        programmeId: r.programme_id, userId: u.id, name: u.name, email: u.email, timeZone: programme.time_zone, item,
+        dedupeKey: `delivery-failed-${r.programme_id}-${u.id}-${period.index}`, sendAt: period.endsAt,
+      }, m);
       if (row) {
         rows.push(row);
         break;
