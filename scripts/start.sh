@@ -1,16 +1,16 @@
 #!/usr/bin/env bash
 # npm start: set up everything on this machine, then run the API (serving the web app), the worker and the local
-# fake mail/SMS servers until Ctrl-C, which stops all that this script started.
+# fake mail/SMS servers until Ctrl-C, which stops all that this script started. A child that crashes is restarted
+# with backoff by scripts/supervisor (everything stops only on Ctrl-C or 5 crashes of one child within 60 s).
 source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 cd "$ROOT"
 
-PIDS=()
+SUPERVISOR=""
 REDIS_STARTED_HERE=0
 cleanup() {
   trap - INT TERM EXIT
   log "Stopping Nestflow"
-  for pid in "${PIDS[@]}"; do kill -TERM "$pid" 2>/dev/null || true; done
-  for pid in "${PIDS[@]}"; do wait "$pid" 2>/dev/null || true; done
+  if [ -n "$SUPERVISOR" ]; then kill -TERM "$SUPERVISOR" 2>/dev/null || true; wait "$SUPERVISOR" 2>/dev/null || true; fi
   [ "$REDIS_STARTED_HERE" = 1 ] && stop_redis "$REDIS_PORT"
   [ "${PG_STARTED_HERE:-0}" = 1 ] && stop_postgres
   log "Stopped"
@@ -29,6 +29,9 @@ export REDIS_URL="${REDIS_URL:-redis://127.0.0.1:$REDIS_PORT}"
 export PORT="${PORT:-3000}"
 # The fake SMS server forwards replies (STOP) to the API's webhook, signed like the hosted service signs them.
 export INBOUND_WEBHOOK_URL="${INBOUND_WEBHOOK_URL:-http://127.0.0.1:$PORT/api/webhooks/sms}"
+# What the fakes received is kept on disk, so a restarted fake still lists (and finds) it.
+export FAKE_INBOX_DIR="${FAKE_INBOX_DIR:-$DATA_DIR/fakes}"
+# The worker and API derive where to send from FAKE_SMTP_PORT / FAKE_SMS_PORT / FAKE_MAIL_HTTP_PORT (server/env.ts).
 
 log "Applying database migrations"
 node --import tsx server/db/migrate.ts
@@ -39,9 +42,7 @@ fi
 log "Building the web app"
 npx vite build --logLevel warn
 
-node --import tsx server/main.ts & PIDS+=($!)
-node --import tsx worker/main.ts & PIDS+=($!)
-for f in fakes/*/main.ts; do [ -f "$f" ] && { node --import tsx "$f" & PIDS+=($!); }; done
+node --import tsx scripts/supervisor/main.ts & SUPERVISOR=$!
 
 for _ in $(seq 1 100); do
   node -e 'fetch(process.argv[1]).then((r) => process.exit(r.ok ? 0 : 1), () => process.exit(1))' \
@@ -57,6 +58,8 @@ echo "  Press Ctrl-C to stop."
 echo
 
 status=0
-wait -n "${PIDS[@]}" || status=$?
-log "A Nestflow process ended (exit $status); stopping the rest"
+wait "$SUPERVISOR" || status=$?
+SUPERVISOR=""
+if [ "$status" = 0 ]; then log "The process supervisor stopped its children"; else
+  log "The process supervisor ended (exit $status): a child kept crashing; stopping the rest"; fi
 exit "$status"

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { DEFAULT_SMS_AUTH_TOKEN, DEFAULT_SMS_ACCOUNT_SID, productionProblems } from './env-production';
 
 // The only place that reads process.env. Defaults make `npm start` work on a fresh machine with no .env.
 const boolFromString = z
@@ -28,18 +29,25 @@ const envSchema = z
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
     // Defaults point the senders at the local fakes (fakes/mail, fakes/sms); real credentials reach the hosted ones.
     SMTP_HOST: z.string().min(1).default('127.0.0.1'),
-    SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2526),
+    // Unset: the local fake's port (FAKE_SMTP_PORT) outside production, the submission port in production.
+    SMTP_PORT: z.coerce.number().int().min(1).max(65535).optional(),
     SMTP_SECURE: boolFromString.default(false),
     SMTP_USER: z.string().min(1).optional(),
     SMTP_PASS: z.string().min(1).optional(),
     MAIL_FROM: z.string().min(3).default('Nestflow <no-reply@nestflow.example>'),
-    TWILIO_ACCOUNT_SID: z.string().regex(/^AC[0-9a-fA-F]{32}$/).default('AC00000000000000000000000000000000'),
-    TWILIO_AUTH_TOKEN: z.string().min(8).default('nestflow-fake-sms-auth-token'),
+    TWILIO_ACCOUNT_SID: z.string().regex(/^AC[0-9a-fA-F]{32}$/).default(DEFAULT_SMS_ACCOUNT_SID),
+    TWILIO_AUTH_TOKEN: z.string().min(8).default(DEFAULT_SMS_AUTH_TOKEN),
     TWILIO_FROM: z.string().min(3).default('+15005550006'),
-    SMS_API_BASE: optionalUrl.default('http://127.0.0.1:3102'),
+    // Unset: the local fake (FAKE_SMS_PORT) outside production, the hosted service in production.
+    SMS_API_BASE: optionalUrl,
+    // Where an e-mail attempt of unknown outcome is looked up by Message-ID (server/notifications/mail-search.ts).
+    // Unset: the local fake's search outside production, none in production (such e-mails wait for a coordinator).
+    MAIL_SEARCH_URL: optionalUrl,
     FAKE_MAIL_HTTP_PORT: z.coerce.number().int().min(0).max(65535).default(3101),
     FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2526),
     FAKE_SMS_PORT: z.coerce.number().int().min(0).max(65535).default(3102),
+    // Where the fakes keep what they received (npm start: .data/fakes), so a restarted fake loses nothing; empty: memory.
+    FAKE_INBOX_DIR: z.string().default(''),
     INBOUND_WEBHOOK_URL: optionalUrl,
     // Message delivery: attempts per message (exponential backoff from the base delay), how often the reconciler
     // looks for due messages in PostgreSQL, and how many go out at once per worker.
@@ -48,27 +56,49 @@ const envSchema = z
     REMINDER_RECONCILE_MS: z.coerce.number().int().min(200).max(3_600_000).default(30_000),
     REMINDER_CONCURRENCY: z.coerce.number().int().min(1).max(100).default(8),
     SEND_TIMEOUT_MS: z.coerce.number().int().min(100).max(120_000).default(10_000),
-  })
-  .superRefine((env, ctx) => {
-    if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
-      ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'is required in production (32+ characters)' });
-    }
   });
 
-export type Env = z.infer<typeof envSchema> & { SESSION_SECRET: string; COOKIE_SECURE: boolean };
+type Parsed = z.infer<typeof envSchema>;
+export type Env = Omit<Parsed, 'SMTP_PORT' | 'SMS_API_BASE' | 'MAIL_SEARCH_URL'> & {
+  SESSION_SECRET: string;
+  COOKIE_SECURE: boolean;
+  SMTP_PORT: number;
+  /** Empty: the hosted SMS service. */
+  SMS_API_BASE: string;
+  /** Empty: no mail search; an uncertain e-mail is held for a coordinator. */
+  MAIL_SEARCH_URL: string;
+};
+
+/** The configuration, or every problem with it (each naming its variable). Pure, so it is tested directly. */
+export function parseEnv(source: NodeJS.ProcessEnv): { env: Env; problems?: undefined } | { env?: undefined; problems: string[] } {
+  const parsed = envSchema.safeParse(source);
+  if (!parsed.success) return { problems: parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`) };
+  const env = parsed.data;
+  const production = env.NODE_ENV === 'production';
+  if (production) {
+    const problems = productionProblems(source, env);
+    if (problems.length) return { problems };
+  }
+  // Outside production the senders follow the fakes wherever they were told to listen (npm start with other ports).
+  const fake = (port: number) => `http://127.0.0.1:${port}`;
+  return {
+    env: {
+      ...env,
+      // A fixed development secret is acceptable only because production refuses to start without one.
+      SESSION_SECRET: env.SESSION_SECRET ?? 'nestflow-development-only-session-secret-0000',
+      COOKIE_SECURE: env.COOKIE_SECURE ?? production,
+      SMTP_PORT: env.SMTP_PORT ?? (production ? (env.SMTP_SECURE ? 465 : 587) : env.FAKE_SMTP_PORT),
+      SMS_API_BASE: env.SMS_API_BASE ?? (production ? '' : fake(env.FAKE_SMS_PORT)),
+      MAIL_SEARCH_URL: env.MAIL_SEARCH_URL ?? (production ? '' : fake(env.FAKE_MAIL_HTTP_PORT)),
+    },
+  };
+}
 
 export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
-  const parsed = envSchema.safeParse(source);
-  if (!parsed.success) {
-    const lines = parsed.error.issues.map((i) => `  - ${i.path.join('.')}: ${i.message}`);
-    console.error(`Nestflow cannot start: bad configuration\n${lines.join('\n')}`);
+  const result = parseEnv(source);
+  if (result.problems) {
+    console.error(`Nestflow cannot start: bad configuration\n${result.problems.map((p) => `  - ${p}`).join('\n')}`);
     process.exit(1);
   }
-  const env = parsed.data;
-  return {
-    ...env,
-    // A fixed development secret is acceptable only because production refuses to start without one.
-    SESSION_SECRET: env.SESSION_SECRET ?? 'nestflow-development-only-session-secret-0000',
-    COOKIE_SECURE: env.COOKIE_SECURE ?? env.NODE_ENV === 'production',
-  };
+  return result.env;
 }

@@ -21,6 +21,7 @@ import { planDigests } from '../server/modules/reminders/digests';
 import { addReminderJobs } from '../server/jobs/reminder-jobs';
 import { createMailSender } from '../server/notifications/mail-sender';
 import { createSmsSender } from '../server/notifications/sms-sender';
+import { createMailSearch } from '../server/notifications/mail-search';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL, 'worker');
@@ -42,7 +43,9 @@ await upsertSchedules(maintenanceQueue, scheduleOptions);
 });
 const mail = createMailSender(env, { timeoutMs: env.SEND_TIMEOUT_MS });
 const sms = createSmsSender(env, { timeoutMs: env.SEND_TIMEOUT_MS });
-const delivery = createDelivery({ ds, repos, mail, sms, logger, enqueue: (rows) => addReminderJobs(messagesQueue, rows, reminderJobs),
+const mailSearch = createMailSearch(env.MAIL_SEARCH_URL, { timeoutMs: env.SEND_TIMEOUT_MS });
+if (!mailSearch) logger.warn('no mail search configured: an e-mail attempt of unknown outcome will wait for a coordinator');
+const delivery = createDelivery({ ds, repos, mail, sms, mailSearch, logger, enqueue: (rows) => addReminderJobs(messagesQueue, rows, reminderJobs),
   // Three sender time-outs: an attempt older than that cannot still be waiting on the provider.
   inFlightGuardMs: 3 * env.SEND_TIMEOUT_MS });
 // Pick up anything left 'preparing' while no worker was running.

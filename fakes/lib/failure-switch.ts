@@ -1,8 +1,10 @@
 import { z } from 'zod';
 
 // The names follow the HTTP-style classes; each fake decides what they mean for its own protocol.
+// 'accept-timeout' keeps the message (the provider accepted it) and then never answers: the crash window between
+// "accepted" and "recorded as sent" that the fault drills exercise.
 export const failRequestSchema = z.object({
-  mode: z.enum(['none', '5xx', '4xx', 'timeout']),
+  mode: z.enum(['none', '5xx', '4xx', 'timeout', 'accept-timeout']),
   count: z.number().int().min(1).optional(),
 });
 

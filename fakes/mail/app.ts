@@ -4,8 +4,10 @@ import express from 'express';
 import { SMTPServer, type SMTPServerDataStream, type SMTPServerSession } from 'smtp-server';
 import { createFailureSwitch } from '../lib/failure-switch';
 import { createInspectionRouter } from '../lib/inspection-router';
+import { createInbox } from '../lib/inbox';
 import { closeHttp, listenOn } from '../lib/listen';
 import { parseMessage } from './parse-message';
+import { searchRouter } from './search';
 
 export interface FakeMailMessage {
   id: string;
@@ -28,9 +30,11 @@ function smtpError(responseCode: number, message: string): Error {
   return Object.assign(new Error(message), { responseCode });
 }
 
-export async function startFakeMail(opts: { smtpPort: number; httpPort: number; host?: string }): Promise<FakeMail> {
+export async function startFakeMail(opts: { smtpPort: number; httpPort: number; host?: string; inboxFile?: string }): Promise<FakeMail> {
   const host = opts.host ?? '127.0.0.1';
-  const store: FakeMailMessage[] = [];
+  const store = createInbox<FakeMailMessage>(opts.inboxFile);
+  // The failure chosen at MAIL FROM, carried to DATA for 'accept-timeout'.
+  const modes = new WeakMap<SMTPServerSession, string>();
   const failures = createFailureSwitch();
 
   const smtp = new SMTPServer({
@@ -40,10 +44,11 @@ export async function startFakeMail(opts: { smtpPort: number; httpPort: number; 
     logger: false,
     // A 'timeout' transaction holds its socket open; shutting down must not wait the default 30 s for it.
     closeTimeout: 500,
-    onMailFrom(_address, _session, callback) {
+    onMailFrom(_address, session, callback) {
       // SMTP has its own classes: 4yz is "try again later", 5yz is "never". The issue's '5xx' means provider
       // trouble worth retrying, so it answers 451; '4xx' means a request that will never succeed, so 550.
       const mode = failures.next();
+      modes.set(session, mode);
       if (mode === 'timeout') return;
       if (mode === '5xx') return callback(smtpError(451, 'Requested action aborted: local error in processing'));
       if (mode === '4xx') return callback(smtpError(550, 'Requested action not taken: mailbox unavailable'));
@@ -65,6 +70,7 @@ export async function startFakeMail(opts: { smtpPort: number; httpPort: number; 
           ...parseMessage(raw),
           raw,
         });
+        if (modes.get(session) === 'accept-timeout') return;
         callback(null, `Queued as ${id}`);
       });
     },
@@ -74,7 +80,8 @@ export async function startFakeMail(opts: { smtpPort: number; httpPort: number; 
 
   const app = express();
   app.disable('x-powered-by');
-  app.use(createInspectionRouter({ name: 'mail', list: () => store, clear: () => void store.splice(0), failures }));
+  app.use(createInspectionRouter({ name: 'mail', list: store.list, clear: store.clear, failures }));
+  app.use(searchRouter(store.list));
   const http = createServer(app);
 
   const smtpPort = await listenOn(smtp.server, opts.smtpPort, host);
@@ -89,7 +96,7 @@ export async function startFakeMail(opts: { smtpPort: number; httpPort: number; 
   return {
     smtpPort,
     httpPort,
-    messages: () => store,
+    messages: store.list,
     close: async () => {
       await Promise.all([closeHttp(http), new Promise<void>((resolve) => smtp.close(() => resolve()))]);
     },

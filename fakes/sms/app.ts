@@ -3,6 +3,7 @@ import { createServer } from 'node:http';
 import express, { type Request, type Response } from 'express';
 import { createFailureSwitch } from '../lib/failure-switch';
 import { createInspectionRouter } from '../lib/inspection-router';
+import { createInbox } from '../lib/inbox';
 import { closeHttp, listenOn } from '../lib/listen';
 import { forwardInbound, type InboundForwarding } from './inbound';
 
@@ -27,6 +28,8 @@ export interface FakeSms {
 export interface FakeSmsOptions extends InboundForwarding {
   port: number;
   host?: string;
+  /** Keeps the inbox on disk (one JSON line per message) so a restart loses nothing. */
+  inboxFile?: string;
 }
 
 const newSid = (prefix: string) => prefix + randomBytes(16).toString('hex');
@@ -46,11 +49,11 @@ function basicUser(req: Request): string | null {
 }
 
 export async function startFakeSms(opts: FakeSmsOptions): Promise<FakeSms> {
-  const store: FakeSmsMessage[] = [];
+  const store = createInbox<FakeSmsMessage>(opts.inboxFile);
   const failures = createFailureSwitch();
   const app = express();
   app.disable('x-powered-by');
-  app.use(createInspectionRouter({ name: 'sms', list: () => store, clear: () => void store.splice(0), failures }));
+  app.use(createInspectionRouter({ name: 'sms', list: store.list, clear: store.clear, failures }));
 
   app.post('/2010-04-01/Accounts/:sid/Messages.json', express.urlencoded({ extended: false }), (req, res) => {
     const accountSid = String(req.params.sid);
@@ -82,6 +85,7 @@ export async function startFakeSms(opts: FakeSmsOptions): Promise<FakeSms> {
       authUser: user,
     };
     store.push(message);
+    if (mode === 'accept-timeout') return;
     res.status(201).json({
       sid: message.sid,
       account_sid: accountSid,
@@ -112,7 +116,7 @@ export async function startFakeSms(opts: FakeSmsOptions): Promise<FakeSms> {
     const query = req.query as Record<string, string | undefined>;
     const after = query['DateSent>'] ? Date.parse(query['DateSent>']) : null;
     const pageSize = Math.min(1000, Number(query.PageSize ?? 50) || 50);
-    const matches = store
+    const matches = store.list()
       .filter((m) => m.accountSid === accountSid && (!query.To || m.to === query.To) && (!query.From || m.from === query.From))
       .filter((m) => after === null || Date.parse(m.dateCreated) >= after)
       .slice(-pageSize)
@@ -142,5 +146,5 @@ export async function startFakeSms(opts: FakeSmsOptions): Promise<FakeSms> {
 
   const http = createServer(app);
   const port = await listenOn(http, opts.port, opts.host ?? '127.0.0.1');
-  return { port, messages: () => store, close: () => closeHttp(http) };
+  return { port, messages: store.list, close: () => closeHttp(http) };
 }

@@ -1,3 +1,4 @@
+import path from 'node:path';
 import { loadEnv } from '../../server/env';
 import { createLogger } from '../../server/lib/logger';
 import { closeOnSignals } from '../lib/listen';
@@ -7,6 +8,7 @@ const env = loadEnv();
 const log = createLogger(env.LOG_LEVEL, 'fake-sms');
 const fake = await startFakeSms({
   port: env.FAKE_SMS_PORT,
+  inboxFile: env.FAKE_INBOX_DIR ? path.join(env.FAKE_INBOX_DIR, 'sms.jsonl') : undefined,
   inboundWebhookUrl: env.INBOUND_WEBHOOK_URL || undefined,
   accountSid: env.TWILIO_ACCOUNT_SID,
   authToken: env.TWILIO_AUTH_TOKEN,

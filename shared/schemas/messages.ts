@@ -27,8 +27,11 @@ export const MESSAGE_TEMPLATE_LABELS: Record<MessageTemplate, string> = {
 export const CHANNELS = ['sms', 'email'] as const;
 export type Channel = (typeof CHANNELS)[number];
 
-/** scheduled → sent | failed | skipped | cancelled. */
-export const MESSAGE_STATUSES = ['scheduled', 'sent', 'failed', 'skipped', 'cancelled'] as const;
+/**
+ * scheduled → sent | failed | skipped | cancelled | unknown. 'unknown': an e-mail attempt may or may not have
+ * reached the provider and no mail search could tell; it waits for a coordinator instead of going twice.
+ */
+export const MESSAGE_STATUSES = ['scheduled', 'sent', 'failed', 'skipped', 'cancelled', 'unknown'] as const;
 export type MessageStatus = (typeof MESSAGE_STATUSES)[number];
 
 /** Why a message was skipped or cancelled, in words staff can act on. */
@@ -39,6 +42,7 @@ export const SKIP_REASONS = {
   'nothing-to-send': 'Nothing to report at send time',
   'visit-changed': 'The visit was moved or cancelled',
   'no-longer-needed': 'No longer needed',
+  'outcome-unknown': 'Outcome unknown — check before sending again',
 } as const;
 export type SkipReason = keyof typeof SKIP_REASONS;
 

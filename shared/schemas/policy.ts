@@ -66,6 +66,8 @@ export const reminderRulesSchema = z.strictObject({
   staffDigestAt: clock,
   /** A proposal waiting longer than this goes into the consultants' digest. */
   signOffWaitingHours: int(1, 24 * 14, 'hours'),
+  // --- Failure alerts (issue 12): failed family messages are gathered into one e-mail per coordinator per period.
+  failureAlertPeriodMinutes: int(5, 24 * 60, 'minutes'),
 });
 
 const phoneNumber = z.string().trim().regex(/^\+?[0-9][0-9 ()-]{1,22}$/, { error: 'Use digits, spaces and an optional leading +' });
@@ -141,7 +143,9 @@ export const DEFAULT_POLICY_SETTINGS: PolicySettings = {
   oximetry: { minEventSeconds: 10, minValidMinutes: 300 },
   readingEditWindowMinutes: 30,
   // Quiet hours 21:00–08:00 as the product asks; the other times and the 24 h wait are common practice defaults.
-  reminders: { dayBeforeAt: '17:00', morningOfAt: '08:00', quietStart: '21:00', quietEnd: '08:00', staffDigestAt: '08:00', signOffWaitingHours: 24 },
+  reminders: { dayBeforeAt: '17:00', morningOfAt: '08:00', quietStart: '21:00', quietEnd: '08:00', staffDigestAt: '08:00', signOffWaitingHours: 24,
+    // Common practice: coordinators hear of failed family messages within the hour, in one e-mail.
+    failureAlertPeriodMinutes: 60 },
   // Placeholders until an admin enters the programme's own numbers.
   contacts: { phones: [], emergencyNumber: '999' },
   // Demo defaults only (a supplier's labelled sizes vary, clinical-methods.md §7); reserve: common practice.

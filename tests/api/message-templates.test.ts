@@ -90,8 +90,17 @@ describe('message templates', () => {
 
   it('when the coordinator is told a message failed, then the e-mail names the family, the channel, the address and the reason', async () => {
     const out = renderMessage('delivery-failed', 'email', 'en', await viewFor('delivery-failed'));
-    expect(out.subject).toBe('A message to Rowan Ashby could not be delivered');
-    expect(out.text).toContain('Message: Visit tomorrow (family)\nBy: text message to +447700900001\nReason given: Unknown number');
+    expect(out.subject).toBe('Nestflow: 1 family message could not be delivered');
+    expect(out.text).toContain("- Rowan Ashby (Ava's family): Visit tomorrow (family) by text message to +447700900001. Not delivered. Reason given: Unknown number");
+    expect(out.text).not.toMatch(/outcome is unknown/);
+  });
+
+  it('when the alert gathers a failure and an e-mail of unknown outcome, then it lists both and says to check before sending again', async () => {
+    const unknown = { ...failedData, familyName: 'Idris Quell', babyName: 'Noor', channel: 'email', address: 'idris@test.example', outcome: 'unknown', error: 'No mail search' };
+    const out = renderMessage('delivery-failed', 'email', 'en', await viewFor('delivery-failed', 'en', { failures: [{ ...failedData, outcome: 'failed' }, unknown] }));
+    expect(out.subject).toBe('Nestflow: 2 family messages could not be delivered');
+    expect(out.text).toContain("- Idris Quell (Noor's family): Visit tomorrow (family) by e-mail to idris@test.example. Outcome unknown — check before sending again. Reason given: No mail search");
+    expect(out.text).toContain('may already have reached the family: check with them before sending it again');
   });
 });
 

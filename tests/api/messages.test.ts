@@ -132,6 +132,21 @@ describe('sending a failed message again', () => {
     await post(coord, `/api/messages/${failedId}/retry`).expect(409);
   });
 
+  it('when an e-mail of unknown outcome is marked as arrived, then it is recorded as sent, audited and can be neither resent nor marked twice', async () => {
+    const { clinic, coord, infant } = await programmeWithVisit();
+    const id = await insertReminder(ctx.deps, { programmeId: clinic.programme.id, infantId: infant.id, status: 'unknown' });
+    const theirs = await programmeWithVisit();
+    await post(theirs.coord, `/api/messages/${id}/arrived`).expect(404);
+    const nurse = await signedInAgent(ctx.app, clinic.people.nurse.email);
+    await post(nurse, `/api/messages/${id}/arrived`).expect(403);
+    const res = await post(coord, `/api/messages/${id}/arrived`).expect(200);
+    expect(res.body.message).toMatchObject({ id, status: 'sent' });
+    const audit = await ctx.deps.ds.query(`SELECT actor_id, details FROM audit_events WHERE action = 'message.confirmed-arrived' AND entity_id = $1`, [infant.id]);
+    expect(audit).toEqual([{ actor_id: clinic.people.coordinator.id, details: { messageId: id, template: 'visit-day-before' } }]);
+    await post(coord, `/api/messages/${id}/arrived`).expect(409);
+    await post(coord, `/api/messages/${id}/retry`).expect(409);
+  });
+
   it('when the admin sends a failed staff message again, then 200', async () => {
     const { clinic } = await programmeWithVisit();
     const failedId = await insertReminder(ctx.deps, { programmeId: clinic.programme.id, template: 'nurse-digest' });

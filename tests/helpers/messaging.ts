@@ -1,13 +1,14 @@
 import { Queue, Worker } from 'bullmq';
 import { startFakeMail, type FakeMail } from '../../fakes/mail/app';
 import { startFakeSms, type FakeSms } from '../../fakes/sms/app';
-import { QUEUES } from '../../shared/jobs/catalogue';
+import { QUEUES, reminderJobId } from '../../shared/jobs/catalogue';
 import type { PolicySettings } from '../../shared/schemas/policy';
 import type { AppDeps } from '../../server/deps';
 import { addReminderJobs } from '../../server/jobs/reminder-jobs';
 import { createDelivery, type Delivery } from '../../server/modules/reminders/delivery';
 import { createMailSender } from '../../server/notifications/mail-sender';
 import { createSmsSender } from '../../server/notifications/sms-sender';
+import { createHttpMailSearch } from '../../server/notifications/mail-search';
 import { redisConnection } from '../../worker/queues';
 import { deliverReminderProcessor } from '../../worker/processors/deliver-reminder.processor';
 
@@ -25,7 +26,7 @@ export interface Messaging {
  * Both fakes on free loopback ports, the real senders (nodemailer, the twilio SDK) pointed at them, and a BullMQ
  * worker on the real messages queue under the test app's prefix: the same path the worker process runs.
  */
-export async function startMessaging(deps: AppDeps, opts: { attempts?: number; backoffMs?: number; timeoutMs?: number } = {}): Promise<Messaging> {
+export async function startMessaging(deps: AppDeps, opts: { attempts?: number; backoffMs?: number; timeoutMs?: number; mailSearch?: boolean; clock?: () => Date } = {}): Promise<Messaging> {
   const env = deps.env;
   const mail = await startFakeMail({ smtpPort: 0, httpPort: 0 });
   const sms = await startFakeSms({ port: 0, accountSid: env.TWILIO_ACCOUNT_SID, authToken: env.TWILIO_AUTH_TOKEN, ourNumber: env.TWILIO_FROM });
@@ -36,7 +37,9 @@ export async function startMessaging(deps: AppDeps, opts: { attempts?: number; b
   const prefix = env.QUEUE_PREFIX;
   const queue = new Queue(QUEUES.messages, { connection, prefix });
   const jobOptions = { attempts: opts.attempts ?? 4, backoffMs: opts.backoffMs ?? 50 };
-  const delivery = createDelivery({ ds: deps.ds, repos: deps.repos, mail: mailSender, sms: smsSender, logger: deps.logger, enqueue: (rows) => addReminderJobs(queue, rows, jobOptions),
+  // The fake's message search stands in for the mail service's; `mailSearch: false` is a deployment without one.
+  const mailSearch = opts.mailSearch === false ? null : createHttpMailSearch(`http://127.0.0.1:${mail.httpPort}`, { timeoutMs: opts.timeoutMs ?? 1000 });
+  const delivery = createDelivery({ ds: deps.ds, repos: deps.repos, mail: mailSender, sms: smsSender, mailSearch, clock: opts.clock, logger: deps.logger, enqueue: (rows) => addReminderJobs(queue, rows, jobOptions),
     inFlightGuardMs: 3 * (opts.timeoutMs ?? 1000) });
   const worker = new Worker(QUEUES.messages, (job) => deliverReminderProcessor(job, delivery), { connection, prefix, concurrency: 4 });
   await worker.waitUntilReady();
@@ -49,6 +52,15 @@ export async function startMessaging(deps: AppDeps, opts: { attempts?: number; b
       await Promise.all([mail.close(), sms.close()]);
     },
   };
+}
+
+/** "Time passes" for rows already queued with a delay (a coordinators' alert waits for its period to end). */
+export async function bringForward(deps: AppDeps, queue: Queue, ids: string[]) {
+  await deps.ds.query(`UPDATE reminders SET send_at = now() WHERE id = ANY($1)`, [ids]);
+  for (const id of ids) {
+    const job = await queue.getJob(reminderJobId(id));
+    if (job && (await job.isDelayed())) await job.promote();
+  }
 }
 
 /** A programme policy with quiet hours switched off, so a test can deliver "now" at any hour of the day. */

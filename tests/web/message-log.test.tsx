@@ -97,6 +97,32 @@ describe('Message log', () => {
     expect(screen.getByText('Page 1 of 1 · 4 messages')).toBeInTheDocument();
   });
 
+  it('when an e-mail\'s outcome is unknown, then the row says to check before sending again and still offers it', async () => {
+    stubLog({ rows: () => [message(5, { status: 'unknown', channel: 'email', reason: 'Outcome unknown — check before sending again', sentAt: null, attempts: 2, providerId: null, lastError: 'No mail search is configured to check' })] });
+    renderApp('/messages');
+    const [row] = await bodyRows();
+    expect(within(row).getByText('Outcome unknown — check before sending again')).toBeInTheDocument();
+    expect(within(row).getByText('It may already have reached them (No mail search is configured to check).')).toBeInTheDocument();
+    expect(within(row).getByRole('button', { name: /Send again/ })).toBeInTheDocument();
+  });
+
+  it('when the coordinator records that an unknown-outcome message arrived, then it is posted with the CSRF token and the row reads sent', async () => {
+    const unknown = message(6, { status: 'unknown', channel: 'email', sentAt: null, providerId: null, lastError: null });
+    const posts: FakeRequest[] = [];
+    stubLog({
+      rows: () => [posts.length ? { ...unknown, status: 'sent' as const } : unknown],
+      extra: { [`POST /api/messages/${unknown.id}/arrived`]: (request) => (posts.push(request), json(200, { message: { ...unknown, status: 'sent' } })) },
+    });
+    const { user } = renderApp('/messages');
+    const [row] = await bodyRows();
+    await user.click(within(row).getByRole('button', { name: 'It reached Rosa Quill' }));
+    await waitFor(() => expect(posts).toHaveLength(1));
+    expect(posts[0].headers.get('X-CSRF-Token')).toBe('csrf-1');
+    expect(await screen.findByText('Recorded: the message reached Rosa Quill. It will not be sent again.')).toBeInTheDocument();
+    const [after] = await bodyRows();
+    await waitFor(() => expect(within(after).getByText('Sent')).toBeInTheDocument());
+  });
+
   it('when "Send again" is pressed, then the retry is posted with the CSRF token, a toast confirms it and the list is read again', async () => {
     let retried = false;
     const posts: FakeRequest[] = [];

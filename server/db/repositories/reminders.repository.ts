@@ -83,6 +83,20 @@ export function createRemindersRepository(ds: DataSource) {
       );
     },
 
+    /**
+     * Adds one item to a gathered alert (data.failures), creating the alert if needed. An alert whose delivery has
+     * begun (it has a ledger row) or ended is left alone: null, and the caller tries the next period's.
+     */
+    appendToAlert: async (a: { programmeId: string; userId: string; name: string; email: string; timeZone: string; item: unknown; dedupeKey: string; sendAt: Date }, m: EntityManager): Promise<{ id: string; send_at: Date } | null> =>
+      (await q(m).query(
+        `INSERT INTO reminders (programme_id, template, user_id, recipient_name, channel, to_address, time_zone, data, dedupe_key, send_at)
+         VALUES ($1, 'delivery-failed', $2, $3, 'email', $4, $5, jsonb_build_object('failures', jsonb_build_array($6::jsonb)), $7, $8)
+         ON CONFLICT (dedupe_key) DO UPDATE SET data = jsonb_set(reminders.data, '{failures}', (reminders.data -> 'failures') || (EXCLUDED.data -> 'failures')), updated_at = now()
+           WHERE reminders.status = 'scheduled' AND NOT EXISTS (SELECT 1 FROM deliveries d WHERE d.reminder_id = reminders.id)
+         RETURNING id, send_at`,
+        [a.programmeId, a.userId, a.name, a.email, a.timeZone, JSON.stringify(a.item), a.dedupeKey, a.sendAt],
+      ))[0] ?? null,
+
     /** Pending reminders of a visit become cancelled (the visit moved or was called off). */
     cancelForVisit: (visitId: string, m: EntityManager): Promise<unknown> =>
       q(m).query(`UPDATE reminders SET status = 'cancelled', reason = 'visit-changed', updated_at = now() WHERE visit_id = $1 AND status = 'scheduled'`, [visitId]),

@@ -17,5 +17,9 @@ export function messagesRouter(service: MessagesService) {
     assertCanAny(req, 'update', 'Message');
     res.json({ message: await service.retry(req.ability, actorOf(req), String(req.params.id)) });
   });
+  router.post('/:id/arrived', validate({ params: idParamsSchema }), async (req, res) => {
+    assertCanAny(req, 'update', 'Message');
+    res.json({ message: await service.confirmArrived(req.ability, actorOf(req), String(req.params.id)) });
+  });
   return router;
 }

@@ -6,9 +6,11 @@ import type { ReminderRow } from '../../db/repositories/reminders.repository';
 import type { AppRepos } from '../../deps';
 import type { Logger } from '../../lib/logger';
 import { PermanentSendError } from '../../notifications/errors';
+import type { MailSearch } from '../../notifications/mail-search';
 import type { MailSender } from '../../notifications/mail-sender';
 import { renderMessage, type RenderedMessage } from '../../notifications/render';
 import type { SmsSender } from '../../notifications/sms-sender';
+import { addToFailureAlerts } from './failure-alerts';
 import { messageView } from './message-content';
 
 /** Reminders the family gets about their visits and journeys; turning reminders off silences these. */
@@ -21,7 +23,8 @@ const FAMILY_REMINDERS = new Set<MessageTemplate>(['visit-day-before', 'visit-mo
 export const DEFAULT_IN_FLIGHT_GUARD_MS = 30_000;
 
 export type DeliveryOutcome =
-  | 'sent' | 'recovered' | 'already-done' | 'not-yet' | 'held-quiet-hours' | 'skipped' | 'failed' | 'in-flight-elsewhere' | 'missing';
+  | 'sent' | 'recovered' | 'already-done' | 'not-yet' | 'held-quiet-hours' | 'skipped' | 'failed' | 'in-flight-elsewhere' | 'missing'
+  | 'held-outcome-unknown';
 
 export interface DeliveryDeps {
   ds: DataSource;
@@ -29,9 +32,16 @@ export interface DeliveryDeps {
   mail: MailSender;
   sms: SmsSender;
   logger: Logger;
-  /** Enqueues reminders made while delivering (the coordinator's alert on a failure). */
+  /**
+   * The mail service's message search, to settle an e-mail attempt of unknown outcome. Without one such an e-mail
+   * is never sent again automatically: it waits as 'unknown' for a coordinator.
+   */
+  mailSearch?: MailSearch | null;
+  /** Enqueues reminders made while delivering (the coordinators' alerts on a failure). */
   enqueue(rows: Array<{ id: string; send_at: Date }>): Promise<void>;
   inFlightGuardMs?: number;
+  /** The time, injected so tests run at fixed instants. */
+  clock?: () => Date;
 }
 
 interface Claim {
@@ -47,6 +57,7 @@ const messageIdFor = (reminderId: string) => `<reminder-${reminderId}@nestflow.i
 
 export function createDelivery(deps: DeliveryDeps) {
   const { ds, repos } = deps;
+  const clock = deps.clock ?? (() => new Date());
 
   /** Where and how this message goes now: consent, opt-out and addresses are read at send time, not at booking. */
   async function resolveRecipient(r: ReminderRow, m: EntityManager): Promise<{ channel: Channel; address: string; name: string; language: string; timeZone: string } | { skip: string }> {
@@ -119,28 +130,58 @@ export function createDelivery(deps: DeliveryDeps) {
   async function markSent(id: string, providerId: string) {
     await ds.transaction(async (m) => {
       await repos.reminders.finishAttempt(id, 'sent', providerId, m);
-      await repos.reminders.update(id, { status: 'sent', provider_id: providerId, sent_at: new Date(), last_error: null }, m);
+      await repos.reminders.update(id, { status: 'sent', provider_id: providerId, sent_at: clock(), last_error: null }, m);
     });
   }
 
-  /** A family message that finally failed: marked so, and every coordinator of the programme is told by e-mail. */
-  async function markFailed(c: Claim, error: string) {
+  /**
+   * A family message that finally failed ('failed'), or whose e-mail may or may not have gone and cannot be
+   * settled ('unknown', left for a coordinator to decide): marked so, and added to each coordinator's alert for
+   * the period (policy: failureAlertPeriodMinutes), so twenty failures make one e-mail per coordinator, not forty.
+   */
+  async function markForCoordinators(c: Claim, outcome: 'failed' | 'unknown', error: string) {
+    const now = clock();
     const alerts = await ds.transaction(async (m) => {
-      await repos.reminders.finishAttempt(c.reminder.id, 'failed', null, m);
-      await repos.reminders.update(c.reminder.id, { status: 'failed', last_error: error }, m);
+      if (outcome === 'failed') {
+        await repos.reminders.finishAttempt(c.reminder.id, 'failed', null, m);
+        await repos.reminders.update(c.reminder.id, { status: 'failed', last_error: error }, m);
+      } else {
+        // The ledger stays 'sending': the attempt's outcome is still not known. Sending again is a person's choice.
+        await repos.reminders.update(c.reminder.id, { status: 'unknown', reason: 'outcome-unknown', last_error: error }, m);
+      }
       if (!c.reminder.contact_id) return [];
-      const coordinators: Array<{ id: string; name: string; email: string }> = await m.query(
-        `SELECT id, name, email FROM users WHERE programme_id = $1 AND role = 'coordinator' AND NOT disabled`, [c.reminder.programme_id]);
-      const [programme] = await m.query(`SELECT time_zone FROM programmes WHERE id = $1`, [c.reminder.programme_id]);
       const [infant] = c.reminder.infant_id ? await m.query(`SELECT given_name FROM infants WHERE id = $1`, [c.reminder.infant_id]) : [];
-      return repos.reminders.insertMany(coordinators.map((u) => ({
-        programmeId: c.reminder.programme_id, infantId: c.reminder.infant_id, template: 'delivery-failed' as const, userId: u.id, recipientName: u.name,
-        channel: 'email' as const, toAddress: u.email, timeZone: programme.time_zone, sendAt: new Date(),
-        data: { familyName: c.reminder.recipient_name, babyName: infant?.given_name ?? '', template: c.reminder.template, channel: c.channel, address: c.address, error },
-        dedupeKey: `delivery-failed-${c.reminder.id}-${u.id}`,
-      })), m);
+      return addToFailureAlerts(repos, m, c.reminder, {
+        reminderId: c.reminder.id, outcome, familyName: c.reminder.recipient_name, babyName: infant?.given_name ?? '', template: c.reminder.template,
+        channel: c.channel, address: c.address, error, at: now.toISOString(),
+      }, await policyOf(c.reminder.programme_id, m), now);
     });
     await deps.enqueue(alerts);
+  }
+
+  /**
+   * An earlier attempt began and never reported back. SMS: the provider's message list says whether it went.
+   * E-mail: the mail service's search by Message-ID; with no search, or none that answers by the last attempt,
+   * the message is held for a coordinator rather than sent a second time.
+   */
+  async function settleUncertain(c: Claim, since: Date, finalAttempt: boolean): Promise<'recovered' | 'send' | 'held-outcome-unknown'> {
+    const found = c.channel === 'sms'
+      ? await deps.sms.findSent({ to: c.address, body: c.message.text }, since)
+      : deps.mailSearch
+        ? await deps.mailSearch.findSent(messageIdFor(c.reminder.id), since).catch((err: unknown) => {
+          if (finalAttempt) return 'cannot-tell' as const;
+          throw err;
+        })
+        : ('cannot-tell' as const);
+    if (found === 'cannot-tell') {
+      await markForCoordinators(c, 'unknown', deps.mailSearch ? 'The mail service could not say whether it was accepted' : 'An attempt may have reached the mail service before the worker stopped; no mail search is configured to check');
+      return 'held-outcome-unknown';
+    }
+    if (found) {
+      await markSent(c.reminder.id, found.providerId);
+      return 'recovered';
+    }
+    return 'send';
   }
 
   async function send(c: Claim): Promise<{ providerId: string }> {
@@ -152,18 +193,16 @@ export function createDelivery(deps: DeliveryDeps) {
     /**
      * Delivers one reminder at most once. The ledger row written before the provider is called records that an
      * attempt began; if a worker dies after the provider accepted the message but before "sent" was written, the
-     * next attempt finds that row and asks the provider (SMS) before sending again. E-mail repeats carry the same
-     * Message-ID. `finalAttempt` turns a temporary failure into a final one.
+     * next attempt finds that row and asks the provider before sending again (SMS: its message list; e-mail: the
+     * mail search by Message-ID, or a coordinator when there is none). `finalAttempt` turns a temporary failure
+     * into a final one.
      */
     async deliver(id: string, opts: { finalAttempt: boolean; now?: Date }): Promise<DeliveryOutcome> {
-      const claimed = await claim(id, opts.now ?? new Date());
+      const claimed = await claim(id, opts.now ?? clock());
       if (typeof claimed === 'string') return claimed;
-      if (claimed.uncertainSince && claimed.channel === 'sms') {
-        const found = await deps.sms.findSent({ to: claimed.address, body: claimed.message.text }, claimed.uncertainSince);
-        if (found) {
-          await markSent(id, found.providerId);
-          return 'recovered';
-        }
+      if (claimed.uncertainSince) {
+        const settled = await settleUncertain(claimed, claimed.uncertainSince, opts.finalAttempt);
+        if (settled !== 'send') return settled;
       }
       try {
         const { providerId } = await send(claimed);
@@ -172,7 +211,7 @@ export function createDelivery(deps: DeliveryDeps) {
       } catch (err) {
         const message = err instanceof Error ? err.message : String(err);
         if (err instanceof PermanentSendError || opts.finalAttempt) {
-          await markFailed(claimed, message);
+          await markForCoordinators(claimed, 'failed', message);
           return 'failed';
         }
         // A time-out may have reached the provider: the ledger stays 'sending' so the retry checks first.

@@ -52,8 +52,18 @@ export async function messageView(ctx: ContentContext, m: EntityManager): Promis
       };
     case 'journey-day-before':
       return { ...common, ...d, dateText: plainDateText(String(d.departOn), language) };
-    case 'delivery-failed':
-      return { ...common, ...d, templateLabel: MESSAGE_TEMPLATE_LABELS[d.template as MessageTemplate] ?? d.template, channelLabel: d.channel === 'sms' ? 'text message' : 'e-mail' };
+    case 'delivery-failed': {
+      // One alert lists every item gathered in its period; a row written before alerts were gathered holds one.
+      const raw = r.data.failures;
+      const failures = (Array.isArray(raw) ? raw : [d]) as Array<Record<string, string>>;
+      const items = failures.map((f) => ({
+        ...f,
+        templateLabel: MESSAGE_TEMPLATE_LABELS[f.template as MessageTemplate] ?? f.template,
+        channelLabel: f.channel === 'sms' ? 'text message' : 'e-mail',
+        outcomeText: f.outcome === 'unknown' ? 'Outcome unknown — check before sending again' : 'Not delivered',
+      }));
+      return { ...common, count: items.length, messagesWord: items.length === 1 ? 'message' : 'messages', items, anyUnknown: failures.some((f) => f.outcome === 'unknown') };
+    }
     case 'nurse-digest': {
       const today = String(d.date);
       const checks: Array<{ kind: CheckKind; due_date: string; status: string; given_name: string; family_name: string; home_address: string }> = await m.query(

@@ -6,6 +6,7 @@ export const MESSAGE_STATUS_LABELS: Record<MessageStatus, string> = {
   failed: 'Failed',
   skipped: 'Not sent',
   cancelled: 'Called off',
+  unknown: 'Outcome unknown — check before sending again',
 };
 
 export const CHANNEL_LABELS: Record<Channel, string> = { sms: 'SMS', email: 'E-mail' };
@@ -30,6 +31,8 @@ export function statusDetail(message: Pick<Message, 'status' | 'reason' | 'lastE
       return reasonText(message.reason);
     case 'scheduled':
       return message.lastError ? `Last try failed: ${message.lastError}` : null;
+    case 'unknown':
+      return `It may already have reached them${message.lastError ? ` (${message.lastError})` : ''}.`;
     case 'sent':
       return null;
   }

@@ -3,7 +3,7 @@ import { Badge } from '../../../components/ui/badge';
 import { MESSAGE_STATUS_LABELS, statusDetail } from './message-format';
 
 type Tone = Parameters<typeof Badge>[0]['tone'];
-const TONES: Record<MessageStatus, Tone> = { scheduled: 'brand', sent: 'ok', failed: 'danger', skipped: 'warn', cancelled: 'muted' };
+const TONES: Record<MessageStatus, Tone> = { scheduled: 'brand', sent: 'ok', failed: 'danger', skipped: 'warn', cancelled: 'muted', unknown: 'danger' };
 
 export function MessageStatusCell({ message }: { message: Message }) {
   const detail = statusDetail(message);

@@ -14,6 +14,7 @@ type NumberPath =
   | 'settings.driftThresholdFio2'
   | 'settings.readingEditWindowMinutes'
   | 'settings.reminders.signOffWaitingHours'
+  | 'settings.reminders.failureAlertPeriodMinutes'
   | 'settings.supply.reservePercent'
   | `settings.supply.cylinders.${number}.${'contentLitres' | 'fullPressure' | 'residualPressure'}`;
 

@@ -3,7 +3,7 @@ import { TextField } from '../../../components/ui/field';
 import type { PolicyFormValues } from './policy-values';
 
 type TextPath =
-  | `settings.reminders.${Exclude<keyof PolicyFormValues['settings']['reminders'], 'signOffWaitingHours'>}`
+  | `settings.reminders.${Exclude<keyof PolicyFormValues['settings']['reminders'], 'signOffWaitingHours' | 'failureAlertPeriodMinutes'>}`
   | 'settings.contacts.emergencyNumber'
   | `settings.contacts.phones.${number}.${'label' | 'number' | 'when'}`
   | `settings.supply.cylinders.${number}.${'id' | 'name'}`;

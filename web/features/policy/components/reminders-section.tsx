@@ -24,6 +24,8 @@ export function RemindersSection() {
         className="max-w-40" />
       <NumberSetting name="settings.reminders.signOffWaitingHours" label="Tell consultants about proposals waiting longer than (hours)"
         schema={reminderRulesSchema.shape.signOffWaitingHours} defaultText={practice(d.signOffWaitingHours)} />
+      <NumberSetting name="settings.reminders.failureAlertPeriodMinutes" label="Tell coordinators about failed family messages, gathered every (minutes)"
+        schema={reminderRulesSchema.shape.failureAlertPeriodMinutes} defaultText={practice(d.failureAlertPeriodMinutes)} />
     </Section>
   );
 }
