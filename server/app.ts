@@ -2,11 +2,11 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import path from 'node:path';
 import fs from 'node:fs';
-import { csrfSync } from 'csrf-sync';
 import compression from 'compression';
 import { defineAbilityFor } from '../shared/auth/ability';
 import type { AppDeps } from './deps';
 import { createPassport } from './auth/passport';
+import { createCsrf } from './auth/csrf';
 import { absoluteTimeout, createSessionMiddleware } from './auth/session-middleware';
 import { createSignInLimiter } from './auth/sign-in-limiter';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -82,7 +82,7 @@ export function createApp(deps: AppDeps): Express {
   });
   const sessions = createSessionService({ users: repos.users, audit: repos.audit, limiter });
   const passport = createPassport(sessions);
-  const csrf = csrfSync({ getTokenFromRequest: (req) => req.get('x-csrf-token') });
+  const csrf = createCsrf(env.SESSION_SECRET, env.COOKIE_SECURE);
 
   const api = express.Router();
   api.use('/health', healthRouter(deps.ds, deps.redis));
@@ -130,6 +130,11 @@ export function createApp(deps: AppDeps): Express {
   const webDist = path.resolve(env.WEB_DIST);
   if (fs.existsSync(path.join(webDist, 'index.html'))) {
     app.use(express.static(webDist, { index: false, maxAge: '1h' }));
+    // A bundle file this build does not have (an old page asking for last release's chunk) is a 404, not the
+    // app's page with status 200 that the browser would then try to run as a script.
+    app.use('/assets', (_req, res) => {
+      res.status(404).type('text/plain').send('Not found');
+    });
     app.get('/{*splat}', (_req, res) => {
       res.set('Cache-Control', 'no-cache');
       res.sendFile(path.join(webDist, 'index.html'));
