@@ -21,9 +21,16 @@ const envSchema = z
     SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(72).default(12),
     COOKIE_SECURE: boolFromString.optional(),
     TRUST_PROXY: boolFromString.default(false),
-    SIGNIN_ACCOUNT_LIMIT: z.coerce.number().int().min(1).default(5),
+    // Sign-in limits: consecutive failures for one account from one address (blocks that pair only), every attempt
+    // from one address, both per SIGNIN_WINDOW_SECONDS; and a slower limit on one account's failures from anywhere.
+    SIGNIN_PAIR_LIMIT: z.coerce.number().int().min(1).default(5),
     SIGNIN_IP_LIMIT: z.coerce.number().int().min(1).default(30),
     SIGNIN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
+    SIGNIN_ACCOUNT_LIMIT: z.coerce.number().int().min(1).default(100),
+    SIGNIN_ACCOUNT_WINDOW_SECONDS: z.coerce.number().int().min(1).default(24 * 3600),
+    // Where links in e-mails point (set-up links); defaults to this server's own address.
+    PUBLIC_URL: optionalUrl,
+    SETUP_LINK_HOURS: z.coerce.number().int().min(1).max(24 * 14).default(72),
     WEB_DIST: z.string().default('dist/web'),
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
     // Defaults point the senders at the local fakes (fakes/mail, fakes/sms); real credentials reach the hosted ones.
@@ -55,7 +62,7 @@ const envSchema = z
     }
   });
 
-export type Env = z.infer<typeof envSchema> & { SESSION_SECRET: string; COOKIE_SECURE: boolean };
+export type Env = z.infer<typeof envSchema> & { SESSION_SECRET: string; COOKIE_SECURE: boolean; PUBLIC_URL: string };
 
 export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
   const parsed = envSchema.safeParse(source);
@@ -70,5 +77,6 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     // A fixed development secret is acceptable only because production refuses to start without one.
     SESSION_SECRET: env.SESSION_SECRET ?? 'nestflow-development-only-session-secret-0000',
     COOKIE_SECURE: env.COOKIE_SECURE ?? env.NODE_ENV === 'production',
+    PUBLIC_URL: (env.PUBLIC_URL || `http://${env.HOST}:${env.PORT}`).replace(/\/+$/, ''),
   };
 }

@@ -25,6 +25,8 @@ export const createReadingSchema = z.strictObject({
 export type CreateReadingInput = z.infer<typeof createReadingSchema>;
 
 export const updateReadingSchema = z.strictObject({
+  /** The version the correction was made on; a reading corrected meanwhile answers 409. */
+  rowVersion: z.number({ error: 'Missing the version you saw' }).int().positive(),
   spo2: reading.spo2.optional(),
   pulse: reading.pulse,
   flowLpm: reading.flowLpm,
@@ -53,6 +55,7 @@ export const readingSchema = z.object({
   createdBy: z.object({ id: z.uuid(), name: z.string() }),
   createdAt: z.string(),
   editableUntil: z.string().nullable(),
+  rowVersion: z.number().int().positive(),
 });
 export type Reading = z.infer<typeof readingSchema>;
 export const readingListSchema = z.object({ items: z.array(readingSchema) });

@@ -9,6 +9,8 @@ export const userSchema = z.object({
   role: z.enum(ROLES),
   programmeId: z.uuid(),
   disabled: z.boolean(),
+  /** False until the person has chosen a password from their set-up link. */
+  passwordSet: z.boolean(),
   createdAt: z.string(),
   lastSignInAt: z.string().nullable(),
 });
@@ -33,12 +35,6 @@ export const createUserSchema = z.strictObject({
 });
 export type CreateUserInput = z.infer<typeof createUserSchema>;
 
-export const createUserResponseSchema = z.object({
-  user: userSchema,
-  // Shown once to the admin to pass on; only its hash is stored.
-  initialPassword: z.string(),
-});
-export type CreateUserResponse = z.infer<typeof createUserResponseSchema>;
 
 export const userResponseSchema = z.object({ user: userSchema });
 export type UserResponse = z.infer<typeof userResponseSchema>;
