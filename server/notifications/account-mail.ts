@@ -64,7 +64,7 @@ export function createAccountMail(sender: MailSender): AccountMail {
         '',
         `There have been ${failures} failed attempts to sign in to your Nestflow account recently.`,
         'Attempts from the places they came from are now being refused; you can still sign in as usual.',
-        'If this was you, there is nothing to do. If not, change your password (Account → Change my password)',
+        'If this was you, there is nothing to do. If not, sign in and use "Change my password" at the top of the page,',
         'and tell your programme admin.',
       ]),
   };
