@@ -2,11 +2,11 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import path from 'node:path';
 import fs from 'node:fs';
-import { csrfSync } from 'csrf-sync';
 import compression from 'compression';
 import { defineAbilityFor } from '../shared/auth/ability';
 import type { AppDeps } from './deps';
 import { createPassport } from './auth/passport';
+import { createCsrf } from './auth/csrf';
 import { absoluteTimeout, createSessionMiddleware } from './auth/session-middleware';
 import { createSignInLimiter } from './auth/sign-in-limiter';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -14,6 +14,9 @@ import { healthRouter } from './modules/health/health.router';
 import { createSessionService } from './modules/session/session.service';
 import { sessionRouter } from './modules/session/session.router';
 import { createUsersService } from './modules/users/users.service';
+import { createAccountsService } from './modules/accounts/accounts.service';
+import { myPasswordRouter, setupLinkRouter } from './modules/accounts/accounts.router';
+import { createAccountMail } from './notifications/account-mail';
 import { usersRouter } from './modules/users/users.router';
 import { sitesRouter } from './modules/sites/sites.router';
 import { policyRouter } from './modules/policy/policy.router';
@@ -75,14 +78,19 @@ export function createApp(deps: AppDeps): Express {
   );
 
   const limiter = createSignInLimiter(deps.redis, {
-    accountLimit: env.SIGNIN_ACCOUNT_LIMIT,
+    pairLimit: env.SIGNIN_PAIR_LIMIT,
     ipLimit: env.SIGNIN_IP_LIMIT,
     windowSeconds: env.SIGNIN_WINDOW_SECONDS,
+    accountLimit: env.SIGNIN_ACCOUNT_LIMIT,
+    accountWindowSeconds: env.SIGNIN_ACCOUNT_WINDOW_SECONDS,
     keyPrefix: env.QUEUE_PREFIX,
   });
-  const sessions = createSessionService({ users: repos.users, audit: repos.audit, limiter });
+  const accountMail = createAccountMail(deps.mail);
+  const now = deps.now ?? (() => new Date());
+  const sessions = createSessionService({ users: repos.users, audit: repos.audit, limiter, mail: accountMail, logger, alertAfterFailures: env.SIGNIN_PAIR_LIMIT });
+  const accounts = createAccountsService({ ds: deps.ds, repos, limiter, now });
   const passport = createPassport(sessions);
-  const csrf = csrfSync({ getTokenFromRequest: (req) => req.get('x-csrf-token') });
+  const csrf = createCsrf(env.SESSION_SECRET, env.COOKIE_SECURE);
 
   const api = express.Router();
   api.use('/health', healthRouter(deps.ds, deps.redis));
@@ -101,7 +109,9 @@ export function createApp(deps: AppDeps): Express {
   });
   api.use(csrf.csrfSynchronisedProtection);
   api.use('/session', sessionRouter(passport, csrf, sessions));
-  api.use('/users', usersRouter(createUsersService({ ds: deps.ds, users: repos.users, audit: repos.audit, contacts: repos.contacts })));
+  api.use('/account/set-password', setupLinkRouter(accounts));
+  api.use('/me/password', myPasswordRouter(accounts));
+  api.use('/users', usersRouter(createUsersService({ ds: deps.ds, repos, mail: accountMail, publicUrl: env.PUBLIC_URL, setupLinkHours: env.SETUP_LINK_HOURS, now })));
   const prescriptions = createPrescriptionsService(deps.ds, repos, deps.jobs);
   const schedule = scheduleRouters(createScheduleService(repos));
   const readings = readingsRouters(createReadingsService(deps.ds, repos, deps.jobs));
@@ -130,6 +140,11 @@ export function createApp(deps: AppDeps): Express {
   const webDist = path.resolve(env.WEB_DIST);
   if (fs.existsSync(path.join(webDist, 'index.html'))) {
     app.use(express.static(webDist, { index: false, maxAge: '1h' }));
+    // A bundle file this build does not have (an old page asking for last release's chunk) is a 404, not the
+    // app's page with status 200 that the browser would then try to run as a script.
+    app.use('/assets', (_req, res) => {
+      res.status(404).type('text/plain').send('Not found');
+    });
     app.get('/{*splat}', (_req, res) => {
       res.set('Cache-Control', 'no-cache');
       res.sendFile(path.join(webDist, 'index.html'));

@@ -19,6 +19,8 @@ import { createVisitsRepository } from './db/repositories/visits.repository';
 import { createRecordingsRepository } from './db/repositories/recordings.repository';
 import { createRemindersRepository } from './db/repositories/reminders.repository';
 import { createJourneysRepository } from './db/repositories/journeys.repository';
+import { createAccountTokensRepository } from './db/repositories/account-tokens.repository';
+import { createMailSender, type MailSender } from './notifications/mail-sender';
 import { createLogger, type Logger } from './lib/logger';
 
 /** Everything the app needs from the outside world, built once per process and closed in order on shutdown. */
@@ -32,6 +34,10 @@ export interface AppDeps {
   jobs: JobProducer;
   /** Time source for rules that depend on "now" (step-down checks); tests pass a fixed one. */
   clock?: Clock;
+  /** E-mail the API sends itself (set-up links, account notices); everything else goes through the worker. */
+  mail: MailSender;
+  /** The clock for account links and limits; tests give a fixed one. */
+  now?: () => Date;
 }
 
 export function createRepos(ds: DataSource) {
@@ -50,6 +56,7 @@ export function createRepos(ds: DataSource) {
     recordings: createRecordingsRepository(ds),
     journeys: createJourneysRepository(ds),
     reminders: createRemindersRepository(ds),
+    accountTokens: createAccountTokensRepository(ds),
   };
 }
 export type AppRepos = ReturnType<typeof createRepos>;
@@ -62,11 +69,13 @@ export async function createDeps(env: Env, name = 'api'): Promise<AppDeps> {
   const sessionPool = new pg.Pool({ connectionString: env.DATABASE_URL, max: 5, application_name: `nestflow-${name}-sessions` });
   sessionPool.on('error', () => undefined);
   const logger = createLogger(env.NODE_ENV === 'test' ? 'silent' : env.LOG_LEVEL, name);
-  return { env, ds, redis, sessionPool, logger, repos: createRepos(ds), jobs: createJobProducer(env.REDIS_URL, env.QUEUE_PREFIX, logger, { attempts: env.REMINDER_ATTEMPTS, backoffMs: env.REMINDER_BACKOFF_MS }) };
+  const mail = createMailSender(env, { timeoutMs: env.SEND_TIMEOUT_MS });
+  return { env, ds, redis, sessionPool, logger, mail, repos: createRepos(ds), jobs: createJobProducer(env.REDIS_URL, env.QUEUE_PREFIX, logger, { attempts: env.REMINDER_ATTEMPTS, backoffMs: env.REMINDER_BACKOFF_MS }) };
 }
 
 export async function closeDeps(deps: AppDeps): Promise<void> {
   await deps.jobs.close().catch(() => undefined);
+  deps.mail.close();
   await deps.sessionPool.end().catch(() => undefined);
   await deps.ds.destroy().catch(() => undefined);
   deps.redis.disconnect();

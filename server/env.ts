@@ -22,9 +22,16 @@ const envSchema = z
     SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(72).default(12),
     COOKIE_SECURE: boolFromString.optional(),
     TRUST_PROXY: boolFromString.default(false),
-    SIGNIN_ACCOUNT_LIMIT: z.coerce.number().int().min(1).default(5),
+    // Sign-in limits: consecutive failures for one account from one address (blocks that pair only), every attempt
+    // from one address, both per SIGNIN_WINDOW_SECONDS; and a slower limit on one account's failures from anywhere.
+    SIGNIN_PAIR_LIMIT: z.coerce.number().int().min(1).default(5),
     SIGNIN_IP_LIMIT: z.coerce.number().int().min(1).default(30),
     SIGNIN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
+    SIGNIN_ACCOUNT_LIMIT: z.coerce.number().int().min(1).default(100),
+    SIGNIN_ACCOUNT_WINDOW_SECONDS: z.coerce.number().int().min(1).default(24 * 3600),
+    // Where links in e-mails point (set-up links); defaults to this server's own address.
+    PUBLIC_URL: optionalUrl,
+    SETUP_LINK_HOURS: z.coerce.number().int().min(1).max(24 * 14).default(72),
     WEB_DIST: z.string().default('dist/web'),
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
     // Defaults point the senders at the local fakes (fakes/mail, fakes/sms); real credentials reach the hosted ones.
@@ -67,6 +74,7 @@ export type Env = Omit<Parsed, 'SMTP_PORT' | 'SMS_API_BASE' | 'MAIL_SEARCH_URL'>
   SMS_API_BASE: string;
   /** Empty: no mail search; an uncertain e-mail is held for a coordinator. */
   MAIL_SEARCH_URL: string;
+  PUBLIC_URL: string;
 };
 
 /** The configuration, or every problem with it (each naming its variable). Pure, so it is tested directly. */
@@ -90,6 +98,7 @@ export function parseEnv(source: NodeJS.ProcessEnv): { env: Env; problems?: unde
       SMTP_PORT: env.SMTP_PORT ?? (production ? (env.SMTP_SECURE ? 465 : 587) : env.FAKE_SMTP_PORT),
       SMS_API_BASE: env.SMS_API_BASE ?? (production ? '' : fake(env.FAKE_SMS_PORT)),
       MAIL_SEARCH_URL: env.MAIL_SEARCH_URL ?? (production ? '' : fake(env.FAKE_MAIL_HTTP_PORT)),
+      PUBLIC_URL: (env.PUBLIC_URL || `http://${env.HOST}:${env.PORT}`).replace(/\/+$/, ''),
     },
   };
 }

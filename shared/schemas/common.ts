@@ -1,5 +1,20 @@
 import { z } from 'zod';
 
+// C0 and C1 control characters, DEL and lone UTF-16 surrogates: a NUL cannot be stored in PostgreSQL text, and the
+// others only hide or reshape what a reader sees. Multi-line text keeps tab, line feed and carriage return.
+const CONTROL_ANY = /[\u0000-\u001f\u007f-\u009f]|\p{Cs}/u;
+const CONTROL_MULTILINE = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f]|\p{Cs}/u;
+
+/**
+ * The one base for every text a person or a client sends (body fields, search parameters, form fields): a string
+ * without control characters. Chain trim/min/max/regex after it as usual.
+ */
+export const plainText = (opts: { multiline?: boolean; error?: string } = {}) =>
+  z.string(opts.error ? { error: opts.error } : undefined).refine((s) => !(opts.multiline ? CONTROL_MULTILINE : CONTROL_ANY).test(s), {
+    error: opts.multiline ? 'Remove the control characters (only tab and new line are allowed)' : 'Remove the control characters (tab, new line and others are not allowed here)',
+    abort: true,
+  });
+
 export const uuidSchema = z.uuid({ error: 'Must be a valid id' });
 export const idParamsSchema = z.strictObject({ id: uuidSchema });
 

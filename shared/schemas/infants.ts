@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { pageQuerySchema, pagedSchema } from './common';
+import { pageQuerySchema, pagedSchema, plainText } from './common';
 import { pressureSourceSchema } from './conversions';
 
 export const DIAGNOSES = ['chronic_lung_disease', 'pulmonary_hypertension', 'heart_disease', 'airway', 'other'] as const;
@@ -36,19 +36,19 @@ export const INFANT_FLAG_LABELS: Record<InfantFlag, string> = {
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-11-30' });
 const text = (label: string, max = 120) =>
-  z.string().trim().min(1, { error: `Enter the ${label}` }).max(max, { error: `At most ${max} characters` });
+  plainText().trim().min(1, { error: `Enter the ${label}` }).max(max, { error: `At most ${max} characters` });
 
 export const contactSchema = z
   .strictObject({
     name: text('name'),
     relation: text('relation', 60),
-    mobile: z.string().trim().regex(/^\+?[0-9 ()-]{7,20}$/, { error: 'Enter a mobile number, e.g. +44 7700 900123' }).optional().or(z.literal('').transform(() => undefined)),
-    email: z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address' })).optional().or(z.literal('').transform(() => undefined)),
+    mobile: plainText().trim().regex(/^\+?[0-9 ()-]{7,20}$/, { error: 'Enter a mobile number, e.g. +44 7700 900123' }).optional().or(z.literal('').transform(() => undefined)),
+    email: plainText().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address' })).optional().or(z.literal('').transform(() => undefined)),
     preferredChannel: z.enum(['sms', 'email'], { error: 'Choose SMS or e-mail' }),
     consentSms: z.boolean(),
     consentEmail: z.boolean(),
-    language: z.string().regex(/^[a-z]{2}(-[A-Z]{2})?$/, { error: 'Use a language code such as en or cy' }).default('en'),
-    timeZone: z.string().min(1).max(60).refine((tz) => { try { new Intl.DateTimeFormat('en', { timeZone: tz }); return true; } catch { return false; } }, { error: 'Unknown time zone' }),
+    language: plainText().regex(/^[a-z]{2}(-[A-Z]{2})?$/, { error: 'Use a language code such as en or cy' }).default('en'),
+    timeZone: plainText().min(1).max(60).refine((tz) => { try { new Intl.DateTimeFormat('en', { timeZone: tz }); return true; } catch { return false; } }, { error: 'Unknown time zone' }),
   })
   .superRefine((c, ctx) => {
     if (c.preferredChannel === 'sms' && !c.mobile) ctx.addIssue({ code: 'custom', path: ['mobile'], message: 'SMS is preferred: enter a mobile number' });
@@ -128,7 +128,7 @@ export const INFANT_SORTS = ['name', '-name', 'correctedAge', '-correctedAge', '
 export const listInfantsQuerySchema = pageQuerySchema.extend({
   sort: z.enum(INFANT_SORTS, { error: 'Unknown sort' }).default('name'),
   status: z.enum(INFANT_STATUSES, { error: 'Unknown status' }).optional(),
-  q: z.string().trim().max(100).optional(),
+  q: plainText().trim().max(100).optional(),
   scope: z.enum(['mine', 'programme']).optional(),
   flag: z.enum(INFANT_FLAGS).optional(),
 });

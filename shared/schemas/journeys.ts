@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from './common';
 import { AIRCRAFT_CABIN_MAX_ALTITUDE_FT } from '../clinical/journey';
 import { conversionPreviewResponseSchema } from './conversions';
 
@@ -35,7 +36,7 @@ const daysBetween = (from: string, to: string) => Math.round((Date.parse(`${to}T
 export const createJourneySchema = z
   .strictObject({
     mode: z.enum(JOURNEY_MODES, { error: 'Choose by road or by air' }),
-    destinationName: z.string({ error: 'Name the destination' }).trim()
+    destinationName: plainText({ error: 'Name the destination' }).trim()
       .min(2, { error: 'Name the destination' }).max(120, { error: 'At most 120 characters' }),
     destinationElevationM: elevationM.nullish(),
     cabinAltitudeFt: z.number({ error: 'Enter the cabin altitude in feet' })
@@ -47,7 +48,7 @@ export const createJourneySchema = z
     hoursAway: z.number({ error: 'Enter the hours away from the home oxygen supply' })
       .positive({ error: 'More than 0 hours' })
       .max(JOURNEY_MAX_HOURS_AWAY, { error: `At most ${JOURNEY_MAX_HOURS_AWAY} hours (60 days)` }),
-    notes: z.string().trim().max(1000, { error: 'At most 1000 characters' }).nullish(),
+    notes: plainText({ multiline: true }).trim().max(1000, { error: 'At most 1000 characters' }).nullish(),
   })
   .superRefine((j, ctx) => {
     const issue = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
@@ -87,7 +88,7 @@ export const createJourneySchemaOn = (today: string) =>
 export const journeyDecisionSchema = z
   .strictObject({
     decision: z.enum(['approve', 'decline'], { error: 'Choose approve or decline' }),
-    reason: z.string().trim().max(1000, { error: 'At most 1000 characters' }).optional(),
+    reason: plainText({ multiline: true }).trim().max(1000, { error: 'At most 1000 characters' }).optional(),
     rowVersion: z.number({ error: 'Missing the version you saw' }).int().positive(),
   })
   .superRefine((d, ctx) => {
@@ -99,7 +100,7 @@ export type JourneyDecisionInput = z.infer<typeof journeyDecisionSchema>;
 
 /** The family's cylinder-time form: which of the programme's cylinders, and what its gauge reads. */
 export const cylinderCheckSchema = z.strictObject({
-  cylinderId: z.string({ error: 'Choose a cylinder' }).min(1, { error: 'Choose a cylinder' }),
+  cylinderId: plainText({ error: 'Choose a cylinder' }).min(1, { error: 'Choose a cylinder' }),
   gauge: z.number({ error: 'Enter the gauge reading' }).min(0, { error: 'At least 0' }).max(5000, { error: 'At most 5000' }),
 });
 export type CylinderCheckInput = z.infer<typeof cylinderCheckSchema>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from './common';
 import { DEFAULT_CANNULA_MAX_FLOW_LPM, DEFAULT_FLOWMETER_STEPS_LPM } from '../clinical/flowmeter';
 import { DEFAULT_DRIFT_THRESHOLD_FIO2 } from '../clinical/growth';
 
@@ -51,7 +52,7 @@ export const stepDownRulesSchema = z.strictObject({
   offOxygenObservationDays: int(1, 180, 'days'),
 });
 
-const clock = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: 'Use a time like 08:00' });
+const clock = plainText().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: 'Use a time like 08:00' });
 
 /** When messages go out; every time is the recipient's own local time. */
 export const reminderRulesSchema = z.strictObject({
@@ -70,19 +71,19 @@ export const reminderRulesSchema = z.strictObject({
   failureAlertPeriodMinutes: int(5, 24 * 60, 'minutes'),
 });
 
-const phoneNumber = z.string().trim().regex(/^\+?[0-9][0-9 ()-]{1,22}$/, { error: 'Use digits, spaces and an optional leading +' });
+const phoneNumber = plainText().trim().regex(/^\+?[0-9][0-9 ()-]{1,22}$/, { error: 'Use digits, spaces and an optional leading +' });
 
 /** Who a family calls, shown on the family page and the printed care plan. */
 export const programmeContactsSchema = z.strictObject({
   phones: z
     .array(z.strictObject({
-      label: z.string().trim().min(2, { error: 'Name this number' }).max(80),
+      label: plainText().trim().min(2, { error: 'Name this number' }).max(80),
       number: phoneNumber,
-      when: z.string().trim().max(160, { error: 'At most 160 characters' }),
+      when: plainText().trim().max(160, { error: 'At most 160 characters' }),
     }))
     .max(8, { error: 'At most 8 numbers' }),
   /** The local emergency number (999, 112, 911 …). */
-  emergencyNumber: z.string().trim().regex(/^[0-9]{2,6}$/, { error: 'Use the short emergency number, digits only' }),
+  emergencyNumber: plainText().trim().regex(/^[0-9]{2,6}$/, { error: 'Use the short emergency number, digits only' }),
 });
 
 /**
@@ -90,8 +91,8 @@ export const programmeContactsSchema = z.strictObject({
  * Contents left ≈ contents × (gauge − residual) ÷ full pressure (the factor method, clinical-methods.md §7).
  */
 export const cylinderTypeSchema = z.strictObject({
-  id: z.string().regex(/^[a-z0-9-]{1,40}$/, { error: 'Lower-case letters, digits and dashes' }),
-  name: z.string().trim().min(2, { error: 'Name the cylinder' }).max(80),
+  id: plainText().regex(/^[a-z0-9-]{1,40}$/, { error: 'Lower-case letters, digits and dashes' }),
+  name: plainText().trim().min(2, { error: 'Name the cylinder' }).max(80),
   contentLitres: z.number({ error: 'Enter the contents in litres' }).positive().max(20000),
   unit: z.enum(['bar', 'psi']),
   fullPressure: z.number({ error: 'Enter the full pressure' }).positive().max(5000),

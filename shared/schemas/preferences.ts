@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from './common';
 
 /** Languages with message templates in the repository; others fall back to English. */
 export const MESSAGE_LANGUAGES = [
@@ -6,8 +7,8 @@ export const MESSAGE_LANGUAGES = [
   { code: 'es', label: 'Español' },
 ] as const;
 
-const mobile = z.string().trim().regex(/^\+?[0-9 ()-]{7,20}$/, { error: 'Enter a mobile number, e.g. +44 7700 900123' });
-const email = z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address' }));
+const mobile = plainText().trim().regex(/^\+?[0-9 ()-]{7,20}$/, { error: 'Enter a mobile number, e.g. +44 7700 900123' });
+const email = plainText().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address' }));
 
 /** What a family member may change about themselves (audited; the programme sees every change). */
 export const updatePreferencesSchema = z
@@ -18,7 +19,7 @@ export const updatePreferencesSchema = z
     preferredChannel: z.enum(['sms', 'email'], { error: 'Choose SMS or e-mail' }),
     consentSms: z.boolean(),
     consentEmail: z.boolean(),
-    language: z.string().regex(/^[a-z]{2}(-[A-Z]{2})?$/, { error: 'Choose a language' }),
+    language: plainText().regex(/^[a-z]{2}(-[A-Z]{2})?$/, { error: 'Choose a language' }),
     remindersEnabled: z.boolean(),
   })
   .superRefine((c, ctx) => {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from './common';
 
 export const READING_STATES = ['awake', 'asleep', 'feeding', 'crying'] as const;
 export const READING_STATE_LABELS: Record<(typeof READING_STATES)[number], string> = {
@@ -11,7 +12,7 @@ const reading = {
   pulse: z.number({ error: 'Enter the pulse' }).int({ error: 'Whole numbers only' }).min(40, { error: 'Pulse must be 40–250 /min' }).max(250, { error: 'Pulse must be 40–250 /min' }).optional(),
   flowLpm: z.number({ error: 'Enter the flow in L/min' }).min(0, { error: 'Flow cannot be negative' }).max(15, { error: 'At most 15 L/min' }).optional(),
   state: z.enum(READING_STATES, { error: 'Choose awake, asleep, feeding or crying' }),
-  notes: z.string().trim().max(1000, { error: 'At most 1000 characters' }).optional(),
+  notes: plainText({ multiline: true }).trim().max(1000, { error: 'At most 1000 characters' }).optional(),
 };
 
 export const createReadingSchema = z.strictObject({
@@ -26,6 +27,8 @@ export const createReadingSchema = z.strictObject({
 export type CreateReadingInput = z.infer<typeof createReadingSchema>;
 
 export const updateReadingSchema = z.strictObject({
+  /** The version the correction was made on; a reading corrected meanwhile answers 409. */
+  rowVersion: z.number({ error: 'Missing the version you saw' }).int().positive(),
   spo2: reading.spo2.optional(),
   pulse: reading.pulse,
   flowLpm: reading.flowLpm,
@@ -54,6 +57,7 @@ export const readingSchema = z.object({
   createdBy: z.object({ id: z.uuid(), name: z.string() }),
   createdAt: z.string(),
   editableUntil: z.string().nullable(),
+  rowVersion: z.number().int().positive(),
 });
 export type Reading = z.infer<typeof readingSchema>;
 export const readingListSchema = z.object({ items: z.array(readingSchema) });

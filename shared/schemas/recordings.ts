@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { pageQuerySchema, pagedSchema } from './common';
+import { pageQuerySchema, pagedSchema, plainText } from './common';
 import { RECORDING_TIME_FORMATS } from '../recordings/limits';
 
 export const RECORDING_STATUSES = ['queued', 'analysing', 'done', 'failed'] as const;
@@ -17,7 +17,7 @@ export const RECORDING_UPLOAD_ERRORS = [
 ] as const;
 export type RecordingUploadError = (typeof RECORDING_UPLOAD_ERRORS)[number];
 
-const columnName = z.string().trim().min(1, { error: 'Enter the column name' }).max(100, { error: 'At most 100 characters' });
+const columnName = plainText().trim().min(1, { error: 'Enter the column name' }).max(100, { error: 'At most 100 characters' });
 
 /** Form fields sent beside the file: a column mapping for exports not in our own format. */
 export const recordingUploadFieldsSchema = z

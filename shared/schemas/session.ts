@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from './common';
 import { ROLES } from '../auth/roles';
 
 export const sessionUserSchema = z.object({
@@ -19,8 +20,8 @@ export const sessionResponseSchema = z.object({
 export type SessionResponse = z.infer<typeof sessionResponseSchema>;
 
 export const signInSchema = z.strictObject({
-  email: z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter an e-mail address' })),
-  password: z.string().min(1, { error: 'Enter your password' }).max(256),
+  email: plainText().trim().toLowerCase().pipe(z.email({ error: 'Enter an e-mail address' })),
+  password: plainText().min(1, { error: 'Enter your password' }).max(256),
 });
 export type SignInInput = z.infer<typeof signInSchema>;
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ROLES } from '../auth/roles';
-import { pageQuerySchema, pagedSchema } from './common';
+import { pageQuerySchema, pagedSchema, plainText } from './common';
 
 export const userSchema = z.object({
   id: z.uuid(),
@@ -9,6 +9,8 @@ export const userSchema = z.object({
   role: z.enum(ROLES),
   programmeId: z.uuid(),
   disabled: z.boolean(),
+  /** False until the person has chosen a password from their set-up link. */
+  passwordSet: z.boolean(),
   createdAt: z.string(),
   lastSignInAt: z.string().nullable(),
 });
@@ -19,7 +21,7 @@ export const USER_SORTS = ['name', '-name', 'email', '-email', 'role', '-role', 
 export const listUsersQuerySchema = pageQuerySchema.extend({
   sort: z.enum(USER_SORTS, { error: 'Unknown sort' }).default('name'),
   role: z.enum(ROLES, { error: 'Unknown role' }).optional(),
-  q: z.string().trim().max(100).optional(),
+  q: plainText().trim().max(100).optional(),
 });
 export type ListUsersQuery = z.infer<typeof listUsersQuerySchema>;
 
@@ -27,18 +29,12 @@ export const usersPageSchema = pagedSchema(userSchema);
 export type UsersPage = z.infer<typeof usersPageSchema>;
 
 export const createUserSchema = z.strictObject({
-  email: z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address' })),
-  name: z.string().trim().min(2, { error: 'Enter the full name' }).max(120, { error: 'At most 120 characters' }),
+  email: plainText().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address' })),
+  name: plainText().trim().min(2, { error: 'Enter the full name' }).max(120, { error: 'At most 120 characters' }),
   role: z.enum(ROLES, { error: 'Choose a role' }),
 });
 export type CreateUserInput = z.infer<typeof createUserSchema>;
 
-export const createUserResponseSchema = z.object({
-  user: userSchema,
-  // Shown once to the admin to pass on; only its hash is stored.
-  initialPassword: z.string(),
-});
-export type CreateUserResponse = z.infer<typeof createUserResponseSchema>;
 
 export const userResponseSchema = z.object({ user: userSchema });
 export type UserResponse = z.infer<typeof userResponseSchema>;

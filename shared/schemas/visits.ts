@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from './common';
 
 export const VISIT_KINDS = ['home_visit', 'clinic_review'] as const;
 export type VisitKind = (typeof VISIT_KINDS)[number];
@@ -7,9 +8,9 @@ export const VISIT_STATUSES = ['booked', 'cancelled', 'done'] as const;
 export type VisitStatus = (typeof VISIT_STATUSES)[number];
 
 const date = z.iso.date({ error: 'Use a date like 2026-12-03' });
-const time = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: 'Use a time like 09:30' });
+const time = plainText().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: 'Use a time like 09:30' });
 const duration = z.number({ error: 'Enter the length in minutes' }).int().min(5, { error: 'At least 5 minutes' }).max(480, { error: 'At most 8 hours' });
-const purpose = z.string().trim().min(2, { error: 'Say what the visit is for' }).max(300, { error: 'At most 300 characters' });
+const purpose = plainText().trim().min(2, { error: 'Say what the visit is for' }).max(300, { error: 'At most 300 characters' });
 
 /** Date and time are the family's local wall-clock time (their contact's time zone). */
 export const bookVisitSchema = z.strictObject({
@@ -33,7 +34,7 @@ export const moveVisitSchema = z.strictObject({
 export type MoveVisitInput = z.infer<typeof moveVisitSchema>;
 
 export const cancelVisitSchema = z.strictObject({
-  reason: z.string().trim().min(2, { error: 'Say why the visit is cancelled' }).max(300),
+  reason: plainText().trim().min(2, { error: 'Say why the visit is cancelled' }).max(300),
 });
 
 export const visitSchema = z.object({

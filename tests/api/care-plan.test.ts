@@ -83,9 +83,12 @@ describe('GET /api/infants/:id/care-plan.pdf', () => {
     const clinic = await makeClinic(ctx.deps);
     const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
     const body = enrolmentBody(clinic, { familyEmail: clinic.people.family.email });
-    body.baby.givenName = 'Zoë "Jo"\r\nX-Evil: 1';
+    // The contracts now refuse line breaks in names (plainText); a record stored before that may still hold one.
+    expect((await post(coord, '/api/infants', { ...body, baby: { ...body.baby, givenName: 'Zoë\r\nX-Evil: 1' } })).status).toBe(400);
+    body.baby.givenName = 'Zoë "Jo"';
     body.baby.familyName = 'Ångström';
     const infant = (await post(coord, '/api/infants', body).expect(201)).body;
+    await ctx.deps.ds.query(`UPDATE infants SET given_name = $2 WHERE id = $1`, [infant.id, 'Zoë "Jo"\r\nX-Evil: 1']);
     const { runPendingConversions } = await import('../helpers/infants');
     await runPendingConversions(ctx.deps, infant.id);
     const consultant = await signedInAgent(ctx.app, clinic.people.consultant.email);

@@ -112,13 +112,31 @@ describe('readings', () => {
   it('when the author corrects a reading within the window, then it changes and is audited; others cannot', async () => {
     const { infant, nurse, coord } = await babyAtHome();
     const r = (await post(nurse, `/api/infants/${infant.id}/readings`, reading())).body;
-    const fixed = await nurse.patch(`/api/readings/${r.id}`).set('X-CSRF-Token', nurse.csrf).send({ spo2: 94 }).expect(200);
+    expect(r.rowVersion).toBe(1);
+    const fixed = await nurse.patch(`/api/readings/${r.id}`).set('X-CSRF-Token', nurse.csrf).send({ rowVersion: 1, spo2: 94 }).expect(200);
     expect(fixed.body.spo2).toBe(94);
-    await coord.patch(`/api/readings/${r.id}`).set('X-CSRF-Token', coord.csrf).send({ spo2: 90 }).expect(403);
+    expect(fixed.body.rowVersion).toBe(2);
+    await coord.patch(`/api/readings/${r.id}`).set('X-CSRF-Token', coord.csrf).send({ rowVersion: 2, spo2: 90 }).expect(403);
     await ctx.deps.ds.query(`UPDATE readings SET created_at = now() - interval '2 hours' WHERE id = $1`, [r.id]);
-    await nurse.patch(`/api/readings/${r.id}`).set('X-CSRF-Token', nurse.csrf).send({ spo2: 93 }).expect(409);
+    await nurse.patch(`/api/readings/${r.id}`).set('X-CSRF-Token', nurse.csrf).send({ rowVersion: 2, spo2: 93 }).expect(409);
     const audit = await ctx.deps.repos.audit.listForEntity('infant', infant.id);
     expect(audit.find((a) => a.action === 'reading.corrected')?.details).toMatchObject({ readingId: r.id, before: { spo2: 95 } });
+  });
+
+  it('when two corrections are made on the same version of a reading, then the second gets 409 and changes nothing', async () => {
+    const { infant, nurse } = await babyAtHome();
+    const r = (await post(nurse, `/api/infants/${infant.id}/readings`, reading())).body;
+    const patch = (body: object) => nurse.patch(`/api/readings/${r.id}`).set('X-CSRF-Token', nurse.csrf).send(body);
+    await patch({ rowVersion: r.rowVersion, spo2: 94 }).expect(200);
+    const second = await patch({ rowVersion: r.rowVersion, pulse: 150 });
+    expect(second.status).toBe(409);
+    expect(second.body.error).toMatchObject({ code: 'conflict', details: { rowVersion: expect.any(Array) } });
+    const [stored] = await ctx.deps.ds.query(`SELECT spo2, pulse, row_version FROM readings WHERE id = $1`, [r.id]);
+    expect(stored).toMatchObject({ spo2: 94, pulse: r.pulse, row_version: 2 });
+    const corrections = (await ctx.deps.repos.audit.listForEntity('infant', infant.id)).filter((a) => a.action === 'reading.corrected');
+    expect(corrections).toHaveLength(1);
+    // Without the version at all the contract refuses it.
+    expect((await patch({ spo2: 93 })).status).toBe(400);
   });
 
   it('when a consultant or admin tries to log, then 403; signed out 401', async () => {

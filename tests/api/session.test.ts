@@ -6,7 +6,7 @@ import { anonymousAgent, signedInAgent } from '../helpers/agents';
 
 let ctx: TestContext;
 beforeAll(async () => {
-  ctx = await createTestContext({ SIGNIN_ACCOUNT_LIMIT: '3' });
+  ctx = await createTestContext({ SIGNIN_PAIR_LIMIT: '3' });
 });
 afterAll(() => ctx.close());
 
@@ -58,7 +58,7 @@ describe('sign-in', () => {
     expect(res.body.error.message).toBe(GENERIC);
   });
 
-  it('when an account has too many failed attempts, then even the right password gets 429 for a while', async () => {
+  it('when one address has too many failed attempts at an account, then even the right password from there gets 429 for a while', async () => {
     const p = await makeProgramme(ctx.deps);
     const u = await makeUser(ctx.deps, p.id, 'nurse');
     const a = await anonymousAgent(ctx.app);

@@ -3,12 +3,13 @@ import type { Page } from 'playwright-core';
 import { openBrowser, pageApi, screenshot, signInAndLand as landIn, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');
+const fakeMail = inject('fakeMailUrl');
 let browser: Browser;
 let page: Page;
 const stamp = Date.now().toString(36);
 const familyEmail = `family-${stamp}@larkmoor.example`;
 const babyName = `Juniper Ashvale${stamp.slice(-3)}`;
-let familyPassword = '';
+const familyPassword = 'iris picks her own words';
 let infantId = '';
 
 beforeAll(async () => {
@@ -25,11 +26,27 @@ const api = (method: string, path: string, body?: unknown) => pageApi(page)(meth
 const next = () => page.getByRole('button', { name: /^Next/ }).click();
 
 describe('enrolment to an approved plan the family can read', () => {
-  it('when the admin adds a family account, then it gets a one-time password', async () => {
+  it('when the admin invites a family member, then the e-mailed link lets them choose their own password', async () => {
     await signInAndLand('admin@larkmoor.example');
     const res = await api('POST', '/api/users', { email: familyEmail, name: 'Iris Ashvale', role: 'family' });
-    expect(res.status).toBe(201);
-    familyPassword = res.body.initialPassword;
+    expect(res.status).toBe(202);
+    expect(JSON.stringify(res.body)).not.toMatch(/password/i);
+    let link: string | undefined;
+    for (let i = 0; i < 100 && !link; i++) {
+      const inbox = (await (await fetch(`${fakeMail}/messages`)).json()) as Array<{ envelope: { to: string[] }; text: string }>;
+      link = inbox.filter((m) => m.envelope.to.includes(familyEmail)).map((m) => /http\S+\/set-password\?token=[A-Za-z0-9_-]+/.exec(m.text)?.[0]).find(Boolean);
+      if (!link) await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(link).toBeDefined();
+    await page.goto('about:blank');
+    await browser.context.clearCookies();
+    await page.goto(link!);
+    await page.getByText('Hello Iris Ashvale').waitFor();
+    await page.getByLabel('New password').fill(familyPassword);
+    await page.getByLabel('The same password again').fill(familyPassword);
+    await screenshot(page, 'set-password');
+    await page.getByRole('button', { name: 'Save my password' }).click();
+    await page.waitForURL(/\/sign-in\?passwordSet=1$/);
   });
 
   it('when the coordinator enrols a baby living at 1,780 m, then the proposal appears on the record without a reload', async () => {

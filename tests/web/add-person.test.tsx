@@ -16,7 +16,7 @@ async function openAndFill(user: ReturnType<typeof renderApp>['user']) {
   await user.type(screen.getByLabelText('Full name'), 'Wren Osei');
   await user.type(screen.getByLabelText('E-mail'), 'wren.osei@larkmoor.example');
   await user.selectOptions(screen.getByLabelText('Role'), 'Home-care nurse');
-  await user.click(screen.getByRole('button', { name: 'Add person' }));
+  await user.click(screen.getByRole('button', { name: 'Send invitation' }));
 }
 
 describe('Add a person', () => {
@@ -40,53 +40,41 @@ describe('Add a person', () => {
     expect(screen.getByLabelText('Role')).toHaveValue('nurse');
   });
 
-  it('when the e-mail is taken, then the conflict is shown beside the e-mail field', async () => {
-    stubWithCreate(() => apiError(409, 'conflict', 'An account with this e-mail already exists.'));
-    const { user } = renderApp('/admin/people');
-    await openAndFill(user);
-    const message = await screen.findByText('An account with this e-mail already exists.');
-    expect(screen.getByLabelText('E-mail')).toHaveAttribute('aria-describedby', message.id);
-  });
-
   it('when the form is incomplete, then the shared schema explains and nothing is sent', async () => {
     const fetchMock = stubWithCreate(() => json(500));
     const { user } = renderApp('/admin/people');
     await user.click(await screen.findByRole('button', { name: 'Add a person' }));
-    await user.click(screen.getByRole('button', { name: 'Add person' }));
+    await user.click(screen.getByRole('button', { name: 'Send invitation' }));
     expect(await screen.findByText('Choose a role')).toBeInTheDocument();
     expect(screen.getByText('Enter the full name')).toBeInTheDocument();
     expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false);
   });
 
-  it('when the person is created, then the one-time password is shown once with a copy button', async () => {
+  it('when the invitation is sent, then the admin is told an e-mail is on its way and no password is shown anywhere', async () => {
     const created: FakeRequest[] = [];
     stubWithCreate((request) => {
       created.push(request);
-      const user = makeUser({ name: 'Wren Osei', email: 'wren.osei@larkmoor.example', role: 'nurse' });
-      return json(201, { user, initialPassword: 'moss-kettle-47-lantern' });
+      return json(202, { status: 'invitation_sent', email: 'wren.osei@larkmoor.example' });
     });
     const { user } = renderApp('/admin/people');
     await openAndFill(user);
 
-    expect(await screen.findByText('moss-kettle-47-lantern')).toBeInTheDocument();
-    expect(screen.getByText(/will not be shown again/)).toBeInTheDocument();
+    const status = await screen.findByRole('status');
+    expect(status).toHaveTextContent('An invitation is on its way to wren.osei@larkmoor.example');
+    expect(screen.getByRole('heading', { name: 'Invitation sent' })).toBeInTheDocument();
+    expect(screen.queryByText(/one-time|copy password/i)).not.toBeInTheDocument();
     expect(created[0].body).toEqual({ name: 'Wren Osei', email: 'wren.osei@larkmoor.example', role: 'nurse' });
     expect(created[0].headers.get('X-CSRF-Token')).toBe('csrf-1');
 
-    await user.click(screen.getByRole('button', { name: 'Copy password' }));
-    expect(await screen.findByText('Copied to the clipboard.')).toBeInTheDocument();
-    // user-event provides the clipboard in jsdom; reading it back proves what was copied.
-    expect(await navigator.clipboard.readText()).toBe('moss-kettle-47-lantern');
-
-    await user.click(screen.getByRole('button', { name: 'Done' }));
-    expect(screen.queryByText('moss-kettle-47-lantern')).not.toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Add another person' }));
+    expect(await screen.findByLabelText('Full name')).toHaveValue('');
   });
 
   it('when a save is on its way, then the submit button is disabled', async () => {
     stubWithCreate(() => new Promise<Response>(() => {}));
     const { user } = renderApp('/admin/people');
     await openAndFill(user);
-    const form = screen.getByRole('button', { name: 'Adding…' }).closest('form') as HTMLFormElement;
-    expect(within(form).getByRole('button', { name: 'Adding…' })).toBeDisabled();
+    const form = screen.getByRole('button', { name: 'Sending…' }).closest('form') as HTMLFormElement;
+    expect(within(form).getByRole('button', { name: 'Sending…' })).toBeDisabled();
   });
 });

@@ -92,7 +92,7 @@ describe('a reading from home', () => {
       [`GET /api/infants/${juniper.id}/prescriptions`]: () => json(200, { items: [plan(juniper.id)] }),
       [`POST /api/infants/${juniper.id}/readings`]: (request) => {
         calls.push({ url: String(request.url), body: request.body });
-        return json(201, { id: '9d9d9d9d-0000-4000-8000-000000000001', infantId: juniper.id, checkId: null, takenAt: new Date().toISOString(), spo2: 94, pulse: null, flowLpm: null, state: 'asleep', weightKg: null, notes: null, familyReported: true, createdBy: { id: '00000005-1111-4111-8111-111111111111', name: 'Rosa' }, createdAt: new Date().toISOString(), editableUntil: null });
+        return json(201, { id: '9d9d9d9d-0000-4000-8000-000000000001', infantId: juniper.id, checkId: null, takenAt: new Date().toISOString(), spo2: 94, pulse: null, flowLpm: null, state: 'asleep', weightKg: null, notes: null, familyReported: true, createdBy: { id: '00000005-1111-4111-8111-111111111111', name: 'Rosa' }, createdAt: new Date().toISOString(), editableUntil: null, rowVersion: 1 });
       },
     });
     const { user } = renderApp('/family');

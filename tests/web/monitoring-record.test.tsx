@@ -50,7 +50,7 @@ const stepDown = version({
 const reading = (overrides: Partial<Reading>): Reading => ({
   id: 'e1e1e1e1-0000-4000-8000-000000000031', infantId: ID, checkId: null, takenAt: '2025-04-12T10:00:00.000Z', spo2: 96, pulse: 140,
   flowLpm: 0.25, state: 'awake', weightKg: null, notes: null, familyReported: false, createdBy: { id: nurse.id, name: nurse.name },
-  createdAt: '2025-04-12T10:00:00.000Z', editableUntil: null, ...overrides,
+  createdAt: '2025-04-12T10:00:00.000Z', editableUntil: null, rowVersion: 1, ...overrides,
 });
 const readings = [
   reading({}),

@@ -9,6 +9,7 @@ const rows: User[] = [
   makeUser({ id: me.id, name: me.name, email: me.email, role: 'admin', lastSignInAt: '2025-05-01T08:30:00.000Z' }),
   makeUser({ name: 'Ada Pennick', email: 'ada.pennick@larkmoor.example', role: 'nurse' }),
   makeUser({ name: 'Corin Ashdown', email: 'corin@larkmoor.example', role: 'family', disabled: true }),
+  makeUser({ name: 'Fern Oakley', email: 'fern@larkmoor.example', role: 'consultant', passwordSet: false }),
 ];
 
 function stubPeople(extra: Record<string, (request: FakeRequest) => Response> = {}) {
@@ -30,7 +31,7 @@ describe('People table', () => {
     renderApp('/admin/people');
     const table = await screen.findByRole('table');
     const bodyRows = within(table).getAllByRole('row').slice(1);
-    expect(bodyRows).toHaveLength(3);
+    expect(bodyRows).toHaveLength(4);
     expect(within(bodyRows[1]).getByText('Ada Pennick')).toBeInTheDocument();
     expect(within(bodyRows[1]).getByText('Home-care nurse')).toBeInTheDocument();
     expect(within(bodyRows[1]).getByText('Active')).toBeInTheDocument();
@@ -106,5 +107,35 @@ describe('People table', () => {
     await user.click(await screen.findByRole('button', { name: 'Enable Corin Ashdown' }));
     await user.click(screen.getByRole('button', { name: 'Yes, enable' }));
     expect(await screen.findByText('This account belongs to another programme.')).toBeInTheDocument();
+  });
+
+  it('when a person has not set up their account, then the status says so and the action resends the invitation', async () => {
+    stubPeople();
+    renderApp('/admin/people');
+    const row = (await screen.findByText('Fern Oakley')).closest('tr') as HTMLElement;
+    expect(within(row).getByText('Invited, not set up yet')).toBeInTheDocument();
+    expect(within(row).getByRole('button', { name: 'Resend invitation for Fern Oakley' })).toBeInTheDocument();
+    // Never offered for one's own account (that is "Change my password") or a disabled one.
+    const mine = screen.getByText(me.email).closest('tr') as HTMLElement;
+    expect(within(mine).queryByRole('button', { name: /set-up link|invitation/ })).not.toBeInTheDocument();
+    const disabled = screen.getByText('Corin Ashdown').closest('tr') as HTMLElement;
+    expect(within(disabled).queryByRole('button', { name: /set-up link|invitation/ })).not.toBeInTheDocument();
+  });
+
+  it('when "New set-up link" is confirmed, then the request is sent with the CSRF token and the result is announced; no password is shown', async () => {
+    const sent: FakeRequest[] = [];
+    stubPeople({
+      [`POST /api/users/${rows[1].id}/setup-link`]: (request) => {
+        sent.push(request);
+        return json(202, { user: { ...rows[1], passwordSet: false } });
+      },
+    });
+    const { user } = renderApp('/admin/people');
+    await user.click(await screen.findByRole('button', { name: 'New set-up link for Ada Pennick' }));
+    expect(screen.getByText(/Their password stops working and they are signed out everywhere/)).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Yes, send it' }));
+    expect(await screen.findByText('A new set-up link is on its way to Ada Pennick.')).toBeInTheDocument();
+    expect(sent).toHaveLength(1);
+    expect(sent[0].headers.get('X-CSRF-Token')).toBe('csrf-1');
   });
 });

@@ -25,6 +25,7 @@ function savedReading(body: Record<string, unknown>, overrides: Partial<Reading>
     weightKg: (body.weightKg as number) ?? null, notes: (body.notes as string) ?? null, familyReported: false,
     createdBy: { id: nurse.id, name: nurse.name }, createdAt: new Date().toISOString(),
     editableUntil: new Date(Date.now() + 30 * 60_000).toISOString(),
+    rowVersion: 1,
     ...overrides,
   };
 }
@@ -33,7 +34,7 @@ function stubDay(save: (request: FakeRequest) => Response | Promise<Response>, p
   let items = [item, other];
   const posts: FakeRequest[] = [];
   const patches: FakeRequest[] = [];
-  const fetchMock = stubApi({
+  const routes: Record<string, (request: FakeRequest) => Response | Promise<Response>> = {
     'GET /api/session': sessionHandler('nurse'),
     'GET /api/my-day': () => json(200, { date: TODAY, items }),
     [`POST /api/infants/${INFANT_ID}/readings`]: async (request) => {
@@ -46,8 +47,9 @@ function stubDay(save: (request: FakeRequest) => Response | Promise<Response>, p
       patches.push(request);
       return patch ? patch(request) : apiError(500, 'internal', 'not stubbed');
     },
-  });
-  return { posts, patches, fetchMock };
+  };
+  const fetchMock = stubApi(routes);
+  return { posts, patches, fetchMock, routes };
 }
 
 async function openAndFill(user: ReturnType<typeof renderApp>['user']) {
@@ -157,9 +159,33 @@ describe('Correcting a saved reading', () => {
     await user.click(within(correction).getByRole('button', { name: 'Save correction' }));
 
     await waitFor(() => expect(patches).toHaveLength(1));
-    expect(patches[0].body).toEqual({ spo2: 96 });
+    expect(patches[0].body).toEqual({ spo2: 96, rowVersion: 1 });
     expect(await within(saved).findByText(/SpO2 96 %/)).toBeInTheDocument();
     expect(screen.getByText('Reading corrected.')).toBeInTheDocument();
+  });
+
+  it('when the reading was corrected elsewhere meanwhile, then the conflict notice offers a reload and the form starts again from the stored reading', async () => {
+    const stored = { checkId: CHECK_ID, takenAt: new Date().toISOString(), spo2: 94, pulse: 152, flowLpm: 0.125, state: 'asleep' };
+    const { patches, routes } = stubDay(created(), () => apiError(409, 'conflict', 'This reading was corrected elsewhere meanwhile.', { rowVersion: ['Changed elsewhere'] }));
+    const { user } = renderApp('/nurse');
+    const form = await openAndFill(user);
+    await user.click(within(form).getByRole('button', { name: 'Save reading' }));
+    const saved = await screen.findByRole('article', { name: 'Saved for Wren Thackeray' });
+    await user.click(within(saved).getByRole('button', { name: 'Correct' }));
+    const correction = within(saved).getByRole('form', { name: 'Correct the reading' });
+    await user.clear(within(correction).getByLabelText('SpO2 (%)'));
+    await user.type(within(correction).getByLabelText('SpO2 (%)'), '96');
+    await user.click(within(correction).getByRole('button', { name: 'Save correction' }));
+
+    const notice = await within(correction).findByRole('alert');
+    expect(notice).toHaveTextContent('corrected elsewhere meanwhile');
+    expect(patches[0].body).toEqual({ spo2: 96, rowVersion: 1 });
+
+    // The other correction made it 97 at version 2; reloading shows it and the next save names version 2.
+    routes[`GET /api/infants/${INFANT_ID}/readings`] = () => json(200, { items: [savedReading(stored, { spo2: 97, rowVersion: 2 })] });
+    await user.click(within(notice).getByRole('button', { name: 'Reload the reading' }));
+    await waitFor(() => expect(within(correction).getByLabelText('SpO2 (%)')).toHaveValue(97));
+    expect(within(correction).queryByText(/corrected elsewhere meanwhile/)).not.toBeInTheDocument();
   });
 
   it('when the window has passed, then there is no "Correct"', async () => {

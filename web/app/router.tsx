@@ -38,6 +38,7 @@ export const appRoutes: RouteObject[] = [
     hydrateFallbackElement: <FullPageSpinner />,
     children: [
       { path: 'sign-in', lazy: () => import('./routes/sign-in.route') },
+      { path: 'set-password', lazy: () => import('./routes/set-password.route') },
       {
         element: <RequireSession />,
         children: [
@@ -50,6 +51,7 @@ export const appRoutes: RouteObject[] = [
                 children: [
                   { index: true, element: <HomeRedirect /> },
                   { element: <RequireAccess />, children: rolePages },
+                  { path: 'account/password', lazy: () => import('./routes/change-password.route') },
                   { path: '*', lazy: () => import('./routes/not-found.route') },
                 ],
               },

@@ -12,9 +12,10 @@ import { VisitEntity } from './visit.entity';
 import { RecordingEntity } from './recording.entity';
 import { RecordingSamplesEntity } from './recording-samples.entity';
 import { JourneyEntity } from './journey.entity';
+import { AccountSetupTokenEntity } from './account-setup-token.entity';
 
 // Listed explicitly (no glob) so tsx, Vitest and the TypeORM CLI load the same set.
 export const ENTITIES = [
   ProgrammeEntity, UserEntity, AuditEventEntity, SiteEntity, ProgrammePolicyEntity, InfantEntity, FamilyContactEntity, PrescriptionEntity,
-  CheckEntity, ReadingEntity, VisitEntity, RecordingEntity, RecordingSamplesEntity, JourneyEntity,
+  CheckEntity, ReadingEntity, VisitEntity, RecordingEntity, RecordingSamplesEntity, JourneyEntity, AccountSetupTokenEntity,
 ];

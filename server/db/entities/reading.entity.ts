@@ -14,6 +14,8 @@ export class ReadingEntity {
   @Column({ type: 'text' }) state: 'awake' | 'asleep' | 'feeding' | 'crying';
   @Column({ type: 'numeric', precision: 6, scale: 3, name: 'weight_kg', nullable: true, transformer: numeric }) weightKg: number | null;
   @Column({ type: 'text', nullable: true }) notes: string | null;
+  /** Raised by every correction; a correction must name the version it was made on (409 otherwise). */
+  @Column({ type: 'integer', name: 'row_version', default: 1 }) rowVersion: number;
   @Column({ type: 'boolean', name: 'family_reported' }) familyReported: boolean;
   @Column({ type: 'uuid', name: 'created_by' }) createdBy: string;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;

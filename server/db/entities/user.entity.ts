@@ -20,8 +20,12 @@ export class UserEntity {
   @Column({ type: 'text' })
   role: Role;
 
-  @Column({ type: 'text', name: 'password_hash' })
-  passwordHash: string;
+  /** Null until the person sets a password from their set-up link. */
+  @Column({ type: 'text', name: 'password_hash', nullable: true })
+  passwordHash: string | null;
+
+  @Column({ type: 'timestamptz', name: 'password_changed_at', nullable: true })
+  passwordChangedAt: Date | null;
 
   @Column({ type: 'boolean', default: false })
   disabled: boolean;

@@ -50,10 +50,16 @@ export function createUsersRepository(ds: DataSource) {
     insert: (data: Partial<UserEntity>, m?: EntityManager) => repo(m).save(repo(m).create(data)),
     save: (user: UserEntity, m?: EntityManager) => repo(m).save(user),
     markSignedIn: (id: string) => repo().update({ id }, { lastSignInAt: new Date() }),
+    setPasswordHash: (id: string, passwordHash: string | null, at: Date, m: EntityManager) =>
+      repo(m).update({ id }, { passwordHash, passwordChangedAt: passwordHash ? at : null }),
 
     /** Ends every stored session of a user at once (used when an account is disabled). */
     endSessions: (userId: string, m?: EntityManager) =>
       (m ?? ds.manager).query(`DELETE FROM session WHERE (sess::jsonb -> 'passport') ->> 'user' = $1`, [userId]),
+
+    /** Ends every session of a user but the one given (after they change their own password). */
+    endOtherSessions: (userId: string, keepSid: string, m?: EntityManager) =>
+      (m ?? ds.manager).query(`DELETE FROM session WHERE (sess::jsonb -> 'passport') ->> 'user' = $1 AND sid <> $2`, [userId, keepSid]),
   };
 }
 export type UsersRepository = ReturnType<typeof createUsersRepository>;

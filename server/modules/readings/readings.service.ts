@@ -32,6 +32,7 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
       state: r.state, weightKg: r.weightKg, notes: r.notes, familyReported: r.familyReported,
       createdBy: { id: r.createdBy, name: names.get(r.createdBy) ?? '' }, createdAt: r.createdAt.toISOString(),
       editableUntil: r.familyReported ? null : new Date(r.createdAt.getTime() + windowMinutes * 60_000).toISOString(),
+      rowVersion: r.rowVersion,
     }));
   }
 
@@ -91,8 +92,12 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
         if (Date.now() > r.createdAt.getTime() + policy.settings.readingEditWindowMinutes * 60_000) {
           throw new ConflictError('The time to correct this reading has passed; log a new one with a note instead.');
         }
+        if (r.rowVersion !== input.rowVersion) {
+          throw new ConflictError('This reading was corrected elsewhere meanwhile. Reload it and make your correction again.', { rowVersion: ['Changed elsewhere'] });
+        }
         const before = { spo2: r.spo2, pulse: r.pulse, flowLpm: r.flowLpm, state: r.state, notes: r.notes };
-        Object.assign(r, Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)));
+        const { rowVersion, ...changes } = input;
+        Object.assign(r, Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined)), { rowVersion: rowVersion + 1 });
         await repos.readings.save(r, m);
         await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'reading.corrected', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { readingId: r.id, before } }, m);
         return { r, window: policy.settings.readingEditWindowMinutes };

@@ -4,6 +4,7 @@ import { signInSchema, type SessionUser } from '../../../shared/schemas/session'
 import { validate } from '../../middleware/validate';
 import type { AppPassport } from '../../auth/passport';
 import { SESSION_COOKIE } from '../../auth/session-middleware';
+import { clearPreSessionCsrf } from '../../auth/csrf';
 import type { SessionService } from './session.service';
 
 function authenticate(passport: AppPassport, req: Request, res: Response, next: NextFunction): Promise<SessionUser> {
@@ -29,6 +30,7 @@ export function sessionRouter(passport: AppPassport, csrf: CsrfSync, service: Se
     // passport's logIn regenerates the session id, so a fixated pre-sign-in id is worthless.
     await new Promise<void>((ok, fail) => req.logIn(user, (e) => (e ? fail(e) : ok())));
     req.session.signedInAt = Date.now();
+    clearPreSessionCsrf(res);
     res.set('Cache-Control', 'no-store');
     res.json({ user, csrfToken: csrf.generateToken(req, true) });
   });

@@ -8,6 +8,7 @@ export const toUserDto = (u: UserEntity): User => ({
   role: u.role,
   programmeId: u.programmeId,
   disabled: u.disabled,
+  passwordSet: u.passwordHash !== null,
   createdAt: u.createdAt.toISOString(),
   lastSignInAt: u.lastSignInAt ? u.lastSignInAt.toISOString() : null,
 });

@@ -15,10 +15,16 @@ export function usersRouter(service: UsersService): Router {
     res.json(await service.list(req.ability, req.query as unknown as ListUsersQuery));
   });
 
+  // 202 whether or not the address already had an account: the invitation (or a notice to the owner) is on its way.
   r.post('/', validate({ body: createUserSchema }), async (req, res) => {
     const actor = actorOf(req);
     assertCan(req, 'create', 'User', { programmeId: actor.programmeId });
-    res.status(201).json(await service.create(actor, req.body));
+    res.status(202).json(await service.invite(actor, req.body));
+  });
+
+  r.post('/:id/setup-link', validate({ params: idParamsSchema }), async (req, res) => {
+    assertCanAny(req, 'update', 'User');
+    res.status(202).json({ user: await service.sendSetupLink(req.ability, actorOf(req), String(req.params.id)) });
   });
 
   r.post('/:id/disable', validate({ params: idParamsSchema }), async (req, res) => {

@@ -1,23 +1,17 @@
-import type { DataSource } from 'typeorm';
-import type { CreateUserInput, CreateUserResponse, ListUsersQuery, User, UsersPage } from '../../../shared/schemas/users';
+import type { CreateUserInput, ListUsersQuery, User, UsersPage } from '../../../shared/schemas/users';
+import type { InvitationResponse } from '../../../shared/schemas/accounts';
 import type { AppAbility } from '../../../shared/auth/ability';
 import { accessibleWhere } from '../../auth/casl-to-sql';
-import { generateInitialPassword, hashPassword } from '../../auth/passwords';
-import { USER_ACL_COLUMNS, type UsersRepository } from '../../db/repositories/users.repository';
-import type { AuditRepository } from '../../db/repositories/audit.repository';
-import type { ContactsRepository } from '../../db/repositories/contacts.repository';
+import { USER_ACL_COLUMNS } from '../../db/repositories/users.repository';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { toUserDto } from './users.mapper';
+import { issueSetupLink, sendOrUnavailable, type InvitationDeps } from './invitations';
 
-interface Deps {
-  ds: DataSource;
-  users: UsersRepository;
-  audit: AuditRepository;
-  contacts: ContactsRepository;
-}
+export function createUsersService(deps: InvitationDeps) {
+  const { ds, repos, mail } = deps;
+  const { users, audit, contacts } = repos;
 
-export function createUsersService({ ds, users, audit, contacts }: Deps) {
   async function setDisabled(ability: AppAbility, actor: Actor, id: string, disabled: boolean): Promise<User> {
     if (disabled && id === actor.id) throw new ConflictError('You cannot disable your own account.');
     return ds.transaction(async (m) => {
@@ -36,32 +30,67 @@ export function createUsersService({ ds, users, audit, contacts }: Deps) {
     });
   }
 
+  const names = async (actor: Actor) => {
+    const [me, programme] = await Promise.all([users.findSessionUser(actor.id), repos.programmes.findById(actor.programmeId)]);
+    return { invitedBy: me?.name ?? 'Your programme admin', programmeName: programme?.name ?? 'your programme' };
+  };
+
   return {
     async list(ability: AppAbility, query: ListUsersQuery): Promise<UsersPage> {
       const [rows, total] = await users.list(query, accessibleWhere(ability, 'read', 'User', USER_ACL_COLUMNS));
       return { items: rows.map(toUserDto), total };
     },
 
-    async create(actor: Actor, input: CreateUserInput): Promise<CreateUserResponse> {
-      if (await users.findByEmail(input.email)) {
-        throw new ConflictError('That e-mail address already has an account.', { email: ['That e-mail address already has an account.'] });
+    /**
+     * Adds a person without a password and e-mails them a set-up link. An address that already has an account
+     * (here or in another programme) gets the same answer; its owner is told someone tried, and nothing changes.
+     * Adding a person again while their link is still unused sends them a fresh link.
+     */
+    async invite(actor: Actor, input: CreateUserInput): Promise<InvitationResponse> {
+      const { invitedBy, programmeName } = await names(actor);
+      const existing = await users.findByEmail(input.email);
+      const answer: InvitationResponse = { status: 'invitation_sent', email: input.email };
+      if (existing && !(existing.programmeId === actor.programmeId && existing.passwordHash === null && !existing.disabled)) {
+        const theirs = existing.programmeId === actor.programmeId ? programmeName : (await repos.programmes.findById(existing.programmeId))?.name ?? 'another programme';
+        await audit.append({ programmeId: actor.programmeId, actorId: actor.id, action: 'user.invite_existing_address', entityType: 'user', entityId: null, ip: actor.ip, details: { role: input.role } });
+        await sendOrUnavailable(() => mail.alreadyHasAccount({ to: existing.email, name: existing.name, programmeName: theirs }));
+        return answer;
       }
-      const initialPassword = generateInitialPassword();
-      const passwordHash = await hashPassword(initialPassword);
-      const user = await ds.transaction(async (m) => {
-        const created = await users.insert({ ...input, programmeId: actor.programmeId, passwordHash }, m);
-        if (created.role === 'family') await contacts.linkContactsToAccount(created.id, created.email, actor.programmeId, m);
+      const sent = await ds.transaction(async (m) => {
+        const user = existing ?? (await users.insert({ ...input, programmeId: actor.programmeId, passwordHash: null }, m));
+        if (!existing && user.role === 'family') await contacts.linkContactsToAccount(user.id, user.email, actor.programmeId, m);
+        const link = await issueSetupLink(deps, user, actor.id, m);
         await audit.append(
-          { programmeId: actor.programmeId, actorId: actor.id, action: 'user.created', entityType: 'user', entityId: created.id, details: { role: input.role }, ip: actor.ip },
+          { programmeId: actor.programmeId, actorId: actor.id, action: existing ? 'user.invitation_resent' : 'user.invited', entityType: 'user', entityId: user.id, details: { role: user.role }, ip: actor.ip },
           m,
         );
-        return created;
+        return { user, ...link };
       }).catch((e: { code?: string }) => {
-        // Two admins adding the same e-mail at once: the unique index decides.
-        if (e.code === '23505') throw new ConflictError('That e-mail address already has an account.', { email: ['That e-mail address already has an account.'] });
+        // Two admins adding the same new address at once: the unique index decides, and the answer is the same.
+        if (e.code === '23505') return null;
         throw e;
       });
-      return { user: toUserDto(user), initialPassword };
+      if (sent) await sendOrUnavailable(() => mail.invitation({ to: sent.user.email, name: sent.user.name, programmeName, invitedBy, link: sent.link, expiresAt: sent.expiresAt }));
+      return answer;
+    },
+
+    /** The admin's "send a new set-up link": the old password stops working and every session ends. */
+    async sendSetupLink(ability: AppAbility, actor: Actor, id: string): Promise<User> {
+      if (id === actor.id) throw new ConflictError('To change your own password use "Change my password".');
+      const { programmeName } = await names(actor);
+      const sent = await ds.transaction(async (m) => {
+        const user = await users.findOneWhere(id, accessibleWhere(ability, 'update', 'User', USER_ACL_COLUMNS), m);
+        if (!user) throw new NotFoundError('No such person in your programme.');
+        if (user.disabled) throw new ConflictError('This account is disabled. Enable it first.');
+        await users.setPasswordHash(user.id, null, deps.now(), m);
+        user.passwordHash = null;
+        await users.endSessions(user.id, m);
+        const link = await issueSetupLink(deps, user, actor.id, m);
+        await audit.append({ programmeId: user.programmeId, actorId: actor.id, action: 'user.setup_link_sent', entityType: 'user', entityId: user.id, ip: actor.ip }, m);
+        return { user, ...link };
+      });
+      await sendOrUnavailable(() => mail.newSetupLink({ to: sent.user.email, name: sent.user.name, programmeName, link: sent.link, expiresAt: sent.expiresAt }));
+      return toUserDto(sent.user);
     },
 
     disable: (ability: AppAbility, actor: Actor, id: string) => setDisabled(ability, actor, id, true),

@@ -69,6 +69,7 @@ export function makeUser(overrides: Partial<User> = {}): User {
     role: 'nurse',
     programmeId: PROGRAMME_ID,
     disabled: false,
+    passwordSet: true,
     createdAt: '2025-03-02T09:00:00.000Z',
     lastSignInAt: null,
     ...overrides,

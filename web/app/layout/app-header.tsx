@@ -22,6 +22,7 @@ export function AppHeader() {
             <span className="block font-semibold text-ink-900">{user.name}</span>
             <span className="block text-sm text-ink-500">{ROLE_LABELS[user.role]}</span>
           </p>
+          <Link to="/account/password" className="text-sm font-semibold text-brand-700 underline">Change my password</Link>
           <SignOutButton />
         </div>
       </div>

@@ -30,6 +30,7 @@ export function Component() {
         </div>
         <section className="rounded-2xl border border-surface-200 bg-surface-0 p-6 shadow-sm">
           <h1 className="mb-4 text-xl font-bold text-ink-900">Sign in</h1>
+          {params.get('passwordSet') && <p role="status" className="mb-4 text-ok-800">Your password is saved. Sign in with it now.</p>}
           <SignInForm />
         </section>
       </div>

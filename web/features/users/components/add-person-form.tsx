@@ -59,7 +59,7 @@ export function AddPersonForm({ mutation, onCancel }: AddPersonFormProps) {
           ))}
         </SelectField>
       </div>
-      <FormActions pending={mutation.isPending} submitLabel="Add person" pendingLabel="Adding…" onCancel={onCancel} />
+      <FormActions pending={mutation.isPending} submitLabel="Send invitation" pendingLabel="Sending…" onCancel={onCancel} />
     </form>
   );
 }

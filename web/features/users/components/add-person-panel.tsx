@@ -1,9 +1,9 @@
 import { Card } from '../../../components/ui/card';
 import { useCreateUser } from '../api/create-user';
 import { AddPersonForm } from './add-person-form';
-import { OneTimePassword } from './one-time-password';
+import { InvitationSent } from './invitation-sent';
 
-/** The form and, once the account exists, its one-time password; the password lives only in the mutation result. */
+/** The form and, once sent, the note that an invitation is on its way (no password is ever shown here). */
 export function AddPersonPanel({ onClose }: { onClose: () => void }) {
   const createUser = useCreateUser();
   const close = () => {
@@ -11,9 +11,9 @@ export function AddPersonPanel({ onClose }: { onClose: () => void }) {
     onClose();
   };
   return (
-    <Card title={createUser.data ? 'Person added' : 'Add a person'}>
+    <Card title={createUser.data ? 'Invitation sent' : 'Add a person'}>
       {createUser.data ? (
-        <OneTimePassword result={createUser.data} onAddAnother={() => createUser.reset()} onDone={close} />
+        <InvitationSent result={createUser.data} onAddAnother={() => createUser.reset()} onDone={close} />
       ) : (
         <AddPersonForm mutation={createUser} onCancel={close} />
       )}

@@ -6,6 +6,7 @@ import { urlSort } from '../../../components/ui/data-table/url-sort';
 import type { ServerTableFeatures } from '../../../components/ui/data-table/use-server-table';
 import { formatDateTime } from '../../../lib/format';
 import { UserAccessAction } from './user-access-action';
+import { SetupLinkAction } from './setup-link-action';
 
 const helper = createColumnHelper<ServerTableFeatures, User>();
 
@@ -17,7 +18,10 @@ export const peopleColumns = helper.columns([
     id: 'status',
     header: 'Status',
     enableSorting: false,
-    cell: (info) => (info.getValue() ? <Badge tone="danger">Disabled</Badge> : <Badge tone="ok">Active</Badge>),
+    cell: ({ row }) =>
+      row.original.disabled ? <Badge tone="danger">Disabled</Badge>
+        : row.original.passwordSet ? <Badge tone="ok">Active</Badge>
+        : <Badge tone="warn">Invited, not set up yet</Badge>,
   }),
   helper.accessor('lastSignInAt', {
     header: 'Last sign-in',
@@ -28,7 +32,12 @@ export const peopleColumns = helper.columns([
     id: 'actions',
     header: 'Actions',
     enableSorting: false,
-    cell: ({ row }) => <UserAccessAction user={row.original} />,
+    cell: ({ row }) => (
+      <div className="flex flex-wrap items-center gap-2">
+        <UserAccessAction user={row.original} />
+        <SetupLinkAction user={row.original} />
+      </div>
+    ),
   }),
 ]);
 
