@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from './common';
 import { conversionPreviewResponseSchema } from './conversions';
 
 export const PRESCRIPTION_STATUSES = ['preparing', 'proposed', 'active', 'superseded', 'rejected', 'withdrawn'] as const;
@@ -62,7 +63,7 @@ export const decisionSchema = z
   .strictObject({
     decision: z.enum(['approve', 'reject'], { error: 'Choose approve or reject' }),
     flowLpm: z.number().positive({ error: 'Flow must be above 0 L/min' }).max(15).optional(),
-    reason: z.string().trim().max(1000).optional(),
+    reason: plainText({ multiline: true }).trim().max(1000).optional(),
     periods: periodsSchema.optional(),
   })
   .superRefine((d, ctx) => {

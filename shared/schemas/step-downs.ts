@@ -1,12 +1,13 @@
 import { z } from 'zod';
+import { plainText } from './common';
 import { STEP_DOWN_RULE_CODES } from '../schedule/step-down-rules';
 import { INFANT_FLAGS } from './infants';
 import { READING_STATES } from './readings';
 
 export const stepDownRequestSchema = z.strictObject({
-  reason: z.string().trim().min(3, { error: 'Say why the baby is ready to step down' }).max(1000, { error: 'At most 1000 characters' }),
+  reason: plainText({ multiline: true }).trim().min(3, { error: 'Say why the baby is ready to step down' }).max(1000, { error: 'At most 1000 characters' }),
   /** Needed when a programme rule is not met: why the step down should go ahead anyway (recorded and audited). */
-  overrideReason: z.string().trim().min(10, { error: 'Say in at least 10 characters why the step down should go ahead anyway' }).max(1000, { error: 'At most 1000 characters' }).optional(),
+  overrideReason: plainText({ multiline: true }).trim().min(10, { error: 'Say in at least 10 characters why the step down should go ahead anyway' }).max(1000, { error: 'At most 1000 characters' }).optional(),
 });
 export type StepDownRequestInput = z.infer<typeof stepDownRequestSchema>;
 
