@@ -192,7 +192,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     await signIn('consultant@larkmoor.example');
     await page.goto(`${base}/sign-off`);
     const waiting = page.locator('section', { has: page.getByRole('heading', { name: 'Journey checks waiting' }) });
-    await waiting.getByRole('link', { name: `Review the trip to ${DESTINATION} for ${baby.name}` }).click();
+    await waiting.getByRole('link', { name: `Review journey: ${baby.name}, trip to ${DESTINATION}` }).click();
     await page.waitForURL(`${base}/journeys/${journeyId}`);
     await page.getByText('PROPOSAL — not approved', { exact: false }).waitFor();
     await page.getByLabel('Approve the journey plan').check();
@@ -200,7 +200,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     await page.getByRole('button', { name: 'Approve', exact: true }).click();
     await page.waitForURL(`${base}/sign-off`);
     await page.getByRole('heading', { name: 'Journey checks waiting' }).waitFor();
-    await expect.poll(() => waiting.getByRole('link', { name: `Review the trip to ${DESTINATION} for ${baby.name}` }).count()).toBe(0);
+    await expect.poll(() => waiting.getByRole('link', { name: `Review journey: ${baby.name}, trip to ${DESTINATION}` }).count()).toBe(0);
     const decided = await api('GET', `/api/journeys/${journeyId}`);
     expect(decided.body.journey.status).toBe('approved');
   });

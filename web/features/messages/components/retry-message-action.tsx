@@ -8,7 +8,7 @@ export function RetryMessageAction({ message }: { message: Message }) {
   if (message.status !== 'failed') return null;
   return (
     <Button size="sm" variant="secondary" disabled={retry.isPending} onClick={() => retry.mutate(message.id)}
-      aria-label={`Send again to ${message.recipient.name}`}>
+      aria-label={`${retry.isPending ? 'Sending…' : 'Send again'} to ${message.recipient.name}`}>
       {retry.isPending ? 'Sending…' : 'Send again'}
     </Button>
   );

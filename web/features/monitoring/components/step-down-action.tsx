@@ -4,6 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { Prescription } from '../../../../shared/schemas/prescriptions';
 import { stepDownRequestSchema, type StepDownRequestInput } from '../../../../shared/schemas/step-downs';
 import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { describedBy } from '../../../components/ui/field';
@@ -21,7 +22,7 @@ interface StepDownActionProps {
 function StepDownForm({ infantId, onRequested, onClose }: Omit<StepDownActionProps, 'waiting'> & { onClose: () => void }) {
   const id = useId();
   const request = useRequestStepDown(infantId, onRequested);
-  const { register, handleSubmit, setError, formState: { errors } } = useForm<StepDownRequestInput>({
+  const { register, handleSubmit, setError, formState: { errors, submitCount } } = useForm<StepDownRequestInput>({
     resolver: zodResolver(stepDownRequestSchema),
     defaultValues: { reason: '' },
   });
@@ -39,7 +40,7 @@ function StepDownForm({ infantId, onRequested, onClose }: Omit<StepDownActionPro
   const hint = 'What you saw that makes the baby ready: readings, the last overnight study, feeding and growth.';
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Ask to step down" className="flex flex-col gap-3">
-      {problem && <Alert tone={conflict ? 'warn' : 'danger'}>{problem}</Alert>}
+      {conflict ? <Alert tone="warn">{problem}</Alert> : <ErrorSummary attempt={submitCount} failure={request.error} problem={problem} />}
       <div className="flex flex-col gap-1">
         <label htmlFor={id} className="font-semibold text-ink-900">Why the baby is ready</label>
         <p id={`${id}-hint`} className="text-sm text-ink-500">{hint}</p>

@@ -2,7 +2,7 @@ import { FormProvider, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { updateReadingSchema, type Reading, type UpdateReadingInput } from '../../../../shared/schemas/readings';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { FormActions } from '../../../components/ui/form-actions';
 import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { useUpdateReading } from '../api/update-reading';
@@ -43,7 +43,7 @@ export function CorrectReadingForm({ reading, onDone }: { reading: Reading; onDo
   return (
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Correct the reading" className="flex flex-col gap-4">
-        {problem && <Alert>{problem}</Alert>}
+        <ErrorSummary attempt={form.formState.submitCount} failure={update.error} problem={problem} />
         <FigureFields />
         <StateChoice />
         <NotesField />

@@ -3,10 +3,9 @@ import { FormProvider, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { createReadingSchema, type CreateReadingInput, type Reading } from '../../../../shared/schemas/readings';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
-import { isApiError } from '../../../lib/api-error';
 import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { asNumber } from '../../../lib/form-values';
 import { useCreateReading } from '../api/create-reading';
@@ -53,10 +52,8 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
       onSaved?.(reading);
     } catch (error) {
       const leftover = applyServerFieldErrors(error, setError, FIELDS);
+      // The error summary at the top of the form takes focus and links to each field, even one off screen.
       if (leftover.length) setError('root.server', { type: 'server', message: leftover.join(' ') });
-      // On a phone the faulted field may be off screen: take the nurse to it.
-      const first = FIELDS.find((field) => isApiError(error) && error.details?.[field]);
-      if (first) form.setFocus(first);
     } finally {
       sending.current = false;
     }
@@ -68,7 +65,7 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
   return (
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Spot reading" className="flex flex-col gap-4">
-        {problem && <Alert>{problem}</Alert>}
+        <ErrorSummary attempt={formState.submitCount} failure={create.error} problem={problem} />
         <FigureFields forFamily={forFamily} />
         <StateChoice />
         {!forFamily && (
