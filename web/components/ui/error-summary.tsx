@@ -42,7 +42,7 @@ export function ErrorSummary({ attempt, failure, problem, title = 'There is a pr
   }, [attempt, failure]);
 
   useLayoutEffect(() => {
-    if (attempt > 0 || failure) armedUntil.current = Date.now() + ARMED_MS;
+    if (attempt > 0 || failure || problem) armedUntil.current = Date.now() + ARMED_MS;
   }, [attempt, failure, problem]);
 
   const showing = Boolean(problem) || items.length > 0;
@@ -50,7 +50,13 @@ export function ErrorSummary({ attempt, failure, problem, title = 'There is a pr
     // Focus once per failed attempt: fixing a field, or a field marked while typing, never pulls focus back up.
     if (!showing || Date.now() > armedUntil.current) return;
     armedUntil.current = 0;
-    box.current?.focus();
+    const summary = box.current;
+    summary?.focus();
+    // react-hook-form focuses the first invalid field itself, sometimes just after this render: the summary comes first.
+    setTimeout(() => {
+      const active = document.activeElement;
+      if (summary?.isConnected && active?.closest('[aria-invalid="true"]')) summary.focus();
+    }, 0);
   });
 
   useEffect(() => () => void (armedUntil.current = 0), []);
