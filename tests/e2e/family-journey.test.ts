@@ -2,7 +2,6 @@ import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'v
 import type { Page } from 'playwright-core';
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { cylinderTime } from '../../shared/clinical/cylinder-time';
@@ -11,11 +10,10 @@ import {
   OXYGEN_SAFETY_POINTS, PERIOD_LABELS, WARNING_SIGNS, emergencyCallText, flowInWords, flowText,
 } from '../../shared/family/care-text';
 import { JOURNEY_PERIODS } from '../../shared/schemas/journeys';
+import { axeReport as report, seriousViolations as seriousOn } from '../helpers/a11y';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');
-const require = createRequire(import.meta.url);
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 
 let browser: Browser;
 let page: Page;
@@ -72,19 +70,6 @@ function flowsInUse(p: Plan): number[] {
 }
 
 const spaced = (text: string) => text.replace(/\s+/g, ' ').trim();
-
-interface AxeViolation { id: string; impact: string | null; targets: string[] }
-
-async function seriousViolations(): Promise<AxeViolation[]> {
-  await page.evaluate(axeSource);
-  const found = await page.evaluate(async () => {
-    const result = await (window as unknown as { axe: { run: () => Promise<{ violations: Array<{ id: string; impact: string | null; nodes: Array<{ target: unknown[] }> }> }> } }).axe.run();
-    return result.violations.map((v) => ({ id: v.id, impact: v.impact, targets: v.nodes.map((n) => n.target.map(String).join(' ')) }));
-  });
-  return found.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-}
-
-const report = (violations: AxeViolation[]) => violations.map((v) => `${v.id} (${v.impact}): ${v.targets.join(', ')}`).join('\n');
 
 describe('a family on a phone: plan, cylinder time, a flight check, the printed plan', () => {
   it('when the admin has entered the programme\'s numbers, then the family reads the approved plan, who to call, the warning signs and oxygen safety', async () => {
@@ -264,7 +249,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     for (const [url, ready] of pages) {
       await page.goto(`${base}${url}`);
       await ready();
-      const serious = await seriousViolations();
+      const serious = await seriousOn(page);
       if (serious.length) failures.push(`${url}\n${report(serious)}`);
       await screenshot(page, `family-journey-7-axe${url.replaceAll('/', '-')}`);
     }
