@@ -2,7 +2,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'v
 import type { Page } from 'playwright-core';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { axeReport, axeViolations, focused, headingSkips, isSerious, tabThroughPage } from '../helpers/a11y';
+import { axeReport, axeViolations, focused, headingSkips, isSerious, ringClippedBy, tabThroughPage } from '../helpers/a11y';
 import { openBrowser, pageApi, screenshot, signIn, signInAndLand, type Browser } from '../helpers/browser';
 
 // WCAG 2.2 AA checks on the five flows named in the accessibility issue, and axe on every page for every role.
@@ -85,6 +85,7 @@ describe('keyboard, screen reader and zoom: the five flows', () => {
     // Sorting changes only the query string: focus stays on the sort button.
     const sort = page.locator('th button').first();
     await sort.focus();
+    expect(await ringClippedBy(page), 'the sort button\'s focus ring is whole').toEqual([]);
     await page.keyboard.press('Enter');
     await page.waitForURL(/sort=/);
     expect((await focused(page))?.tag).toBe('button');
@@ -120,6 +121,10 @@ describe('keyboard, screen reader and zoom: the five flows', () => {
     await page.getByRole('region', { name: 'There is a problem' }).getByRole('link', { name: /Given name/ }).click();
     await expect.poll(() => page.evaluate(() => (document.activeElement as HTMLInputElement).name)).toBe('baby.givenName');
     await page.keyboard.type(given);
+    for (const step of await page.getByRole('navigation', { name: 'Enrolment steps' }).getByRole('button').all()) {
+      await step.focus();
+      expect(await ringClippedBy(page), `the focus ring of step "${await step.textContent()}" is whole`).toEqual([]);
+    }
 
     await page.getByRole('button', { name: /^Next/ }).click();
     await expect.poll(async () => (await focused(page))?.text ?? '').toMatch(/^Step 2 of \d/);
@@ -208,6 +213,13 @@ describe('keyboard, screen reader and zoom: the five flows', () => {
 
     const card = page.locator('main li button[aria-expanded="false"]').first();
     const who = ((await card.locator('span.text-lg').first().textContent()) ?? '').trim();
+    // The card clips its content (rounded corners), so its ring is drawn inside the edge: it must not be cut off.
+    await card.focus();
+    await page.keyboard.press('Shift+Tab');
+    await page.keyboard.press('Tab');
+    expect(await ringClippedBy(page), 'the day card\'s focus ring is whole').toEqual([]);
+    const cardBox = (await card.boundingBox())!;
+    await page.screenshot({ path: 'artifacts/screenshots/a11y-nurse-card-focus-ring-phone.png', clip: { x: 0, y: Math.max(0, cardBox.y - 12), width: PHONE.width, height: cardBox.height + 24 } });
     await card.click();
     await page.getByRole('button', { name: 'Save reading' }).click();
     await expectFocusOnErrorSummary();

@@ -82,7 +82,7 @@ export async function tabThroughPage(page: Page, maxStops = 120): Promise<{ stop
     const fitsAbove = state.menuTop !== null && state.bottom - state.top <= state.menuTop;
     const hidden = state.menuTop !== null && (fitsAbove ? state.bottom > state.menuTop + 0.5 : state.top >= state.menuTop);
     if (!state.inMenu && hidden) {
-      covered.push({ stop: stops + 1, text: state.text, focus: { top: state.top, bottom: state.bottom }, menuTop: state.menuTop });
+      covered.push({ stop: stops + 1, text: state.text, focus: { top: state.top, bottom: state.bottom }, menuTop: state.menuTop ?? 0 });
     }
   }
   return { stops, covered };
@@ -100,5 +100,31 @@ export async function headingSkips(page: Page): Promise<string[]> {
       previous = level;
     }
     return skips;
+  });
+}
+
+/**
+ * Whether the focused element's ring is cut off: its box grown by the outline (width + offset, when drawn outside)
+ * must lie inside every ancestor that clips (overflow other than visible). Returns the clipping ancestors.
+ */
+export async function ringClippedBy(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const el = document.activeElement as HTMLElement | null;
+    if (!el || el === document.body) return ['nothing focused'];
+    const style = getComputedStyle(el);
+    if (style.outlineStyle === 'none' || parseFloat(style.outlineWidth) === 0) return ['no focus ring'];
+    const grow = Math.max(0, parseFloat(style.outlineWidth) + parseFloat(style.outlineOffset));
+    const box = el.getBoundingClientRect();
+    const ring = { top: box.top - grow, bottom: box.bottom + grow, left: box.left - grow, right: box.right + grow };
+    const clips: string[] = [];
+    for (let node = el.parentElement; node && node !== document.body; node = node.parentElement) {
+      const s = getComputedStyle(node);
+      if (s.overflowX === 'visible' && s.overflowY === 'visible') continue;
+      const r = node.getBoundingClientRect();
+      if (ring.top < r.top - 0.5 || ring.bottom > r.bottom + 0.5 || ring.left < r.left - 0.5 || ring.right > r.right + 0.5) {
+        clips.push(`${node.tagName.toLowerCase()}.${node.className.toString().split(' ').slice(0, 3).join('.')}`);
+      }
+    }
+    return clips;
   });
 }

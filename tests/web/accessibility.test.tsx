@@ -7,6 +7,7 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { RootLayout } from '../../web/app/layout/root-layout';
 import { ErrorSummary } from '../../web/components/ui/error-summary';
 import { TextField } from '../../web/components/ui/field';
+import { useFocusWhenClosed } from '../../web/components/ui/focus';
 import { InPageLink } from '../../web/components/ui/in-page-link';
 import { PageHeader } from '../../web/components/ui/page-header';
 import { ScrollRegion } from '../../web/components/ui/scroll-region';
@@ -188,6 +189,22 @@ describe('in-page links and scroll regions', () => {
     render(<><InPageLink target="decision">Go to the decision</InPageLink><div id="decision">Decision</div></>);
     await user.click(screen.getByRole('link', { name: 'Go to the decision' }));
     expect(screen.getByText('Decision')).toHaveFocus();
+  });
+
+  it('when an in-place editor closes after a save, then focus returns to the button that opened it', async () => {
+    function Section() {
+      const [editing, setEditing] = useState(false);
+      const edit = useFocusWhenClosed<HTMLButtonElement>(editing);
+      return editing
+        ? <button type="button" onClick={() => setEditing(false)}>Save details</button>
+        : <button type="button" ref={edit} onClick={() => setEditing(true)}>Edit details</button>;
+    }
+    const user = userEvent.setup();
+    render(<Section />);
+    expect(screen.getByRole('button', { name: 'Edit details' })).not.toHaveFocus();
+    await user.click(screen.getByRole('button', { name: 'Edit details' }));
+    await user.click(screen.getByRole('button', { name: 'Save details' }));
+    expect(screen.getByRole('button', { name: 'Edit details' })).toHaveFocus();
   });
 
   it('when a table is wider than its box, then the box is a named region in the Tab order; when it fits, it is not', () => {

@@ -22,3 +22,17 @@ export function focusById(id: string): boolean {
   target.focus({ preventScroll: true });
   return true;
 }
+
+/**
+ * For a panel that opens in place (an "Edit" that becomes a form): when it closes, after a save or a cancel, focus
+ * goes back to the control that opened it instead of falling to the page body. Put the ref on that control.
+ */
+export function useFocusWhenClosed<T extends HTMLElement>(open: boolean) {
+  const ref = useRef<T>(null);
+  const wasOpen = useRef(open);
+  useEffect(() => {
+    if (wasOpen.current && !open) ref.current?.focus();
+    wasOpen.current = open;
+  }, [open]);
+  return ref;
+}
