@@ -128,3 +128,13 @@ export async function ringClippedBy(page: Page): Promise<string[]> {
     return clips;
   });
 }
+
+const LIVE = '[aria-live], [role="status"], [role="alert"], [role="log"], [role="marquee"], [role="timer"]';
+
+/** Live regions inside another live region: screen readers read them twice or not at all. */
+export async function nestedLiveRegions(page: Page): Promise<string[]> {
+  return page.evaluate((live) =>
+    [...document.querySelectorAll<HTMLElement>(live)]
+      .filter((el) => el.parentElement?.closest(live))
+      .map((el) => `${el.tagName.toLowerCase()}[${el.getAttribute('role') ?? `aria-live=${el.getAttribute('aria-live')}`}] ${el.textContent?.trim().slice(0, 40)}`), LIVE);
+}
