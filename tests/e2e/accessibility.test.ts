@@ -287,6 +287,9 @@ describe('keyboard, screen reader and zoom: the five flows', () => {
 describe('axe on every page, staff and family, desktop and phone', () => {
   it('when each page is opened by its role on a desktop and on a phone, then axe finds nothing serious or critical and each page has its own title', async () => {
     await page.setViewportSize(DESKTOP);
+    // The scanner itself must be able to fail: a page with an unnamed image and an unlabelled box is reported.
+    await page.setContent('<!doctype html><html lang="en"><title>check</title><main><img src="x.png"><input type="text"></main></html>');
+    expect((await axeViolations(page)).filter(isSerious).map((v) => v.id).sort()).toEqual(['image-alt', 'label']);
     await land('coordinator@larkmoor.example');
     const babies = (await api('GET', '/api/infants?pageSize=50')).body.items as Array<{ id: string; name: string; status: string }>;
     const baby = babies.find((b) => b.status === 'on_oxygen') ?? babies[0];

@@ -14,6 +14,9 @@ interface ErrorSummaryProps {
   title?: string;
 }
 
+const sameItems = (a: ErrorItem[], b: ErrorItem[]) =>
+  a.length === b.length && a.every((item, i) => item.target === b[i].target && item.text === b[i].text);
+
 // Field errors arrive a render or two after the attempt (validation and the server's answer are asynchronous).
 const ARMED_MS = 2000;
 
@@ -34,7 +37,11 @@ export function ErrorSummary({ attempt, failure, problem, title = 'There is a pr
   useLayoutEffect(() => {
     const form = anchor.current?.closest('form') ?? anchor.current?.parentElement;
     if (!form) return;
-    const refresh = () => setItems(attempt > 0 || failure ? collectErrorItems(form) : []);
+    const refresh = () => {
+      const next = attempt > 0 || failure ? collectErrorItems(form) : [];
+      // The summary's own rendering is a change inside the form too: an unchanged list must not render again.
+      setItems((shown) => (sameItems(shown, next) ? shown : next));
+    };
     refresh();
     const observer = new MutationObserver(refresh);
     observer.observe(form, { subtree: true, childList: true, attributes: true, attributeFilter: ['aria-invalid'] });
