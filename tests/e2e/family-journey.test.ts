@@ -241,7 +241,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
       ['/family/journey', async () => {
         // With the form's own messages showing, so the error state is checked too.
         await page.getByRole('button', { name: 'Send to the consultant' }).click();
-        await page.getByText('Leaving on').waitFor();
+        await page.getByRole('region', { name: 'There is a problem' }).waitFor();
       }],
       ['/family/preferences', () => page.getByRole('heading', { name: 'Contact details and reminders', level: 1 }).waitFor()],
     ];
