@@ -99,7 +99,7 @@ describe('enrolment to an approved plan the family can read', () => {
   it('when the consultant opens the proposal, then the working is shown line by line and approving makes it the plan', async () => {
     await signInAndLand('consultant@larkmoor.example');
     await page.goto(`${base}/sign-off`);
-    await page.getByRole('link', { name: `Review the proposal for ${babyName}` }).click();
+    await page.getByRole('link', { name: `Review proposal for ${babyName}` }).click();
     await page.getByText('Checks and working').waitFor();
     const workingRows = await page.locator('table tbody tr').count();
     expect(workingRows).toBeGreaterThan(8);

@@ -2,7 +2,6 @@ import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'v
 import type { Page } from 'playwright-core';
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { cylinderTime } from '../../shared/clinical/cylinder-time';
@@ -11,11 +10,10 @@ import {
   OXYGEN_SAFETY_POINTS, PERIOD_LABELS, WARNING_SIGNS, emergencyCallText, flowInWords, flowText,
 } from '../../shared/family/care-text';
 import { JOURNEY_PERIODS } from '../../shared/schemas/journeys';
+import { axeReport as report, seriousViolations as seriousOn } from '../helpers/a11y';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');
-const require = createRequire(import.meta.url);
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 
 let browser: Browser;
 let page: Page;
@@ -72,19 +70,6 @@ function flowsInUse(p: Plan): number[] {
 }
 
 const spaced = (text: string) => text.replace(/\s+/g, ' ').trim();
-
-interface AxeViolation { id: string; impact: string | null; targets: string[] }
-
-async function seriousViolations(): Promise<AxeViolation[]> {
-  await page.evaluate(axeSource);
-  const found = await page.evaluate(async () => {
-    const result = await (window as unknown as { axe: { run: () => Promise<{ violations: Array<{ id: string; impact: string | null; nodes: Array<{ target: unknown[] }> }> }> } }).axe.run();
-    return result.violations.map((v) => ({ id: v.id, impact: v.impact, targets: v.nodes.map((n) => n.target.map(String).join(' ')) }));
-  });
-  return found.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-}
-
-const report = (violations: AxeViolation[]) => violations.map((v) => `${v.id} (${v.impact}): ${v.targets.join(', ')}`).join('\n');
 
 describe('a family on a phone: plan, cylinder time, a flight check, the printed plan', () => {
   it('when the admin has entered the programme\'s numbers, then the family reads the approved plan, who to call, the warning signs and oxygen safety', async () => {
@@ -192,7 +177,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     await signIn('consultant@larkmoor.example');
     await page.goto(`${base}/sign-off`);
     const waiting = page.locator('section', { has: page.getByRole('heading', { name: 'Journey checks waiting' }) });
-    await waiting.getByRole('link', { name: `Review the trip to ${DESTINATION} for ${baby.name}` }).click();
+    await waiting.getByRole('link', { name: `Review journey: ${baby.name}, trip to ${DESTINATION}` }).click();
     await page.waitForURL(`${base}/journeys/${journeyId}`);
     await page.getByText('PROPOSAL — not approved', { exact: false }).waitFor();
     await page.getByLabel('Approve the journey plan').check();
@@ -200,7 +185,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     await page.getByRole('button', { name: 'Approve', exact: true }).click();
     await page.waitForURL(`${base}/sign-off`);
     await page.getByRole('heading', { name: 'Journey checks waiting' }).waitFor();
-    await expect.poll(() => waiting.getByRole('link', { name: `Review the trip to ${DESTINATION} for ${baby.name}` }).count()).toBe(0);
+    await expect.poll(() => waiting.getByRole('link', { name: `Review journey: ${baby.name}, trip to ${DESTINATION}` }).count()).toBe(0);
     const decided = await api('GET', `/api/journeys/${journeyId}`);
     expect(decided.body.journey.status).toBe('approved');
   });
@@ -256,7 +241,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
       ['/family/journey', async () => {
         // With the form's own messages showing, so the error state is checked too.
         await page.getByRole('button', { name: 'Send to the consultant' }).click();
-        await page.getByText('Leaving on').waitFor();
+        await page.getByRole('region', { name: 'There is a problem' }).waitFor();
       }],
       ['/family/preferences', () => page.getByRole('heading', { name: 'Contact details and reminders', level: 1 }).waitFor()],
     ];
@@ -264,7 +249,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     for (const [url, ready] of pages) {
       await page.goto(`${base}${url}`);
       await ready();
-      const serious = await seriousViolations();
+      const serious = await seriousOn(page);
       if (serious.length) failures.push(`${url}\n${report(serious)}`);
       await screenshot(page, `family-journey-7-axe${url.replaceAll('/', '-')}`);
     }

@@ -211,6 +211,7 @@ describe('Enrol a baby', () => {
     expect(body.home).toEqual({ address: '4 Kiln Lane, Cindermoor', location: { elevationM: 1780 }, source: 'concentrator', o2Percent: 95 });
     expect(body.contacts[0]).toMatchObject({ name: 'Mara Ashdown', timeZone: 'Europe/London', language: 'en', consentSms: true });
     release();
-    await waitFor(() => expect(currentUrl(router)).toBe(`/infants/${INFANT_ID}`));
+    // The record's code loads lazily; under a busy machine that can take longer than waitFor's default second.
+    await waitFor(() => expect(currentUrl(router)).toBe(`/infants/${INFANT_ID}`), { timeout: 5000 });
   });
 });

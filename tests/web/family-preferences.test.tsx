@@ -162,7 +162,7 @@ describe('Family preferences', { timeout: 20_000 }, () => {
     expect(mobile).toHaveAttribute('aria-invalid', 'true');
     expect(mobile).toHaveValue('+44 20 7946 0000');
     // A message for a field the form does not have is shown above it rather than lost.
-    expect(form.getByRole('alert')).toHaveTextContent('This contact is no longer linked to your account');
+    expect(form.getByRole('region', { name: 'There is a problem' })).toHaveTextContent('This contact is no longer linked to your account');
   });
 
   it('when the details were changed elsewhere, then the 409 is explained and a reload brings the newer ones', async () => {

@@ -121,7 +121,7 @@ describe('Journey check: the family asks', { timeout: 20_000 }, () => {
     await user.type(screen.getByLabelText('Back home on'), addDays(today, 2));
     await user.type(screen.getByLabelText('Hours away from your home oxygen supply'), '8');
     await user.click(screen.getByRole('button', { name: 'Send to the consultant' }));
-    expect(await screen.findByRole('alert')).toHaveTextContent('This baby has no approved oxygen setting yet');
+    expect(await screen.findByRole('region', { name: 'There is a problem' })).toHaveTextContent('This baby has no approved oxygen setting yet');
     expect(screen.getByLabelText('Where are you going?')).toHaveValue('Cindermoor');
   });
 });
@@ -217,7 +217,7 @@ describe('Journey check: the consultant decides', { timeout: 30_000 }, () => {
     renderApp('/sign-off');
     const list = await screen.findByRole('list', { name: 'Journey checks waiting' });
     expect(within(list).getByText('up to 0.55 L/min')).toBeInTheDocument();
-    expect(within(list).getByRole('link', { name: 'Review the trip to Cindermoor for Juniper Ashcombe' })).toHaveAttribute('href', `/journeys/${JOURNEY_ID}`);
+    expect(within(list).getByRole('link', { name: 'Review journey: Juniper Ashcombe, trip to Cindermoor' })).toHaveAttribute('href', `/journeys/${JOURNEY_ID}`);
   });
 });
 

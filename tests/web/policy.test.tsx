@@ -68,7 +68,8 @@ describe('Programme settings', { timeout: 20_000 }, () => {
     await user.clear(steps);
     await user.type(steps, '0.05, 0.1a');
     await user.click(form.getByRole('button', { name: 'Save as version 5' }));
-    expect(await form.findByText(/“0.1a” is not a number/)).toBeInTheDocument();
+    // Beside the box and, as a link to it, in the error summary at the top of the form.
+    expect(await form.findAllByText(/“0.1a” is not a number/)).toHaveLength(2);
     expect(puts).toHaveLength(0);
   });
 
@@ -272,7 +273,7 @@ describe('Programme settings', { timeout: 20_000 }, () => {
     expect(within(form.getByRole('group', { name: 'Cylinder 1' })).getByLabelText('Pressure when full (bar)')).not.toHaveAttribute('aria-invalid');
     expect(form.getByLabelText('Quiet hours end at')).toHaveAccessibleDescription(/Quiet hours must last at least one hour/);
     // A message for a box the form does not have goes above the form rather than being lost.
-    expect(form.getAllByRole('alert').some((alert) => alert.textContent?.includes('A row the form does not have'))).toBe(true);
+    expect(form.getAllByRole('region', { name: 'There is a problem' }).some((box) => box.textContent?.includes('A row the form does not have'))).toBe(true);
     expect(reserve).toHaveValue(60);
   });
 });

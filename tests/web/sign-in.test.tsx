@@ -20,7 +20,7 @@ describe('sign-in', () => {
     const { user, router } = renderApp('/sign-in');
     await fillAndSubmit(user);
 
-    expect(await screen.findByRole('alert')).toHaveTextContent(GENERIC);
+    expect(await screen.findByRole('region', { name: 'There is a problem' })).toHaveTextContent(GENERIC);
     expect(screen.getByLabelText('E-mail')).toHaveValue('Nurse@Larkmoor.example');
     expect(screen.getByLabelText('Password')).toHaveValue('wrong horse battery');
     expect(currentUrl(router)).toBe('/sign-in');
@@ -47,7 +47,7 @@ describe('sign-in', () => {
     });
     const { user } = renderApp('/sign-in');
     await fillAndSubmit(user);
-    expect(await screen.findByRole('alert')).toHaveTextContent('Too many attempts. Wait 15 minutes and try again.');
+    expect(await screen.findByRole('region', { name: 'There is a problem' })).toHaveTextContent('Too many attempts. Wait 15 minutes and try again.');
   });
 
   it('when fields are empty, then explains beside each field and sends nothing', async () => {

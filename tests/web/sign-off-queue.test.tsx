@@ -65,7 +65,7 @@ describe('Sign-off queue', () => {
     expect(within(cards[2]).getByText('Weight changed')).toBeInTheDocument();
     expect(within(cards[2]).getByText('0.125 L/min')).toBeInTheDocument();
     expect(within(cards[2]).getByText('No points to check')).toBeInTheDocument();
-    expect(within(cards[2]).getByRole('link', { name: 'Review the proposal for Wren Tallis' })).toHaveAttribute(
+    expect(within(cards[2]).getByRole('link', { name: 'Review proposal for Wren Tallis' })).toHaveAttribute(
       'href', `/sign-off/${items[2].prescriptionId}`,
     );
   });

@@ -4,6 +4,7 @@ import { AppShell } from './layout/app-shell';
 import { HomeRedirect } from './layout/home-redirect';
 import { RequireAccess } from './layout/require-access';
 import { RequireSession } from './layout/require-session';
+import { RootLayout } from './layout/root-layout';
 import { RouteError } from './layout/route-error';
 
 // Every page is its own chunk, so the first load carries only the shell and the session check.
@@ -34,6 +35,7 @@ const rolePages: RouteObject[] = [
 
 export const appRoutes: RouteObject[] = [
   {
+    element: <RootLayout />,
     errorElement: <RouteError />,
     hydrateFallbackElement: <FullPageSpinner />,
     children: [

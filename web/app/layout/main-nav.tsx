@@ -1,3 +1,4 @@
+import { useEffect, useRef } from 'react';
 import { NavLink } from 'react-router-dom';
 import { useAppAbility } from '../../lib/ability';
 import { useSignedInUser } from '../../lib/signed-in-user';
@@ -9,13 +10,34 @@ const linkClasses = ({ isActive }: { isActive: boolean }) =>
     isActive ? 'bg-brand-50 text-brand-800 lg:border-l-4 lg:border-brand-600' : 'text-ink-700 hover:bg-surface-100'
   }`;
 
+/** Publishes the bottom bar's height for the page's scroll padding (app.css), so focus never hides under it. */
+function useBottomMenuHeight() {
+  const nav = useRef<HTMLElement>(null);
+  useEffect(() => {
+    const element = nav.current;
+    if (!element || typeof ResizeObserver === 'undefined') return;
+    const root = document.documentElement;
+    const publish = () => root.style.setProperty('--bottom-menu-height', `${element.getBoundingClientRect().height}px`);
+    const observer = new ResizeObserver(publish);
+    observer.observe(element);
+    publish();
+    return () => {
+      observer.disconnect();
+      root.style.removeProperty('--bottom-menu-height');
+    };
+  }, []);
+  return nav;
+}
+
 /** One list of links: a bottom bar on phones, a side column on wide screens. */
 export function MainNav() {
   const user = useSignedInUser();
   const ability = useAppAbility();
   const items = navItemsFor(user.role, ability);
+  const nav = useBottomMenuHeight();
   return (
     <nav
+      ref={nav}
       aria-label="Main"
       className="fixed inset-x-0 bottom-0 z-40 border-t border-surface-200 bg-surface-0 px-2 pb-[env(safe-area-inset-bottom)] lg:static lg:w-60 lg:shrink-0 lg:border-t-0 lg:border-r lg:bg-transparent lg:px-3 lg:py-6"
     >

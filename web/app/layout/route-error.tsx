@@ -1,6 +1,8 @@
 import { isRouteErrorResponse, Link, useRouteError } from 'react-router-dom';
 import { Button } from '../../components/ui/button';
+import { PageHeading } from '../../components/ui/page-heading';
 import { isApiError } from '../../lib/api-error';
+import { usePageTitle } from '../../lib/page-title';
 
 function describe(error: unknown): { title: string; message: string } {
   if (isRouteErrorResponse(error) && error.status === 404) {
@@ -21,9 +23,10 @@ function describe(error: unknown): { title: string; message: string } {
 /** The route-level error boundary: readable words, a way to retry, never a stack trace. */
 export function RouteError() {
   const { title, message } = describe(useRouteError());
+  usePageTitle(title);
   return (
     <div role="alert" className="mx-auto flex max-w-xl flex-col gap-4 px-4 py-12">
-      <h1 className="text-2xl font-bold text-ink-900">{title}</h1>
+      <PageHeading className="text-2xl font-bold text-ink-900">{title}</PageHeading>
       <p className="text-ink-700">{message}</p>
       <div className="flex flex-wrap gap-3">
         <Button onClick={() => window.location.reload()}>Try again</Button>

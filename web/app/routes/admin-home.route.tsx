@@ -5,9 +5,11 @@ import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { ServiceStatus } from '../../features/health/components/service-status';
 import { useSignedInUser } from '../../lib/signed-in-user';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
   const user = useSignedInUser();
+  usePageTitle('Overview');
   return (
     <>
       <PageHeader title="Overview" intro={`Running ${user.programmeName}: accounts, programme settings and the message log.`} />

@@ -7,6 +7,7 @@ import { CaseloadTable } from '../../features/infants/components/caseload-table'
 import { useCaseloadView } from '../../features/infants/hooks/use-caseload-view';
 import { useAppAbility } from '../../lib/ability';
 import { useSignedInUser } from '../../lib/signed-in-user';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
   const user = useSignedInUser();
@@ -14,6 +15,7 @@ export function Component() {
   const offerMine = user.role === 'consultant';
   const { query, update } = useCaseloadView({ allowScope: offerMine });
   const nurse = user.role === 'nurse';
+  usePageTitle(nurse ? 'My caseload' : 'Caseload');
   return (
     <>
       <PageHeader

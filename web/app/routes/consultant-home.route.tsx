@@ -2,8 +2,10 @@ import { Link } from 'react-router-dom';
 import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
 import { QueuePreview } from '../../features/prescriptions/components/queue-preview';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
+  usePageTitle('Overview');
   return (
     <>
       <PageHeader title="Overview" intro="Decisions waiting for you, and the babies in the programme." />

@@ -1,8 +1,10 @@
 import { Card } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
+  usePageTitle('Overview');
   return (
     <>
       <PageHeader title="Overview" intro="Babies in your programme, visits to book and journeys to arrange." />

@@ -9,12 +9,14 @@ import { JourneyForm } from '../../features/journeys/components/journey-form';
 import { JourneySent } from '../../features/journeys/components/journey-sent';
 import { todayIn } from '../../features/journeys/components/journey-words';
 import { useSignedInUser } from '../../lib/signed-in-user';
+import { usePageTitle } from '../../lib/page-title';
 
 /** The coordinator arranges a trip check for a baby on the family's behalf. */
 export function Component() {
   const { id = '' } = useParams();
   const { programmeTimeZone } = useSignedInUser();
   const infant = useInfant(id);
+  usePageTitle('New journey check', infant.data?.name);
   const [sent, setSent] = useState<Journey | null>(null);
   const fallback = infantLoadFallback(infant, 'Loading the record', true);
   if (fallback || !infant.data) return fallback;

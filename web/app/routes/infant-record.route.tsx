@@ -26,6 +26,7 @@ import { VisitsSection } from '../../features/visits/components/visits-section';
 import { useAppAbility } from '../../lib/ability';
 import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 import { useSignedInUser } from '../../lib/signed-in-user';
+import { usePageTitle } from '../../lib/page-title';
 
 
 /** Readings, recordings, checks and the step-down request: the monitoring half of the record. */
@@ -82,6 +83,7 @@ export function Component() {
   const { id = '' } = useParams();
   const ability = useAppAbility();
   const infant = useInfant(id);
+  usePageTitle('Record', infant.data?.name);
   const prescriptions = useInfantPrescriptions(id);
   const versions = useMemo(
     () => [...(prescriptions.data?.items ?? [])].sort((a, b) => b.version - a.version),

@@ -10,6 +10,7 @@ import { useJourney } from '../../features/journeys/api/get-journey';
 import { JourneyReview } from '../../features/journeys/components/journey-review';
 import { useAppAbility } from '../../lib/ability';
 import { errorMessage, isApiError } from '../../lib/api-error';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
   const { journeyId = '' } = useParams();
@@ -19,6 +20,8 @@ export function Component() {
   const journey = useJourney(journeyId);
   const decide = useDecideJourney(journeyId);
   const canDecide = ability.can('approve', 'Journey');
+  const title = canDecide && journey.data?.status === 'waiting' ? 'Review a journey check' : 'Journey check';
+  usePageTitle(title, journey.data?.infantName);
 
   const onDecided = () => {
     // The decision is written to the baby's audit trail, which hangs under the baby's detail key.
@@ -38,7 +41,7 @@ export function Component() {
   } else body = <JourneyReview journey={journey.data} canDecide={canDecide} mutation={decide} onDecided={onDecided} />;
   return (
     <>
-      <PageHeader title={canDecide && journey.data?.status === 'waiting' ? 'Review a journey check' : 'Journey check'} actions={back} />
+      <PageHeader title={title} actions={back} />
       {body}
     </>
   );

@@ -1,8 +1,10 @@
 import { Link } from 'react-router-dom';
 import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
+  usePageTitle('Page not found');
   return (
     <>
       <PageHeader title="Page not found" />

@@ -10,6 +10,7 @@ import { completesWithReading } from '../../features/my-day/components/day-forma
 import { MyDayList } from '../../features/my-day/components/my-day-list';
 import { ReadingForm } from '../../features/readings/components/reading-form';
 import { SavedReading } from '../../features/readings/components/saved-reading';
+import { usePageTitle } from '../../lib/page-title';
 
 interface JustSaved {
   infantId: string;
@@ -18,6 +19,7 @@ interface JustSaved {
 }
 
 export function Component() {
+  usePageTitle('My day');
   const queryClient = useQueryClient();
   const refreshDay = useRefreshMyDay();
   // Which readings this visit to the page saved: ids only, the readings themselves live in the query cache.

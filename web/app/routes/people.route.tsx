@@ -6,9 +6,11 @@ import { AddPersonPanel } from '../../features/users/components/add-person-panel
 import { PeopleFilters } from '../../features/users/components/people-filters';
 import { PeopleTable } from '../../features/users/components/people-table';
 import { useAppAbility } from '../../lib/ability';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
   const ability = useAppAbility();
+  usePageTitle('People');
   const [adding, setAdding] = useState(false);
   const canAdd = ability.can('create', 'User');
   return (

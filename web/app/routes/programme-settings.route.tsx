@@ -1,9 +1,11 @@
 import { PageHeader } from '../../components/ui/page-header';
 import { PolicyPage } from '../../features/policy/components/policy-page';
 import { useAppAbility } from '../../lib/ability';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
   const ability = useAppAbility();
+  usePageTitle('Programme settings');
   return (
     <>
       <PageHeader

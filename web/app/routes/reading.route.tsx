@@ -13,6 +13,7 @@ import { SavedReading } from '../../features/readings/components/saved-reading';
 import { useAppAbility } from '../../lib/ability';
 import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 import { BackToRecordLink } from '../../features/infants/components/back-to-record-link';
+import { usePageTitle } from '../../lib/page-title';
 
 
 /** "Log a reading" for any baby on the caseload, outside the day's planned checks. */
@@ -21,6 +22,7 @@ export function Component() {
   const ability = useAppAbility();
   const queryClient = useQueryClient();
   const infant = useInfant(id);
+  usePageTitle('Log a reading', infant.data?.name);
   const [savedIds, setSavedIds] = useState<string[]>([]);
 
   if (!ability.can('create', 'Reading')) {

@@ -11,6 +11,7 @@ import { useAppAbility } from '../../lib/ability';
 import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 import { useSignedInUser } from '../../lib/signed-in-user';
 import { BackToRecordLink } from '../../features/infants/components/back-to-record-link';
+import { usePageTitle } from '../../lib/page-title';
 
 
 /** Upload one night's oximetry for a baby; on success the recording page follows the analysis. */
@@ -21,6 +22,7 @@ export function Component() {
   const user = useSignedInUser();
   const ability = useAppAbility();
   const infant = useInfant(id);
+  usePageTitle('Upload an overnight recording', infant.data?.name);
 
   const fallback = infantLoadFallback(infant, 'Loading the baby');
   if (fallback || !infant.data) return fallback;

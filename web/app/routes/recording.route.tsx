@@ -23,6 +23,7 @@ import { traceDescription } from '../../features/recordings/components/trace-des
 import { errorMessage, isApiError } from '../../lib/api-error';
 import { formatDateTime } from '../../lib/format';
 import { BackToRecordLink } from '../../features/infants/components/back-to-record-link';
+import { usePageTitle } from '../../lib/page-title';
 
 /** When the analysis settles, the baby's flags, checks and perhaps a new step proposal change with it. */
 function useRefreshBabyWhenSettled(recording: Recording | undefined) {
@@ -86,6 +87,7 @@ export function Component() {
   const recording = useRecording(id);
   const infantId = recording.data?.infantId ?? '';
   const infant = useQuery({ ...infantQueryOptions(infantId), enabled: infantId !== '' });
+  usePageTitle('Overnight recording', infant.data?.name);
   useRefreshBabyWhenSettled(recording.data);
 
   if (recording.isError) {

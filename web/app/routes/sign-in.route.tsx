@@ -1,14 +1,17 @@
 import { Navigate, useSearchParams } from 'react-router-dom';
 import { LogoMark } from '../../components/ui/logo-mark';
+import { PageHeading } from '../../components/ui/page-heading';
 import { FullPageSpinner } from '../../components/ui/spinner';
 import { useSession } from '../../features/session/api/get-session';
 import { SignInForm } from '../../features/session/components/sign-in-form';
 import { abilityForSessionUser } from '../../lib/ability';
 import { landingPathFor } from '../navigation';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
   const session = useSession();
   const [params] = useSearchParams();
+  usePageTitle('Sign in');
   if (session.isPending) return <FullPageSpinner />;
   if (session.isError) throw session.error;
 
@@ -29,7 +32,7 @@ export function Component() {
           </div>
         </div>
         <section className="rounded-2xl border border-surface-200 bg-surface-0 p-6 shadow-sm">
-          <h1 className="mb-4 text-xl font-bold text-ink-900">Sign in</h1>
+          <PageHeading className="mb-4 text-xl font-bold text-ink-900">Sign in</PageHeading>
           {params.get('passwordSet') && <p role="status" className="mb-4 text-ok-800">Your password is saved. Sign in with it now.</p>}
           <SignInForm />
         </section>

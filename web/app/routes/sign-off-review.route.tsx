@@ -10,6 +10,7 @@ import { useDecidePrescription } from '../../features/prescriptions/api/decide-p
 import { usePrescription } from '../../features/prescriptions/api/get-prescription';
 import { ProposalReview } from '../../features/prescriptions/components/proposal-review';
 import { errorMessage } from '../../lib/api-error';
+import { usePageTitle } from '../../lib/page-title';
 
 function BackLink() {
   return (
@@ -28,6 +29,7 @@ export function Component() {
   const infant = useQuery({ ...infantQueryOptions(infantId), enabled: infantId !== '' });
   const policy = useQuery(policyQueryOptions());
   const decide = useDecidePrescription(prescriptionId, infant.data?.name);
+  usePageTitle('Sign off', infant.data?.name);
 
   const onDecided = () => {
     // The decision changes the baby's status, current plan and history as well as the queue.

@@ -1,8 +1,10 @@
 import { PageHeader } from '../../components/ui/page-header';
 import { SignOffQueue } from '../../features/prescriptions/components/sign-off-queue';
 import { WaitingJourneys } from '../../features/journeys/components/waiting-journeys';
+import { usePageTitle } from '../../lib/page-title';
 
 export function Component() {
+  usePageTitle('Sign-off queue');
   return (
     <>
       <PageHeader title="Sign-off queue" intro="Proposed home settings waiting for your decision, longest wait first." />

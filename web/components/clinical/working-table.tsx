@@ -1,6 +1,7 @@
 import type { ConversionModel } from '../../../shared/clinical/conversion-types';
 import type { WorkingLine } from '../../../shared/clinical/working';
 import { formatWorkingValue } from './clinical-format';
+import { ScrollRegion } from '../ui/scroll-region';
 
 /** A conversion's lines, or any other worked sheet whose lines name their own unit (a journey's supply sheet). */
 type SheetLine = Omit<WorkingLine, 'unit'> & { unit: WorkingLine['unit'] | (string & {}) };
@@ -28,7 +29,7 @@ export function WorkingTable({ working, warnings = [], model, caption = 'How the
       )}
       {/* Narrow containers (a side panel, a phone) show formula and source under the step, so nothing scrolls away;
           screen readers always get the four real columns. */}
-      <div className="@container relative overflow-x-auto rounded-lg border border-surface-200">
+      <ScrollRegion label={caption} className="@container relative overflow-x-auto rounded-lg border border-surface-200">
         <table className="w-full border-collapse text-left text-sm">
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-surface-100 text-ink-700">
@@ -56,7 +57,7 @@ export function WorkingTable({ working, warnings = [], model, caption = 'How the
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollRegion>
       {model && (
         <dl aria-label="Models used" className="grid gap-x-4 gap-y-1 text-sm text-ink-700 sm:grid-cols-[auto_1fr]">
           <dt className="font-semibold">Air pressure</dt>

@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes } from 'react';
+import type { ButtonHTMLAttributes, Ref } from 'react';
 
 type Variant = 'primary' | 'secondary' | 'quiet' | 'danger';
 type Size = 'sm' | 'md' | 'lg';
@@ -19,6 +19,7 @@ const sizes: Record<Size, string> = {
 export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   variant?: Variant;
   size?: Size;
+  ref?: Ref<HTMLButtonElement>;
 }
 
 export function buttonClasses(variant: Variant = 'primary', size: Size = 'md', extra = ''): string {

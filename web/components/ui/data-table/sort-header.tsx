@@ -27,7 +27,7 @@ export function SortHeader<TData extends RowData>({ header, children, className 
       <button
         type="button"
         onClick={header.column.getToggleSortingHandler()}
-        className="inline-flex items-center gap-1 rounded px-1 py-0.5 font-semibold hover:bg-surface-200"
+        className="focus-inset inline-flex items-center gap-1 rounded px-1 py-0.5 font-semibold hover:bg-surface-200"
       >
         {children}
         <span aria-hidden="true" className="text-xs">

@@ -1,6 +1,7 @@
 import type { ReactTable, RowData } from '@tanstack/react-table';
 import { SortHeader } from './sort-header';
 import type { ServerTableFeatures } from './use-server-table';
+import { ScrollRegion } from '../scroll-region';
 
 interface TableFrameProps<TData extends RowData> {
   table: ReactTable<ServerTableFeatures, TData>;
@@ -25,7 +26,7 @@ export function TableFrame<TData extends RowData>({ table, caption, minWidth, bu
   const padX = compact ? 'px-2' : 'px-3';
   const sticky = (index: number) => Boolean(stickyFirstColumn) && index === 0;
   return (
-    <div className="relative overflow-x-auto rounded-xl border border-surface-200">
+    <ScrollRegion label={caption} className="relative overflow-x-auto rounded-xl border border-surface-200">
       <table className={`w-full ${minWidth} border-collapse text-left`}>
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-surface-100 text-sm text-ink-700">
@@ -55,6 +56,6 @@ export function TableFrame<TData extends RowData>({ table, caption, minWidth, bu
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }

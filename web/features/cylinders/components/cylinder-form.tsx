@@ -1,4 +1,5 @@
 import { useForm, useWatch } from 'react-hook-form';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { cylinderCheckSchema, type CylinderCheckInput } from '../../../../shared/schemas/journeys';
@@ -29,7 +30,7 @@ interface CylinderFormProps {
 }
 
 export function CylinderForm({ cylinders, onCheck }: CylinderFormProps) {
-  const { register, handleSubmit, control, formState: { errors } } = useForm<Values, unknown, CylinderCheckInput>({
+  const { register, handleSubmit, control, formState: { errors, submitCount } } = useForm<Values, unknown, CylinderCheckInput>({
     resolver: zodResolver(cylinderCheckSchemaFor(cylinders)),
     defaultValues: { cylinderId: cylinders.length === 1 ? cylinders[0].id : '' },
   });
@@ -38,6 +39,7 @@ export function CylinderForm({ cylinders, onCheck }: CylinderFormProps) {
   const unit = chosen?.unit ?? 'bar or psi';
   return (
     <form onSubmit={handleSubmit(onCheck)} noValidate aria-label="Cylinder check" className="flex flex-col gap-4 text-lg">
+      <ErrorSummary attempt={submitCount} />
       <SelectField label="Which cylinder?" error={errors.cylinderId?.message} className="min-h-13 text-lg" {...register('cylinderId')}>
         <option value="">Choose the cylinder</option>
         {cylinders.map((c) => (

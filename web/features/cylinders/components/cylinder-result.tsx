@@ -47,12 +47,13 @@ function FlowResult({ cylinder, gauge, flow, reservePercent, now }: Omit<Cylinde
 /** The time left for each flow the approved setting uses; durations are rounded down, never up. */
 export function CylinderResult({ cylinder, gauge, flows, reservePercent, now }: CylinderResultProps) {
   const section = useRef<HTMLElement>(null);
-  // On a phone the answer lands below the button, out of sight: bring each new answer into view.
+  // On a phone the answer lands below the button, out of sight: each new answer takes focus, which brings it into
+  // view and has a screen reader read it.
   useEffect(() => {
-    section.current?.scrollIntoView?.({ block: 'start' });
+    section.current?.focus();
   }, [now]);
   return (
-    <section ref={section} aria-labelledby="cylinder-result-heading" aria-live="polite" className="flex scroll-mt-4 flex-col gap-3">
+    <section ref={section} tabIndex={-1} aria-labelledby="cylinder-result-heading" className="flex scroll-mt-4 flex-col gap-3">
       <h2 id="cylinder-result-heading" className="text-2xl font-bold text-ink-900">
         {cylinder.name} at {gauge} {cylinder.unit}
       </h2>

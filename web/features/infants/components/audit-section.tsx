@@ -5,6 +5,7 @@ import { Spinner } from '../../../components/ui/spinner';
 import { formatDateTime } from '../../../lib/format';
 import { useInfantAudit } from '../api/get-infant-audit';
 import { auditText } from './audit-text';
+import { ScrollRegion } from '../../../components/ui/scroll-region';
 
 interface AuditSectionProps {
   infantId: string;
@@ -20,7 +21,7 @@ export function AuditSection({ infantId, versionsState }: AuditSectionProps) {
       {audit.isError && <Alert>{audit.error.message}</Alert>}
       {audit.data && audit.data.items.length === 0 && <EmptyState message="Nothing recorded yet." />}
       {audit.data && audit.data.items.length > 0 && (
-        <div className="relative overflow-x-auto">
+        <ScrollRegion label="Changes to this record, newest first" className="relative overflow-x-auto">
           <table className="w-full border-collapse text-left text-sm">
             <caption className="sr-only">Changes to this record, newest first</caption>
             <thead className="bg-surface-100 text-ink-700">
@@ -40,7 +41,7 @@ export function AuditSection({ infantId, versionsState }: AuditSectionProps) {
               ))}
             </tbody>
           </table>
-        </div>
+        </ScrollRegion>
       )}
     </Card>
   );

@@ -2,7 +2,7 @@ import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { replaceContactsSchema, type InfantDetail } from '../../../../shared/schemas/infants';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { FormActions } from '../../../components/ui/form-actions';
 import { errorMessage, isApiError } from '../../../lib/api-error';
 import { useSignedInUser } from '../../../lib/signed-in-user';
@@ -43,7 +43,7 @@ export function ContactsEditor({ infant, onDone }: { infant: InfantDetail; onDon
   return (
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-        {save.isError && <Alert>{inline ? 'Check the highlighted fields.' : errorMessage(save.error)}</Alert>}
+        <ErrorSummary attempt={form.formState.submitCount} failure={save.error} problem={save.isError && !inline ? errorMessage(save.error) : undefined} />
         <ContactFields defaultTimeZone={user.programmeTimeZone} />
         <FormActions pending={save.isPending} submitLabel="Save contacts" onCancel={onDone} />
       </form>

@@ -1,3 +1,4 @@
+import { useFocusWhenClosed } from '../../../components/ui/focus';
 import { useState } from 'react';
 import type { InfantDetail } from '../../../../shared/schemas/infants';
 import { Button } from '../../../components/ui/button';
@@ -38,10 +39,11 @@ function ContactItem({ contact }: { contact: Contact }) {
 
 export function ContactsSection({ infant, canEdit }: { infant: InfantDetail; canEdit: boolean }) {
   const [editing, setEditing] = useState(false);
+  const editButton = useFocusWhenClosed<HTMLButtonElement>(editing);
   return (
     <Card
       title="Family contacts"
-      actions={canEdit && !editing ? <Button variant="secondary" size="sm" onClick={() => setEditing(true)}>Edit contacts</Button> : undefined}
+      actions={canEdit && !editing ? <Button ref={editButton} variant="secondary" size="sm" onClick={() => setEditing(true)}>Edit contacts</Button> : undefined}
     >
       {editing ? (
         <ContactsEditor infant={infant} onDone={() => setEditing(false)} />

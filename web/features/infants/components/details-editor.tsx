@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { updateInfantSchema, type InfantDetail, type UpdateInfantInput } from '../../../../shared/schemas/infants';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
@@ -105,7 +105,7 @@ export function DetailsEditor({ infant, onDone }: { infant: InfantDetail; onDone
             </div>
           </div>
         )}
-        {otherProblem && <Alert>{otherProblem}</Alert>}
+        <ErrorSummary attempt={formState.submitCount} failure={update.error} problem={otherProblem} />
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField label="Current weight (kg)" type="number" inputMode="decimal" step="any" error={err('weightKg')} {...register('weightKg', asNumber)} />
           <TextField label="Weighed on" type="date" error={err('weightDate')} {...register('weightDate')} />

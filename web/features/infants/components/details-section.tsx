@@ -1,3 +1,4 @@
+import { useFocusWhenClosed } from '../../../components/ui/focus';
 import { useState } from 'react';
 import { DIAGNOSIS_LABELS, type InfantDetail } from '../../../../shared/schemas/infants';
 import { Button } from '../../../components/ui/button';
@@ -18,10 +19,11 @@ function Row({ label, children }: { label: string; children: React.ReactNode }) 
 
 export function DetailsSection({ infant, canEdit }: { infant: InfantDetail; canEdit: boolean }) {
   const [editing, setEditing] = useState(false);
+  const editButton = useFocusWhenClosed<HTMLButtonElement>(editing);
   return (
     <Card
       title="Details"
-      actions={canEdit && !editing ? <Button variant="secondary" size="sm" onClick={() => setEditing(true)}>Edit details</Button> : undefined}
+      actions={canEdit && !editing ? <Button ref={editButton} variant="secondary" size="sm" onClick={() => setEditing(true)}>Edit details</Button> : undefined}
     >
       {editing ? (
         <DetailsEditor infant={infant} onDone={() => setEditing(false)} />

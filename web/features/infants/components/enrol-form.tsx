@@ -3,7 +3,7 @@ import { FormProvider, useForm, type FieldErrors, type Path } from 'react-hook-f
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useNavigate } from 'react-router-dom';
 import { enrolInfantSchema, type EnrolInfantInput } from '../../../../shared/schemas/infants';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { detailMessages, errorMessage, isApiError } from '../../../lib/api-error';
 import { WeightConfirm } from '../../../components/clinical/weight-confirm';
@@ -40,12 +40,14 @@ export function EnrolForm() {
   // A second click can arrive before React re-renders the disabled button; this closes that gap.
   const inFlight = useRef(false);
   const heading = useRef<HTMLHeadingElement>(null);
+  // Focus follows a step the person moved to; a step that stops them sends focus to the error summary instead.
   const moved = useRef(false);
+  // Each "Next" (or step link, or save) stopped by a problem: the error summary takes focus each time.
+  const [stopped, setStopped] = useState(0);
 
   useEffect(() => {
-    // Focus follows the step for keyboard and screen-reader users, but not on first load.
     if (moved.current) heading.current?.focus();
-    moved.current = true;
+    moved.current = false;
   }, [step]);
 
   const go = async (target: number) => {
@@ -53,9 +55,11 @@ export function EnrolForm() {
       const fields = ENROL_STEPS[at].fields as readonly Path<EnrolValues>[];
       if (fields.length && !(await trigger([...fields]))) {
         setStep(at);
+        setStopped((n) => n + 1);
         return;
       }
     }
+    moved.current = true;
     setStep(target);
   };
 
@@ -80,6 +84,7 @@ export function EnrolForm() {
     }
     setServerProblem(leftover.length ? leftover.join(' ') : error.message);
     if (first !== null) setStep(first);
+    setStopped((n) => n + 1);
   };
 
   const save = async (values: EnrolInfantInput) => {
@@ -99,7 +104,10 @@ export function EnrolForm() {
     if (inFlight.current) return;
     inFlight.current = true;
     try {
-      await handleSubmit(save, (errors) => setStep(Math.min(...stepsWithErrors(errors))))();
+      await handleSubmit(save, (errors) => {
+        setStep(Math.min(...stepsWithErrors(errors)));
+        setStopped((n) => n + 1);
+      })();
     } finally {
       inFlight.current = false;
     }
@@ -112,7 +120,7 @@ export function EnrolForm() {
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_24rem] lg:items-start">
         <form onSubmit={onSubmit} noValidate aria-labelledby="enrol-step-title" className="flex min-w-0 flex-col gap-5">
           <EnrolStepper current={step} withErrors={stepsWithErrors(formState.errors)} onGo={go} />
-          {serverProblem && <Alert>{serverProblem}</Alert>}
+          <ErrorSummary attempt={stopped} problem={serverProblem} />
           <section className="rounded-2xl border border-surface-200 bg-surface-0 p-4 shadow-sm sm:p-6">
             <h2 id="enrol-step-title" ref={heading} tabIndex={-1} className="mb-4 text-xl font-bold text-ink-900">
               Step {step + 1} of {ENROL_STEPS.length}: {current.title}
@@ -121,11 +129,11 @@ export function EnrolForm() {
             {step === 1 && <EnrolHospitalStep />}
             {step === 2 && <HomeFields />}
             {step === 3 && <EnrolCareStep />}
-            {step === 4 && <EnrolCheckStep control={control} onEdit={setStep} />}
+            {step === 4 && <EnrolCheckStep control={control} onEdit={(to) => { moved.current = true; setStep(to); }} />}
             {step === 4 && weightWarnings && <WeightConfirm warnings={weightWarnings} name="baby.weightConfirmed" />}
           </section>
           <div className="flex flex-wrap justify-between gap-3">
-            <Button variant="secondary" onClick={() => setStep(step - 1)} disabled={step === 0 || pending}>
+            <Button variant="secondary" onClick={() => { moved.current = true; setStep(step - 1); }} disabled={step === 0 || pending}>
               Back
             </Button>
             {/* Distinct keys: reusing one DOM button and flipping its type to submit mid-click would save the form

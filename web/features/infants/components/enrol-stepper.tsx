@@ -10,7 +10,7 @@ interface EnrolStepperProps {
 export function EnrolStepper({ current, withErrors, onGo }: EnrolStepperProps) {
   return (
     <nav aria-label="Enrolment steps">
-      <ol className="flex gap-1 overflow-x-auto pb-1 sm:flex-wrap">
+      <ol className="flex gap-1 overflow-x-auto p-1.5 sm:flex-wrap">
         {ENROL_STEPS.map((step, index) => {
           const active = index === current;
           const problem = withErrors.has(index);
@@ -20,7 +20,7 @@ export function EnrolStepper({ current, withErrors, onGo }: EnrolStepperProps) {
                 type="button"
                 onClick={() => onGo(index)}
                 aria-current={active ? 'step' : undefined}
-                className={`flex min-h-11 items-center gap-2 rounded-lg border px-3 text-sm font-semibold ${
+                className={`focus-inset flex min-h-11 items-center gap-2 rounded-lg border px-3 text-sm font-semibold ${
                   active ? 'border-brand-600 bg-brand-50 text-brand-800' : 'border-surface-200 bg-surface-0 text-ink-700 hover:bg-surface-100'
                 } ${problem ? 'border-danger-600' : ''}`}
               >

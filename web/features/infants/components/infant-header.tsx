@@ -1,3 +1,4 @@
+import { PageHeading } from '../../../components/ui/page-heading';
 import { INFANT_FLAG_LABELS, INFANT_STATUS_LABELS, type InfantDetail } from '../../../../shared/schemas/infants';
 import { settingText } from '../../../components/clinical/setting-text';
 import { Badge } from '../../../components/ui/badge';
@@ -18,7 +19,7 @@ export function InfantHeader({ infant }: { infant: InfantDetail }) {
   return (
     <header className="mb-6 flex flex-col gap-4">
       <div className="flex flex-wrap items-center gap-3">
-        <h1 className="text-2xl font-bold text-ink-900 sm:text-3xl">{infant.name}</h1>
+        <PageHeading>{infant.name}</PageHeading>
         <Badge tone={STATUS_TONES[infant.status]}>{INFANT_STATUS_LABELS[infant.status]}</Badge>
         {infant.flags.map((flag) => (
           <Badge key={flag} tone="warn">

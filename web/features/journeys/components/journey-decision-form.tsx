@@ -2,7 +2,7 @@ import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { journeyDecisionSchema, type Journey, type JourneyDecisionInput } from '../../../../shared/schemas/journeys';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextAreaField } from '../../../components/ui/field';
 import { errorMessage, isApiError } from '../../../lib/api-error';
@@ -27,7 +27,7 @@ interface JourneyDecisionFormProps {
 }
 
 export function JourneyDecisionForm({ journey, mutation, onDecided }: JourneyDecisionFormProps) {
-  const { register, handleSubmit, setError, control, formState: { errors } } = useForm<Values, unknown, JourneyDecisionInput>({
+  const { register, handleSubmit, setError, control, formState: { errors, submitCount } } = useForm<Values, unknown, JourneyDecisionInput>({
     resolver: zodResolver(decisionSchemaFor(journey)),
     defaultValues: { decision: 'approve', rowVersion: journey.rowVersion },
   });
@@ -52,7 +52,7 @@ export function JourneyDecisionForm({ journey, mutation, onDecided }: JourneyDec
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Journey decision" className="flex flex-col gap-4">
-      {problem && <Alert>{problem}</Alert>}
+      <ErrorSummary attempt={submitCount} failure={mutation.error} problem={problem} />
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-2 font-semibold text-ink-900">Your decision</legend>
         <div className="grid gap-2 md:grid-cols-2">

@@ -3,13 +3,14 @@ import { formatFlow, formatMmHg } from '../../../components/clinical/clinical-fo
 import { Alert } from '../../../components/ui/alert';
 import { hoursAndMinutesText as durationText } from '../../../../shared/clinical/cylinder-time';
 import { PERIOD_WORDS } from './journey-words';
+import { ScrollRegion } from '../../../components/ui/scroll-region';
 
 const flowCell = (flow: number | null) => (flow === null ? '—' : `${formatFlow(flow)} L/min`);
 const exactCell = (flow: number | null) => (flow === null ? 'not reachable' : `${flow.toFixed(3)} L/min`);
 
 function PeriodTable({ plan }: { plan: JourneyPlan }) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-surface-200">
+    <ScrollRegion label="Flow there for each part of the day" className="overflow-x-auto rounded-lg border border-surface-200">
       <table className="w-full border-collapse text-left text-sm">
         <caption className="sr-only">Flow there for each part of the day</caption>
         <thead className="bg-surface-100 text-ink-700">
@@ -34,14 +35,14 @@ function PeriodTable({ plan }: { plan: JourneyPlan }) {
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }
 
 function CylinderTable({ plan }: { plan: JourneyPlan }) {
   if (plan.cylinders.length === 0) return <p className="text-ink-700">The programme lists no cylinders, so no supply is counted.</p>;
   return (
-    <div className="overflow-x-auto rounded-lg border border-surface-200">
+    <ScrollRegion label="Cylinders to take" className="overflow-x-auto rounded-lg border border-surface-200">
       <table className="w-full border-collapse text-left text-sm">
         <caption className="sr-only">Cylinders to take</caption>
         <thead className="bg-surface-100 text-ink-700">
@@ -61,7 +62,7 @@ function CylinderTable({ plan }: { plan: JourneyPlan }) {
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }
 

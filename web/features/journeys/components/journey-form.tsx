@@ -2,7 +2,7 @@ import { useRef } from 'react';
 import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { createJourneySchemaOn, type CreateJourneyFormValues, type CreateJourneyInput, type Journey } from '../../../../shared/schemas/journeys';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { useCreateJourney } from '../api/create-journey';
@@ -49,7 +49,7 @@ export function JourneyForm({ infantId, today, onSent }: JourneyFormProps) {
   return (
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Trip check" className="flex flex-col gap-5 text-lg">
-        {problem && <Alert>{problem}</Alert>}
+        <ErrorSummary attempt={formState.submitCount} failure={create.error} problem={problem} />
         <JourneyFormFields />
         <Button type="submit" size="lg" disabled={busy} className="w-full sm:w-auto">
           {busy ? 'Sending…' : 'Send to the consultant'}

@@ -39,7 +39,7 @@ function WaitingJourneyCard({ journey }: { journey: Journey }) {
       </dl>
       <Link
         to={`/journeys/${journey.id}`}
-        aria-label={`Review the trip to ${request.destinationName} for ${journey.infantName}`}
+        aria-label={`Review journey: ${journey.infantName}, trip to ${request.destinationName}`}
         className="mt-1 inline-flex min-h-11 items-center justify-center self-start rounded-lg bg-brand-600 px-4 font-semibold text-white hover:bg-brand-700"
       >
         Review journey

@@ -13,7 +13,7 @@ export function RetryMessageAction({ message }: { message: Message }) {
   if (message.status !== 'failed' && message.status !== 'unknown') return null;
   const again = (
     <Button size="sm" variant="secondary" disabled={retry.isPending || arrived.isPending} onClick={() => retry.mutate(message.id)}
-      aria-label={`Send again to ${message.recipient.name}`}>
+      aria-label={`${retry.isPending ? 'Sending…' : 'Send again'} to ${message.recipient.name}`}>
       {retry.isPending ? 'Sending…' : 'Send again'}
     </Button>
   );
@@ -22,7 +22,7 @@ export function RetryMessageAction({ message }: { message: Message }) {
   return (
     <span className="flex flex-wrap gap-2">
       <Button size="sm" variant="secondary" disabled={retry.isPending || arrived.isPending} onClick={() => arrived.mutate(message.id)}
-        aria-label={`It reached ${message.recipient.name}`}>
+        aria-label={`${arrived.isPending ? "Saving…" : "It arrived"}: ${message.recipient.name}`}>
         {arrived.isPending ? 'Saving…' : 'It arrived'}
       </Button>
       {again}

@@ -9,6 +9,7 @@ import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { Spinner } from '../../../components/ui/spinner';
 import { useInfantReadings } from '../api/get-readings';
+import { ScrollRegion } from '../../../components/ui/scroll-region';
 
 const SHOWN = 10;
 
@@ -26,7 +27,7 @@ const shortDateTime = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 
 // Three two-line columns, so the table fits a phone without sideways scrolling.
 function ReadingsTable({ readings, bandMin }: { readings: Reading[]; bandMin: number | undefined }) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-surface-200">
+    <ScrollRegion label="Latest readings, newest first" className="overflow-x-auto rounded-lg border border-surface-200">
       <table className="w-full border-collapse text-left text-sm">
         <caption className="sr-only">Latest readings, newest first</caption>
         <thead className="bg-surface-100 text-ink-700">
@@ -57,7 +58,7 @@ function ReadingsTable({ readings, bandMin }: { readings: Reading[]; bandMin: nu
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }
 

@@ -5,6 +5,7 @@ import { z } from 'zod';
 import type { Prescription } from '../../../../shared/schemas/prescriptions';
 import { stepDownRequestSchema, type StepDownPreview } from '../../../../shared/schemas/step-downs';
 import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { Spinner } from '../../../components/ui/spinner';
@@ -51,7 +52,7 @@ function StepDownForm({ infantId, preview, onRequested, onClose }: Omit<StepDown
   const id = useId();
   const unmet = preview.checks.filter((c) => !c.met).length;
   const request = useRequestStepDown(infantId, onRequested);
-  const { register, handleSubmit, setError, formState: { errors } } = useForm<FormValues, unknown, z.output<ReturnType<typeof formSchema>>>({
+  const { register, handleSubmit, setError, formState: { errors, submitCount } } = useForm<FormValues, unknown, z.output<ReturnType<typeof formSchema>>>({
     resolver: zodResolver(formSchema(unmet)),
     defaultValues: { reason: '', overrideReason: '' },
   });
@@ -69,7 +70,7 @@ function StepDownForm({ infantId, preview, onRequested, onClose }: Omit<StepDown
   const problem = formProblem(errors.root?.server?.message, request);
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Ask to step down" className="flex flex-col gap-4">
-      {problem && <Alert tone={conflict ? 'warn' : 'danger'}>{problem}</Alert>}
+      {conflict ? <Alert tone="warn">{problem}</Alert> : <ErrorSummary attempt={submitCount} failure={request.error} problem={problem} />}
       {preview.next && <p className="text-ink-900">Next step: <span className="font-bold">{preview.next.label}</span></p>}
       <div className="flex flex-col gap-2">
         <h3 className="font-bold text-ink-900">

@@ -23,7 +23,7 @@ export function DayItemCard({ item, stop, today, open, onToggle, children }: Day
   return (
     <li className={`overflow-hidden rounded-2xl border bg-surface-0 shadow-sm ${overdue ? 'border-warn-200 border-l-8 border-l-warn-600' : 'border-surface-200'}`}>
       <button type="button" aria-expanded={open} aria-controls={panelId} onClick={onToggle}
-        className="flex w-full items-start gap-3 p-4 text-left hover:bg-surface-50">
+        className="focus-inset flex w-full items-start gap-3 rounded-2xl p-4 text-left hover:bg-surface-50">
         <span aria-hidden="true" className="flex size-8 shrink-0 items-center justify-center rounded-full bg-brand-100 font-bold text-brand-800">
           {stop}
         </span>

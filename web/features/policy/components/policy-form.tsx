@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { useQueryClient } from '@tanstack/react-query';
 import type { Policy, UpdatePolicyInput } from '../../../../shared/schemas/policy';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { ConflictNotice } from '../../../components/ui/conflict-notice';
 import { errorMessage, isApiError } from '../../../lib/api-error';
@@ -54,7 +54,7 @@ export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boo
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Programme settings" className="flex flex-col gap-5">
         {conflict && <ConflictNotice message={conflict} actionLabel="Reload the settings" onReload={reload} />}
-        {problem && <Alert>{problem}</Alert>}
+        <ErrorSummary attempt={form.formState.submitCount} failure={update.error} problem={problem} />
         <fieldset disabled={readOnly} className="flex min-w-0 flex-col gap-5">
           <TargetsSection />
           <ScheduleSection />

@@ -3,7 +3,7 @@ import { FormProvider, useForm } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import type { Preferences, UpdatePreferencesInput } from '../../../../shared/schemas/preferences';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { ConflictNotice } from '../../../components/ui/conflict-notice';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
@@ -18,16 +18,16 @@ import { RemindersSwitch } from './reminders-switch';
 const CHANGED_ELSEWHERE =
   'Your details were changed elsewhere, perhaps on another phone or by your care team. Reload to see them, then make your change again.';
 
-export function PreferencesForm({ preferences }: { preferences: Preferences }) {
+export function PreferencesForm({ preferences, onSaved }: { preferences: Preferences; onSaved?: () => void }) {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
-  const update = useUpdatePreferences();
+  const update = useUpdatePreferences(onSaved);
   const [conflict, setConflict] = useState(false);
   const form = useForm<PreferencesFormValues, unknown, UpdatePreferencesInput>({
     resolver: preferencesResolver,
     defaultValues: toFormValues(preferences),
   });
-  const { register, formState: { errors }, setError } = form;
+  const { register, formState: { errors, submitCount }, setError } = form;
 
   const onSubmit = form.handleSubmit((input) =>
     update.mutate(input, {
@@ -54,7 +54,7 @@ export function PreferencesForm({ preferences }: { preferences: Preferences }) {
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Contact details and reminders" className="flex flex-col gap-6 text-lg">
         {conflict && <ConflictNotice large message={CHANGED_ELSEWHERE} actionLabel="Reload my details" onReload={reload} />}
-        {problem && <Alert>{problem}</Alert>}
+        <ErrorSummary attempt={submitCount} failure={update.error} problem={problem} />
         <RemindersSwitch />
         <section className="flex flex-col gap-4">
           <h2 className="text-2xl font-bold text-ink-900">How to reach you</h2>

@@ -3,6 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { Prescription } from '../../../../shared/schemas/prescriptions';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { SelectField, TextAreaField } from '../../../components/ui/field';
 import { errorMessage, isApiError } from '../../../lib/api-error';
@@ -38,7 +39,7 @@ function submitLabel(values: Pick<DecisionFormValues, 'mode' | 'flowLpm' | 'peri
 }
 
 export function DecisionForm({ rx, steps, mutation, onDecided }: DecisionFormProps) {
-  const { register, handleSubmit, setError, control, formState: { errors } } = useForm({
+  const { register, handleSubmit, setError, control, formState: { errors, submitCount } } = useForm({
     resolver: zodResolver(decisionFormSchema(rx)),
     defaultValues: defaultDecisionValues(rx),
   });
@@ -63,7 +64,7 @@ export function DecisionForm({ rx, steps, mutation, onDecided }: DecisionFormPro
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Decision" className="flex flex-col gap-4">
-      {formProblem && <Alert>{formProblem}</Alert>}
+      <ErrorSummary attempt={submitCount} failure={mutation.error} problem={formProblem} />
       <DecisionModes rx={rx} register={register} current={mode} />
       {mode === 'different' && (
         <SelectField label="Flowmeter step" error={errors.flowLpm?.message} {...register('flowLpm')}>

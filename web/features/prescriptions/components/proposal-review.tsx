@@ -1,3 +1,4 @@
+import { InPageLink } from '../../../components/ui/in-page-link';
 import type { InfantDetail } from '../../../../shared/schemas/infants';
 import { PRESCRIPTION_REASON_LABELS, type Prescription } from '../../../../shared/schemas/prescriptions';
 import { formatFlow } from '../../../components/clinical/clinical-format';
@@ -32,9 +33,7 @@ function ProposalBanner({ open }: { open: boolean }) {
     <div className="flex flex-wrap items-center justify-between gap-2 rounded-lg border-2 border-dashed border-warn-600 bg-warn-50 px-3 py-2">
       <p className="font-bold text-warn-800">PROPOSAL — not approved. The family does not see it until a consultant approves it.</p>
       {open && (
-        <a href="#decision" className="font-semibold text-brand-700 underline">
-          Go to the decision
-        </a>
+        <InPageLink target="decision">Go to the decision</InPageLink>
       )}
     </div>
   );

@@ -51,7 +51,7 @@ export function QueueItemCard({ item }: { item: QueueItem }) {
       </dl>
       <Link
         to={`/sign-off/${item.prescriptionId}`}
-        aria-label={`Review the proposal for ${item.infantName}`}
+        aria-label={`Review proposal for ${item.infantName}`}
         className="mt-1 inline-flex min-h-11 items-center justify-center self-start rounded-lg bg-brand-600 px-4 font-semibold text-white hover:bg-brand-700"
       >
         Review proposal

@@ -4,10 +4,10 @@ import { useQueryClient } from '@tanstack/react-query';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { updateReadingSchema, type Reading, type UpdateReadingInput } from '../../../../shared/schemas/readings';
-import { Alert } from '../../../components/ui/alert';
 import { ConflictNotice } from '../../../components/ui/conflict-notice';
 import { isApiError } from '../../../lib/api-error';
 import { readingQueryOptions } from '../api/get-reading';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { FormActions } from '../../../components/ui/form-actions';
 import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { useUpdateReading } from '../api/update-reading';
@@ -63,7 +63,7 @@ export function CorrectReadingForm({ reading, onDone }: { reading: Reading; onDo
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Correct the reading" className="flex flex-col gap-4">
         {conflict && <ConflictNotice message={CHANGED_ELSEWHERE} actionLabel="Reload the reading" onReload={reload} />}
-        {problem && <Alert>{problem}</Alert>}
+        <ErrorSummary attempt={form.formState.submitCount} failure={update.error} problem={problem} />
         <FigureFields />
         <StateChoice />
         <NotesField />

@@ -3,7 +3,7 @@ import { FormProvider, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { createReadingSchema, type CreateReadingInput, type Reading } from '../../../../shared/schemas/readings';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { detailMessages, isApiError } from '../../../lib/api-error';
@@ -57,10 +57,8 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
     } catch (error) {
       if (isApiError(error) && error.code === 'needs_confirmation') return setWeightWarnings(detailMessages(error.details?.weightKg));
       const leftover = applyServerFieldErrors(error, setError, FIELDS);
+      // The error summary at the top of the form takes focus and links to each field, even one off screen.
       if (leftover.length) setError('root.server', { type: 'server', message: leftover.join(' ') });
-      // On a phone the faulted field may be off screen: take the nurse to it.
-      const first = FIELDS.find((field) => isApiError(error) && error.details?.[field]);
-      if (first) form.setFocus(first);
     } finally {
       sending.current = false;
     }
@@ -72,7 +70,7 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
   return (
     <FormProvider {...form}>
       <form onSubmit={onSubmit} noValidate aria-label="Spot reading" className="flex flex-col gap-4">
-        {problem && <Alert>{problem}</Alert>}
+        <ErrorSummary attempt={formState.submitCount} failure={create.error} problem={problem} />
         <FigureFields forFamily={forFamily} />
         <StateChoice />
         {!forFamily && (

@@ -1,3 +1,4 @@
+import { useFocusOnArrival } from '../../../components/ui/focus';
 import { useState } from 'react';
 import type { Reading } from '../../../../shared/schemas/readings';
 import { Button } from '../../../components/ui/button';
@@ -29,15 +30,17 @@ function SavedReadingView({ reading, title, onDismiss }: { reading: Reading; tit
   const [correcting, setCorrecting] = useState(false);
   // Only the author may correct, and only inside the window; the server holds the same two rules.
   const open = useStillBefore(reading.createdBy.id === user.id ? reading.editableUntil : null);
+  // The save is confirmed where focus goes: a screen reader reads this panel, and Tab continues from it.
+  const panel = useFocusOnArrival<HTMLElement>();
 
   return (
-    <article aria-label={title} className="flex flex-col gap-3 rounded-xl border border-ok-200 bg-ok-50 p-4">
+    <article ref={panel} tabIndex={-1} aria-label={title} className="flex scroll-mt-4 flex-col gap-3 rounded-xl border border-ok-200 bg-ok-50 p-4">
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div>
-          <h3 className="font-bold text-ok-800">
+          <h2 className="font-bold text-ok-800">
             <span aria-hidden="true">✓ </span>
             {title}
-          </h3>
+          </h2>
           <p className="text-sm text-ink-700">Taken {formatDayAndTime(reading.takenAt)}</p>
         </div>
         {onDismiss && !correcting && (

@@ -1,6 +1,7 @@
 import type { RecordingTrace } from '../../../../shared/schemas/recordings';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { secondsText } from './recording-format';
+import { ScrollRegion } from '../../../components/ui/scroll-region';
 
 const clock = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', second: '2-digit', hourCycle: 'h23' });
 
@@ -19,7 +20,7 @@ interface DesaturationTableProps {
 export function DesaturationTable({ events, startedAt }: DesaturationTableProps) {
   if (events.length === 0) return <EmptyState message="No falls in SpO2 of 3 points or more in the valid time." />;
   return (
-    <div className="max-h-96 overflow-auto rounded-lg border border-surface-200">
+    <ScrollRegion label="Desaturation events, in time order" className="max-h-96 overflow-auto rounded-lg border border-surface-200">
       <table className="w-full border-collapse text-left text-sm">
         <caption className="sr-only">Desaturation events, in time order</caption>
         <thead className="sticky top-0 bg-surface-100 text-ink-700">
@@ -41,6 +42,6 @@ export function DesaturationTable({ events, startedAt }: DesaturationTableProps)
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }

@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { signInSchema } from '../../../../shared/schemas/session';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { detailMessages, errorMessage, isApiError } from '../../../lib/api-error';
@@ -22,7 +22,7 @@ export function SignInForm() {
     register,
     handleSubmit,
     setError,
-    formState: { errors },
+    formState: { errors, submitCount },
   } = useForm({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
 
   const onSubmit = handleSubmit((values) =>
@@ -41,7 +41,7 @@ export function SignInForm() {
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-      {showAlert && <Alert>{failureText(signIn.error)}</Alert>}
+      <ErrorSummary attempt={submitCount} failure={signIn.error} problem={showAlert ? failureText(signIn.error) : undefined} />
       <TextField
         label="E-mail"
         type="email"

@@ -2,7 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { ROLES, ROLE_LABELS } from '../../../../shared/auth/roles';
 import { createUserSchema, type CreateUserInput } from '../../../../shared/schemas/users';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
 import { errorMessage, isApiError } from '../../../lib/api-error';
@@ -21,7 +21,7 @@ export function AddPersonForm({ mutation, onCancel }: AddPersonFormProps) {
     register,
     handleSubmit,
     setError,
-    formState: { errors },
+    formState: { errors, submitCount },
   } = useForm({
     resolver: zodResolver(createUserSchema),
     defaultValues: { name: '', email: '', role: '' as CreateUserInput['role'] },
@@ -46,7 +46,7 @@ export function AddPersonForm({ mutation, onCancel }: AddPersonFormProps) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-      {formProblem && <Alert>{formProblem}</Alert>}
+      <ErrorSummary attempt={submitCount} failure={mutation.error} problem={formProblem} />
       <div className="grid gap-4 md:grid-cols-3">
         <TextField label="Full name" autoComplete="off" error={errors.name?.message} {...register('name')} />
         <TextField label="E-mail" type="email" autoComplete="off" error={errors.email?.message} {...register('email')} />

@@ -2,7 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { bookVisitSchema, VISIT_KIND_LABELS, VISIT_KINDS, type BookVisitInput } from '../../../../shared/schemas/visits';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
 import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
@@ -18,7 +18,7 @@ export function BookVisitForm({ infantId, onClose }: { infantId: string; onClose
   const book = useBookVisit(infantId);
   const team = useVisitStaff();
   const form = useForm<Values, unknown, BookVisitInput>({ resolver: zodResolver(bookVisitSchema), defaultValues: DEFAULTS });
-  const { register, formState: { errors }, setError } = form;
+  const { register, formState: { errors, submitCount }, setError } = form;
 
   const onSubmit = form.handleSubmit((input) =>
     book.mutate(input, {
@@ -34,7 +34,7 @@ export function BookVisitForm({ infantId, onClose }: { infantId: string; onClose
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Book a visit" className="flex flex-col gap-4">
-      {problem && <Alert>{problem}</Alert>}
+      <ErrorSummary attempt={submitCount} failure={book.error} problem={problem} />
       <SelectField label="Kind of visit" error={errors.kind?.message} {...register('kind')}>
         {VISIT_KINDS.map((kind) => <option key={kind} value={kind}>{VISIT_KIND_LABELS[kind]}</option>)}
       </SelectField>

@@ -2,7 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { cancelVisitSchema, type Visit } from '../../../../shared/schemas/visits';
-import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
@@ -13,7 +13,7 @@ type Values = z.infer<typeof cancelVisitSchema>;
 export function CancelVisitForm({ visit, onClose }: { visit: Visit; onClose: () => void }) {
   const cancel = useCancelVisit(visit);
   const form = useForm<Values>({ resolver: zodResolver(cancelVisitSchema), defaultValues: { reason: '' } });
-  const { register, formState: { errors }, setError } = form;
+  const { register, formState: { errors, submitCount }, setError } = form;
 
   const onSubmit = form.handleSubmit(({ reason }) =>
     cancel.mutate(reason, {
@@ -29,7 +29,7 @@ export function CancelVisitForm({ visit, onClose }: { visit: Visit; onClose: () 
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Cancel the visit" className="flex flex-col gap-3">
-      {problem && <Alert>{problem}</Alert>}
+      <ErrorSummary attempt={submitCount} failure={cancel.error} problem={problem} />
       <TextField label="Why it is cancelled" error={errors.reason?.message} {...register('reason')} />
       <div className="flex flex-wrap gap-2">
         <Button type="submit" variant="danger" disabled={cancel.isPending}>{cancel.isPending ? 'Cancelling…' : 'Cancel the visit'}</Button>

@@ -2,6 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { moveVisitSchema, type MoveVisitInput, type Visit } from '../../../../shared/schemas/visits';
 import { Alert } from '../../../components/ui/alert';
+import { ErrorSummary } from '../../../components/ui/error-summary';
 import { TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
 import { isApiError } from '../../../lib/api-error';
@@ -16,7 +17,7 @@ export function MoveVisitForm({ visit, onClose }: { visit: Visit; onClose: () =>
     resolver: zodResolver(moveVisitSchema),
     defaultValues: { rowVersion: visit.rowVersion, date: visit.date, time: visit.time },
   });
-  const { register, formState: { errors }, setError } = form;
+  const { register, formState: { errors, submitCount }, setError } = form;
 
   // The version is read at send time, so a try after a 409 (and the reload) starts from the fresh one.
   const onSubmit = form.handleSubmit((values) =>
@@ -34,7 +35,7 @@ export function MoveVisitForm({ visit, onClose }: { visit: Visit; onClose: () =>
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Move the visit" className="flex flex-col gap-3">
-      {problem && <Alert tone={stale ? 'warn' : 'danger'}>{problem}</Alert>}
+      {stale ? <Alert tone="warn">{problem}</Alert> : <ErrorSummary attempt={submitCount} failure={move.error} problem={problem} />}
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField label="New date" type="date" error={errors.date?.message} {...register('date')} />
         <TextField label="New time" type="time" hint="The family's local time" error={errors.time?.message} {...register('time')} />
