@@ -58,7 +58,7 @@ describe('monitoring on a phone', () => {
     expect(await page.getByRole('heading', { name: `${chosen!.unmet} of 6 programme rules not met` }).count()).toBe(1);
     await page.getByLabel('Why the baby is ready').fill('Settled on overnight oximetry, feeding and growing well');
     await page.getByRole('button', { name: 'Send to the consultant anyway' }).click();
-    await page.getByText('Say in at least 10 characters why the step down should go ahead anyway').waitFor();
+    await page.getByText('Say in at least 10 characters why the step down should go ahead anyway').first().waitFor();
     await page.getByLabel('Why ask anyway (required)').fill('Consultant asked on the ward round to try the next step now');
     await screenshot(page, 'step-down-ask-anyway-phone');
     await page.getByRole('button', { name: 'Send to the consultant anyway' }).click();

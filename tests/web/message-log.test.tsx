@@ -115,7 +115,7 @@ describe('Message log', () => {
     });
     const { user } = renderApp('/messages');
     const [row] = await bodyRows();
-    await user.click(within(row).getByRole('button', { name: 'It reached Rosa Quill' }));
+    await user.click(within(row).getByRole('button', { name: 'It arrived: Rosa Quill' }));
     await waitFor(() => expect(posts).toHaveLength(1));
     expect(posts[0].headers.get('X-CSRF-Token')).toBe('csrf-1');
     expect(await screen.findByText('Recorded: the message reached Rosa Quill. It will not be sent again.')).toBeInTheDocument();

@@ -36,10 +36,19 @@ export async function reconcileRecordings(repos: AppRepos, jobs: JobProducer, qu
  */
 export async function reanalyseOutdated(ds: DataSource, repos: AppRepos, batch = 200) {
   const rows: Array<{ id: string }> = await ds.query(
-    `SELECT id FROM recordings WHERE status = 'done' AND analysis_version IS DISTINCT FROM $1 ORDER BY uploaded_at LIMIT $2`,
+    `SELECT r.id FROM recordings r WHERE r.status = 'done' AND r.analysis_version IS DISTINCT FROM $1
+       AND EXISTS (SELECT 1 FROM recording_samples s WHERE s.recording_id = r.id) ORDER BY r.uploaded_at LIMIT $2`,
     [OXIMETRY_ANALYSIS_VERSION, batch],
   );
   let done = 0;
-  for (const { id } of rows) if ((await reanalyseRecording(ds, repos, id)) === 'done') done += 1;
-  return { reanalysed: done };
+  const failed: string[] = [];
+  for (const { id } of rows) {
+    // One unreadable study must not stop the others; it keeps the summary it had, and the job reports it.
+    try {
+      if ((await reanalyseRecording(ds, repos, id)) === 'done') done += 1;
+    } catch {
+      failed.push(id);
+    }
+  }
+  return { reanalysed: done, failed };
 }
