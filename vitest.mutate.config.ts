@@ -8,5 +8,6 @@ export default defineConfig({
     environment: 'node',
     include: ['tests/shared/**/*.test.ts'],
     setupFiles: ['tests/helpers/fast-check-seed.ts'],
+    isolate: false,
   },
 });

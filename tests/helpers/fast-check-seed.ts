@@ -7,4 +7,7 @@ const raw = process.env.FC_SEED;
 const seed = raw === undefined || raw === '' ? DEFAULT_SEED : Number(raw);
 if (!Number.isSafeInteger(seed)) throw new Error(`FC_SEED must be a whole number, not "${raw}"`);
 
-fc.configureGlobal({ ...fc.readConfigureGlobal(), seed });
+// Under `npm run mutate` a failure only has to be seen, not shrunk to its smallest form: that saves minutes.
+const mutating = process.env.STRYKER_MUTATOR_WORKER !== undefined;
+
+fc.configureGlobal({ ...fc.readConfigureGlobal(), seed, ...(mutating ? { endOnFailure: true } : {}) });
