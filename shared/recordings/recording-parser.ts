@@ -129,6 +129,7 @@ function finishSamples(read: ReadColumns, format: 'iso' | 'seconds', dataRows: n
     if (times[i] < first) first = times[i];
   }
   const order = ascending ? null : Array.from({ length: n }, (_, i) => i).sort((a, b) => times[a] - times[b] || a - b);
+  // Stryker disable next-line ArrayDeclaration: preallocation only; the loop below writes every index
   const samples = new Array<OximetrySample>(n);
   for (let k = 0; k < n; k += 1) {
     const i = order ? order[k] : k;
