@@ -60,7 +60,7 @@ async function playOut(deps: AppDeps, b: DemoBaby, infantId: string, coordinator
   if (b.outcome === 'drift') {
     const infant = await repos.infants.findByEnrolKey(coordinator.programmeId, b.key);
     const ability = defineAbilityFor({ id: coordinator.id, role: 'coordinator', programmeId: coordinator.programmeId });
-    await updateInfant(ds, repos, ability, coordinator, infantId, { rowVersion: infant!.rowVersion, weightKg: Math.round((b.weightKg + 0.9) * 100) / 100, weightDate: today }, today);
+    await updateInfant(ds, repos, ability, coordinator, infantId, { rowVersion: infant!.rowVersion, weightKg: Math.round((b.weightKg + 0.9) * 100) / 100, weightDate: today, weightConfirmed: true }, today);
     const [next] = (await ds.query(`SELECT id FROM prescriptions WHERE infant_id = $1 AND status = 'preparing'`, [infantId])) as Array<{ id: string }>;
     if (next) await computeProposal(ds, repos, next.id);
   }

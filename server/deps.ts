@@ -1,3 +1,4 @@
+import type { Clock } from './lib/clock';
 import { Redis } from 'ioredis';
 import pg from 'pg';
 import type { DataSource } from 'typeorm';
@@ -29,6 +30,8 @@ export interface AppDeps {
   logger: Logger;
   repos: AppRepos;
   jobs: JobProducer;
+  /** Time source for rules that depend on "now" (step-down checks); tests pass a fixed one. */
+  clock?: Clock;
 }
 
 export function createRepos(ds: DataSource) {

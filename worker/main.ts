@@ -10,7 +10,7 @@ import { redisConnection } from './queues';
 import { pruneSessions } from './processors/prune-sessions.processor';
 import { convertPrescriptionProcessor } from './processors/convert-prescription.processor';
 import { reconcileConversions } from './processors/reconcile-conversions.processor';
-import { analyseRecordingProcessor, reconcileRecordings } from './processors/analyse-recording.processor';
+import { analyseRecordingProcessor, reanalyseOutdated, reconcileRecordings } from './processors/analyse-recording.processor';
 import { planningProcessor } from './processors/planning.processor';
 import { replan } from '../server/modules/schedule/planning';
 import { upsertSchedules } from './schedules';
@@ -60,6 +60,7 @@ const maintenance = new Worker(
     if (job.name === JOBS.pruneSessions.name) return pruneSessions(ds);
     if (job.name === JOBS.markOverdue.name) return { replanned: await replan(repos, {}), overdue: await repos.checks.markOverdue() };
     if (job.name === JOBS.reconcileReminders.name) return { enqueued: await reconcileReminders(repos, messagesQueue, reminderJobs) };
+    if (job.name === JOBS.reanalyseRecordings.name) return reanalyseOutdated(ds, repos);
     if (job.name === JOBS.planDigests.name) return { planned: (await planDigests(ds, repos)).length };
     if (job.name === JOBS.reconcileConversions.name) {
       return { conversions: await reconcileConversions(repos, jobs), recordings: await reconcileRecordings(repos, jobs) };

@@ -9,5 +9,6 @@ export async function upsertSchedules(maintenance: Queue, opts: { reconcileRemin
   // Messages: due reminders are (re-)enqueued from PostgreSQL; digests are planned for each programme's morning.
   await maintenance.upsertJobScheduler('reconcile-reminders', { every: opts.reconcileRemindersMs }, { name: JOBS.reconcileReminders.name, data: {} });
   await maintenance.upsertJobScheduler('plan-digests', { every: 10 * 60 * 1000 }, { name: JOBS.planDigests.name, data: {} });
+  await maintenance.upsertJobScheduler('reanalyse-recordings', { every: 10 * 60 * 1000 }, { name: JOBS.reanalyseRecordings.name, data: {} });
   await maintenance.upsertJobScheduler('reconcile-conversions', { every: 60 * 1000 }, { name: JOBS.reconcileConversions.name, data: {} });
 }

@@ -5,7 +5,7 @@ export class AppError extends Error {
     readonly status: number,
     readonly code: string,
     message: string,
-    readonly details?: FieldErrors,
+    readonly details?: FieldErrors | Record<string, unknown>,
   ) {
     super(message);
     this.name = new.target.name;
@@ -40,6 +40,18 @@ export class ConflictError extends AppError {
 export class RateLimitedError extends AppError {
   constructor(readonly retryAfterSeconds: number) {
     super(429, 'rate_limited', `Too many sign-in attempts. Try again in ${Math.ceil(retryAfterSeconds / 60)} minute(s).`);
+  }
+}
+/** A request the programme's own rules do not allow without a recorded reason (e.g. a step down with unmet rules). */
+export class PolicyNotMetError extends AppError {
+  constructor(message: string, unmet: { code: string; message: string }[]) {
+    super(422, 'policy_not_met', message, { unmet });
+  }
+}
+/** A plausible-but-unusual value the user must confirm before it is saved (e.g. a weight under 1 kg). */
+export class NeedsConfirmationError extends AppError {
+  constructor(message: string, details: FieldErrors) {
+    super(422, 'needs_confirmation', message, details);
   }
 }
 export class ServiceUnavailableError extends AppError {

@@ -13,7 +13,11 @@ export const CONVERSION_WARNING_CODES = [
   'HOSPITAL_ON_ROOM_AIR',
   'ROUNDED_UP_TO_STEP',
   'MEASURED_PRESSURE_USED',
+  'WEIGHT_OUTSIDE_MODEL_TABLE',
 ] as const;
+
+/** The weights STOP-ROP Table 1 was tabulated for (columns 0.7 to 4 kg; clinical-methods.md §3.1). */
+export const CANNULA_TABLE_WEIGHT_KG = Object.freeze({ min: 0.7, max: 4 });
 
 export type ConversionWarningCode = (typeof CONVERSION_WARNING_CODES)[number];
 
@@ -100,6 +104,19 @@ function cappedWarnings(facts: WarningFacts): ConversionWarning[] {
   ];
 }
 
+function weightWarnings(facts: WarningFacts): ConversionWarning[] {
+  const { min, max } = CANNULA_TABLE_WEIGHT_KG;
+  if (facts.weightKg >= min && facts.weightKg <= max) return [];
+  return [
+    {
+      code: 'WEIGHT_OUTSIDE_MODEL_TABLE',
+      message:
+        `The weight ${facts.weightKg} kg is outside the ${min}–${max} kg range the cannula model was tabulated for ` +
+        '(STOP-ROP Table 1): check the weight, and treat the effective FiO2 as an extrapolation.',
+    },
+  ];
+}
+
 function homeWarnings(facts: WarningFacts): ConversionWarning[] {
   const warnings: ConversionWarning[] = [];
   if (facts.modelFlowLpm === null) {
@@ -120,14 +137,16 @@ function homeWarnings(facts: WarningFacts): ConversionWarning[] {
   if (facts.roundedFlowLpm === null) {
     warnings.push({
       code: 'ABOVE_LARGEST_STEP',
-      message: `The flow needed is above the largest flowmeter step (${lpm(facts.largestStepLpm)}).`,
+      message:
+        `The flow needed (${lpm(facts.requiredFlowLpm ?? facts.modelFlowLpm)}) is above the programme's largest flowmeter step ` +
+        `(${lpm(facts.largestStepLpm)})${(facts.requiredFlowLpm ?? 0) <= facts.cannulaMaxFlowLpm ? `, though within the ${lpm(facts.cannulaMaxFlowLpm)} cannula limit` : ''}.`,
     });
     return warnings;
   }
   if (facts.roundedFlowLpm > facts.cannulaMaxFlowLpm) {
     warnings.push({
       code: 'ABOVE_CANNULA_LIMIT',
-      message: `The flow needed is above the ${lpm(facts.cannulaMaxFlowLpm)} low-flow cannula limit.`,
+      message: `The flow needed (${lpm(facts.roundedFlowLpm)} at the next flowmeter step) is above the ${lpm(facts.cannulaMaxFlowLpm)} low-flow cannula limit.`,
     });
   }
   return warnings;
@@ -136,6 +155,8 @@ function homeWarnings(facts: WarningFacts): ConversionWarning[] {
 function roundingWarnings(facts: WarningFacts): ConversionWarning[] {
   const { roundedFlowLpm, requiredFlowLpm } = facts;
   if (roundedFlowLpm === null || requiredFlowLpm === null) return [];
+  // Beyond the cannula no flow is proposed, so there is nothing "rounded up to" to speak of.
+  if (roundedFlowLpm > facts.cannulaMaxFlowLpm) return [];
   if (roundedFlowLpm <= requiredFlowLpm + FLOW_TOLERANCE_LPM) return [];
   return [
     {
@@ -147,10 +168,20 @@ function roundingWarnings(facts: WarningFacts): ConversionWarning[] {
 
 export function collectConversionWarnings(facts: WarningFacts): ConversionWarning[] {
   return [
+    ...weightWarnings(facts),
     ...pressureWarnings(facts),
     ...hospitalWarnings(facts),
     ...homeWarnings(facts),
     ...cappedWarnings(facts),
     ...roundingWarnings(facts),
   ];
+}
+
+/** Which limit stops a proposal, in words, so the screen never blames the cannula for a flowmeter limit. */
+export function infeasibleReason(warnings: readonly ConversionWarning[]): string {
+  const codes = new Set(warnings.map((w) => w.code));
+  if (codes.has('TARGET_ABOVE_SOURCE')) return 'No flow reaches the target at home: it is above the oxygen supply’s purity.';
+  if (codes.has('ABOVE_LARGEST_STEP')) return 'The flow needed at home is above the programme’s largest flowmeter step.';
+  if (codes.has('ABOVE_CANNULA_LIMIT')) return 'The flow needed at home is above the low-flow cannula limit.';
+  return 'No setting on the programme’s equipment reaches the target at home.';
 }

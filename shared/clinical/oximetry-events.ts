@@ -1,33 +1,49 @@
+/**
+ * Desaturation events (ODI3 / ODI4). No single published algorithm exists (clinical-methods.md §5.1: baseline,
+ * minimum duration and the handling of consecutive dips are not standardised), so every parameter is pinned here
+ * and in the tests:
+ * - baseline: mean of the valid samples in the 120 s before the fall begins, trusted only when they cover half of
+ *   that window; held fixed for the whole event;
+ * - a fall begins at a sample ≥ dropPoints below the baseline and counts once it has stayed there for
+ *   minDurationSec (10 s is the common adult scoring convention, from memory; a programme policy setting);
+ * - it ends at recovery: back within recoveryWithinPoints of the baseline, or a rise of ≥ dropPoints above the
+ *   lowest point so far that holds for recoveryHoldSec — two falls with such a recovery between them are two
+ *   events, and the second must itself fall ≥ dropPoints below the level it recovered to;
+ * - it also ends at a hole: valid samples more than maxGapSec apart (missing rows, or a run of artefact, which
+ *   arrives here as missing valid samples). An event never spans a hole; a fall not yet long enough is dropped.
+ */
 export interface DesaturationRules {
-  /** Baseline = mean of the valid SpO2 samples in this many seconds before the fall began. */
   baselineWindowSec: number;
-  /**
-   * Share of the window that must hold valid samples before a baseline is trusted; at the start of a recording or
-   * after a long artefact a handful of samples would make a fragile baseline, so no event can begin there.
-   */
   baselineMinCoverage: number;
   /** Points below baseline that make a fall (ODI3). */
   dropPoints: number;
-  /** Points below the same baseline that make the fall count for ODI4 too. */
+  /** Points below the same baseline, held for the minimum duration, that make the event count for ODI4 too. */
   deepDropPoints: number;
-  /** A fall must stay at or below baseline − drop for this long (10 s is common in adult scoring, from memory). */
   minDurationSec: number;
-  /** The event ends when SpO2 is back within this many points of its baseline; until then it counts once. */
   recoveryWithinPoints: number;
+  /** How long a partial recovery (≥ dropPoints above the lowest point) must hold to end the event. */
+  recoveryHoldSec: number;
+  /** Missing time between two valid samples longer than this ends any event. */
+  maxGapSec: number;
 }
+
+export const DEFAULT_MIN_EVENT_SECONDS = 10;
 
 export const DEFAULT_DESATURATION_RULES: DesaturationRules = Object.freeze({
   baselineWindowSec: 120,
   baselineMinCoverage: 0.5,
   dropPoints: 3,
   deepDropPoints: 4,
-  minDurationSec: 10,
+  minDurationSec: DEFAULT_MIN_EVENT_SECONDS,
   recoveryWithinPoints: 1,
+  // Our choice (no published standard, §5.1): a recovery must outlast a couple of samples of noise.
+  recoveryHoldSec: 5,
+  maxGapSec: 5,
 });
 
 export interface DesaturationEvent {
   startTSec: number;
-  /** tSec of the first sample back within the recovery margin, or the end of the last sample's period. */
+  /** Start of the recovery, or the end of the last sample's period before a hole or the end of the recording. */
   endTSec: number;
   nadirSpo2: number;
   baselineSpo2: number;
@@ -38,13 +54,11 @@ export interface DesaturationEvent {
 // SpO2 values are often integers, but averages are not; this keeps 94 ≤ 97 − 3 true when the mean is 96.99999999.
 const EPS = 1e-9;
 
-/**
- * The fall being followed; mutated in place so a 12 h trace allocates nothing per sample. ODI4 events are the ODI3
- * events that also went ≥ 4 points down against the same fixed baseline. Detecting them separately would give each
- * index its own baselines and event boundaries, and a long fall could then count twice for ODI4 but once for ODI3.
- */
+/** The fall being followed. Every field is set in begin(), so nothing carries over from the previous fall. */
 class FallTracker {
   open = false;
+  /** After a partial recovery, a new fall must go this low (the recovered level − dropPoints); else no limit. */
+  reFallLimit = Infinity;
   private confirmed = false;
   private startTSec = 0;
   private baseline = 0;
@@ -52,32 +66,56 @@ class FallTracker {
   private belowSec = 0;
   private deepRunSec = 0;
   private deep = false;
+  private riseStartTSec = 0;
+  private riseSec = 0;
+  private riseLow = 0;
 
   constructor(
     private readonly rules: DesaturationRules,
-    private readonly samplePeriodSec: number,
+    private readonly periodSec: number,
     private readonly events: DesaturationEvent[],
   ) {}
 
   begin(tSec: number, value: number, baseline: number): void {
     this.open = true;
+    this.confirmed = false;
     this.startTSec = tSec;
     this.baseline = baseline;
     this.nadir = value;
     this.belowSec = 0;
     this.deepRunSec = 0;
     this.deep = false;
-    this.countSample(value);
+    this.riseSec = 0;
+    this.reFallLimit = Infinity;
+    this.countBelow(value);
   }
 
   /** Follows the open fall by one sample; afterwards `open` says whether it is still going. */
   step(tSec: number, value: number): void {
-    if (this.confirmed && value >= this.baseline - this.rules.recoveryWithinPoints - EPS) return this.close(tSec);
-    if (!this.confirmed && value > this.baseline - this.rules.dropPoints + EPS) {
-      this.open = false;
+    const { rules } = this;
+    if (!this.confirmed) {
+      // Not yet long enough: any sample above the fall threshold ends it uncounted.
+      if (value > this.baseline - rules.dropPoints + EPS) this.open = false;
+      else this.countBelow(value);
       return;
     }
-    this.countSample(value);
+    if (value >= this.baseline - rules.recoveryWithinPoints - EPS) return this.close(tSec);
+    if (value >= this.nadir + rules.dropPoints - EPS) {
+      if (this.riseSec === 0) {
+        this.riseStartTSec = tSec;
+        this.riseLow = value;
+      }
+      this.riseSec += this.periodSec;
+      this.riseLow = Math.min(this.riseLow, value);
+      this.trackDeep(value);
+      if (this.riseSec >= rules.recoveryHoldSec - EPS) {
+        this.close(this.riseStartTSec);
+        this.reFallLimit = this.riseLow - rules.dropPoints;
+      }
+      return;
+    }
+    this.riseSec = 0;
+    this.countBelow(value);
   }
 
   close(endTSec: number): void {
@@ -88,21 +126,24 @@ class FallTracker {
     this.open = false;
   }
 
-  private countSample(value: number): void {
-    const minSec = this.rules.minDurationSec - EPS;
+  private countBelow(value: number): void {
     this.nadir = Math.min(this.nadir, value);
-    if (!this.confirmed) this.belowSec += this.samplePeriodSec;
-    this.confirmed = this.belowSec >= minSec;
+    this.belowSec += this.periodSec;
+    this.confirmed = this.belowSec >= this.rules.minDurationSec - EPS;
+    this.trackDeep(value);
+  }
+
+  /** ODI4 needs its own unbroken run ≥ deepDropPoints below the same baseline. */
+  private trackDeep(value: number): void {
     const isDeep = value <= this.baseline - this.rules.deepDropPoints + EPS;
-    this.deepRunSec = isDeep ? this.deepRunSec + this.samplePeriodSec : 0;
-    this.deep = this.deep || this.deepRunSec >= minSec;
+    this.deepRunSec = isDeep ? this.deepRunSec + this.periodSec : 0;
+    this.deep = this.deep || this.deepRunSec >= this.rules.minDurationSec - EPS;
   }
 }
 
 /**
- * One pass over time-ordered valid samples with a sliding-window sum for the baseline, so 12 h at 1 Hz costs
- * O(n). Artefact samples are absent from the input: they neither break nor extend a fall. The baseline is taken
- * when the fall begins and held fixed for the whole event.
+ * One pass over time-ordered VALID samples (artefact already removed) with a sliding-window sum for the baseline,
+ * so 12 h at 1 Hz costs O(n).
  */
 export function detectDesaturations(
   tSec: Float64Array,
@@ -116,14 +157,20 @@ export function detectDesaturations(
   let windowStart = 0;
   let windowSum = 0;
   for (let i = 0; i < tSec.length; i += 1) {
-    while (windowStart < i && tSec[windowStart] < tSec[i] - rules.baselineWindowSec - EPS) {
+    if (i > 0 && tSec[i] - tSec[i - 1] - samplePeriodSec > rules.maxGapSec + EPS) {
+      if (fall.open) fall.close(tSec[i - 1] + samplePeriodSec);
+      fall.reFallLimit = Infinity;
+    }
+    while (tSec[windowStart] < tSec[i] - rules.baselineWindowSec - EPS) {
       windowSum -= spo2[windowStart];
       windowStart += 1;
     }
     if (fall.open) fall.step(tSec[i], spo2[i]);
     const windowCount = i - windowStart;
     const baseline = windowSum / windowCount;
-    if (!fall.open && windowCount >= minWindowSamples && spo2[i] <= baseline - rules.dropPoints + EPS) {
+    const below = spo2[i] <= baseline - rules.dropPoints + EPS;
+    if (!below) fall.reFallLimit = Infinity;
+    if (!fall.open && windowCount >= minWindowSamples && below && spo2[i] <= fall.reFallLimit + EPS) {
       fall.begin(tSec[i], spo2[i], baseline);
     }
     windowSum += spo2[i];

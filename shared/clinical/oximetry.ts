@@ -14,13 +14,22 @@ import {
 } from './oximetry-samples';
 
 // Stored with every summary; bump when a rule or default below changes, so old and new summaries are not mixed.
-export const OXIMETRY_ANALYSIS_VERSION = 'nestflow-oximetry-1.0.0';
+// 2.0.0: events end at holes, artefact runs and held partial recoveries; a new fall starts with nothing carried
+// over from the previous one (1.x needed one sample more after a counted event); minimum event time from policy.
+export const OXIMETRY_ANALYSIS_VERSION = 'nestflow-oximetry-2.0.0';
+
+/** Below this much valid time a study is too short to judge (Urschitz 2003 excluded recordings under 5 h, §5.1). */
+export const DEFAULT_MIN_VALID_MINUTES = 300;
 
 export interface OximetryOptions {
   /** Overrides the period derived from the median spacing of tSec. */
   samplePeriodSec?: number;
   artefactRules?: ArtefactRules;
   desaturationRules?: DesaturationRules;
+  /** The programme's minimum event duration; overrides desaturationRules.minDurationSec. */
+  minEventSeconds?: number;
+  /** The programme's minimum valid time for a study to be judged at all. */
+  minValidMinutes?: number;
 }
 
 export interface OximetrySummary {
@@ -30,6 +39,10 @@ export interface OximetrySummary {
   validSampleCount: number;
   /** Artefact-free time: valid samples × sample period. */
   validMinutes: number;
+  /** False when validMinutes is below the minimum: the study is too short to judge and counts for nothing. */
+  judged: boolean;
+  minValidMinutes: number;
+  minEventSeconds: number;
   meanSpo2: number | null;
   medianSpo2: number | null;
   minSpo2: number | null;
@@ -111,7 +124,9 @@ const EMPTY_STATISTICS = {
 /** Summary of one recording; samples may come in any order and at any regular rate. */
 export function summariseOximetry(samples: readonly OximetrySample[], options: OximetryOptions = {}): OximetrySummary {
   const artefactRules = options.artefactRules ?? DEFAULT_ARTEFACT_RULES;
-  const desaturationRules = options.desaturationRules ?? DEFAULT_DESATURATION_RULES;
+  const baseRules = options.desaturationRules ?? DEFAULT_DESATURATION_RULES;
+  const desaturationRules = options.minEventSeconds === undefined ? baseRules : { ...baseRules, minDurationSec: options.minEventSeconds };
+  const minValidMinutes = options.minValidMinutes ?? DEFAULT_MIN_VALID_MINUTES;
   const ordered = orderSamples(samples, artefactRules);
   const samplePeriodSec = options.samplePeriodSec ?? medianSamplePeriodSec(ordered);
   if (!(samplePeriodSec > 0)) throw new RangeError('Sample period must be positive');
@@ -126,6 +141,9 @@ export function summariseOximetry(samples: readonly OximetrySample[], options: O
     sampleCount: ordered.length,
     validSampleCount: n,
     validMinutes: (n * samplePeriodSec) / 60,
+    judged: (n * samplePeriodSec) / 60 >= minValidMinutes,
+    minValidMinutes,
+    minEventSeconds: desaturationRules.minDurationSec,
     ...(n === 0 ? EMPTY_STATISTICS : spo2Statistics(valid.spo2)),
     odi3PerHour: n === 0 ? null : events.length / validHours,
     odi4PerHour: n === 0 ? null : deepCount / validHours,

@@ -27,6 +27,8 @@ export const JOBS = {
   reconcileReminders: { queue: QUEUES.maintenance, name: 'reconcile-reminders', payload: z.strictObject({}) },
   planDigests: { queue: QUEUES.maintenance, name: 'plan-digests', payload: z.strictObject({}) },
   analyseRecording: { queue: QUEUES.clinical, name: 'analyse-recording', payload: z.strictObject({ recordingId: z.uuid() }) },
+  /** Recordings analysed by an older version of the rules are analysed again, a batch at a time. */
+  reanalyseRecordings: { queue: QUEUES.maintenance, name: 'reanalyse-recordings', payload: z.strictObject({}) },
 } as const;
 
 export type JobKey = keyof typeof JOBS;

@@ -48,14 +48,22 @@ export interface StudyResult {
 /**
  * Overnight target: mean SpO2 at or above the programme minimum (≥ 95 % with pulmonary hypertension) and under the
  * allowed share of valid time below 90 % (TSANZ 2020; BTS 2009 — clinical-methods.md §4). A study too short to
- * judge meets nothing. The minimum of 5 h of valid time follows Urschitz 2003 (§5.1).
+ * judge (below the policy's minimum valid time; default 5 h after Urschitz 2003, §5.1) meets nothing and is
+ * reported as not judged, never as below target.
  */
-export function meetsOvernightTarget(study: StudyResult, policy: PolicySettings, pulmonaryHypertension: boolean): { met: boolean; reasons: string[] } {
+export function isJudged(validMinutes: number, policy: PolicySettings): boolean {
+  return validMinutes >= policy.oximetry.minValidMinutes;
+}
+
+export function meetsOvernightTarget(study: StudyResult, policy: PolicySettings, pulmonaryHypertension: boolean): { met: boolean; judged: boolean; reasons: string[] } {
+  if (!isJudged(study.validMinutes, policy)) {
+    const hours = Math.round((policy.oximetry.minValidMinutes / 60) * 10) / 10;
+    return { met: false, judged: false, reasons: [`too short to judge: less than ${hours} hours of valid recording`] };
+  }
   const t = policy.spo2Targets;
   const meanMin = pulmonaryHypertension ? t.pulmonaryHypertensionMeanMin : t.overnightMeanMin;
   const reasons: string[] = [];
-  if (study.validMinutes < 300) reasons.push('less than 5 hours of valid recording');
   if (study.meanSpo2 === null || study.meanSpo2 < meanMin) reasons.push(`mean SpO2 below ${meanMin} %`);
   if (study.pctBelow90 === null || study.pctBelow90 >= t.pctBelow90Max) reasons.push(`${t.pctBelow90Max} % or more of the time below 90 %`);
-  return { met: reasons.length === 0, reasons };
+  return { met: reasons.length === 0, judged: true, reasons };
 }

@@ -12,7 +12,8 @@ export const errorBodySchema = z.object({
   error: z.object({
     code: z.string(),
     message: z.string(),
-    details: z.record(z.string(), z.array(z.string())).optional(),
+    // Per-field messages (400, 422 needs_confirmation), or the unmet rules of a 422 policy_not_met.
+    details: z.record(z.string(), z.union([z.array(z.string()), z.array(z.object({ code: z.string(), message: z.string() }))])).optional(),
   }),
 });
 export type ErrorBody = z.infer<typeof errorBodySchema>;

@@ -92,6 +92,8 @@ export const babySchema = z.strictObject({
   birthWeightG: z.number({ error: 'Enter the birth weight in grams' }).int().min(300, { error: 'At least 300 g' }).max(6500, { error: 'At most 6500 g' }),
   weightKg: z.number({ error: 'Enter the weight in kg' }).min(0.3, { error: 'At least 0.3 kg' }).max(15, { error: 'At most 15 kg' }),
   weightDate: isoDate,
+  /** The person has checked an unusual weight (under 1 kg, or > 20 % from a weight within 14 days). */
+  weightConfirmed: z.boolean().optional(),
   diagnoses: z.array(z.enum(DIAGNOSES)).max(DIAGNOSES.length).default([]),
 });
 
@@ -112,6 +114,7 @@ export const updateInfantSchema = z
     rowVersion: z.number().int().positive(),
     weightKg: babySchema.shape.weightKg.optional(),
     weightDate: isoDate.optional(),
+    weightConfirmed: z.boolean().optional(),
     home: homeSettingSchema.optional(),
     nurseId: z.uuid().optional(),
     consultantId: z.uuid().optional(),

@@ -12,6 +12,18 @@ export const spo2TargetsSchema = z.strictObject({
   pctBelow90Max: z.number().min(0).max(50),
   /** Higher mean target with pulmonary hypertension (Starship guideline: ≥ 95 %). */
   pulmonaryHypertensionMeanMin: z.number().min(85).max(100),
+  /** Recent spot readings: their mean at or above this (NHS GGC neonatal home-oxygen guideline: mean ≥ 93 %). */
+  spotMeanMin: z.number().min(85).max(100),
+  /** A spot reading at or below this is out of range (ATS 2019: spot readings ≤ 90 % define hypoxaemia under 1 year). */
+  spotLowMax: z.number().min(70).max(99),
+});
+
+/** How an overnight recording is analysed and when it can be judged at all. */
+export const oximetryRulesSchema = z.strictObject({
+  /** A fall must last this long to count (10 s adult convention, from memory; CHIME counted falls of ≥ 5 s). */
+  minEventSeconds: int(2, 60, 'seconds'),
+  /** Below this much valid time a study is too short to judge (Urschitz 2003 excluded recordings under 5 h). */
+  minValidMinutes: int(60, 24 * 60, 'minutes'),
 });
 
 export const scheduleRulesSchema = z.strictObject({
@@ -29,7 +41,12 @@ export const stepDownRulesSchema = z.strictObject({
   stepsPerDecrease: int(1, 10, 'steps'),
   /** Below this flow the next step is night-time (asleep) only rather than a lower flow. */
   sleepOnlyBelowLpm: z.number().min(0).max(2),
+  /** Minimum days on the current setting before the next step down. */
   minDaysBetweenStepDowns: int(1, 90, 'days'),
+  /** The overnight study that supports a step down must be at most this old. */
+  studyWithinDays: int(1, 60, 'days'),
+  /** Spot readings from this many days back are checked. */
+  readingsWithinDays: int(1, 60, 'days'),
   /** Days off oxygen, with a satisfactory room-air study at the end, before leaving the programme. */
   offOxygenObservationDays: int(1, 180, 'days'),
 });
@@ -100,6 +117,7 @@ export const policySettingsSchema = z.strictObject({
   spo2Targets: spo2TargetsSchema,
   schedule: scheduleRulesSchema,
   stepDown: stepDownRulesSchema,
+  oximetry: oximetryRulesSchema,
   readingEditWindowMinutes: int(0, 24 * 60, 'minutes'),
   reminders: reminderRulesSchema,
   contacts: programmeContactsSchema,
@@ -113,11 +131,14 @@ export const DEFAULT_POLICY_SETTINGS: PolicySettings = {
   driftThresholdFio2: DEFAULT_DRIFT_THRESHOLD_FIO2,
   pressureModel: 'isa-1976',
   // TSANZ 2020 / BTS 2009 targets (clinical-methods.md §4.2–4.3); PH target from the Starship guideline (§4.2).
-  spo2Targets: { overnightMeanMin: 93, pctBelow90Max: 5, pulmonaryHypertensionMeanMin: 95 },
+  // Spot readings: NHS GGC (mean ≥ 93 %) and ATS 2019 (≤ 90 % is low under 1 year), clinical-methods.md §4.1, §4.3.
+  spo2Targets: { overnightMeanMin: 93, pctBelow90Max: 5, pulmonaryHypertensionMeanMin: 95, spotMeanMin: 93, spotLowMax: 90 },
   // Common practice: first home check within 72 h of discharge, weekly for four weeks, then four-weekly.
   schedule: { firstCheckWithinHours: 72, weeklyChecks: 4, thenEveryWeeks: 4, planAheadWeeks: 12, overnightStudyBeforeStepDown: true, followUpDaysAfterStepDown: 7 },
   // Common practice: one flowmeter step at a time, night-only below 0.1 L/min, then off; 4 weeks off before leaving.
-  stepDown: { stepsPerDecrease: 1, sleepOnlyBelowLpm: 0.1, minDaysBetweenStepDowns: 14, offOxygenObservationDays: 28 },
+  // Study and readings windows: a week, as NHS GGC asks for a stable need over the preceding week (§4.3).
+  stepDown: { stepsPerDecrease: 1, sleepOnlyBelowLpm: 0.1, minDaysBetweenStepDowns: 14, studyWithinDays: 7, readingsWithinDays: 7, offOxygenObservationDays: 28 },
+  oximetry: { minEventSeconds: 10, minValidMinutes: 300 },
   readingEditWindowMinutes: 30,
   // Quiet hours 21:00–08:00 as the product asks; the other times and the 24 h wait are common practice defaults.
   reminders: { dayBeforeAt: '17:00', morningOfAt: '08:00', quietStart: '21:00', quietEnd: '08:00', staffDigestAt: '08:00', signOffWaitingHours: 24 },
@@ -142,6 +163,7 @@ export function withPolicyDefaults(stored: Partial<PolicySettings>): PolicySetti
     spo2Targets: { ...d.spo2Targets, ...stored.spo2Targets },
     schedule: { ...d.schedule, ...stored.schedule },
     stepDown: { ...d.stepDown, ...stored.stepDown },
+    oximetry: { ...d.oximetry, ...stored.oximetry },
     reminders: { ...d.reminders, ...stored.reminders },
     contacts: { ...d.contacts, ...stored.contacts },
     supply: { ...d.supply, ...stored.supply },

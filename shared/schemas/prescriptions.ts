@@ -82,6 +82,8 @@ export const queueItemSchema = z.object({
   proposedFlowLpm: z.number().nullable(),
   feasible: z.boolean(),
   warningCount: z.number().int(),
+  /** Step downs: how many of the programme's rules were not met when it was asked for. */
+  unmetChecks: z.number().int(),
   waitingSince: z.string(),
 });
 export const queueSchema = z.object({ items: z.array(queueItemSchema) });

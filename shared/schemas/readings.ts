@@ -18,6 +18,8 @@ export const createReadingSchema = z.strictObject({
   ...reading,
   /** Weight in kg; checked against the baby's last weight on the server. */
   weightKg: z.number({ error: 'Enter the weight in kg' }).min(0.3, { error: 'At least 0.3 kg' }).max(15, { error: 'At most 15 kg' }).optional(),
+  /** The person has checked an unusual weight (under 1 kg, or > 20 % from a weight within 14 days). */
+  weightConfirmed: z.boolean().optional(),
   /** The planned check this reading completes, when logged from the nurse's day. */
   checkId: z.uuid().optional(),
 });

@@ -53,6 +53,11 @@ export const recordingSummarySchema = z.object({
   odi3: z.number().nullable(),
   odi4: z.number().nullable(),
   meanPulse: z.number().nullable(),
+  /** False: less valid time than the programme's minimum — too short to judge, counts for nothing. */
+  judged: z.boolean(),
+  minValidMinutes: z.number(),
+  /** The minimum event duration the events were counted with (programme policy at analysis time). */
+  minEventSeconds: z.number(),
 });
 export type RecordingSummary = z.infer<typeof recordingSummarySchema>;
 

@@ -20,6 +20,8 @@ export const checkSchema = z.object({
   dueDate: z.string(),
   status: z.enum(CHECK_STATUSES),
   doneAt: z.string().nullable(),
+  /** e.g. a repeat is needed because the last study was too short to judge. */
+  note: z.string().nullable().optional(),
 });
 export type Check = z.infer<typeof checkSchema>;
 export const scheduleResponseSchema = z.object({ upcoming: z.array(checkSchema), overdue: z.array(checkSchema), done: z.array(checkSchema) });

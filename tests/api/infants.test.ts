@@ -35,6 +35,20 @@ describe('POST /api/infants', () => {
     expect(audit.map((a) => a.action).sort()).toEqual(['infant.enrolled', 'prescription.requested']);
   });
 
+  it('when 0.32 kg is typed for 3.2 kg, then 422 asks to confirm and nothing is stored; once confirmed it is saved', async () => {
+    // common practice: a weight under 1.0 kg at discharge home is rare enough to check (shared/clinical/weight-check.ts)
+    const clinic = await makeClinic(ctx.deps);
+    const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
+    const body = enrolmentBody(clinic, { weightKg: 0.32 });
+    const res = await coord.post('/api/infants').set('X-CSRF-Token', coord.csrf).send(body).expect(422);
+    expect(res.body.error).toMatchObject({ code: 'needs_confirmation', details: { 'baby.weightKg': [expect.stringMatching(/^0.32 kg is under 1 kg/)] } });
+    const [{ n }] = await ctx.deps.ds.query(`SELECT count(*)::int n FROM infants WHERE programme_id = $1`, [clinic.programme.id]);
+    expect(n).toBe(0);
+    await coord.post('/api/infants').set('X-CSRF-Token', coord.csrf).send({ ...body, baby: { ...body.baby, weightConfirmed: true } }).expect(201);
+    const tiny = await coord.post('/api/infants').set('X-CSRF-Token', coord.csrf).send(enrolmentBody(clinic, { weightKg: 0.05 })).expect(400);
+    expect(tiny.body.error.details['baby.weightKg']).toEqual(['At least 0.3 kg']);
+  });
+
   it('when the same form is submitted twice, then one baby and one proposal exist', async () => {
     const clinic = await makeClinic(ctx.deps);
     const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
@@ -141,7 +155,10 @@ describe('PATCH /api/infants/:id', () => {
     const [rx] = (await consultant.get(`/api/infants/${infant.id}/prescriptions`).expect(200)).body.items;
     await consultant.post(`/api/prescriptions/${rx.id}/decision`).set('X-CSRF-Token', consultant.csrf).send({ decision: 'approve' }).expect(200);
     const before = (await coord.get(`/api/infants/${infant.id}`).expect(200)).body;
-    const res = await coord.patch(`/api/infants/${infant.id}`).set('X-CSRF-Token', coord.csrf).send({ rowVersion: before.rowVersion, weightKg: 3.2, weightDate: '2026-11-28' }).expect(200);
+    const unconfirmed = await coord.patch(`/api/infants/${infant.id}`).set('X-CSRF-Token', coord.csrf).send({ rowVersion: before.rowVersion, weightKg: 3.2, weightDate: '2026-11-28' }).expect(422);
+    // 2 → 3.2 kg is a 60 % change: the coordinator must confirm it (common practice: > 20 % within 14 days)
+    expect(unconfirmed.body.error).toMatchObject({ code: 'needs_confirmation', details: { weightKg: [expect.stringMatching(/60 % more than 2 kg/)] } });
+    const res = await coord.patch(`/api/infants/${infant.id}`).set('X-CSRF-Token', coord.csrf).send({ rowVersion: before.rowVersion, weightKg: 3.2, weightDate: '2026-11-28', weightConfirmed: true }).expect(200);
     expect(res.body.flags).toEqual(expect.arrayContaining(['growth_drift', 'new_setting_waiting']));
     expect(res.body.status).toBe('on_oxygen');
     const versions = (await coord.get(`/api/infants/${infant.id}/prescriptions`).expect(200)).body.items;

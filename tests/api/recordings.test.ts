@@ -28,6 +28,7 @@ afterAll(async () => {
 const expectedSummary = (s: OximetrySummary) => ({
   validMinutes: s.validMinutes, meanSpo2: s.meanSpo2, medianSpo2: s.medianSpo2, minSpo2: s.minSpo2, pctBelow90: s.percentTimeBelow90,
   pctBelow92: s.percentTimeBelow92, pctBelow93: s.percentTimeBelow93, odi3: s.odi3PerHour, odi4: s.odi4PerHour, meanPulse: s.meanPulse,
+  judged: s.judged, minValidMinutes: s.minValidMinutes, minEventSeconds: s.minEventSeconds,
 });
 
 describe('POST /api/infants/:id/recordings, then the analysis', () => {

@@ -11,7 +11,7 @@ export interface TestContext {
 }
 
 /** A real app on the real test database and Redis; `overrides` tune limits for a single test file. */
-export async function createTestContext(overrides: Partial<Record<keyof Env, string>> = {}): Promise<TestContext> {
+export async function createTestContext(overrides: Partial<Record<keyof Env, string>> = {}, extra: Pick<AppDeps, 'clock'> = {}): Promise<TestContext> {
   const env = loadEnv({
     ...process.env,
     NODE_ENV: 'test',
@@ -19,6 +19,6 @@ export async function createTestContext(overrides: Partial<Record<keyof Env, str
     QUEUE_PREFIX: `t${Math.random().toString(36).slice(2, 10)}`,
     ...overrides,
   });
-  const deps = await createDeps(env, 'test');
+  const deps: AppDeps = { ...(await createDeps(env, 'test')), ...extra };
   return { deps, app: createApp(deps), close: () => closeDeps(deps) };
 }

@@ -72,7 +72,18 @@ const recording: Recording = {
   uploadedAt: '2025-04-19T07:00:00.000Z', uploadedBy: { id: nurse.id, name: nurse.name }, timeFormat: 'iso',
   startedAt: '2025-04-18T20:00:00.000Z', durationMinutes: 600, sampleCount: 36000, samplePeriodSec: 1, skippedRows: 0,
   analysisVersion: 'nestflow-oximetry-1.0.0', analysedAt: '2025-04-19T07:00:05.000Z',
-  summary: { validMinutes: 540, meanSpo2: 92.4, medianSpo2: 93, minSpo2: 80, pctBelow90: 6.1, pctBelow92: 20, pctBelow93: 40, odi3: 4, odi4: 2, meanPulse: 141 },
+  summary: { validMinutes: 540, meanSpo2: 92.4, medianSpo2: 93, minSpo2: 80, pctBelow90: 6.1, pctBelow92: 20, pctBelow93: 40, odi3: 4, odi4: 2, meanPulse: 141, judged: true, minValidMinutes: 300, minEventSeconds: 10 },
+};
+
+const RULE_CODES = ['time_on_setting', 'study_judged', 'study_on_target', 'no_open_flags', 'readings_in_range', 'weight_not_falling'] as const;
+const allRulesMet = {
+  next: { kind: 'lower', label: '0.2 L/min day and night', flowLpm: 0.2 }, blockedReason: null,
+  checks: RULE_CODES.map((code) => ({ code, met: true, message: `${code} is fine` })),
+};
+const twoRulesUnmet = {
+  ...allRulesMet,
+  checks: allRulesMet.checks.map((c) => (c.code === 'time_on_setting' ? { ...c, met: false, message: 'On the current setting for 1 day; the programme asks for at least 14 days.' }
+    : c.code === 'study_judged' ? { ...c, met: false, message: 'No overnight study has been analysed. A study from the last 7 days is needed.' } : c)),
 };
 
 function stubRecord(role: Role, extra: Record<string, (request: FakeRequest) => Response | Promise<Response>> = {}, versions = [version({})]) {
@@ -89,6 +100,7 @@ function stubRecord(role: Role, extra: Record<string, (request: FakeRequest) => 
     [`GET /api/infants/${ID}/schedule`]: () => json(200, schedule),
     [`GET /api/infants/${ID}/recordings`]: () => json(200, { items: [recording], total: 1 }),
     'GET /api/policy': () => json(200, { programmeId: PROGRAMME_ID, version: 2, settings: DEFAULT_POLICY_SETTINGS, createdAt: null }),
+    [`GET /api/infants/${ID}/step-down-checks`]: () => json(200, allRulesMet),
     ...extra,
   });
   return { prescriptionCalls: () => prescriptionCalls };
@@ -169,6 +181,29 @@ describe('Infant record: monitoring', () => {
     expect(posts[0].body).toEqual({ reason: 'Settled on room checks all week' });
     await waitFor(() => expect(prescriptionCalls()).toBeGreaterThan(before));
     expect(screen.queryByLabelText('Why the baby is ready')).not.toBeInTheDocument();
+  });
+
+  it('when rules are not met, then the nurse sees each one before sending and must say why to ask anyway', async () => {
+    const posts: FakeRequest[] = [];
+    stubRecord('nurse', {
+      [`GET /api/infants/${ID}/step-down-checks`]: () => json(200, twoRulesUnmet),
+      [`POST /api/infants/${ID}/step-down-requests`]: (request) => { posts.push(request); return json(201, stepDown); },
+    });
+    const { user } = renderApp(`/infants/${ID}`);
+    await opened();
+    await user.click(await screen.findByRole('button', { name: 'Ask to step down' }));
+    expect(await screen.findByRole('heading', { name: '2 of 6 programme rules not met' })).toBeInTheDocument();
+    const rules = screen.getByRole('list', { name: 'Step-down rules' });
+    expect(within(rules).getByText('On the current setting for 1 day; the programme asks for at least 14 days.')).toBeInTheDocument();
+    expect(within(rules).getAllByText('not met')).toHaveLength(2);
+    await user.type(screen.getByLabelText('Why the baby is ready'), 'Settled on room checks all week');
+    await user.click(screen.getByRole('button', { name: 'Send to the consultant anyway' }));
+    expect(await screen.findByText('Say in at least 10 characters why the step down should go ahead anyway')).toBeInTheDocument();
+    expect(posts).toHaveLength(0);
+    await user.type(screen.getByLabelText('Why ask anyway (required)'), 'Consultant asked on the ward round');
+    await user.click(screen.getByRole('button', { name: 'Send to the consultant anyway' }));
+    await waitFor(() => expect(posts).toHaveLength(1));
+    expect(posts[0].body).toEqual({ reason: 'Settled on room checks all week', overrideReason: 'Consultant asked on the ward round' });
   });
 
   it('when a proposal already waits, then the 409 message is shown and the reason is kept', async () => {

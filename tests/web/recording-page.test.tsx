@@ -32,7 +32,7 @@ const base: Recording = {
 };
 const summary = {
   validMinutes: 571.5, meanSpo2: 95.84, medianSpo2: 96, minSpo2: 81, pctBelow90: 1.23, pctBelow92: 2.5, pctBelow93: 4.1,
-  odi3: 1.4, odi4: 0.5, meanPulse: 138.6,
+  odi3: 1.4, odi4: 0.5, meanPulse: 138.6, judged: true, minValidMinutes: 300, minEventSeconds: 10,
 };
 const done: Recording = { ...base, status: 'done', analysisVersion: 'nestflow-oximetry-1.0.0', analysedAt: '2025-04-10T07:00:05.000Z', summary };
 
@@ -94,6 +94,15 @@ describe('Recording page', () => {
     await opened();
     expect(await screen.findByText('Below the overnight target: mean SpO2 below 95 %')).toBeInTheDocument();
     expect(screen.getByText(/at least 95 % \(pulmonary hypertension\)/)).toBeInTheDocument();
+  });
+
+  it('when the study is too short to judge, then the headline says exactly that and not "below target"', async () => {
+    // a 1-hour study with low figures: only the length fails it (Urschitz 2003: studies under 5 h excluded)
+    stubRecording([{ ...done, summary: { ...summary, validMinutes: 60, meanSpo2: 91, pctBelow90: 9, judged: false } }]);
+    renderApp(`/recordings/${REC_ID}`);
+    await opened();
+    expect(await screen.findByText(/Too short to judge: 1 h of valid recording, at least 5 h needed/)).toBeInTheDocument();
+    expect(screen.queryByText(/Below the overnight target/)).not.toBeInTheDocument();
   });
 
   it('when the time below 90 % is too long, then that is named', async () => {

@@ -18,7 +18,7 @@ function queueItem(n: number, overrides: Partial<QueueItem> = {}): QueueItem {
     reason: 'enrolment',
     proposedFlowLpm: 0.25,
     feasible: true,
-    warningCount: 0,
+    warningCount: 0, unmetChecks: 0,
     waitingSince: hoursAgo(1),
     ...overrides,
   };
@@ -51,20 +51,20 @@ describe('Sign-off queue', () => {
     expect(first.getByText('1,240 m')).toBeInTheDocument();
     expect(first.getByText('Enrolment')).toBeInTheDocument();
     expect(first.getByText('0.25 L/min')).toBeInTheDocument();
-    expect(first.getByText('2 checks')).toBeInTheDocument();
+    expect(first.getByText('2 points to check')).toBeInTheDocument();
     expect(first.getByText('2 days ago')).toBeInTheDocument();
     expect(first.getByText('Larkmoor Regional Children’s Hospital')).toBeInTheDocument();
 
     const second = within(cards[1]);
     expect(second.getByText('Home elevation or pressure changed')).toBeInTheDocument();
     expect(second.getByText('Measured 612.4 mmHg')).toBeInTheDocument();
-    expect(second.getByText('Cannot be given by cannula — decide')).toBeInTheDocument();
-    expect(second.getByText('1 check')).toBeInTheDocument();
+    expect(second.getByText('No setting reaches the target — decide')).toBeInTheDocument();
+    expect(second.getByText('1 point to check')).toBeInTheDocument();
     expect(second.getByText('5 hours ago')).toBeInTheDocument();
 
     expect(within(cards[2]).getByText('Weight changed')).toBeInTheDocument();
     expect(within(cards[2]).getByText('0.125 L/min')).toBeInTheDocument();
-    expect(within(cards[2]).getByText('No checks')).toBeInTheDocument();
+    expect(within(cards[2]).getByText('No points to check')).toBeInTheDocument();
     expect(within(cards[2]).getByRole('link', { name: 'Review the proposal for Wren Tallis' })).toHaveAttribute(
       'href', `/sign-off/${items[2].prescriptionId}`,
     );

@@ -1,4 +1,7 @@
-export type FieldErrors = Record<string, string[]>;
+export type FieldErrors = Record<string, string[] | { code: string; message: string }[]>;
+
+/** The messages of one detail entry, whatever its form. */
+export const detailMessages = (entry: FieldErrors[string] | undefined): string[] => (entry ?? []).map((m) => (typeof m === 'string' ? m : m.message));
 
 /** Every failed API call rejects with this, decoded from the server's single error shape. */
 export class ApiError extends Error {

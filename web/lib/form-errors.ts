@@ -1,5 +1,5 @@
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
-import { errorMessage, isApiError } from './api-error';
+import { detailMessages, errorMessage, isApiError } from './api-error';
 
 /**
  * Put a 400's per-field messages beside the fields the form has. Returns what is left to show above the form
@@ -13,7 +13,7 @@ export function applyServerFieldErrors<T extends FieldValues>(
   if (!isApiError(error) || error.code !== 'validation_failed' || !error.details) return [];
   const leftover: string[] = [];
   for (const [field, messages] of Object.entries(error.details)) {
-    const message = messages.join(' ');
+    const message = detailMessages(messages).join(' ');
     if ((fields as readonly string[]).includes(field)) setError(field as Path<T>, { type: 'server', message });
     else leftover.push(message);
   }

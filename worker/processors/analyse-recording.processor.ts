@@ -3,7 +3,8 @@ import type { DataSource } from 'typeorm';
 import { JOBS } from '../../shared/jobs/catalogue';
 import type { AppRepos } from '../../server/deps';
 import type { JobProducer } from '../../server/jobs/producer';
-import { analyseRecording } from '../../server/modules/recordings/analyse';
+import { analyseRecording, reanalyseRecording } from '../../server/modules/recordings/analyse';
+import { OXIMETRY_ANALYSIS_VERSION } from '../../shared/clinical/oximetry';
 import { afterStudy } from '../../server/modules/step-downs/after-study';
 
 /** Payload carries only the id; samples are reloaded from PostgreSQL, so retries and duplicates are harmless. */
@@ -27,4 +28,18 @@ export async function reconcileRecordings(repos: AppRepos, jobs: JobProducer, qu
   const ids = await repos.recordings.stale(queuedSeconds, analysingSeconds);
   for (const id of ids) await jobs.enqueueAnalysis(id);
   return { requeued: ids.length };
+}
+
+/**
+ * After the analysis rules change (a new OXIMETRY_ANALYSIS_VERSION), every stored study is analysed again so the
+ * newest summary is shown; each old summary stays in recording_analyses with its version. A batch per run.
+ */
+export async function reanalyseOutdated(ds: DataSource, repos: AppRepos, batch = 200) {
+  const rows: Array<{ id: string }> = await ds.query(
+    `SELECT id FROM recordings WHERE status = 'done' AND analysis_version IS DISTINCT FROM $1 ORDER BY uploaded_at LIMIT $2`,
+    [OXIMETRY_ANALYSIS_VERSION, batch],
+  );
+  let done = 0;
+  for (const { id } of rows) if ((await reanalyseRecording(ds, repos, id)) === 'done') done += 1;
+  return { reanalysed: done };
 }

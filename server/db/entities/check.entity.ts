@@ -15,6 +15,8 @@ export class CheckEntity {
   @Column({ type: 'timestamptz', name: 'done_at', nullable: true }) doneAt: Date | null;
   @Column({ type: 'uuid', name: 'done_by', nullable: true }) doneBy: string | null;
   @Column({ type: 'text', name: 'done_ref', nullable: true }) doneRef: string | null;
+  /** Shown with the check, e.g. that a repeat is needed because the last study was too short to judge. */
+  @Column({ type: 'text', nullable: true }) note: string | null;
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' }) createdAt: Date;
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' }) updatedAt: Date;
 }

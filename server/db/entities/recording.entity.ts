@@ -35,6 +35,10 @@ export class RecordingEntity {
   @Column({ type: 'double precision', nullable: true }) odi3: number | null;
   @Column({ type: 'double precision', nullable: true }) odi4: number | null;
   @Column({ type: 'double precision', name: 'mean_pulse', nullable: true }) meanPulse: number | null;
+  /** False when the valid time was below the programme's minimum: too short to judge, counts for nothing. */
+  @Column({ type: 'boolean', nullable: true }) judged: boolean | null;
+  @Column({ type: 'double precision', name: 'min_event_seconds', nullable: true }) minEventSeconds: number | null;
+  @Column({ type: 'double precision', name: 'min_valid_minutes', nullable: true }) minValidMinutes: number | null;
   /** The ODI3 events, for marking on the chart. */
   @Column({ type: 'jsonb', nullable: true }) events: DesaturationEvent[] | null;
   @Column({ type: 'text', name: 'failure_reason', nullable: true }) failureReason: string | null;

@@ -5,5 +5,6 @@ import { Monitoring1764892800000 } from './1764892800000-Monitoring';
 import { Visits1764979200000 } from './1764979200000-Visits';
 import { Reminders1765065600000 } from './1765065600000-Reminders';
 import { Journeys1765152000000 } from './1765152000000-Journeys';
+import { StudyJudgement1765238400000 } from './1765238400000-StudyJudgement';
 
-export const MIGRATIONS = [Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000, Visits1764979200000, Reminders1765065600000, Journeys1765152000000];
+export const MIGRATIONS = [Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000, Visits1764979200000, Reminders1765065600000, Journeys1765152000000, StudyJudgement1765238400000];

@@ -10,7 +10,7 @@ export interface PlanStateRow {
 
 export interface DayRow {
   id: string; infant_id: string; kind: string; plan_key: string; due_at: Date; due_date: string; status: string; done_at: Date | null;
-  given_name: string; family_name: string; home_address: string; birth_date: string; ga_weeks: number; ga_days: number; active_flow_lpm: string | null;
+  given_name: string; family_name: string; home_address: string; birth_date: string; ga_weeks: number; ga_days: number; active_flow_lpm: string | null; note: string | null;
 }
 
 export function createChecksRepository(ds: DataSource) {
@@ -84,7 +84,7 @@ export function createChecksRepository(ds: DataSource) {
     day: (acl: SqlFilter, today: string, until: string): Promise<DayRow[]> =>
       ds.createQueryBuilder()
         .select(['c.id AS id', 'c.infant_id AS infant_id', 'c.kind AS kind', 'c.plan_key AS plan_key', 'c.due_at AS due_at', 'c.due_date::text AS due_date',
-          'c.status AS status', 'c.done_at AS done_at', 'i.given_name AS given_name', 'i.family_name AS family_name', 'i.home_address AS home_address',
+          'c.status AS status', 'c.done_at AS done_at', 'c.note AS note', 'i.given_name AS given_name', 'i.family_name AS family_name', 'i.home_address AS home_address',
           'i.birth_date::text AS birth_date', 'i.ga_weeks AS ga_weeks', 'i.ga_days AS ga_days', 'p.approved_flow_lpm AS active_flow_lpm'])
         .from('checks', 'c')
         .innerJoin('infants', 'i', 'i.id = c.infant_id')

@@ -9,7 +9,7 @@ export const PRESCRIPTION_ACL_COLUMNS = { programmeId: 'rx.programme_id', infant
 export interface QueueRow {
   id: string; infant_id: string; given_name: string; family_name: string; birth_date: string; ga_weeks: number; ga_days: number;
   home_elevation_m: string | null; home_pressure_mmhg: string; site_name: string; reason: string;
-  proposed_flow_lpm: string | null; result: { feasible: boolean; warnings: unknown[] } | null; created_at: Date;
+  proposed_flow_lpm: string | null; result: { feasible: boolean; warnings: unknown[] } | null; evidence: unknown; created_at: Date;
 }
 
 export function createPrescriptionsRepository(ds: DataSource) {
@@ -46,7 +46,7 @@ export function createPrescriptionsRepository(ds: DataSource) {
         .select(['rx.id AS id', 'rx.infant_id AS infant_id', 'i.given_name AS given_name', 'i.family_name AS family_name',
           'i.birth_date::text AS birth_date', 'i.ga_weeks AS ga_weeks', 'i.ga_days AS ga_days', 'i.home_elevation_m AS home_elevation_m',
           'i.home_pressure_mmhg AS home_pressure_mmhg', 's.name AS site_name', 'rx.reason AS reason', 'rx.proposed_flow_lpm AS proposed_flow_lpm',
-          'rx.result AS result', 'rx.created_at AS created_at'])
+          'rx.result AS result', 'rx.evidence AS evidence', 'rx.created_at AS created_at'])
         .from('prescriptions', 'rx')
         .innerJoin('infants', 'i', 'i.id = rx.infant_id')
         .innerJoin('sites', 's', 's.id = i.site_id')

@@ -1,3 +1,4 @@
+import { weightWarnings } from '../../../shared/clinical/weight-check';
 import type { DataSource, EntityManager } from 'typeorm';
 import { resolvePressure } from '../../../shared/clinical/pressure';
 import { addDays } from '../../../shared/clinical/dates';
@@ -6,7 +7,7 @@ import type { EnrolInfantInput } from '../../../shared/schemas/infants';
 import type { PolicySettings } from '../../../shared/schemas/policy';
 import type { PressureSource } from '../../../shared/clinical/pressure';
 import type { AppRepos } from '../../deps';
-import { ValidationError, type FieldErrors } from '../../lib/errors';
+import { NeedsConfirmationError, ValidationError, type FieldErrors } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { openProposal } from '../prescriptions/proposals';
 
@@ -32,6 +33,9 @@ export async function checkEnrolment(repos: AppRepos, actor: Actor, input: Enrol
   if (role(care.nurseId) !== 'nurse') errors['care.nurseId'] = ['Choose a home-care nurse of your programme'];
   if (role(care.consultantId) !== 'consultant') errors['care.consultantId'] = ['Choose a consultant of your programme'];
   if (Object.keys(errors).length) throw new ValidationError(errors);
+  // The birth weight counts as the previous weight when the baby is under two weeks old.
+  const warnings = weightWarnings(baby.weightKg, baby.weightDate, { kg: baby.birthWeightG / 1000, date: baby.birthDate });
+  if (warnings.length && !baby.weightConfirmed) throw new NeedsConfirmationError('Check the weight before saving.', { 'baby.weightKg': warnings });
   return site!;
 }
 

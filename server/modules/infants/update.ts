@@ -1,3 +1,4 @@
+import { weightWarnings } from '../../../shared/clinical/weight-check';
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
 import { growthDrift } from '../../../shared/clinical/growth';
@@ -5,7 +6,7 @@ import type { AppAbility } from '../../../shared/auth/ability';
 import type { ContactInput, UpdateInfantInput } from '../../../shared/schemas/infants';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { AppRepos } from '../../deps';
-import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
+import { ConflictError, NeedsConfirmationError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { openProposal } from '../prescriptions/proposals';
 import { homePlace } from './enrol';
@@ -62,6 +63,8 @@ export async function updateInfant(ds: DataSource, repos: AppRepos, ability: App
     };
     if (input.weightKg !== undefined && input.weightDate !== undefined) {
       if (input.weightDate > today || input.weightDate < infant.birthDate) throw new ValidationError({ weightDate: ['The weighing date must be between birth and today'] });
+      const warnings = weightWarnings(input.weightKg, input.weightDate, { kg: infant.weightKg, date: infant.weightDate });
+      if (warnings.length && !input.weightConfirmed) throw new NeedsConfirmationError('Check the weight before saving.', { weightKg: warnings });
       set('weightKg', input.weightKg, 'weight');
       set('weightDate', input.weightDate);
     }

@@ -10,6 +10,11 @@ import type { AppRepos } from '../../deps';
 import { ConflictError, NotFoundError, ValidationError, type FieldErrors } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 
+const unmetChecks = (rx: PrescriptionEntity): string[] => {
+  const checks = (rx.evidence as { checks?: { code: string; met: boolean }[] } | null)?.checks;
+  return Array.isArray(checks) ? checks.filter((c) => c.met === false).map((c) => c.code) : [];
+};
+
 const STEP_CHANGE_REASONS: string[] = ['step_down', 'step_up', 'leave_programme'];
 const isStep = (flow: number, steps: readonly number[]) => steps.some((s) => Math.abs(s - flow) <= FLOW_TOLERANCE_LPM);
 
@@ -36,6 +41,8 @@ function approvedFlow(rx: PrescriptionEntity, input: DecisionInput, steps: reado
       errors[`periods.${period}`] = ['This is below the required flow: the reason must be recorded'];
     }
   }
+  // Approving a step down that some programme rules did not support needs the consultant's own recorded reason.
+  if (unmetChecks(rx).length && !input.reason) errors.reason = [`${unmetChecks(rx).length} step-down rule(s) not met: record why you approve anyway`];
   if (Object.keys(errors).length) throw new ValidationError(errors);
   return flow;
 }
@@ -103,7 +110,8 @@ export async function decidePrescription(ds: DataSource, repos: AppRepos, abilit
       {
         programmeId: rx.programmeId, actorId: actor.id, action: `prescription.${input.decision === 'approve' ? 'approved' : 'rejected'}`,
         entityType: 'infant', entityId: rx.infantId, ip: actor.ip,
-        details: { prescriptionId: rx.id, version: rx.version, proposedFlowLpm: rx.proposedFlowLpm, approvedFlowLpm: rx.approvedFlowLpm, reason: input.reason ?? null },
+        details: { prescriptionId: rx.id, version: rx.version, proposedFlowLpm: rx.proposedFlowLpm, approvedFlowLpm: rx.approvedFlowLpm, reason: input.reason ?? null,
+          ...(input.decision === 'approve' && unmetChecks(rx).length ? { approvedAgainstRules: unmetChecks(rx) } : {}) },
       },
       m,
     );

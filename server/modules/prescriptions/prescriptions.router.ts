@@ -17,7 +17,7 @@ export function prescriptionsRouter(service: PrescriptionsService): Router {
 
   r.get('/:id', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Prescription');
-    res.json(await service.get(req.ability, String(req.params.id)));
+    res.json(await service.get(req.ability, String(req.params.id), currentUser(req).role));
   });
 
   r.post('/:id/decision', validate({ params: idParamsSchema, body: decisionSchema }), async (req, res) => {

@@ -13,6 +13,12 @@ import { correctedAgeText } from '../infants/infants.mapper';
 import { decidePrescription } from './decide';
 import { forFamily, toPrescriptionDto } from './prescriptions.mapper';
 
+/** How many of the programme's step-down rules a proposal's evidence records as not met (0 for other proposals). */
+const unmetCount = (evidence: unknown) => {
+  const checks = (evidence as { checks?: { met?: boolean }[] } | null)?.checks;
+  return Array.isArray(checks) ? checks.filter((c) => c?.met === false).length : 0;
+};
+
 export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
   return {
     async listForInfant(ability: AppAbility, infantId: string, role?: string) {
@@ -24,10 +30,12 @@ export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs
       return { items: role === 'family' ? items.map(forFamily) : items };
     },
 
-    async get(ability: AppAbility, id: string) {
+    /** One mapping per audience: a family gets the same reduced view as from the list, never the working or notes. */
+    async get(ability: AppAbility, id: string, role?: string) {
       const rx = await repos.prescriptions.findVisible(id, accessibleWhere(ability, 'read', 'Prescription', PRESCRIPTION_ACL_COLUMNS));
       if (!rx) throw new NotFoundError('No such setting in your records.');
-      return toPrescriptionDto(rx, await repos.infants.peopleNames([rx.decidedBy]));
+      const dto = toPrescriptionDto(rx, await repos.infants.peopleNames([rx.decidedBy]));
+      return role === 'family' ? forFamily(dto) : dto;
     },
 
     async queue(ability: AppAbility, timeZone: string): Promise<{ items: QueueItem[] }> {
@@ -40,7 +48,8 @@ export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs
           homeElevationM: r.home_elevation_m === null ? null : Number(r.home_elevation_m), homePressureMmHg: Number(r.home_pressure_mmhg),
           siteName: r.site_name, reason: r.reason as QueueItem['reason'],
           proposedFlowLpm: r.proposed_flow_lpm === null ? null : Number(r.proposed_flow_lpm),
-          feasible: r.result ? r.result.feasible : r.proposed_flow_lpm !== null, warningCount: r.result?.warnings.length ?? 0, waitingSince: new Date(r.created_at).toISOString(),
+          feasible: r.result ? r.result.feasible : r.proposed_flow_lpm !== null, warningCount: r.result?.warnings.length ?? 0,
+          unmetChecks: unmetCount(r.evidence), waitingSince: new Date(r.created_at).toISOString(),
         })),
       };
     },

@@ -1,3 +1,4 @@
+import { weightWarnings } from '../../../shared/clinical/weight-check';
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
 import type { AppAbility } from '../../../shared/auth/ability';
@@ -8,14 +9,11 @@ import type { ReadingEntity } from '../../db/entities/reading.entity';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
 import type { JobProducer } from '../../jobs/producer';
-import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
+import { ConflictError, ForbiddenError, NeedsConfirmationError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { applyNewWeight } from '../infants/update';
 import { localDate } from '../../../shared/schedule/plan-checks';
 
-// A keying-error guard, not a growth standard (common practice): a new weight more than half as much again, or
-// less than half, of the last recorded one is almost always a typo.
-const plausibleWeight = (last: number, next: number) => next >= last * 0.5 && next <= last * 1.5;
 const FUTURE_SLACK_MS = 5 * 60_000;
 
 const fields = (i: InfantEntity) => ({ programmeId: i.programmeId, infantId: i.id, nurseId: i.nurseId } as Record<string, unknown>);
@@ -44,8 +42,9 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
       const takenAt = new Date(input.takenAt);
       if (takenAt.getTime() > Date.now() + FUTURE_SLACK_MS) throw new ValidationError({ takenAt: ['The reading time is in the future'] });
       if (takenAt.getTime() < new Date(`${infant.birthDate}T00:00:00Z`).getTime() - 86_400_000) throw new ValidationError({ takenAt: ['The reading time is before birth'] });
-      if (input.weightKg !== undefined && !plausibleWeight(infant.weightKg, input.weightKg)) {
-        throw new ValidationError({ weightKg: [`${input.weightKg} kg is far from the last weight (${infant.weightKg} kg); check the number`] });
+      if (input.weightKg !== undefined) {
+        const warnings = weightWarnings(input.weightKg, localDate(takenAt, actor.timeZone), { kg: infant.weightKg, date: infant.weightDate });
+        if (warnings.length && !input.weightConfirmed) throw new NeedsConfirmationError('Check the weight before saving.', { weightKg: warnings });
       }
       const family = actor.role === 'family';
       const out = await ds.transaction(async (m) => {

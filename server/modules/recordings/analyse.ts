@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { summariseOximetry, type OximetrySummary } from '../../../shared/clinical/oximetry';
+import { OXIMETRY_ANALYSIS_VERSION, summariseOximetry, type OximetrySummary } from '../../../shared/clinical/oximetry';
 import { decodeSamples, SAMPLE_LAYOUT_VERSION } from '../../../shared/recordings/sample-codec';
 import type { AppRepos } from '../../deps';
 
@@ -21,39 +21,66 @@ export async function analyseRecording(ds: DataSource, repos: AppRepos, recordin
       r.statusAt = new Date();
       await repos.recordings.save(r, m);
     }
-    return 'claimed' as const;
+    return { programmeId: r.programmeId };
   });
-  if (claimed !== 'claimed') return claimed;
+  if (typeof claimed === 'string') return claimed;
 
-  const stored = await repos.recordings.loadSamples(recordingId);
   let summary: OximetrySummary;
   try {
-    if (!stored) throw new Error('the stored samples are missing');
-    if (stored.layout !== SAMPLE_LAYOUT_VERSION) throw new Error(`the samples are stored in layout ${stored.layout}, which this version cannot read`);
-    summary = summariseOximetry(decodeSamples(stored));
+    summary = await summarise(repos, recordingId, claimed.programmeId);
   } catch (err) {
     await failRecording(ds, repos, recordingId, `The recording could not be analysed: ${(err as Error).message}.`);
     return 'failed';
   }
-  return storeSummary(ds, repos, recordingId, summary);
+  return storeSummary(ds, repos, recordingId, summary, 'analysing');
 }
 
-async function storeSummary(ds: DataSource, repos: AppRepos, recordingId: string, s: OximetrySummary): Promise<AnalyseOutcome> {
+/** The programme's analysis settings (minimum event time, minimum valid time) apply to every study it analyses. */
+async function summarise(repos: AppRepos, recordingId: string, programmeId: string): Promise<OximetrySummary> {
+  const stored = await repos.recordings.loadSamples(recordingId);
+  if (!stored) throw new Error('the stored samples are missing');
+  if (stored.layout !== SAMPLE_LAYOUT_VERSION) throw new Error(`the samples are stored in layout ${stored.layout}, which this version cannot read`);
+  const { oximetry } = (await repos.policies.current(programmeId)).settings;
+  return summariseOximetry(decodeSamples(stored), { minEventSeconds: oximetry.minEventSeconds, minValidMinutes: oximetry.minValidMinutes });
+}
+
+/**
+ * Analyses again a recording analysed by an older version of the rules. The summary shown becomes the new one;
+ * the old one stays in recording_analyses with its version. Checks and proposals are not re-run: they were
+ * decided on the evidence of their time, which the audit trail keeps.
+ */
+export async function reanalyseRecording(ds: DataSource, repos: AppRepos, recordingId: string): Promise<AnalyseOutcome> {
+  const [row] = await ds.query(`SELECT programme_id, status, analysis_version FROM recordings WHERE id = $1`, [recordingId]);
+  if (!row) return 'missing';
+  if (row.status !== 'done' || row.analysis_version === OXIMETRY_ANALYSIS_VERSION) return 'skipped';
+  return storeSummary(ds, repos, recordingId, await summarise(repos, recordingId, row.programme_id), 'done');
+}
+
+async function storeSummary(ds: DataSource, repos: AppRepos, recordingId: string, s: OximetrySummary, from: 'analysing' | 'done'): Promise<AnalyseOutcome> {
   return ds.transaction(async (m) => {
     const r = await repos.recordings.findForUpdate(recordingId, m);
-    if (!r || r.status !== 'analysing') return 'skipped';
+    if (!r || r.status !== from) return 'skipped';
+    const previousVersion = r.analysisVersion;
     const now = new Date();
     Object.assign(r, {
       status: 'done', analysisVersion: s.version, validMinutes: s.validMinutes, meanSpo2: s.meanSpo2, medianSpo2: s.medianSpo2,
       minSpo2: s.minSpo2, pctBelow90: s.percentTimeBelow90, pctBelow92: s.percentTimeBelow92, pctBelow93: s.percentTimeBelow93,
       odi3: s.odi3PerHour, odi4: s.odi4PerHour, meanPulse: s.meanPulse, events: s.odi3Events, samplePeriodSec: s.samplePeriodSec,
+      judged: s.judged, minEventSeconds: s.minEventSeconds, minValidMinutes: s.minValidMinutes,
       failureReason: null, analysedAt: now, statusAt: now,
     });
     await repos.recordings.save(r, m);
+    await m.query(`INSERT INTO recording_analyses (recording_id, analysis_version, summary, events, analysed_at) VALUES ($1, $2, $3, $4, $5)`, [
+      r.id, s.version, JSON.stringify({
+        validMinutes: s.validMinutes, meanSpo2: s.meanSpo2, medianSpo2: s.medianSpo2, minSpo2: s.minSpo2, pctBelow90: s.percentTimeBelow90,
+        pctBelow92: s.percentTimeBelow92, pctBelow93: s.percentTimeBelow93, odi3: s.odi3PerHour, odi4: s.odi4PerHour, meanPulse: s.meanPulse,
+        judged: s.judged, minEventSeconds: s.minEventSeconds, minValidMinutes: s.minValidMinutes,
+      }), JSON.stringify(s.odi3Events), now,
+    ]);
     await repos.audit.append(
       {
-        programmeId: r.programmeId, actorId: null, action: 'recording.analysed', entityType: 'infant', entityId: r.infantId,
-        details: { recordingId: r.id, analysisVersion: s.version, sampleCount: s.sampleCount, validSampleCount: s.validSampleCount },
+        programmeId: r.programmeId, actorId: null, action: from === 'done' ? 'recording.reanalysed' : 'recording.analysed', entityType: 'infant', entityId: r.infantId,
+        details: { recordingId: r.id, analysisVersion: s.version, previousVersion, sampleCount: s.sampleCount, validSampleCount: s.validSampleCount, judged: s.judged },
       },
       m,
     );

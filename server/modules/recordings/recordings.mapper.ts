@@ -16,6 +16,7 @@ export function toRecordingDto(r: RecordingWithUploader): Recording {
     dto.summary = {
       validMinutes: r.validMinutes ?? 0, meanSpo2: r.meanSpo2, medianSpo2: r.medianSpo2, minSpo2: r.minSpo2,
       pctBelow90: r.pctBelow90, pctBelow92: r.pctBelow92, pctBelow93: r.pctBelow93, odi3: r.odi3, odi4: r.odi4, meanPulse: r.meanPulse,
+      judged: r.judged ?? (r.validMinutes ?? 0) >= (r.minValidMinutes ?? 300), minValidMinutes: r.minValidMinutes ?? 300, minEventSeconds: r.minEventSeconds ?? 10,
     };
   }
   return dto;

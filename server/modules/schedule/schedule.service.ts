@@ -10,7 +10,7 @@ import { addDays } from '../../../shared/clinical/dates';
 
 const toCheck = (c: CheckEntity): Check => ({
   id: c.id, infantId: c.infantId, kind: c.kind, planKey: c.planKey, dueAt: c.dueAt.toISOString(), dueDate: c.dueDate, status: c.status,
-  doneAt: c.doneAt?.toISOString() ?? null,
+  doneAt: c.doneAt?.toISOString() ?? null, note: c.note,
 });
 
 export function createScheduleService(repos: AppRepos) {
@@ -30,7 +30,7 @@ export function createScheduleService(repos: AppRepos) {
       const rows = await repos.checks.day(accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), today, addDays(today, 7));
       const all = rows.map((r): DayItem => ({
         id: r.id, infantId: r.infant_id, kind: r.kind as DayItem['kind'], planKey: r.plan_key, dueAt: new Date(r.due_at).toISOString(), dueDate: r.due_date,
-        status: r.status as DayItem['status'], doneAt: r.done_at ? new Date(r.done_at).toISOString() : null,
+        status: r.status as DayItem['status'], doneAt: r.done_at ? new Date(r.done_at).toISOString() : null, note: r.note,
         infantName: `${r.given_name} ${r.family_name}`, homeAddress: r.home_address,
         activeFlowLpm: r.active_flow_lpm === null ? null : Number(r.active_flow_lpm),
         correctedAge: correctedAgeText(r.birth_date, r.ga_weeks, r.ga_days, today),

@@ -11,7 +11,14 @@ export async function afterStudy(ds: DataSource, repos: AppRepos, recordingId: s
     const r = await repos.recordings.findForUpdate(recordingId, m);
     if (!r || r.status !== 'done') return null;
     const [open] = await repos.checks.openOfKinds(r.infantId, ['overnight_study', 'room_air_challenge'], m);
-    if (open && !(await m.query(`SELECT 1 FROM checks WHERE done_ref = $1`, [`recording:${r.id}`])).length) {
+    if (open && r.judged === false) {
+      // Too short to judge: the planned study stays open and says a repeat is needed (the nurse's day shows it).
+      const hours = Math.round(((r.minValidMinutes ?? 300) / 60) * 10) / 10;
+      const when = (r.startedAt ?? r.uploadedAt).toISOString().slice(0, 10);
+      await m.query(`UPDATE checks SET note = $2, updated_at = now() WHERE id = $1`, [
+        open.id, `Repeat needed: the recording of ${when} had less than ${hours} hours of valid time, too short to judge.`,
+      ]);
+    } else if (open && !(await m.query(`SELECT 1 FROM checks WHERE done_ref = $1`, [`recording:${r.id}`])).length) {
       await repos.checks.complete(open, r.uploadedBy, `recording:${r.id}`, m);
     }
     return r;

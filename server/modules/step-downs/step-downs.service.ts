@@ -9,7 +9,10 @@ import type { PrescriptionEntity } from '../../db/entities/prescription.entity';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
 import { createReminderPlanner } from '../reminders/reminders.planner';
-import { ConflictError, ForbiddenError, NotFoundError } from '../../lib/errors';
+import { ConflictError, ForbiddenError, NotFoundError, PolicyNotMetError } from '../../lib/errors';
+import { unmetRules } from '../../../shared/schedule/step-down-rules';
+import type { StepDownEvidence, StepDownPreview, StepDownRequestInput } from '../../../shared/schemas/step-downs';
+import { gatherStepDownEvidence } from './evidence';
 import type { Actor } from '../../lib/http';
 
 interface StepProposal {
@@ -40,36 +43,69 @@ export async function openStepProposal(repos: AppRepos, infant: InfantEntity, ac
 }
 
 export function createStepDownsService(ds: DataSource, repos: AppRepos) {
+  async function visibleForStepDown(ability: AppAbility, infantId: string, m: EntityManager) {
+    const visible = await repos.infants.findVisible(infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), m);
+    if (!visible) throw new NotFoundError('No such baby in your records.');
+    if (!ability.can('create', subject('StepDown', { programmeId: visible.programmeId, nurseId: visible.nurseId } as Record<string, unknown>))) throw new ForbiddenError();
+    return visible;
+  }
+
+  /** Why no step down can be asked for at all (nothing to step down from, or a proposal already waiting). */
+  async function blocked(infantId: string, active: PrescriptionEntity | null, m: EntityManager): Promise<string | null> {
+    if (!active || (active.approvedFlowLpm ?? 0) <= 0) return 'This baby has no oxygen to step down from.';
+    const pending = await m.query(`SELECT 1 FROM prescriptions WHERE infant_id = $1 AND status IN ('preparing','proposed') LIMIT 1`, [infantId]);
+    return pending.length ? 'A new setting is already waiting for sign-off for this baby.' : null;
+  }
+
   return {
-    /** A nurse or coordinator asks for the next step down with a reason; the consultant decides. */
-    async request(ability: AppAbility, actor: Actor, infantId: string, reason: string) {
+    /** What the nurse's form shows before sending: the step that would be proposed and every rule, met or not. */
+    async preview(ability: AppAbility, infantId: string, now: Date): Promise<StepDownPreview> {
       return ds.transaction(async (m) => {
-        const visible = await repos.infants.findVisible(infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), m);
-        if (!visible) throw new NotFoundError('No such baby in your records.');
-        if (!ability.can('create', subject('StepDown', { programmeId: visible.programmeId, nurseId: visible.nurseId } as Record<string, unknown>))) throw new ForbiddenError();
-        const infant = (await repos.infants.findForUpdate(infantId, m))!;
+        const infant = await visibleForStepDown(ability, infantId, m);
         const active = await repos.prescriptions.active(infantId, m);
-        if (!active || (active.approvedFlowLpm ?? 0) <= 0) throw new ConflictError('This baby has no oxygen to step down from.');
-        const pending = await m.query(`SELECT 1 FROM prescriptions WHERE infant_id = $1 AND status IN ('preparing','proposed') LIMIT 1`, [infantId]);
-        if (pending.length) throw new ConflictError('A new setting is already waiting for sign-off for this baby.');
-        const policy = await repos.policies.current(infant.programmeId, m);
-        const next = nextStepDown({ flowLpm: active.approvedFlowLpm!, periods: active.periods }, policy.settings);
-        // The consultant decides on evidence: attach the latest analysed overnight study, if any.
-        const [study] = await m.query(
-          `SELECT id, mean_spo2, pct_below_90, valid_minutes FROM recordings WHERE infant_id = $1 AND status = 'done' ORDER BY coalesce(started_at, uploaded_at) DESC LIMIT 1`,
-          [infantId],
-        );
-        const studyEvidence = study
-          ? (() => {
-              const s = { meanSpo2: study.mean_spo2, pctBelow90: study.pct_below_90, validMinutes: study.valid_minutes };
-              const target = meetsOvernightTarget(s, policy.settings, infant.diagnoses.includes('pulmonary_hypertension'));
-              return { recordingId: study.id, ...s, targetMet: target.met, shortfalls: target.reasons };
-            })()
-          : {};
-        return openStepProposal(repos, infant, active, {
-          reason: 'step_down', flowLpm: next.setting.flowLpm, periods: next.setting.periods,
-          evidence: { ...studyEvidence, kind: next.kind, label: next.label, requestedBy: actor.id, requestReason: reason },
-        }, actor.id, m);
+        const policy = (await repos.policies.current(infant.programmeId, m)).settings;
+        const { checks } = await gatherStepDownEvidence(repos, infant, active, policy, now, m);
+        const blockedReason = await blocked(infantId, active, m);
+        const next = active && (active.approvedFlowLpm ?? 0) > 0 ? nextStepDown({ flowLpm: active.approvedFlowLpm!, periods: active.periods }, policy) : null;
+        return { next: next && { kind: next.kind, label: next.label, flowLpm: next.setting.flowLpm }, checks, blockedReason };
+      });
+    },
+
+    /**
+     * A nurse or coordinator asks for the next step down with a reason; the consultant decides. Every programme
+     * rule is checked here: with any unmet, the request is refused (422) unless an override reason is given, in
+     * which case the unmet rules and the reason are stored with the proposal and audited.
+     */
+    async request(ability: AppAbility, actor: Actor, infantId: string, input: StepDownRequestInput, now: Date) {
+      return ds.transaction(async (m) => {
+        const visible = await visibleForStepDown(ability, infantId, m);
+        const infant = (await repos.infants.findForUpdate(visible.id, m))!;
+        const active = await repos.prescriptions.active(infantId, m);
+        const blockedReason = await blocked(infantId, active, m);
+        if (blockedReason) throw new ConflictError(blockedReason);
+        const policy = (await repos.policies.current(infant.programmeId, m)).settings;
+        const { checks, evidence } = await gatherStepDownEvidence(repos, infant, active, policy, now, m);
+        const unmet = unmetRules(checks);
+        if (unmet.length && !input.overrideReason) {
+          throw new PolicyNotMetError(
+            `${unmet.length} of the programme's step-down rules ${unmet.length === 1 ? 'is' : 'are'} not met. Give a reason to ask anyway, or wait until they are.`,
+            unmet.map(({ code, message }) => ({ code, message })),
+          );
+        }
+        const next = nextStepDown({ flowLpm: active!.approvedFlowLpm!, periods: active!.periods }, policy);
+        const requester = (await repos.infants.peopleNames([actor.id])).get(actor.id) ?? '';
+        const full: StepDownEvidence = {
+          ...evidence, kind: next.kind, label: next.label, checks, requestedBy: { id: actor.id, name: requester }, reason: input.reason,
+          overrideReason: unmet.length ? input.overrideReason ?? null : null,
+        };
+        const rx = await openStepProposal(repos, infant, active, { reason: 'step_down', flowLpm: next.setting.flowLpm, periods: next.setting.periods, evidence: full }, actor.id, m);
+        if (unmet.length) {
+          await repos.audit.append({
+            programmeId: infant.programmeId, actorId: actor.id, action: 'step_down.requested_against_rules', entityType: 'infant', entityId: infant.id, ip: actor.ip,
+            details: { prescriptionId: rx.id, unmet: unmet.map((c) => c.code), overrideReason: input.overrideReason },
+          }, m);
+        }
+        return rx;
       });
     },
 
@@ -78,7 +114,7 @@ export function createStepDownsService(ds: DataSource, repos: AppRepos) {
      * below target → propose stepping back up; off oxygen and on target after the observation period → propose
      * leaving the programme. Nothing is proposed while another proposal waits.
      */
-    async considerStudy(infantId: string, study: StudyResult & { recordingId: string; recordedAt: Date }) {
+    async considerStudy(infantId: string, study: StudyResult & { recordingId: string; recordedAt: Date }, now = new Date()) {
       return ds.transaction(async (m) => {
         const infant = await repos.infants.findForUpdate(infantId, m);
         if (!infant || ['preparing', 'awaiting_signoff', 'sent_back', 'left_programme'].includes(infant.status)) return null;
@@ -86,6 +122,8 @@ export function createStepDownsService(ds: DataSource, repos: AppRepos) {
         if (pending.length) return null;
         const policy = await repos.policies.current(infant.programmeId, m);
         const target = meetsOvernightTarget(study, policy.settings, infant.diagnoses.includes('pulmonary_hypertension'));
+        // A study too short to judge says nothing either way: no flag raised or cleared, nothing proposed.
+        if (!target.judged) return null;
         const active = await repos.prescriptions.active(infantId, m);
         const evidence = { recordingId: study.recordingId, meanSpo2: study.meanSpo2, pctBelow90: study.pctBelow90, validMinutes: study.validMinutes, targetMet: target.met, shortfalls: target.reasons };
         infant.flags = target.met ? infant.flags.filter((f) => f !== 'below_target') : [...new Set([...infant.flags, 'below_target' as const])];
@@ -105,7 +143,13 @@ export function createStepDownsService(ds: DataSource, repos: AppRepos) {
         if (!target.met || (active.approvedFlowLpm ?? 0) <= 0 || daysOnSetting < policy.settings.stepDown.minDaysBetweenStepDowns - 2) return null;
         if (active.approvedWeightKg !== null && infant.weightKg < active.approvedWeightKg) return null;
         const next = nextStepDown({ flowLpm: active.approvedFlowLpm!, periods: active.periods }, policy.settings);
-        return openStepProposal(repos, infant, active, { reason: 'step_down', flowLpm: next.setting.flowLpm, periods: next.setting.periods, evidence: { ...evidence, kind: next.kind, label: next.label } }, null, m);
+        // Proposed by the system after a study on target: the consultant still sees every rule, met or not.
+        const gathered = await gatherStepDownEvidence(repos, infant, active, policy.settings, now, m);
+        const full: StepDownEvidence & typeof evidence = {
+          ...evidence, ...gathered.evidence, checks: gathered.checks, kind: next.kind, label: next.label, requestedBy: null,
+          reason: 'Proposed by Nestflow after an overnight study on target.', overrideReason: null,
+        };
+        return openStepProposal(repos, infant, active, { reason: 'step_down', flowLpm: next.setting.flowLpm, periods: next.setting.periods, evidence: full }, null, m);
       });
     },
   };

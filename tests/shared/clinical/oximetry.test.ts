@@ -100,14 +100,19 @@ describe('oximetry summary: event rules', () => {
     expect(oneDip(30, 94).odi4PerHour).toBe(0);
   });
 
-  it('when SpO2 rises part-way and falls again before recovering within 1 point, then it counts once', () => {
+  it('when SpO2 rises 3 points above the lowest point, holds, and falls again, then it counts twice', () => {
     const dips = [
       { startTSec: 300, durationSec: 15, spo2: 92 },
       { startTSec: 315, durationSec: 20, spo2: 95 },
       { startTSec: 335, durationSec: 15, spo2: 92 },
     ];
     const result = summariseOximetry(buildTrace({ durationSec: 600, dips }));
-    expect(result.odi3Events).toEqual([{ startTSec: 300, endTSec: 350, nadirSpo2: 92, baselineSpo2: 97, deep: true }]);
+    // the rise to 95 % is 3 points above the 92 % nadir and holds 20 s: a recovery, so the second dip is a new fall
+    // against its own 120 s baseline ((85 × 97 + 15 × 92 + 20 × 95) ÷ 120 = 96.04 %), 92 ≤ 96.04 − 4, so both are deep
+    expect(result.odi3Events).toEqual([
+      { startTSec: 300, endTSec: 315, nadirSpo2: 92, baselineSpo2: 97, deep: true },
+      { startTSec: 335, endTSec: 350, nadirSpo2: 92, baselineSpo2: expect.closeTo(96.0417, 4), deep: true },
+    ]);
   });
 
   it('when SpO2 recovers within 1 point between two falls, then they count twice', () => {

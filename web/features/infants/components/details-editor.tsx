@@ -9,7 +9,8 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
 import { showToast } from '../../../components/ui/toast-store';
-import { errorMessage, isApiError } from '../../../lib/api-error';
+import { detailMessages, errorMessage, isApiError } from '../../../lib/api-error';
+import { WeightConfirm } from '../../../components/clinical/weight-confirm';
 import { asNumber } from '../../../lib/form-values';
 import { infantQueryOptions } from '../api/get-infant';
 import { useUpdateInfant } from '../api/update-infant';
@@ -41,7 +42,7 @@ const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b)
 function changesOnly(values: UpdateInfantInput, before: DetailsValues): UpdateInfantInput {
   const patch: UpdateInfantInput = { rowVersion: values.rowVersion };
   if (values.weightKg !== before.weightKg || values.weightDate !== before.weightDate) {
-    Object.assign(patch, { weightKg: values.weightKg, weightDate: values.weightDate });
+    Object.assign(patch, { weightKg: values.weightKg, weightDate: values.weightDate, ...(values.weightConfirmed ? { weightConfirmed: true } : {}) });
   }
   if (!same(values.home, before.home)) patch.home = values.home;
   if (values.nurseId !== before.nurseId) patch.nurseId = values.nurseId;
@@ -53,6 +54,7 @@ export function DetailsEditor({ infant, onDone }: { infant: InfantDetail; onDone
   const queryClient = useQueryClient();
   const update = useUpdateInfant(infant.id);
   const [conflict, setConflict] = useState<string>();
+  const [weightWarnings, setWeightWarnings] = useState<string[] | null>(null);
   const form = useForm<DetailsValues, unknown, UpdateInfantInput>({
     resolver: zodResolver(updateInfantSchema),
     defaultValues: toValues(infant),
@@ -72,9 +74,10 @@ export function DetailsEditor({ infant, onDone }: { infant: InfantDetail; onDone
       },
       onError: (error) => {
         if (isApiError(error) && error.code === 'conflict') return setConflict(error.message);
+        if (isApiError(error) && error.code === 'needs_confirmation') return setWeightWarnings(detailMessages(error.details?.weightKg));
         if (!isApiError(error) || !error.details) return;
         for (const [path, messages] of Object.entries(error.details)) {
-          form.setError(path as Path<DetailsValues>, { type: 'server', message: messages.join(' ') });
+          form.setError(path as Path<DetailsValues>, { type: 'server', message: detailMessages(messages).join(' ') });
         }
       },
     });
@@ -87,7 +90,7 @@ export function DetailsEditor({ infant, onDone }: { infant: InfantDetail; onDone
     setConflict(undefined);
     update.reset();
   };
-  const otherProblem = update.isError && !conflict && !(isApiError(update.error) && update.error.details) ? errorMessage(update.error) : undefined;
+  const otherProblem = update.isError && !conflict && !weightWarnings && !(isApiError(update.error) && update.error.details) ? errorMessage(update.error) : undefined;
 
   return (
     <FormProvider {...form}>
@@ -107,6 +110,7 @@ export function DetailsEditor({ infant, onDone }: { infant: InfantDetail; onDone
           <TextField label="Current weight (kg)" type="number" inputMode="decimal" step="any" error={err('weightKg')} {...register('weightKg', asNumber)} />
           <TextField label="Weighed on" type="date" error={err('weightDate')} {...register('weightDate')} />
         </div>
+        {weightWarnings && <WeightConfirm warnings={weightWarnings} name="weightConfirmed" />}
         <HomeFields />
         <div className="grid gap-4 sm:grid-cols-2">
           <StaffSelect role="nurse" label="Home-care nurse" error={err('nurseId')} {...register('nurseId')} />

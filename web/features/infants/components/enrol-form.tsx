@@ -5,7 +5,8 @@ import { useNavigate } from 'react-router-dom';
 import { enrolInfantSchema, type EnrolInfantInput } from '../../../../shared/schemas/infants';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { errorMessage, isApiError } from '../../../lib/api-error';
+import { detailMessages, errorMessage, isApiError } from '../../../lib/api-error';
+import { WeightConfirm } from '../../../components/clinical/weight-confirm';
 import { useSignedInUser } from '../../../lib/signed-in-user';
 import { useEnrolInfant } from '../api/enrol-infant';
 import { EnrolBabyStep } from './enrol-baby-step';
@@ -35,6 +36,7 @@ export function EnrolForm() {
   const { trigger, setError, handleSubmit, formState, control } = form;
   const [step, setStep] = useState(0);
   const [serverProblem, setServerProblem] = useState<string>();
+  const [weightWarnings, setWeightWarnings] = useState<string[] | null>(null);
   // A second click can arrive before React re-renders the disabled button; this closes that gap.
   const inFlight = useRef(false);
   const heading = useRef<HTMLHeadingElement>(null);
@@ -58,6 +60,10 @@ export function EnrolForm() {
   };
 
   const onServerError = (error: unknown) => {
+    if (isApiError(error) && error.code === 'needs_confirmation') {
+      setWeightWarnings(detailMessages(error.details?.['baby.weightKg']));
+      return;
+    }
     if (!isApiError(error) || error.code !== 'validation_failed' || !error.details) {
       setServerProblem(errorMessage(error));
       return;
@@ -66,9 +72,9 @@ export function EnrolForm() {
     let first: number | null = null;
     for (const [path, messages] of Object.entries(error.details)) {
       const at = stepOfPath(path);
-      if (at === null) leftover.push(messages.join(' '));
+      if (at === null) leftover.push(detailMessages(messages).join(' '));
       else {
-        setError(path as Path<EnrolValues>, { type: 'server', message: messages.join(' ') });
+        setError(path as Path<EnrolValues>, { type: 'server', message: detailMessages(messages).join(' ') });
         first = first === null ? at : Math.min(first, at);
       }
     }
@@ -116,6 +122,7 @@ export function EnrolForm() {
             {step === 2 && <HomeFields />}
             {step === 3 && <EnrolCareStep />}
             {step === 4 && <EnrolCheckStep control={control} onEdit={setStep} />}
+            {step === 4 && weightWarnings && <WeightConfirm warnings={weightWarnings} name="baby.weightConfirmed" />}
           </section>
           <div className="flex flex-wrap justify-between gap-3">
             <Button variant="secondary" onClick={() => setStep(step - 1)} disabled={step === 0 || pending}>

@@ -1,4 +1,5 @@
 import { useMemo } from 'react';
+import { infeasibleReason } from '../../../../shared/clinical/conversion-warnings';
 import { useWatch, type Control } from 'react-hook-form';
 import { convertPrescription } from '../../../../shared/clinical/conversion';
 import type { PrescriptionConversion } from '../../../../shared/clinical/conversion-types';
@@ -34,7 +35,7 @@ function Result({ result }: { result: PrescriptionConversion }) {
         <Figure label="Flowmeter setting (rounded up)" value={home.roundedFlowLpm === null ? '—' : `${formatFlow(home.roundedFlowLpm)} L/min`} strong />
         <Figure label="FiO2 delivered at that setting" value={home.deliveredFio2 === null ? '—' : formatFraction(home.deliveredFio2)} />
       </dl>
-      {!result.feasible && <Alert tone="warn">No low-flow cannula setting reaches this at home. The consultant must decide.</Alert>}
+      {!result.feasible && <Alert tone="warn">{infeasibleReason(result.warnings)} The consultant must decide.</Alert>}
       {result.warnings.length > 0 && (
         <ul aria-label="Points to check" className="flex flex-col gap-1.5 text-sm">
           {result.warnings.map((warning) => (

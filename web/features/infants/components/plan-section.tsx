@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { infeasibleReason } from '../../../../shared/clinical/conversion-warnings';
 import type { InfantDetail } from '../../../../shared/schemas/infants';
 import type { Prescription } from '../../../../shared/schemas/prescriptions';
 import { CarePlanLink } from '../../../components/clinical/care-plan-link';
@@ -27,7 +28,7 @@ function ProposalPanel({ rx }: { rx: Prescription }) {
           {conversion?.home.deliveredFio2 != null && <>, giving FiO2 {formatFraction(conversion.home.deliveredFio2)}</>}
         </p>
       ) : (
-        <p className="font-semibold text-ink-900">No low-flow cannula setting reaches the target at home. The consultant must decide.</p>
+        <p className="font-semibold text-ink-900">{infeasibleReason(conversion?.warnings ?? [])} The consultant must decide.</p>
       )}
       <p className="text-sm text-ink-700">Version {rx.version}. Not to be used until a consultant approves it.</p>
     </div>

@@ -16,7 +16,7 @@ export function useRequestStepDown(infantId: string, onRequested: (rx: Prescript
     mutationFn: (input: StepDownRequestInput) =>
       api.post(`/api/infants/${encodeURIComponent(infantId)}/step-down-requests`, input, prescriptionSchema),
     // A 409 (a proposal already waits, or no oxygen to step down from) and field problems are shown in the form.
-    meta: { inlineErrors: ['validation_failed', 'conflict'], successToast: describe },
+    meta: { inlineErrors: ['validation_failed', 'conflict', 'policy_not_met'], successToast: describe },
     onSuccess: onRequested,
   });
 }

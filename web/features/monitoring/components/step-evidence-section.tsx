@@ -53,7 +53,13 @@ function EvidenceItem({ rx }: { rx: Prescription }) {
       {evidence ? (
         <dl className="grid gap-x-4 gap-y-1 text-sm sm:grid-cols-[10rem_1fr]">
           {evidence.label && <Row label="Next setting">{evidence.label}</Row>}
-          {evidence.requestReason && <Row label="Reason given">{evidence.requestReason}</Row>}
+          {(evidence.reason ?? evidence.requestReason) && <Row label="Reason given">{evidence.reason ?? evidence.requestReason}</Row>}
+          {evidence.checks && (
+            <Row label="Programme rules">
+              {evidence.checks.every((c) => c.met) ? 'All met' : `${evidence.checks.filter((c) => !c.met).length} not met`}
+            </Row>
+          )}
+          {evidence.overrideReason && <Row label="Asked anyway because">{evidence.overrideReason}</Row>}
           {evidence.observedDays !== undefined && <Row label="Days off oxygen">{evidence.observedDays}</Row>}
           <StudyRows evidence={evidence} />
         </dl>

@@ -12,6 +12,10 @@ export const stepEvidenceSchema = z.object({
   kind: z.string().optional(),
   label: z.string().optional(),
   requestReason: z.string().optional(),
+  /** Newer proposals: the reason given, the reason to ask against unmet rules, and how many rules were unmet. */
+  reason: z.string().nullable().optional(),
+  overrideReason: z.string().nullable().optional(),
+  checks: z.array(z.object({ met: z.boolean() })).optional(),
   observedDays: z.number().optional(),
 });
 export type StepEvidence = z.infer<typeof stepEvidenceSchema>;

@@ -36,6 +36,7 @@ export function DayItemCard({ item, stop, today, open, onToggle, children }: Day
             {overdue && <span aria-hidden="true">⚠ </span>}
             {dueText(item, today)}
           </span>
+          {item.note && <span className="font-semibold text-warn-800">{item.note}</span>}
           <span className="text-ink-700">Corrected age {item.correctedAge}</span>
           <span className="text-ink-900">{item.homeAddress}</span>
           <span className="text-ink-700">

@@ -10,7 +10,7 @@ import { applyServerFieldErrors } from '../../../lib/form-errors';
 import type { useDecidePrescription } from '../api/decide-prescription';
 import { DecisionModes } from './decision-modes';
 import {
-  approvedFlowOf, BELOW_REQUIRED_WARNING, decisionFormSchema, defaultDecisionValues, isBelowRequired, PERIODS, SAME,
+  approvedFlowOf, BELOW_REQUIRED_WARNING, decisionFormSchema, unmetChecksOf, defaultDecisionValues, isBelowRequired, PERIODS, SAME,
   type DecisionFormValues,
 } from './decision-rules';
 import { PeriodFlows } from './period-flows';
@@ -44,7 +44,8 @@ export function DecisionForm({ rx, steps, mutation, onDecided }: DecisionFormPro
   });
   const [mode, flowLpm, periods] = useWatch({ control, name: ['mode', 'flowLpm', 'periods'] });
   const below = mode === 'different' && flowLpm !== '' && isBelowRequired(Number(flowLpm), rx);
-  const reasonRequired = mode !== 'as_proposed';
+  const unmet = unmetChecksOf(rx).length;
+  const reasonRequired = mode !== 'as_proposed' || unmet > 0;
   const periodsBelow = mode === 'send_back' ? [] : PERIODS.filter((p) => periods[p] !== SAME && isBelowRequired(Number(periods[p]), rx));
 
   const onSubmit = handleSubmit((decision) =>
@@ -71,6 +72,9 @@ export function DecisionForm({ rx, steps, mutation, onDecided }: DecisionFormPro
         </SelectField>
       )}
       {below && <Alert tone="warn">{BELOW_REQUIRED_WARNING}</Alert>}
+      {unmet > 0 && mode !== 'send_back' && (
+        <Alert tone="warn">{`${unmet} of the programme’s step-down rules ${unmet === 1 ? 'is' : 'are'} not met (see the evidence above). Approving needs your reason; it is recorded and audited.`}</Alert>
+      )}
       <TextAreaField
         label={reasonRequired ? 'Reason (required)' : 'Note for the record (optional)'}
         hint={mode === 'send_back' ? 'The team sees this with the returned proposal.' : undefined}

@@ -16,7 +16,14 @@ export interface DecisionFormValues {
   periods: Record<Period, string>;
 }
 
-export type DecisionFacts = Pick<Prescription, 'proposedFlowLpm' | 'requiredFlowLpm'>;
+export type DecisionFacts = Pick<Prescription, 'proposedFlowLpm' | 'requiredFlowLpm'> & Partial<Pick<Prescription, 'evidence'>>;
+
+/** The programme's step-down rules the proposal's evidence records as not met (empty for other proposals). */
+export function unmetChecksOf(rx: DecisionFacts): { code: string; message: string }[] {
+  const checks = (rx.evidence as { checks?: { code: string; met: boolean; message: string }[] } | null | undefined)?.checks;
+  return Array.isArray(checks) ? checks.filter((c) => c.met === false) : [];
+}
+export const unmetReasonMessage = (n: number) => `${n} step-down ${n === 1 ? 'rule is' : 'rules are'} not met: record why you approve anyway`;
 
 export const isBelowRequired = (flowLpm: number, rx: DecisionFacts) =>
   rx.requiredFlowLpm !== null && flowLpm < rx.requiredFlowLpm - FLOW_TOLERANCE_LPM;
@@ -67,13 +74,18 @@ export function decisionFormSchema(rx: DecisionFacts) {
       periods: z.object({ awake: z.string(), asleep: z.string(), feeding: z.string() }),
     })
     .superRefine((v, ctx) => {
+      const unmet = unmetChecksOf(rx).length;
+      if (v.mode === 'as_proposed' && unmet > 0 && !v.reason.trim()) {
+        ctx.addIssue({ code: 'custom', path: ['reason'], message: unmetReasonMessage(unmet) });
+        return;
+      }
       if (v.mode !== 'different') return;
       if (v.flowLpm === '') {
         ctx.addIssue({ code: 'custom', path: ['flowLpm'], message: 'Choose a flowmeter step' });
         return;
       }
       if (v.reason.trim()) return;
-      const message = isBelowRequired(Number(v.flowLpm), rx)
+      const message = unmet > 0 ? unmetReasonMessage(unmet) : isBelowRequired(Number(v.flowLpm), rx)
         ? 'This flow is below the required flow: give the reason, it will be recorded'
         : 'Say why you chose a different flow from the proposal';
       ctx.addIssue({ code: 'custom', path: ['reason'], message });

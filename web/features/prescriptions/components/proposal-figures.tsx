@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { infeasibleReason } from '../../../../shared/clinical/conversion-warnings';
 import type { InfantDetail } from '../../../../shared/schemas/infants';
 import { PRESCRIPTION_REASON_LABELS, type Prescription } from '../../../../shared/schemas/prescriptions';
 import { formatFlow, formatFraction, formatKpa, formatMmHg } from '../../../components/clinical/clinical-format';
@@ -42,9 +43,9 @@ export function ProposalFigures({ rx, conversion, hospital }: ProposalFiguresPro
           {formatMmHg(home.pressureMmHg)} mmHg ({formatKpa(home.pressureMmHg)} kPa)
         </Figure>
         <Figure label="Target FiO2 at home">{formatFraction(home.targetFio2)}</Figure>
-        <Figure label="Required flow">{flowOr(home.requiredFlowLpm, 'No cannula flow reaches the target')}</Figure>
+        <Figure label="Required flow">{flowOr(home.requiredFlowLpm, infeasibleReason(conversion.warnings))}</Figure>
         <Figure label="Proposed flowmeter step (rounded up)" strong>
-          {conversion.feasible && home.roundedFlowLpm !== null ? `${formatFlow(home.roundedFlowLpm)} L/min` : 'Cannot be given by cannula — decide'}
+          {conversion.feasible && home.roundedFlowLpm !== null ? `${formatFlow(home.roundedFlowLpm)} L/min` : `${infeasibleReason(conversion.warnings)} Decide.`}
         </Figure>
         <Figure label="FiO2 delivered at that step">{home.deliveredFio2 === null ? '—' : formatFraction(home.deliveredFio2)}</Figure>
       </dl>

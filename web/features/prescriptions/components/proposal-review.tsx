@@ -12,6 +12,7 @@ import { DecisionForm } from './decision-form';
 import { DecisionOutcome } from './decision-outcome';
 import { ProposalFigures } from './proposal-figures';
 import { ReviewHeader } from './review-header';
+import { readStepDownEvidence, StepDownEvidencePanel } from '../../step-downs/components/step-down-evidence';
 
 export const ALREADY_DECIDED = 'Someone has already decided this proposal.';
 
@@ -43,6 +44,7 @@ export function ProposalReview({ rx, infant, steps, stepsProblem, mutation, onDe
   const conflict = isApiError(mutation.error) && mutation.error.status === 409;
   const open = rx.status === 'proposed';
   const pending = open || rx.status === 'preparing';
+  const stepEvidence = rx.reason === 'step_down' ? readStepDownEvidence(rx.evidence) : null;
   return (
     <div className="flex flex-col gap-4">
       <ReviewHeader infant={infant} />
@@ -61,6 +63,7 @@ export function ProposalReview({ rx, infant, steps, stepsProblem, mutation, onDe
           )}
         </div>
       </Card>
+      {stepEvidence && <StepDownEvidencePanel evidence={stepEvidence} infantId={rx.infantId} />}
       {rx.conversion && (
         <Card title="Checks and working">
           <WorkingTable working={rx.conversion.working} warnings={rx.conversion.warnings} model={rx.conversion.model} />

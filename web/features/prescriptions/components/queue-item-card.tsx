@@ -5,11 +5,13 @@ import { Badge } from '../../../components/ui/badge';
 import { homePlaceText } from './home-place';
 import { WaitingSince } from './waiting-since';
 
-export const checksText = (count: number) => (count === 0 ? 'No checks' : `${count} ${count === 1 ? 'check' : 'checks'}`);
+export const checksText = (count: number) => (count === 0 ? 'No points to check' : `${count} ${count === 1 ? 'point' : 'points'} to check`);
+export const unmetText = (count: number) => (count === 0 ? 'Every step-down rule met' : `${count} step-down ${count === 1 ? 'rule' : 'rules'} not met`);
+const STEP_REASONS: QueueItem['reason'][] = ['step_down'];
 
 export function ProposedFlow({ item }: { item: Pick<QueueItem, 'feasible' | 'proposedFlowLpm'> }) {
   if (!item.feasible || item.proposedFlowLpm === null) {
-    return <span className="font-bold text-danger-800">Cannot be given by cannula — decide</span>;
+    return <span className="font-bold text-danger-800">No setting reaches the target — decide</span>;
   }
   return <span className="font-bold tabular-nums text-ink-900">{formatFlow(item.proposedFlowLpm)} L/min</span>;
 }
@@ -24,7 +26,14 @@ export function QueueItemCard({ item }: { item: QueueItem }) {
       </div>
       <div className="flex flex-wrap gap-2">
         <Badge tone="brand">{PRESCRIPTION_REASON_LABELS[item.reason]}</Badge>
-        <Badge tone={item.warningCount > 0 ? 'warn' : 'muted'}>{checksText(item.warningCount)}</Badge>
+        {STEP_REASONS.includes(item.reason) ? (
+          <Badge tone={item.unmetChecks > 0 ? 'warn' : 'muted'}>
+            {item.unmetChecks > 0 && <span aria-hidden="true">! </span>}
+            {unmetText(item.unmetChecks)}
+          </Badge>
+        ) : (
+          <Badge tone={item.warningCount > 0 ? 'warn' : 'muted'}>{checksText(item.warningCount)}</Badge>
+        )}
       </div>
       <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1">
         <dt className="text-ink-500">Proposed</dt>

@@ -1,4 +1,4 @@
-import { useRef } from 'react';
+import { useRef, useState } from 'react';
 import { FormProvider, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
@@ -6,7 +6,8 @@ import { createReadingSchema, type CreateReadingInput, type Reading } from '../.
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
-import { isApiError } from '../../../lib/api-error';
+import { detailMessages, isApiError } from '../../../lib/api-error';
+import { WeightConfirm } from '../../../components/clinical/weight-confirm';
 import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
 import { asNumber } from '../../../lib/form-values';
 import { useCreateReading } from '../api/create-reading';
@@ -35,6 +36,7 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
   const create = useCreateReading(infantId);
   // A second tap can land before the button re-renders as disabled; one reading must not be stored twice.
   const sending = useRef(false);
+  const [weightWarnings, setWeightWarnings] = useState<string[] | null>(null);
   const form = useForm<Values, unknown, CreateReadingInput>({
     resolver: zodResolver(createReadingSchema),
     defaultValues: freshValues(checkId, defaultFlowLpm),
@@ -50,8 +52,10 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
     try {
       const reading = await create.mutateAsync(input);
       form.reset(freshValues(checkId, defaultFlowLpm));
+      setWeightWarnings(null);
       onSaved?.(reading);
     } catch (error) {
+      if (isApiError(error) && error.code === 'needs_confirmation') return setWeightWarnings(detailMessages(error.details?.weightKg));
       const leftover = applyServerFieldErrors(error, setError, FIELDS);
       if (leftover.length) setError('root.server', { type: 'server', message: leftover.join(' ') });
       // On a phone the faulted field may be off screen: take the nurse to it.
@@ -62,7 +66,7 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
     }
   });
 
-  const problem = formProblem(formState.errors.root?.server?.message, create);
+  const problem = isApiError(create.error) && create.error.code === 'needs_confirmation' ? undefined : formProblem(formState.errors.root?.server?.message, create);
   const busy = create.isPending || formState.isSubmitting;
 
   return (
@@ -75,6 +79,7 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
           <TextField label="Weight (kg, optional)" type="number" inputMode="decimal" step="any" autoComplete="off" className="min-h-12 text-xl tabular-nums"
             hint="Only if the baby was weighed today" error={formState.errors.weightKg?.message} {...register('weightKg', asNumber)} />
         )}
+        {weightWarnings && <WeightConfirm warnings={weightWarnings} name="weightConfirmed" />}
         <NotesField />
         <TakenAtField control={form.control} />
         <Button type="submit" size="lg" disabled={busy} className="w-full">

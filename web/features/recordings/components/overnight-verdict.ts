@@ -4,6 +4,8 @@ import { meetsOvernightTarget } from '../../../../shared/schedule/step-down';
 
 export interface Verdict {
   met: boolean;
+  /** False when the study is too short to judge: the headline says exactly that, never "below target". */
+  judged: boolean;
   /** "Meets the overnight target" or "Below the overnight target: …", always in words. */
   text: string;
   /** What the target is, from the programme's policy. */
@@ -18,9 +20,18 @@ export function overnightVerdict(summary: RecordingSummary, settings: PolicySett
     pulmonaryHypertension,
   );
   const t = settings.spo2Targets;
+  const hours = (minutes: number) => `${Math.round((minutes / 60) * 10) / 10} h`;
+  if (!summary.judged) {
+    return {
+      met: false, judged: false,
+      text: `Too short to judge: ${hours(summary.validMinutes)} of valid recording, at least ${hours(summary.minValidMinutes)} needed. Repeat the study; this one does not count.`,
+      targetText: 'A study this short is neither on nor below the overnight target; the planned study stays open.',
+    };
+  }
   const meanMin = pulmonaryHypertension ? t.pulmonaryHypertensionMeanMin : t.overnightMeanMin;
   return {
     met: result.met,
+    judged: true,
     text: result.met ? 'Meets the overnight target' : `Below the overnight target: ${result.reasons.join('; ')}`,
     targetText: `Target: mean SpO2 at least ${meanMin} %${pulmonaryHypertension ? ' (pulmonary hypertension)' : ''} and less than ${t.pctBelow90Max} % of valid time below 90 %.`,
   };

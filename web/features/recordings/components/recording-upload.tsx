@@ -3,7 +3,7 @@ import { RECORDING_LIMITS } from '../../../../shared/recordings/limits';
 import type { RecordingUploadFields } from '../../../../shared/schemas/recordings';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { isApiError } from '../../../lib/api-error';
+import { detailMessages, isApiError } from '../../../lib/api-error';
 import { useUploadRecording } from '../api/upload-recording';
 import { ColumnMapping } from './column-mapping';
 import { fileSizeText, MAX_FILE_MB, uploadProblem, type UploadProblem } from './upload-messages';
@@ -63,7 +63,7 @@ export function RecordingUpload({ infantId, onUploaded }: RecordingUploadProps) 
       {
         onSuccess: (result) => onUploaded(result.id),
         onError: (error) => {
-          if (isApiError(error) && error.code === 'wrong_columns') setFound(error.details?.found ?? []);
+          if (isApiError(error) && error.code === 'wrong_columns') setFound(detailMessages(error.details?.found));
         },
         onSettled: () => {
           sending.current = false;

@@ -4,7 +4,7 @@ import { signInSchema } from '../../../../shared/schemas/session';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
-import { errorMessage, isApiError } from '../../../lib/api-error';
+import { detailMessages, errorMessage, isApiError } from '../../../lib/api-error';
 import { useSignIn } from '../api/sign-in';
 
 const GENERIC_FAILURE = 'That e-mail and password do not match an active account.';
@@ -30,7 +30,7 @@ export function SignInForm() {
       onError: (error) => {
         if (!isApiError(error) || error.code !== 'validation_failed') return;
         for (const field of ['email', 'password'] as const) {
-          const message = error.details?.[field]?.[0];
+          const message = detailMessages(error.details?.[field])[0];
           if (message) setError(field, { type: 'server', message });
         }
       },
