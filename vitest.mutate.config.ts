@@ -8,6 +8,9 @@ export default defineConfig({
     environment: 'node',
     include: ['tests/shared/**/*.test.ts'],
     setupFiles: ['tests/helpers/fast-check-seed.ts'],
+    // Mutant switching loads each module once, so test files need not be isolated from one another (much faster).
     isolate: false,
+    // Instrumented code under two busy workers runs several times slower than the plain suite.
+    testTimeout: 60_000,
   },
 });
