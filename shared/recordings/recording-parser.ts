@@ -37,7 +37,6 @@ const MAX_LISTED_LINES = 5;
 
 /** Feeds text in any number of chunks; `finish` gives the recording or the first reason to refuse it. */
 export function createRecordingParser(options: RecordingParseOptions = {}) {
-  // Stryker disable next-line ConditionalExpression,StringLiteral: 'auto' and no choice behave alike; readTime settles the form
   let format: 'iso' | 'seconds' | null = options.timeFormat && options.timeFormat !== 'auto' ? options.timeFormat : null;
   let columns: ResolvedColumns | null = null;
   let stopped: RecordingProblem | null = null;
@@ -128,9 +127,7 @@ function finishSamples(read: ReadColumns, format: 'iso' | 'seconds', dataRows: n
   let ascending = true;
   let first = times[0];
   for (let i = 1; i < n; i += 1) {
-    // Stryker disable next-line EqualityOperator: equal times sort stably by row, the order they already have
     if (times[i] < times[i - 1]) ascending = false;
-    // Stryker disable next-line EqualityOperator: an equal time is the same earliest time
     if (times[i] < first) first = times[i];
   }
   const order = ascending ? null : Array.from({ length: n }, (_, i) => i).sort((a, b) => times[a] - times[b] || a - b);

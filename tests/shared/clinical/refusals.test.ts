@@ -58,7 +58,10 @@ describe('refusals name the value that is wrong', () => {
     expect(() => parseIsoDate('2026-13-01')).toThrow('Date 2026-13-01 does not exist');
     expect(() => parseIsoDate('2026-04-31')).toThrow('Date 2026-04-31 does not exist');
     expect(() => parseIsoDate('2026-01-32')).toThrow('does not exist');
+    expect(() => parseIsoDate('2026-00-10')).toThrow('Date 2026-00-10 does not exist');
+    expect(() => parseIsoDate('0099-01-01')).toThrow('Date 0099-01-01 does not exist');
     expect(parseIsoDate('2024-02-29')).toEqual({ year: 2024, month: 2, day: 29 });
+    expect(parseIsoDate('2026-12-31')).toEqual({ year: 2026, month: 12, day: 31 });
   });
 
   it('when a cannula input is impossible, then the message names it and its value', () => {
