@@ -4,6 +4,8 @@ import { cannulaFactor, effectiveFio2, flowForEffectiveFio2 } from '../../../sha
 import { cylinderMinutesFromBar, cylinderMinutesFromPsi, cylinderRemainingFraction, cylindersForJourney } from '../../../shared/clinical/cylinders';
 import { parseIsoDate } from '../../../shared/clinical/dates';
 import { assertValidSteps, roundUpToStepLpm } from '../../../shared/clinical/flowmeter';
+import { equivalentFio2, inspiredPo2MmHg } from '../../../shared/clinical/oxygen';
+import { isaPressureMmHg, isaPressurePaAtGeopotentialM, resolvePressure } from '../../../shared/clinical/pressure';
 import { WorkingSheet } from '../../../shared/clinical/working';
 
 // Product rule: bad input gets a clear error naming what is wrong, never a plausible-looking number. Each refusal
@@ -127,4 +129,23 @@ describe('refusals name the value that is wrong', () => {
     expect(() => sheet.add({ ...line, value: 3 })).toThrow('Working line a added twice');
     expect(sheet.toArray().map((l) => l.key)).toEqual(['a', 'b']);
   });
+
+  it('when an elevation is below −2 km or above the ISA troposphere, then it is refused; the limits themselves are not', () => {
+    // ISA 1976 troposphere up to 11 km geopotential (clinical-methods.md §1.1 [C]); −2 km is below any inhabited land
+    // (the Dead Sea shore is near −430 m, from memory).
+    expect(isaPressureMmHg(-2000)).toBeGreaterThan(760);
+    expect(() => isaPressureMmHg(-2000.1)).toThrow('Elevation -2000.1 m is outside the supported range');
+    expect(isaPressurePaAtGeopotentialM(11000)).toBeCloseTo(22632, 0); // USSA 1976 tropopause, 226.32 hPa [C]
+    expect(() => isaPressurePaAtGeopotentialM(11000.1)).toThrow('Geopotential height 11000.1 m is outside the ISA troposphere');
+    expect(() => resolvePressure({ pressureMmHg: 0 })).toThrow('Pressure 0 mmHg is not a usable measurement');
+    expect(() => resolvePressure({ pressureMmHg: Number.NaN })).toThrow(RangeError);
+  });
+
+  it('when the pressure leaves no dry gas above the water vapour, or a dry-form destination is not positive, then it is refused', () => {
+    expect(() => inspiredPo2MmHg(0.21, 47)).toThrow('Pressure 47 mmHg leaves no dry gas above 47 mmHg of water');
+    expect(inspiredPo2MmHg(0.21, 48)).toBeCloseTo(0.21, 12);
+    expect(() => equivalentFio2(0.21, 760, 0, 'dry')).toThrow('Destination pressure must be positive');
+    expect(equivalentFio2(0.21, 760, 380, 'dry')).toBeCloseTo(0.42, 12);
+  });
 });
+
