@@ -135,7 +135,7 @@ describe('refusals name the value that is wrong', () => {
     // (the Dead Sea shore is near −430 m, from memory).
     expect(isaPressureMmHg(-2000)).toBeGreaterThan(760);
     expect(() => isaPressureMmHg(-2000.1)).toThrow('Elevation -2000.1 m is outside the supported range');
-    expect(isaPressurePaAtGeopotentialM(11000)).toBeCloseTo(22632, 0); // USSA 1976 tropopause, 226.32 hPa [C]
+    expect(isaPressurePaAtGeopotentialM(11000)).toBeCloseTo(22632.1, 0); // USSA 1976 tropopause 22632.1 Pa (clinical-methods.md §1.1 [C])
     expect(() => isaPressurePaAtGeopotentialM(11000.1)).toThrow('Geopotential height 11000.1 m is outside the ISA troposphere');
     expect(() => resolvePressure({ pressureMmHg: 0 })).toThrow('Pressure 0 mmHg is not a usable measurement');
     expect(() => resolvePressure({ pressureMmHg: Number.NaN })).toThrow(RangeError);
