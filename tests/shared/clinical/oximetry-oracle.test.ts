@@ -149,7 +149,7 @@ describe('oximetry summary against a per-sample reference', () => {
       fc.property(fc.oneof(traceArbitrary, orderedTraceArbitrary), (samples) => {
         expectSameFigures(summariseOximetry(samples), referenceSummary(samples, DEFAULT_ARTEFACT_RULES));
       }),
-      { numRuns: 150 },
+      { numRuns: 100 },
     );
   });
 
@@ -158,7 +158,7 @@ describe('oximetry summary against a per-sample reference', () => {
       fc.property(fc.oneof(traceArbitrary, orderedTraceArbitrary), rulesArbitrary, (samples, artefactRules) => {
         expectSameFigures(summariseOximetry(samples, { artefactRules }), referenceSummary(samples, artefactRules));
       }),
-      { numRuns: 100 },
+      { numRuns: 60 },
     );
   });
 
@@ -167,7 +167,7 @@ describe('oximetry summary against a per-sample reference', () => {
       fc.property(traceArbitrary, fc.constantFrom(0.25, 1, 4), (samples, samplePeriodSec) => {
         expectSameFigures(summariseOximetry(samples, { samplePeriodSec }), referenceSummary(samples, DEFAULT_ARTEFACT_RULES, samplePeriodSec));
       }),
-      { numRuns: 100 },
+      { numRuns: 50 },
     );
   });
 
