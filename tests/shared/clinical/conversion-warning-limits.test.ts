@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { convertPrescription } from '../../../shared/clinical/conversion';
-import { infeasibleReason, type ConversionWarning } from '../../../shared/clinical/conversion-warnings';
+import { CONVERSION_WARNING_CODES, infeasibleReason, type ConversionWarning } from '../../../shared/clinical/conversion-warnings';
 import type { PrescriptionConversionInput } from '../../../shared/clinical/conversion-types';
 
 // Each warning at its limit: the last value that stays quiet beside the first that warns, and the words a
@@ -81,4 +81,22 @@ describe('conversion warnings at their limits', () => {
     expect(infeasibleReason(w('ABOVE_CANNULA_LIMIT'))).toMatch(/low-flow cannula limit/);
     expect(infeasibleReason(w())).toBe('No setting on the programme’s equipment reaches the target at home.');
   });
+
+  it('when the flow is rounded up to exactly the cannula limit, then the rounding is still reported', () => {
+    // Same place, 4 kg on 1.5 L/min with meter steps 1 and 2 L/min: 1.5 is rounded up to 2, the 2 L/min limit itself.
+    const result = convertPrescription({ ...base, weightKg: 4, flowLpm: 1.5, flowmeterStepsLpm: [1, 2] });
+    expect(result.feasible).toBe(true);
+    expect(find(result.warnings, 'ROUNDED_UP_TO_STEP')?.message).toBe('The flow was rounded up to the next flowmeter step (2 L/min), never down.');
+  });
+
+  it('when the flow is beyond both the largest step and the cannula, then the message does not call it within the cannula', () => {
+    // 4 kg on 1.5 L/min at sea level → 3000 m needs about 2.75 L/min (see conversion-warnings.test.ts, computed).
+    const list = warnings({ weightKg: 4, flowLpm: 1.5, home: { elevationM: 3000 }, flowmeterStepsLpm: [1, 2] });
+    expect(find(list, 'ABOVE_LARGEST_STEP')?.message).toMatch(/^The flow needed \(2\.7\d+ L\/min\) is above the programme's largest flowmeter step \(2 L\/min\)\.$/);
+    for (const w of list) {
+      expect(CONVERSION_WARNING_CODES).toContain(w.code);
+      expect(w.message.length).toBeGreaterThan(20);
+    }
+  });
 });
+
