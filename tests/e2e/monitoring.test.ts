@@ -38,28 +38,62 @@ describe('monitoring on a phone', () => {
     await screenshot(page, 'nurse-day-after-save-phone');
   });
 
-  it('when the consultant approves a requested step down, then the follow-up study shows on the nurse\'s list', async () => {
+  it('when the nurse asks to step down against unmet rules, then she sees them before sending; the consultant sees the evidence and must give a reason', async () => {
     await signIn('nurse@larkmoor.example');
     const babies = await api('GET', '/api/infants?status=on_oxygen&pageSize=50');
-    let requested: { id: string; infantId: string; version: number } | null = null;
+    let chosen: { id: string; unmet: number } | null = null;
     for (const b of babies.body.items as Array<{ id: string }>) {
-      const res = await api('POST', `/api/infants/${b.id}/step-down-requests`, { reason: 'Settled on overnight oximetry, feeding and growing well' });
-      if (res.status === 201) {
-        requested = res.body;
+      const preview = await api('GET', `/api/infants/${b.id}/step-down-checks`);
+      const unmet = (preview.body.checks as Array<{ met: boolean }>).filter((c) => !c.met).length;
+      if (preview.status === 200 && !preview.body.blockedReason && unmet > 0) {
+        chosen = { id: b.id, unmet };
         break;
       }
     }
-    expect(requested, 'some baby on the nurse\'s caseload can step down').toBeTruthy();
+    expect(chosen, "some baby on the nurse's caseload has step-down rules not yet met").toBeTruthy();
+    await page.goto(`${base}/infants/${chosen!.id}`);
+    await page.getByRole('button', { name: 'Ask to step down' }).click();
+    const rules = page.getByRole('list', { name: 'Step-down rules' });
+    await rules.waitFor();
+    expect(await page.getByRole('heading', { name: `${chosen!.unmet} of 6 programme rules not met` }).count()).toBe(1);
+    await page.getByLabel('Why the baby is ready').fill('Settled on overnight oximetry, feeding and growing well');
+    await page.getByRole('button', { name: 'Send to the consultant anyway' }).click();
+    await page.getByText('Say in at least 10 characters why the step down should go ahead anyway').waitFor();
+    await page.getByLabel('Why ask anyway (required)').fill('Consultant asked on the ward round to try the next step now');
+    await screenshot(page, 'step-down-ask-anyway-phone');
+    await page.getByRole('button', { name: 'Send to the consultant anyway' }).click();
+    await page.getByText(/Step down asked for \(version \d+/).waitFor();
+    const versions = (await api('GET', `/api/infants/${chosen!.id}/prescriptions`)).body.items as Array<{ id: string; status: string; reason: string; version: number }>;
+    const requested = versions.find((v) => v.status === 'proposed' && v.reason === 'step_down')!;
+    expect(requested).toBeTruthy();
+
     await signIn('consultant@larkmoor.example');
-    await page.goto(`${base}/sign-off/${requested!.id}`);
+    const queue = (await api('GET', '/api/prescriptions/queue')).body.items as Array<{ prescriptionId: string; unmetChecks: number }>;
+    expect(queue.find((q) => q.prescriptionId === requested.id)?.unmetChecks).toBe(chosen!.unmet);
+    await page.goto(`${base}/sign-off`);
+    await page.getByText(`${chosen!.unmet} step-down rule${chosen!.unmet === 1 ? '' : 's'} not met`).first().waitFor();
+    await page.goto(`${base}/sign-off/${requested.id}`);
+    await page.getByRole('heading', { name: 'Evidence for this step down' }).waitFor();
+    await page.getByRole('heading', { name: `Programme rules: ${chosen!.unmet} not met` }).waitFor();
+    await page.getByText('Consultant asked on the ward round to try the next step now').waitFor();
+    await page.getByText('Settled on overnight oximetry, feeding and growing well').first().waitFor();
+    await page.getByRole('link', { name: 'Open the baby’s record' }).waitFor();
+    await page.locator('figure canvas').first().waitFor().catch(() => undefined);
+    await screenshot(page, 'step-down-evidence-phone');
     await page.getByLabel('Approve as proposed').check();
-    await screenshot(page, 'step-down-review-phone');
+    await page.getByRole('button', { name: /^Approve/ }).last().click();
+    await page.getByText(/step-down rules? (is|are) not met: record why you approve anyway/).first().waitFor();
+    expect((await api('GET', `/api/prescriptions/${requested.id}`)).body.status).toBe('proposed');
+    await page.getByLabel(/Reason \(required\)/).fill('Reviewed the trace and readings myself; trial of the lower step with a study in a week');
     await page.getByRole('button', { name: /^Approve/ }).last().click();
     await page.waitForURL(`${base}/sign-off`);
+    const decided = (await api('GET', `/api/prescriptions/${requested.id}`)).body;
+    expect(decided).toMatchObject({ status: 'active', decisionReason: 'Reviewed the trace and readings myself; trial of the lower step with a study in a week' });
+
     await signIn('nurse@larkmoor.example');
     await page.goto(`${base}/nurse`);
     // The worker re-plans the baby's checks after the approval.
-    await expect.poll(async () => (await api('GET', '/api/my-day')).body.upcoming.some((i: { planKey: string }) => i.planKey === `follow-up-v${requested!.version}`), { timeout: 20_000 }).toBe(true);
+    await expect.poll(async () => (await api('GET', '/api/my-day')).body.upcoming.some((i: { planKey: string }) => i.planKey === `follow-up-v${requested.version}`), { timeout: 20_000 }).toBe(true);
     await page.reload();
     await page.getByText('Coming up this week').waitFor();
     await screenshot(page, 'nurse-day-follow-up-phone');

@@ -9,6 +9,7 @@ type NumberPath =
   | `settings.spo2Targets.${keyof PolicyFormValues['settings']['spo2Targets']}`
   | `settings.schedule.${Exclude<keyof PolicyFormValues['settings']['schedule'], 'overnightStudyBeforeStepDown'>}`
   | `settings.stepDown.${keyof PolicyFormValues['settings']['stepDown']}`
+  | `settings.oximetry.${keyof PolicyFormValues['settings']['oximetry']}`
   | 'settings.cannulaMaxFlowLpm'
   | 'settings.driftThresholdFio2'
   | 'settings.readingEditWindowMinutes'

@@ -12,7 +12,7 @@ import { ContactsSection } from './contacts-section';
 import { EquipmentSection, ReadingsSection } from './equipment-section';
 import { formPathFor } from './policy-errors';
 import { policyResolver } from './policy-resolver';
-import { ScheduleSection, SteppingDownSection, TargetsSection } from './policy-sections';
+import { OximetrySection, ScheduleSection, SteppingDownSection, TargetsSection } from './policy-sections';
 import { toFormValues, type PolicyFormValues } from './policy-values';
 import { RemindersSection } from './reminders-section';
 import { SupplySection } from './supply-section';
@@ -59,6 +59,7 @@ export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boo
           <TargetsSection />
           <ScheduleSection />
           <SteppingDownSection />
+          <OximetrySection />
           <EquipmentSection />
           <SupplySection />
           <ReadingsSection />

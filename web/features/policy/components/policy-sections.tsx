@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { useFormContext } from 'react-hook-form';
-import { DEFAULT_POLICY_SETTINGS, scheduleRulesSchema, spo2TargetsSchema, stepDownRulesSchema } from '../../../../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS, oximetryRulesSchema, scheduleRulesSchema, spo2TargetsSchema, stepDownRulesSchema } from '../../../../shared/schemas/policy';
 import { NumberSetting } from './policy-field';
 import { SOURCES } from './policy-sources';
 import type { PolicyFormValues } from './policy-values';
@@ -27,6 +27,10 @@ export function TargetsSection() {
         defaultText={defaultText(`${D.spo2Targets.pctBelow90Max} %`, SOURCES.satTargets)} />
       <NumberSetting name="settings.spo2Targets.pulmonaryHypertensionMeanMin" label="With pulmonary hypertension: overnight mean SpO2, at least (%)"
         schema={t.pulmonaryHypertensionMeanMin} defaultText={defaultText(`${D.spo2Targets.pulmonaryHypertensionMeanMin} %`, SOURCES.pulmonaryHypertension)} />
+      <NumberSetting name="settings.spo2Targets.spotMeanMin" label="Recent spot readings: mean SpO2, at least (%)" schema={t.spotMeanMin}
+        defaultText={defaultText(`${D.spo2Targets.spotMeanMin} %`, SOURCES.spotMean)} />
+      <NumberSetting name="settings.spo2Targets.spotLowMax" label="A spot reading at or below this is low (%)" schema={t.spotLowMax}
+        defaultText={defaultText(`${D.spo2Targets.spotLowMax} %`, SOURCES.spotLow)} />
     </Section>
   );
 }
@@ -63,9 +67,24 @@ export function SteppingDownSection() {
     <Section title="Stepping down">
       <NumberSetting name="settings.stepDown.stepsPerDecrease" label="Flowmeter steps down at a time" schema={s.stepsPerDecrease} defaultText={practice(d.stepsPerDecrease)} />
       <NumberSetting name="settings.stepDown.sleepOnlyBelowLpm" label="Oxygen only when asleep, below (L/min)" schema={s.sleepOnlyBelowLpm} defaultText={practice(d.sleepOnlyBelowLpm)} />
-      <NumberSetting name="settings.stepDown.minDaysBetweenStepDowns" label="Days between step downs, at least" schema={s.minDaysBetweenStepDowns} defaultText={practice(d.minDaysBetweenStepDowns)} />
+      <NumberSetting name="settings.stepDown.minDaysBetweenStepDowns" label="Days on the current setting before a step down, at least" schema={s.minDaysBetweenStepDowns} defaultText={practice(d.minDaysBetweenStepDowns)} />
+      <NumberSetting name="settings.stepDown.studyWithinDays" label="Overnight study supporting a step down, at most (days old)" schema={s.studyWithinDays} defaultText={practice(d.studyWithinDays)} />
+      <NumberSetting name="settings.stepDown.readingsWithinDays" label="Spot readings checked from the last (days)" schema={s.readingsWithinDays} defaultText={practice(d.readingsWithinDays)} />
       <NumberSetting name="settings.stepDown.offOxygenObservationDays" label="Days off oxygen before leaving the programme" schema={s.offOxygenObservationDays}
         defaultText={practice(d.offOxygenObservationDays)} />
+    </Section>
+  );
+}
+
+export function OximetrySection() {
+  const s = oximetryRulesSchema.shape;
+  const d = D.oximetry;
+  return (
+    <Section title="Overnight oximetry analysis">
+      <NumberSetting name="settings.oximetry.minEventSeconds" label="A desaturation counts when it lasts at least (seconds)" schema={s.minEventSeconds}
+        defaultText={defaultText(d.minEventSeconds, SOURCES.eventTime)} />
+      <NumberSetting name="settings.oximetry.minValidMinutes" label="A study can be judged with at least (minutes of valid recording)" schema={s.minValidMinutes}
+        defaultText={defaultText(d.minValidMinutes, SOURCES.minValidTime)} />
     </Section>
   );
 }

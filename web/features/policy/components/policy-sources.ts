@@ -5,6 +5,10 @@ export const SOURCES = {
   satTargets: 'TSANZ 2020 / BTS 2009',
   pulmonaryHypertension: 'Starship guideline',
   commonPractice: 'common practice',
+  spotMean: 'NHS GGC neonatal home-oxygen guideline',
+  spotLow: 'ATS 2019 (spot readings ≤ 90 % under 1 year)',
+  minValidTime: 'Urschitz 2003 (studies under 5 h excluded)',
+  eventTime: 'adult scoring convention, from memory; CHIME counted falls of ≥ 5 s',
 } as const;
 
 export interface Range {
