@@ -10,6 +10,8 @@ export default defineConfig({
           name: 'shared',
           environment: 'node',
           include: ['tests/shared/**/*.test.ts'],
+          // Keep in step with vitest.mutate.config.ts, which runs this project alone for `npm run mutate`.
+          setupFiles: ['tests/helpers/fast-check-seed.ts'],
         },
       },
       {

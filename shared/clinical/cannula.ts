@@ -27,10 +27,6 @@ export function cannulaFactor(flowLpm: number, weightKg: number): number {
   return Math.min(1, flowLpm / weightKg);
 }
 
-export function isFactorCapped(flowLpm: number, weightKg: number): boolean {
-  return flowLpm >= weightKg;
-}
-
 /**
  * STOP-ROP Table 1 cell: round-half-up of 100 × min(1, flow/kg). Math.round rounds halves up for positives, which
  * the table needs (1/8 L/min at 1 kg is printed 13, not the banker's 12). The flow must be the exact fraction

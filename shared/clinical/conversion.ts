@@ -13,15 +13,6 @@ import { WATER_VAPOUR_37C_MMHG } from './oxygen';
 import { PRESSURE_MODEL_LABELS, resolvePressure, type ResolvedPressure } from './pressure';
 import { WorkingSheet } from './working';
 
-function assertInput(input: PrescriptionConversionInput): void {
-  const { weightKg, flowLpm, sourceO2Percent, homeSourceO2Percent = sourceO2Percent } = input;
-  if (!Number.isFinite(weightKg) || weightKg <= 0) throw new RangeError('Weight must be a positive number of kg');
-  if (!Number.isFinite(flowLpm) || flowLpm < 0) throw new RangeError('Flow must be 0 L/min or more');
-  for (const percent of [sourceO2Percent, homeSourceO2Percent]) {
-    if (!(percent >= 21 && percent <= 100)) throw new RangeError('Source oxygen must be 21–100 %');
-  }
-}
-
 type Settings = ReturnType<typeof settings>;
 
 function settings(input: PrescriptionConversionInput) {
@@ -105,8 +96,9 @@ function warningFacts(
  * Converts a hospital cannula prescription into a home proposal by keeping PIO2 constant and inverting the cannula
  * model. It only computes: the result is a proposal until a consultant approves it.
  */
+// Weight, flow and both supply purities are checked once, where they are used (cannula.ts); the API checks the
+// request before that with the zod contract (shared/schemas/conversions.ts).
 export function convertPrescription(input: PrescriptionConversionInput): PrescriptionConversion {
-  assertInput(input);
   const config = settings(input);
   const sheet = new WorkingSheet();
   const hospitalPb = resolvePressure(input.hospital, config.pressureModel);

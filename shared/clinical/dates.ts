@@ -16,7 +16,9 @@ export function parseIsoDate(isoDate: string): CalendarDate {
   if (!match) throw new RangeError(`Date ${isoDate} is not in YYYY-MM-DD form`);
   const [year, month, day] = [Number(match[1]), Number(match[2]), Number(match[3])];
   const check = new Date(Date.UTC(year, month - 1, day));
-  if (check.getUTCFullYear() !== year || check.getUTCMonth() !== month - 1 || check.getUTCDate() !== day) {
+  // An impossible month or day rolls over into another day of the month or another year; Date.UTC also reads the
+  // years 0–99 as 1900–1999, which the year comparison refuses.
+  if (check.getUTCFullYear() !== year || check.getUTCDate() !== day) {
     throw new RangeError(`Date ${isoDate} does not exist`);
   }
   return { year, month, day };

@@ -61,14 +61,16 @@ const JOURNEY_WORDING: Partial<Record<string, string>> = {
 
 function journeyWarnings(conversions: PrescriptionConversion[], keptHomeFlow: boolean) {
   const seen = new Map<string, string>();
-  for (const c of conversions) for (const w of c.warnings) if (!seen.has(w.code)) seen.set(w.code, JOURNEY_WORDING[w.code] ?? w.message);
+  // A code's wording does not depend on the conversion, so the first conversion's position in the list is kept.
+  for (const c of conversions) for (const w of c.warnings) seen.set(w.code, JOURNEY_WORDING[w.code] ?? w.message);
   if (keptHomeFlow) seen.set('KEPT_HOME_FLOW', 'Less would do there, but a journey check never lowers the home setting.');
   return [...seen].map(([code, message]) => ({ code, message }));
 }
 
 function periodPlan(period: JourneyPeriod, homeFlowLpm: number, c: PrescriptionConversion): JourneyPeriodPlan {
+  // The conversion gives a rounded flow exactly when it is feasible (within the steps and the cannula limit).
   const rounded = c.home.roundedFlowLpm;
-  if (!c.feasible || rounded === null) {
+  if (rounded === null) {
     return { period, homeFlowLpm, requiredFlowLpm: null, flowLpm: null, exceedsCannula: true, keptHomeFlow: false };
   }
   const keptHomeFlow = homeFlowLpm > rounded + FLOW_TOLERANCE_LPM;
@@ -139,8 +141,9 @@ export function planJourney(input: JourneyPlanInput): JourneyPlan {
     reservePercent: input.policy.supply.reservePercent,
     cylinders,
     cautions: journeyCautions({
-      mode: input.mode, cabinAltitudeFt: input.mode === 'flight' ? input.cabinAltitudeFt ?? AIRCRAFT_CABIN_MAX_ALTITUDE_FT : null,
-      plannedForDestination: input.mode === 'flight' && destination.kind === 'place',
+      // The cautions read these two on a flight only (a road journey is always planned for its destination).
+      mode: input.mode, cabinAltitudeFt: input.cabinAltitudeFt ?? AIRCRAFT_CABIN_MAX_ALTITUDE_FT,
+      plannedForDestination: destination.kind === 'place',
       destinationLowerPressureThanHome: first.home.pressureMmHg < first.hospital.pressureMmHg,
       exceedsCannula, keptHomeFlow, hoursAway: input.hoursAway, reservePercent: input.policy.supply.reservePercent,
     }),

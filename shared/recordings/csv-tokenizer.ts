@@ -143,6 +143,7 @@ export function createCsvTokenizer(onRecord: CsvRecordHandler): CsvTokenizer {
         i += 1;
       } else {
         let j = i + 1;
+        // Stryker disable next-line EqualityOperator: `<=` reads NaN past the end, `>=` scans a character a pass: same value
         for (; j < n; j += 1) {
           const d = chunk.charCodeAt(j);
           if (d === COMMA || d === LF || d === CR || d === QUOTE) break;

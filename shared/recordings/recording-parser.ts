@@ -65,6 +65,7 @@ export function createRecordingParser(options: RecordingParseOptions = {}) {
         return null;
       }
       stopped = { code: 'wrong_columns', message: resolved.message, line, details: { found: resolved.found, missing: resolved.missing } };
+      // Stryker disable next-line ObjectLiteral: only a stop signal to the tokenizer; asProblem reports `stopped`
       return { line, message: resolved.message };
     }
     dataRows += 1;
@@ -74,7 +75,8 @@ export function createRecordingParser(options: RecordingParseOptions = {}) {
     if (!time.ok || !spo2.ok || !pulse.ok) {
       unreadable += 1;
       firstBadLine ??= line;
-      const reason = !time.ok ? time.reason : !spo2.ok ? spo2.reason : !pulse.ok ? pulse.reason : '';
+      // One of the three failed: when time and SpO2 read, it was the pulse.
+      const reason = !time.ok ? time.reason : !spo2.ok ? spo2.reason : (pulse as { reason: string }).reason;
       if (badLines.length < MAX_LISTED_LINES) badLines.push(`line ${line}: ${reason}`);
       return null;
     }
@@ -129,6 +131,7 @@ function finishSamples(read: ReadColumns, format: 'iso' | 'seconds', dataRows: n
     if (times[i] < first) first = times[i];
   }
   const order = ascending ? null : Array.from({ length: n }, (_, i) => i).sort((a, b) => times[a] - times[b] || a - b);
+  // Stryker disable next-line ArrayDeclaration: preallocation only; the loop below writes every index
   const samples = new Array<OximetrySample>(n);
   for (let k = 0; k < n; k += 1) {
     const i = order ? order[k] : k;

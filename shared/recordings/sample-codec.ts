@@ -64,6 +64,7 @@ export function decodeSamples(encoded: EncodedSamples): OximetrySample[] {
   const o = view(offsets);
   const s = view(spo2);
   const p = view(pulse);
+  // Stryker disable next-line ArrayDeclaration: preallocation only; the loop below writes every index
   const samples = new Array<OximetrySample>(n);
   for (let i = 0; i < n; i += 1) {
     samples[i] = {

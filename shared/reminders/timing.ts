@@ -78,7 +78,7 @@ export type PlannedReminder =
 
 /** A reminder later than this before the visit is no use to the family. */
 export const LAST_USEFUL_MINUTES_BEFORE_VISIT = 15;
-/** A reminder whose time passed less than this ago still goes (a booking made a few minutes late, a slow queue). */
+/** A reminder whose time passed no more than this ago still goes (a booking made a few minutes late, a slow queue). */
 export const LATE_GRACE_MINUTES = 10;
 
 /**

@@ -131,7 +131,10 @@ describe('prescription conversion: models and options', () => {
     expect(() => convertPrescription(seaLevelTo({ elevationM: 0 }, { flowLpm: -1 }))).toThrow(RangeError);
     expect(() => convertPrescription(seaLevelTo({ elevationM: 0 }, { sourceO2Percent: 20 }))).toThrow(RangeError);
     expect(() => convertPrescription(seaLevelTo({ elevationM: 0 }, { homeSourceO2Percent: 101 }))).toThrow(RangeError);
-    expect(() => convertPrescription(seaLevelTo({ elevationM: 0 }, { cannulaMaxFlowLpm: 0 }))).toThrow(RangeError);
+    expect(() => convertPrescription(seaLevelTo({ elevationM: 0 }, { homeSourceO2Percent: 20 }))).toThrow(RangeError);
+    expect(() => convertPrescription(seaLevelTo({ elevationM: 0 }, { sourceO2Percent: 101 }))).toThrow(RangeError);
+    expect(() => convertPrescription(seaLevelTo({ elevationM: 0 }, { weightKg: Number.NaN }))).toThrow(RangeError);
+    expect(() => convertPrescription(seaLevelTo({ elevationM: 0 }, { cannulaMaxFlowLpm: 0 }))).toThrow('The cannula limit must be above 0 L/min');
     expect(() => convertPrescription(seaLevelTo({ elevationM: 0 }, { flowmeterStepsLpm: [0.5, 0.1] }))).toThrow(
       RangeError,
     );

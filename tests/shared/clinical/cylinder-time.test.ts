@@ -60,14 +60,40 @@ describe('cylinder time', () => {
     expect(t.minutesBeforeReserve).toBeNull();
   });
 
-  it('when the gauge reads above full, then it is flagged', () => {
+  it('when the gauge reads above full, then it is flagged; at or below full it is not', () => {
+    // A reading above the rated full pressure means a warm cylinder or a gauge fault (common practice); a
+    // flag on every ordinary reading would teach families to ignore it.
     expect(cylinderTime({ cylinder: E, gauge: 2300, flowLpm: 1, reservePercent: 0 }).gaugeAboveFull).toBe(true);
+    expect(cylinderTime({ cylinder: E, gauge: 2200, flowLpm: 1, reservePercent: 0 }).gaugeAboveFull).toBe(false);
+    expect(cylinderTime({ cylinder: E, gauge: 1000, flowLpm: 1, reservePercent: 0 }).gaugeAboveFull).toBe(false);
+  });
+
+  it('when the gauge is below the change-over pressure, then no usable gas is left, never a negative amount', () => {
+    // Factor method (clinical-methods.md §7 [C]): usable = (gauge − residual) × factor, floored at 0.
+    const t = cylinderTime({ cylinder: E, gauge: 150, flowLpm: 1, reservePercent: 0 });
+    expect(t.usableLitres).toBe(0);
+    expect(t.reserveMinutes).toBe(0);
+  });
+
+  it('when half the usable pressure is left, then half the cylinder is left', () => {
+    // (1200 − 200) ÷ (2200 − 200) = 0.5 of the usable range (computed, §7 factor method).
+    const t = cylinderTime({ cylinder: E, gauge: 1200, flowLpm: 1, reservePercent: 0 });
+    expect(t.fractionLeft).toBeCloseTo(0.5, 12);
+    expect(t.usableLitres).toBeCloseTo(280, 9);
+  });
+
+  it('when the flow is 0, then no reserve time is shown either', () => {
+    expect(cylinderTime({ cylinder: E, gauge: 2000, flowLpm: 0, reservePercent: 50 }).reserveMinutes).toBeNull();
   });
 
   it('when inputs are impossible, then they are refused', () => {
     expect(() => cylinderTime({ cylinder: E, gauge: -1, flowLpm: 1, reservePercent: 0 })).toThrow(RangeError);
     expect(() => cylinderTime({ cylinder: E, gauge: 1000, flowLpm: -1, reservePercent: 0 })).toThrow(RangeError);
     expect(() => cylinderTime({ cylinder: E, gauge: 1000, flowLpm: 1, reservePercent: -5 })).toThrow(RangeError);
+    expect(() => cylinderTime({ cylinder: E, gauge: 1000, flowLpm: 1, reservePercent: Number.NaN })).toThrow(RangeError);
+    expect(() => cylinderTime({ cylinder: { ...E, contentLitres: 0 }, gauge: 1000, flowLpm: 1, reservePercent: 0 })).toThrow(/positive contents and full pressure/);
+    expect(() => cylinderTime({ cylinder: { ...E, fullPressure: 0 }, gauge: 0, flowLpm: 1, reservePercent: 0 })).toThrow(/positive contents and full pressure/);
+    expect(() => cylinderTime({ cylinder: E, gauge: 1000, flowLpm: 1, reservePercent: 0 })).not.toThrow();
   });
 
   it('when minutes are shown to a family, then they are rounded down, never up', () => {
@@ -75,5 +101,8 @@ describe('cylinder time', () => {
     expect(hoursAndMinutesText(167.99)).toBe('2 h 47 min');
     expect(hoursAndMinutesText(120)).toBe('2 h');
     expect(hoursAndMinutesText(45.5)).toBe('45 min');
+    expect(hoursAndMinutesText(59.999)).toBe('59 min');
+    expect(hoursAndMinutesText(60)).toBe('1 h');
+    expect(hoursAndMinutesText(-3)).toBe('0 min');
   });
 });

@@ -129,3 +129,145 @@ describe('journey plan: cautions and what a family sees', () => {
     expect(family.periods).toEqual(plan.periods);
   });
 });
+
+describe('journey plan: one part of the day decides', () => {
+  it('when only the asleep flow is beyond the cannula there, then the whole journey is flagged and no supply is counted', () => {
+    // 2 kg on 1.5 L/min asleep cannot be matched at the 8,000 ft cabin (see above, computed); awake and feeding on
+    // 0.1 L/min can. A plan is only as feasible as its hardest part of the day (common practice: never run short).
+    const plan = planJourney(base({ homeFlows: { awake: 0.1, asleep: 1.5, feeding: 0.1 } }));
+    expect(plan.periods.map((p) => p.exceedsCannula)).toEqual([false, true, false]);
+    expect(plan.periods[1]).toMatchObject({ flowLpm: null, requiredFlowLpm: null, keptHomeFlow: false });
+    expect(plan.exceedsCannula).toBe(true);
+    expect(plan.supplyFlowLpm).toBeNull();
+    expect(plan.cylinders[0]).toMatchObject({ minutesPerCylinder: null, count: null });
+    expect(plan.cautions.some((c) => /more than a nasal cannula can give/.test(c))).toBe(true);
+  });
+
+  it('when the parts of the day need different flows, then the supply is counted at the highest of them', () => {
+    // Cylinders must last at the largest use of the day (common practice: plan for the worst case).
+    const plan = planJourney(base({ weightKg: 3, homeFlows: { awake: 0.1, asleep: 0.25, feeding: 0.15 } }));
+    const flows = plan.periods.map((p) => p.flowLpm as number);
+    expect(plan.supplyFlowLpm).toBe(Math.max(...flows));
+    expect(plan.supplyFlowLpm).toBe(plan.periods.find((p) => p.period === 'asleep')!.flowLpm);
+    expect(plan.working!.conversions).toHaveLength(3);
+  });
+});
+
+describe('journey plan: which way the air changes', () => {
+  const cautionsFor = (origin: JourneyPlanInput['origin'], destinationElevationM: number) =>
+    planJourney(base({ mode: 'road', origin, destinationElevationM, weightKg: 3, homeFlows: homeFlowsOf(0.5, null) })).cautions;
+
+  it('when a road trip goes downhill, then the family is not told the air is thinner there', () => {
+    // ISA 1976: pressure falls with height (clinical-methods.md §1.1 [C]), so 5 m has denser air than 1780 m.
+    expect(cautionsFor({ elevationM: 1780 }, 5).some((c) => /thinner there/.test(c))).toBe(false);
+  });
+
+  it('when a road trip stays at the same elevation, then the air is not called thinner', () => {
+    expect(cautionsFor({ elevationM: 300 }, 300).some((c) => /thinner there/.test(c))).toBe(false);
+  });
+
+  it('when a road trip goes uphill from a home given in feet, then the air is thinner and the origin is shown in metres', () => {
+    // 1 ft = 0.3048 m exactly, so 1000 ft = 304.8 m (units).
+    const plan = planJourney(base({ mode: 'road', origin: { elevationFt: 1000 }, destinationElevationM: 1800, weightKg: 3, homeFlows: homeFlowsOf(0.25, null) }));
+    expect(plan.origin.elevationM).toBeCloseTo(304.8, 10);
+    expect(plan.cautions.some((c) => /thinner there/.test(c))).toBe(true);
+  });
+
+  it('when home is given as a measured pressure, then no origin elevation is invented', () => {
+    const plan = planJourney(base({ mode: 'road', origin: { pressureMmHg: 760 }, destinationElevationM: 1800, weightKg: 3, homeFlows: homeFlowsOf(0.25, null) }));
+    expect(plan.origin).toEqual({ elevationM: null, pressureMmHg: 760 });
+  });
+});
+
+describe('journey plan: the working a consultant checks', () => {
+  it('when a plan is made, then each supply and destination line is there, labelled, with its formula and source', () => {
+    // PRODUCT.md: every computed setting shows its working, so a consultant can redo each line by hand.
+    const plan = planJourney(base({ mode: 'road', destinationElevationM: 1800, weightKg: 3, homeFlows: homeFlowsOf(0.25, null), hoursAway: 6 }));
+    const lines = plan.working!.lines;
+    expect(lines.map((l) => l.key)).toEqual(['destination.elevationM', 'destination.pressureMmHg', 'supply.flowLpm', 'supply.neededMinutes', 'cylinder.e.minutes', 'cylinder.e.count']);
+    for (const line of lines) {
+      expect(line.label.length, line.key).toBeGreaterThan(3);
+      expect(line.formula.length, line.key).toBeGreaterThan(3);
+      expect(line.source.length, line.key).toBeGreaterThan(3);
+    }
+    expect(new Set(lines.map((l) => l.label)).size).toBe(lines.length);
+    const byKey = Object.fromEntries(lines.map((l) => [l.key, l]));
+    expect(byKey['destination.elevationM']).toMatchObject({ label: 'Destination elevation', value: 1800, formula: 'as entered' });
+    // Oxygen time to carry = hours × 60 × (1 + reserve): 6 h × 60 × 1.5 = 540 min (journey supply rule, common practice).
+    expect(byKey['supply.neededMinutes'].value).toBeCloseTo(540, 9);
+    expect(byKey['supply.neededMinutes'].formula).toBe('6 h × 60 × (1 + 50% reserve)');
+    expect(byKey['supply.flowLpm'].value).toBe(plan.supplyFlowLpm);
+    expect(byKey['cylinder.e.minutes'].label).toBe('E cylinder: minutes from full');
+    expect(byKey['cylinder.e.minutes'].formula).toBe('(2000 − 200 psi) × 560 L ÷ 2000 psi ÷ flow');
+    expect(byKey['cylinder.e.count'].label).toBe('E cylinder: cylinders to take');
+    expect(byKey['cylinder.e.count'].value).toBe(plan.cylinders[0].count);
+    expect(plan.working!.note).toMatch(/"hospital" is the baby’s home/);
+  });
+
+  it('when a flight lands higher than the cabin, then the destination line says it was planned for the destination', () => {
+    const flight = planJourney(base({ destinationElevationM: 3000 })).working!.lines[0];
+    expect(flight).toMatchObject({ label: 'Destination elevation', value: 3000, formula: 'destination higher than the cabin: planned for the destination' });
+    const cabin = planJourney(base({ cabinAltitudeFt: 6000 })).working!.lines[0];
+    // 6,000 ft × 0.3048 = 1828.8 m (units); the cap itself is 14 CFR 25.841(a) [C2].
+    expect(cabin).toMatchObject({ label: 'Cabin altitude planned for', formula: '6000 ft × 0.3048' });
+    expect(cabin.value).toBeCloseTo(1828.8, 9);
+  });
+
+  it('when a given cabin altitude is lower than the maximum, then the cautions name that altitude', () => {
+    // The plan states the altitude it assumed (PRODUCT.md: show the working, and the cautions wherever a setting is shown).
+    const plan = planJourney(base({ cabinAltitudeFt: 6000 }));
+    expect(plan.cautions.some((c) => /6,000 ft \(1,829 m\)/.test(c))).toBe(true);
+    expect(plan.cautions.some((c) => /flows shown cover the flight/.test(c))).toBe(true);
+  });
+
+  it('when a journey needs no more than the home setting, then no "less would do" note is given', () => {
+    const plan = planJourney(base({ mode: 'road', destinationElevationM: 0, weightKg: 3, homeFlows: homeFlowsOf(0.25, null) }));
+    expect(plan.periods.every((p) => !p.keptHomeFlow && p.flowLpm === 0.25)).toBe(true);
+    expect(plan.warnings!.map((w) => w.code)).not.toContain('KEPT_HOME_FLOW');
+  });
+
+  it('when the warnings of the conversions are shown, then they use journey words, not "hospital" and "home"', () => {
+    const plan = planJourney(base({ homeFlows: homeFlowsOf(1.5, null) }));
+    const above = plan.warnings!.find((w) => w.code === 'TARGET_ABOVE_SOURCE')!;
+    expect(above.message).toBe('The oxygen level needed there is above the supply purity: no cannula flow can reach it.');
+    const kept = planJourney(base({ mode: 'road', destinationElevationM: 5, origin: { elevationM: 1780 }, weightKg: 3, homeFlows: homeFlowsOf(0.5, null) }));
+    expect(kept.warnings!.find((w) => w.code === 'KEPT_HOME_FLOW')!.message).toMatch(/never lowers the home setting/);
+  });
+
+  it('when the input is impossible, then it is refused with a reason', () => {
+    expect(() => planJourney(base({ hoursAway: 0 }))).toThrow('Hours away must be more than 0');
+    expect(() => planJourney(base({ hoursAway: Number.NaN }))).toThrow(RangeError);
+    expect(() => planJourney(base({ mode: 'road', destinationElevationM: null }))).toThrow('A road journey needs the destination elevation');
+    expect(planJourney(base({ hoursAway: 0.5 })).hoursAway).toBe(0.5);
+  });
+
+  it('when an approved plan has its own flows per part of the day, then those are copied, not shared', () => {
+    const periods = { awake: 0.1, asleep: 0.2, feeding: 0.15 };
+    const flows = homeFlowsOf(0.5, periods);
+    expect(flows).toEqual(periods);
+    expect(flows).not.toBe(periods);
+  });
+});
+
+describe('journey plan: edges of the rules', () => {
+  it('when no part of the day needs oxygen there, then no cylinders are counted', () => {
+    // Off oxygen at home and at the same elevation: nothing is used, so nothing needs carrying (factor method, §7).
+    const plan = planJourney(base({ mode: 'road', destinationElevationM: 0, homeFlows: homeFlowsOf(0, null) }));
+    expect(plan.supplyFlowLpm).toBe(0);
+    expect(plan.cylinders[0]).toMatchObject({ minutesPerCylinder: null, count: 0 });
+  });
+
+  it('when only one part of the day could do with less there, then the plan still says the home setting is kept', () => {
+    // Downhill: the asleep flow would drop, the awake part is off oxygen; a journey check never lowers a setting.
+    const plan = planJourney(base({ mode: 'road', destinationElevationM: 5, origin: { elevationM: 1780 }, weightKg: 3, homeFlows: { awake: 0, asleep: 0.5, feeding: 0 } }));
+    expect(plan.periods.map((p) => p.keptHomeFlow)).toEqual([false, true, false]);
+    expect(plan.warnings!.map((w) => w.code)).toContain('KEPT_HOME_FLOW');
+    expect(plan.cautions.some((c) => /keeps your home setting/.test(c))).toBe(true);
+  });
+
+  it('when a flight lands exactly at the cabin altitude, then the cabin is planned for', () => {
+    // Only a destination higher than the cabin changes the plan (14 CFR 25.841(a) cap, 8,000 ft = 2438.4 m [C2]).
+    expect(journeyDestination({ mode: 'flight', destinationElevationM: 2438.4, cabinAltitudeFt: null })).toEqual({ kind: 'aircraft-cabin', cabinAltitudeFt: 8000 });
+    expect(journeyDestination({ mode: 'flight', destinationElevationM: 2438.5, cabinAltitudeFt: null })).toEqual({ kind: 'place', place: { elevationM: 2438.5 } });
+  });
+});

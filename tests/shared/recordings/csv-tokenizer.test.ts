@@ -113,3 +113,38 @@ describe('CSV reader: properties', () => {
     );
   });
 });
+
+describe('CSV reader: line numbers inside quoted values', () => {
+  // A refusal names the line of the file (DEVELOPERS.md "Limits and refusals"), so line ends inside quotes count:
+  // LF, CR and CRLF each once (RFC 4180 line ends).
+  const lines = (text: string) => tokenize([text]).records.map((r) => r.line);
+
+  it('when the very first value opens with a line end inside quotes, then that line end is counted', () => {
+    expect(lines('"\nx",b\nc,d\n')).toEqual([1, 3]);
+  });
+
+  it('when a quoted value holds a lone CR, or a CRLF, then each counts as one line end', () => {
+    expect(lines('a,"1\r2"\nc,d\n')).toEqual([1, 3]);
+    expect(lines('a,"1\r\n2"\nc,d\n')).toEqual([1, 3]);
+    expect(lines('a,"1\r"\nc,d\n')).toEqual([1, 3]);
+  });
+
+  it('when a quoted value ends just after a CR and the next quoted value opens with LF, then both count', () => {
+    expect(lines('"a\r","\nb"\nc,d\n')).toEqual([1, 4]);
+  });
+
+  it('when more text arrives after a refusal, then the same refusal is given and nothing more is read', () => {
+    const records: string[][] = [];
+    const t = createCsvTokenizer((fields) => void records.push(fields));
+    const first = t.push('a,b\n1\n');
+    expect(first).toEqual({ line: 2, message: 'Line 2 has 1 values but the header has 2.' });
+    expect(t.push('3,4\n')).toBe(first);
+    expect(t.finish()).toBe(first);
+    expect(records).toEqual([['a', 'b']]);
+  });
+
+  it('when the last record ends with an empty value and no line end, then it is still read', () => {
+    expect(rows('a,b\n1,')).toEqual([['a', 'b'], ['1', '']]);
+  });
+});
+

@@ -112,3 +112,47 @@ describe('recording files: columns', () => {
     expect(problem(parseRecordingCsv(rows(60, (i) => `${i},97,98,140`, 'timestamp,spo2,SpO2,pulse'))).message).toMatch(/"spo2" appears 2 times/);
   });
 });
+
+describe('recording files: what a refusal says', () => {
+  // DEVELOPERS.md "Limits and refusals": a refused file says why, at which line, with at most five lines listed.
+  it('when many rows are unreadable, then the first five are listed, each with its reason', () => {
+    const p = problem(parseRecordingCsv(rows(60, (i) => (i < 8 ? `${i},97,fast` : `${i},97,140`))));
+    expect(p.details!.lines).toEqual([2, 3, 4, 5, 6].map((line) => `line ${line}: pulse "fast" is not a number`));
+  });
+
+  it('when a timestamp is blank under automatic detection, then the reason says it is empty', () => {
+    const p = problem(parseRecordingCsv(rows(60, (i) => (i < 3 ? `,97,140` : `${i},97,140`))));
+    expect(p.details!.lines[0]).toBe('line 2: the timestamp is empty');
+  });
+
+  it('when a file is too short, then the message gives the count in words that fit it', () => {
+    expect(problem(parseRecordingCsv(rows(1, () => '0,97,140'))).message).toBe('The file holds 1 readable sample; at least 60 are needed.');
+    expect(problem(parseRecordingCsv(rows(2, (i) => `${i},97,140`))).message).toBe('The file holds 2 readable samples; at least 60 are needed.');
+  });
+
+  it('when a file spans exactly 26 h, then it is accepted; longer and the message gives the hours', () => {
+    // 60 rows 1560 s apart: last at 92,040 s plus one period = 93,600 s = 26 h (computed).
+    expect(ok(parseRecordingCsv(rows(60, (i) => `${i * 1560},97,140`))).durationSec).toBe(93_600);
+    expect(problem(parseRecordingCsv(rows(60, (i) => `${i * 1600},97,140`))).message).toBe(
+      'The recording spans 26.7 hours; one upload may span at most 26 hours (one night).',
+    );
+  });
+
+  it('when the file is not valid CSV, then the line is given in the message and the details', () => {
+    const p = problem(parseRecordingCsv('timestamp,spo2,pulse\n0,97,140\n1,97\n'));
+    expect(p).toEqual({ code: 'malformed_csv', line: 3, message: 'The file is not valid CSV. Line 3 has 2 values but the header has 3.', details: { line: ['3'] } });
+    expect(problem(parseRecordingCsv('timestamp,spo2,pulse\n0,"97,140\n'))).toMatchObject({ code: 'malformed_csv', line: 2 });
+    expect(problem(parseRecordingCsv('\n'))).toEqual({ code: 'empty_file', message: 'The file has no rows.' });
+  });
+
+  it('when rows out of order share a time, then they keep the order they had in the file', () => {
+    const text = rows(60, (i) => (i === 0 ? '5,91,140' : i === 1 ? '5,92,140' : `${200 - i},97,140`));
+    const samples = ok(parseRecordingCsv(text)).samples.filter((s) => s.tSec === 0);
+    expect(samples.map((s) => s.spo2)).toEqual([91, 92]);
+  });
+
+  it('when a mapping names a pulse column whose cell is text, then the reason names the pulse', () => {
+    const p = problem(parseRecordingCsv(rows(60, (i) => `${i},97,${i < 3 ? 'x' : 140}`, 'Time,Sat,HR'), { columns: { timestampColumn: 'Time', spo2Column: 'Sat', pulseColumn: 'HR' } }));
+    expect(p.details!.lines[0]).toBe('line 2: pulse "x" is not a number');
+  });
+});

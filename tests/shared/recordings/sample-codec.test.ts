@@ -31,4 +31,35 @@ describe('compact sample storage', () => {
     expect(() => decodeSamples({ ...e, spo2: e.spo2.subarray(0, 2) })).toThrow(RangeError);
     expect(() => decodeSamples({ ...e, count: 3 })).toThrow(RangeError);
   });
+
+  it('when every stored array or the count disagrees, then decoding refuses, one array at a time', () => {
+    // Stored data that cannot be trusted is never analysed (DEVELOPERS.md "What is kept"): each array is checked.
+    const e = encodeSamples([{ tSec: 0, spo2: 97, pulse: 140 }, { tSec: 1, spo2: 96, pulse: 141 }]);
+    expect(decodeSamples(e)).toHaveLength(2);
+    for (const part of ['offsets', 'spo2', 'pulse', 'flags'] as const) {
+      expect(() => decodeSamples({ ...e, [part]: e[part].subarray(1) }), part).toThrow('The stored sample arrays do not match the sample count');
+    }
+    expect(() => decodeSamples({ ...e, count: 1.5 })).toThrow(RangeError);
+    expect(() => decodeSamples({ ...e, count: -1 })).toThrow(RangeError);
+    const empty = encodeSamples([]);
+    expect(decodeSamples(empty)).toEqual([]);
+  });
+
+  it('when a time is outside what 32-bit milliseconds hold (about 24.8 days), then encoding refuses it', () => {
+    // Layout 1 stores Int32 milliseconds: −2^31 … 2^31 − 1 (the layout comment above encodeSamples).
+    const at = (tSec: number) => [{ tSec, spo2: 97, pulse: 140 }];
+    expect(decodeSamples(encodeSamples(at(2147483.647)))[0].tSec).toBe(2147483.647);
+    expect(decodeSamples(encodeSamples(at(-2147483.648)))[0].tSec).toBe(-2147483.648);
+    expect(() => encodeSamples(at(2147483.648))).toThrow('A sample time is outside the storable range');
+    expect(() => encodeSamples(at(-2147483.649))).toThrow(RangeError);
+    expect(() => encodeSamples(at(Number.NaN))).toThrow(RangeError);
+  });
+
+  it('when a value is at the edge of the storable range, then 0 and 6553.3 are kept and beyond is an artefact', () => {
+    const one = (spo2: number) => decodeSamples(encodeSamples([{ tSec: 0, spo2, pulse: null }]))[0].spo2;
+    expect(one(0)).toBe(0);
+    expect(one(6553.3)).toBe(6553.3);
+    expect(one(6553.4)).toBeNaN();
+    expect(one(-0.1)).toBeNaN();
+  });
 });

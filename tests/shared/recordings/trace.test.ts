@@ -27,4 +27,21 @@ describe('trace for display', () => {
     expect(decimateTrace(steadySamples(60))).toHaveLength(60);
     expect(decimateTrace([])).toEqual([]);
   });
+
+  it('when the recording does not start at 0 s, then buckets start at the first sample and the last sample is kept', () => {
+    // Ordered samples from the reader always start at 0, but a chunk of a night starts later (the chart of a part).
+    const samples = steadySamples(200).slice(100).map((s, i) => (i === 99 ? { ...s, spo2: 85 } : s));
+    const points = decimateTrace(samples, 10);
+    expect(points).toHaveLength(10);
+    expect(points[0].tSec).toBe(100);
+    expect(points[9]).toEqual({ tSec: 190, spo2Min: 85, spo2Mean: 94.9 });
+  });
+
+  it('when a span is one second more than the points allow, then buckets widen to 2 s rather than exceed the points', () => {
+    // A chart needs no more points than it has room for (TRACE_MAX_POINTS rule): 11 s at 10 points → 6 buckets of 2 s.
+    const points = decimateTrace(steadySamples(11), 10);
+    expect(points.map((p) => p.tSec)).toEqual([0, 2, 4, 6, 8, 10]);
+    expect(decimateTrace(steadySamples(10), 10)).toHaveLength(10);
+  });
 });
+

@@ -198,3 +198,38 @@ describe('change notes and journeys', () => {
     expect(iso(journeyReminderAt('2026-12-03', 'Europe/London', { ...RULES, dayBeforeAt: '22:00' }))).toBe('2026-12-03T08:00:00.000Z');
   });
 });
+
+describe('reminder times at their exact limits', () => {
+  const visit = ['2026-12-03', '10:00', 'Europe/London', '2026-12-03T10:00:00Z'] as const;
+
+  it('when the day-before time passed exactly 10 minutes ago, then it still goes', () => {
+    // LATE_GRACE_MINUTES: a booking made a few minutes late still gets its reminder (common practice).
+    expect(plan(...visit, '2026-12-02T17:10:00Z').map((p) => p.template)).toEqual(['visit-day-before', 'visit-morning']);
+  });
+
+  it('when a reminder would go exactly 15 minutes before the visit, then it is still useful and goes', () => {
+    // LAST_USEFUL_MINUTES_BEFORE_VISIT = 15: a visit at 08:15 and the 08:00 morning reminder (common practice).
+    const p = plan('2026-12-03', '08:15', 'Europe/London', '2026-12-03T08:15:00Z', '2026-11-30T12:00:00Z');
+    expect(p.find((r) => r.template === 'visit-morning')).toEqual({ template: 'visit-morning', sendAt: '2026-12-03T08:00:00.000Z', notAfter: '2026-12-03T08:00:00.000Z', skip: null });
+  });
+
+  it('when the wanted time is exactly the last useful moment but quiet hours hold it past, then it is logged as skipped', () => {
+    // Morning reminder wanted at 07:45 inside quiet hours (to 08:00), visit at 08:00: last useful moment 07:45.
+    const early = { ...RULES, morningOfAt: '07:45' };
+    const p = plan('2026-12-03', '08:00', 'Europe/London', '2026-12-03T08:00:00Z', '2026-11-30T12:00:00Z', early);
+    expect(p.find((r) => r.template === 'visit-morning')).toEqual({ template: 'visit-morning', sendAt: '2026-12-03T08:00:00.000Z', notAfter: '2026-12-03T07:45:00.000Z', skip: 'quiet-hours' });
+  });
+
+  it('when a whole local day was skipped (Samoa, 30 December 2011), then no time on it is invented', () => {
+    // Samoa skipped 30 December 2011 moving across the date line (IANA tz database): every minute tried fails.
+    expect(() => instantAtOrAfter('2011-12-30', '17:00', 'Pacific/Apia')).toThrow('No valid local time after 2011-12-30 17:00 in Pacific/Apia');
+  });
+
+  it('when quiet hours cross midnight, then the first minute after them is free and the last minute before is held', () => {
+    expect(inQuietHours(at('2026-12-03T08:00:00Z'), 'Europe/London', RULES)).toBe(false);
+    expect(inQuietHours(at('2026-12-03T07:59:00Z'), 'Europe/London', RULES)).toBe(true);
+    expect(inQuietHours(at('2026-12-03T20:59:00Z'), 'Europe/London', RULES)).toBe(false);
+    expect(inQuietHours(at('2026-12-03T21:00:00Z'), 'Europe/London', RULES)).toBe(true);
+  });
+});
+
