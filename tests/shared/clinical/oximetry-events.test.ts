@@ -122,6 +122,9 @@ describe('desaturation events: minimum duration from policy', () => {
 // Flat 97 % nights with separated falls (each fall's 120 s window clean of the previous one), the shape in which
 // the properties below must hold. Seeded so a failure replays; the seed is printed by fast-check on failure.
 const SEED = Number(process.env.FC_SEED ?? 20261202);
+// Under `npm run mutate` every mutant of the oximetry code reruns these: fewer runs keep it to minutes, and the
+// hand-worked traces above are what pin each rule.
+const RUNS = process.env.STRYKER_MUTATOR_WORKER === undefined ? 200 : 40;
 const fallArb = fc.record({ depth: fc.integer({ min: 2, max: 12 }), length: fc.integer({ min: 3, max: 40 }), rise: fc.integer({ min: 0, max: 6 }), riseLength: fc.integer({ min: 0, max: 12 }) });
 const nightArb = fc.array(fallArb, { minLength: 1, maxLength: 8 }).map((falls) => {
   const ranges: [number, number, number][] = [];
@@ -144,7 +147,7 @@ describe('desaturation events: properties', () => {
         const second = whole.filter((s) => s.tSec >= split).map((s) => ({ ...s, tSec: s.tSec - split }));
         expect(events(first).length + events(second).length).toBeLessThanOrEqual(events(whole).length);
       }),
-      { seed: SEED, numRuns: 200 },
+      { seed: SEED, numRuns: RUNS },
     );
   });
 
@@ -160,7 +163,7 @@ describe('desaturation events: properties', () => {
         const fullEvents = events(full);
         for (const e of found) expect(fullEvents.some((f) => f.startTSec < e.endTSec && e.startTSec < f.endTSec)).toBe(true);
       }),
-      { seed: SEED, numRuns: 200 },
+      { seed: SEED, numRuns: RUNS },
     );
   });
 
@@ -174,7 +177,7 @@ describe('desaturation events: properties', () => {
         const after = events(trace(duration + extra, at(longer))).length;
         expect(after).toBeGreaterThanOrEqual(before);
       }),
-      { seed: SEED, numRuns: 200 },
+      { seed: SEED, numRuns: RUNS },
     );
   });
 
