@@ -1,4 +1,4 @@
-// targets.md P7: initial JS (the entry and everything it imports statically, gzip) against 170 KiB, and the
+// docs/service-targets.md P7: initial JS (the entry and everything it imports statically, gzip) against 170 KiB, and the
 // largest lazy route chunk (gzip) against 60 KiB. Reads the Vite manifest when the build wrote one (scripts/bench.sh
 // builds with --manifest; vite.config.ts writes none), else the entry script and modulepreload links of index.html.
 // Prints figures only.

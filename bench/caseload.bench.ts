@@ -1,4 +1,4 @@
-// targets.md P1: caseload list throughput (25 rows, filtered, sorted, paged, 20k babies) through the real app,
+// docs/service-targets.md P1: caseload list throughput (25 rows, filtered, sorted, paged, 20k babies) through the real app,
 // against a bare node:http + pg route running the same SQL, alternating A B A B in one run. Prints figures only.
 import 'reflect-metadata';
 import { createServer, type Server } from 'node:http';

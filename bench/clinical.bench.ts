@@ -1,4 +1,4 @@
-// Speed of the pure clinical core (targets.md P4: analysis of 24 h at 1 Hz in well under 1 s of CPU).
+// Speed of the pure clinical core (docs/service-targets.md P4: analysis of 24 h at 1 Hz in well under 1 s of CPU).
 // Prints figures only; never fails on a number.
 import { summariseOximetry } from '../shared/clinical/oximetry';
 import { convertPrescription } from '../shared/clinical/conversion';

@@ -1,4 +1,4 @@
-// targets.md P4: an overnight recording (43,200 samples at 1 Hz) read, checked and encoded for storage, against a
+// docs/service-targets.md P4: an overnight recording (43,200 samples at 1 Hz) read, checked and encoded for storage, against a
 // raw PostgreSQL COPY of the same rows (the floor), measured alternately in one run; ratios are the figures that
 // count on a shared machine. Prints only; never fails on a number. Skips the database parts if it is not reachable.
 import { createHash } from 'node:crypto';

@@ -1,4 +1,4 @@
-// targets.md P8: lab LCP and CLS of the caseload page in headless Chromium (Core Web Vitals "good": LCP ≤ 2.5 s,
+// docs/service-targets.md P8: lab LCP and CLS of the caseload page in headless Chromium (Core Web Vitals "good": LCP ≤ 2.5 s,
 // CLS ≤ 0.1; our target ≤ 0.05), and no third-party origin at load. The real API (server/main.ts, serving the web
 // build) runs against the caseload benchmark's 20,000 babies; each load uses a fresh profile (cold cache) holding
 // the coordinator's session. Two profiles, alternated: desktop on loopback, and a phone-sized window with

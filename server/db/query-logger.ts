@@ -2,7 +2,7 @@ import type { Logger as TypeOrmLogger } from 'typeorm';
 
 /**
  * Logs failed queries without their parameters: parameters carry names, identifiers and SpO2 samples, which must
- * never reach application logs (targets.md, audit). The SQL text itself holds only placeholders.
+ * never reach application logs (docs/service-targets.md, audit). The SQL text itself holds only placeholders.
  */
 export class SafeQueryLogger implements TypeOrmLogger {
   constructor(private readonly silent = false) {}

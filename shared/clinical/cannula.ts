@@ -30,7 +30,7 @@ export function cannulaFactor(flowLpm: number, weightKg: number): number {
 /**
  * STOP-ROP Table 1 cell: round-half-up of 100 × min(1, flow/kg). Math.round rounds halves up for positives, which
  * the table needs (1/8 L/min at 1 kg is printed 13, not the banker's 12). The flow must be the exact fraction
- * (1/32, not the printed 0.03), as clinical-methods.md §3.1 shows.
+ * (1/32, not the printed 0.03), as docs/clinical-sources.md §3.1 shows.
  */
 export function stopRopTableFactorPercent(flowLpm: number, weightKg: number): number {
   return Math.round(100 * cannulaFactor(flowLpm, weightKg));

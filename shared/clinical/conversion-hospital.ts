@@ -88,7 +88,7 @@ export function addHospitalLines(
   return { sourceFraction, homeSourceFraction, effectiveFio2: fio2, pio2MmHg };
 }
 
-/** The wet rule keeps PIO2 constant (PRODUCT.md computation choice), so the home PIO2 equals the hospital's. */
+/** The wet rule keeps PIO2 constant (docs/product-rules.md "Keep the inspired oxygen pressure"), so the home PIO2 equals the hospital's. */
 export function addTargetLines(
   sheet: WorkingSheet,
   hospital: HospitalFigures,

@@ -16,7 +16,7 @@ export const CONVERSION_WARNING_CODES = [
   'WEIGHT_OUTSIDE_MODEL_TABLE',
 ] as const;
 
-/** The weights STOP-ROP Table 1 was tabulated for (columns 0.7 to 4 kg; clinical-methods.md §3.1). */
+/** The weights STOP-ROP Table 1 was tabulated for (columns 0.7 to 4 kg; docs/clinical-sources.md §3.1). */
 export const CANNULA_TABLE_WEIGHT_KG = Object.freeze({ min: 0.7, max: 4 });
 
 export type ConversionWarningCode = (typeof CONVERSION_WARNING_CODES)[number];

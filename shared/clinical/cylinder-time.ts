@@ -17,7 +17,7 @@ export interface CylinderTimeInput {
 }
 
 export interface CylinderTime {
-  /** Litres per unit of pressure: labelled contents ÷ full pressure (clinical-methods.md §7). */
+  /** Litres per unit of pressure: labelled contents ÷ full pressure (docs/clinical-sources.md §7). */
   factor: number;
   /** Gas left above the change-over (residual) pressure. */
   usableLitres: number;

@@ -1,5 +1,5 @@
 // Cylinder factors in L per psi from the "Oxygen Cylinder Guidance" sheet (Virginia EMS, 2010), as listed in
-// clinical-methods.md §7. Real cylinders differ by model and fill pressure; a programme should store the factor of
+// docs/clinical-sources.md §7. Real cylinders differ by model and fill pressure; a programme should store the factor of
 // the cylinders its supplier delivers.
 export const US_CYLINDER_FACTORS_L_PER_PSI = { D: 0.16, E: 0.28, M: 1.56, 'H/K': 3.14 } as const;
 
@@ -44,7 +44,7 @@ export interface MetricDurationInput {
   residualBar: number;
   /**
    * Gas contents per ideal litre; 1 is the ideal-gas estimate. A supplier gives about 1.07 for oxygen at 200 bar
-   * (clinical-methods.md §7), i.e. the reciprocal of the gas's compressibility factor.
+   * (docs/clinical-sources.md §7), i.e. the reciprocal of the gas's compressibility factor.
    */
   compressibilityMultiplier?: number;
 }

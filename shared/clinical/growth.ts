@@ -2,7 +2,7 @@ import { effectiveFio2, flowForEffectiveFio2 } from './cannula';
 import { DEFAULT_FLOWMETER_STEPS_LPM, roundUpToStepLpm } from './flowmeter';
 
 // One percentage point of effective FiO2: below the 2-point steps used in room-air challenges (Walsh 2003,
-// clinical-methods.md §3.3), so drift is reported before it reaches a clinically tested step. A programme choice.
+// docs/clinical-sources.md §3.3), so drift is reported before it reaches a clinically tested step. A programme choice.
 export const DEFAULT_DRIFT_THRESHOLD_FIO2 = 0.01;
 
 export interface GrowthDriftInput {

@@ -88,7 +88,7 @@ function supplyLines(lines: JourneyWorkingLine[], input: JourneyPlanInput, suppl
     const minutes = supplyFlowLpm === null ? null : fullCylinderMinutes(cyl, supplyFlowLpm);
     const count = supplyFlowLpm === null ? null : minutes === null ? 0 : cylindersForJourney({ journeyHours: input.hoursAway, minutesPerCylinder: minutes, reserveFraction });
     lines.push(
-      { key: `cylinder.${cyl.id}.minutes`, label: `${cyl.name}: minutes from full`, value: minutes, unit: 'min', formula: `(${cyl.fullPressure} − ${cyl.residualPressure} ${cyl.unit}) × ${cyl.contentLitres} L ÷ ${cyl.fullPressure} ${cyl.unit} ÷ flow`, source: 'factor method, clinical-methods.md §7' },
+      { key: `cylinder.${cyl.id}.minutes`, label: `${cyl.name}: minutes from full`, value: minutes, unit: 'min', formula: `(${cyl.fullPressure} − ${cyl.residualPressure} ${cyl.unit}) × ${cyl.contentLitres} L ÷ ${cyl.fullPressure} ${cyl.unit} ÷ flow`, source: 'factor method, docs/clinical-sources.md §7' },
       { key: `cylinder.${cyl.id}.count`, label: `${cyl.name}: cylinders to take`, value: count, unit: 'cylinders', formula: 'oxygen time to carry ÷ minutes per cylinder, rounded up to whole cylinders', source: 'a part cylinder cannot be carried' },
     );
     return { cylinderId: cyl.id, name: cyl.name, minutesPerCylinder: minutes, count };

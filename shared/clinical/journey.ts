@@ -4,7 +4,7 @@ import type { PressureSource } from './pressure';
 import { feetToMetres } from './units';
 
 // 14 CFR 25.841(a): a pressurised cabin may reach at most 8,000 ft cabin pressure altitude in normal operation;
-// BTS 2022 quotes the same 2438 m cap for European and North American regulators (clinical-methods.md §4.4).
+// BTS 2022 quotes the same 2438 m cap for European and North American regulators (docs/clinical-sources.md §4.4).
 export const AIRCRAFT_CABIN_MAX_ALTITUDE_FT = 8000;
 export const AIRCRAFT_CABIN_MAX_ALTITUDE_M = feetToMetres(AIRCRAFT_CABIN_MAX_ALTITUDE_FT);
 

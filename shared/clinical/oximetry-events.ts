@@ -1,5 +1,5 @@
 /**
- * Desaturation events (ODI3 / ODI4). No single published algorithm exists (clinical-methods.md §5.1: baseline,
+ * Desaturation events (ODI3 / ODI4). No single published algorithm exists (docs/clinical-sources.md §5.1: baseline,
  * minimum duration and the handling of consecutive dips are not standardised), so every parameter is pinned here
  * and in the tests:
  * - baseline: mean of the valid samples in the 120 s before the fall begins, trusted only when they cover half of

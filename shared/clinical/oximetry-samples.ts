@@ -8,7 +8,7 @@ export interface OximetrySample {
 }
 
 /**
- * Artefact rules (no single published standard exists; clinical-methods.md §5.1 lists the usual ones):
+ * Artefact rules (no single published standard exists; docs/clinical-sources.md §5.1 lists the usual ones):
  * - device-flagged samples are excluded;
  * - SpO2 missing, not a number, or outside 50–100 % is excluded (0 is what many devices write for "no reading"; a
  *   value below 50 % from a home recording is far more often probe loss than a true reading);

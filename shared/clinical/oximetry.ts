@@ -48,7 +48,7 @@ export interface OximetrySummary {
   minSpo2: number | null;
   /**
    * Share of valid time with SpO2 strictly below 90, 92 and 93 %. Strict "<" follows the guideline wording
-   * ("% time less than 90%", clinical-methods.md §5.1); a reading of exactly 90 is not counted.
+   * ("% time less than 90%", docs/clinical-sources.md §5.1); a reading of exactly 90 is not counted.
    */
   percentTimeBelow90: number | null;
   percentTimeBelow92: number | null;

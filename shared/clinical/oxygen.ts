@@ -1,5 +1,5 @@
 // Inspired gas is fully saturated with water at body temperature; 47 mmHg is the usual 37 °C value
-// (clinical-methods.md §2.1, physiology references). Kept as a parameter for a programme that wants 47.1.
+// (docs/clinical-sources.md §2.1, physiology references). Kept as a parameter for a programme that wants 47.1.
 export const WATER_VAPOUR_37C_MMHG = 47;
 
 // Respiratory exchange ratio on a mixed diet (physiology references, range 0.7–1.0).
@@ -39,7 +39,7 @@ export function alveolarPo2SimplifiedMmHg(input: AlveolarInput): number {
 
 /**
  * Full form PAO2 = PIO2 − PaCO2 × [FiO2 + (1 − FiO2)/R]. The bracket must read (1 − FiO2)/R: a misprinted copy
- * with (1 − FiO2/R) circulates (clinical-methods.md §2.1), so the tests pin the published 107 mmHg sample value.
+ * with (1 − FiO2/R) circulates (docs/clinical-sources.md §2.1), so the tests pin the published 107 mmHg sample value.
  */
 export function alveolarPo2FullMmHg(input: AlveolarInput): number {
   const r = input.respiratoryExchangeRatio ?? DEFAULT_RESPIRATORY_EXCHANGE_RATIO;
@@ -53,7 +53,7 @@ export function alveolarArterialGradientMmHg(alveolarPo2MmHg: number, arterialPo
 
 /**
  * FiO2 at pressure 2 giving the same oxygen as FiO2₁ at pressure 1. The wet form keeps PIO2 constant and is the
- * product default (PRODUCT.md); the dry form keeps FiO2×PB constant, gives a lower FiO2 at altitude, and exists
+ * product default (docs/product-rules.md "Keep the inspired oxygen pressure"); the dry form keeps FiO2×PB constant, gives a lower FiO2 at altitude, and exists
  * only so a screen can show both, labelled.
  */
 export function equivalentFio2(

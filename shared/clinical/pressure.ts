@@ -12,7 +12,7 @@ export interface ResolvedPressure {
   geopotentialM: number | null;
 }
 
-// U.S. Standard Atmosphere 1976 base constants (clinical-methods.md §1.1). R* is the USSA-1976 value, deliberately
+// U.S. Standard Atmosphere 1976 base constants (docs/clinical-sources.md §1.1). R* is the USSA-1976 value, deliberately
 // not the current CODATA gas constant, so our figures match the published tables.
 export const USSA_1976 = {
   seaLevelPressurePa: 101325,

@@ -2,7 +2,7 @@
  * A strict, incremental CSV reader (RFC 4180 quoting, comma-separated, LF, CRLF or CR line ends).
  *
  * Why our own and not csv-parse: shared/ also runs in the browser, and csv-parse needs Node's Buffer; and a
- * 43,200-row overnight file must parse well inside targets.md P4 (csv-parse alone took ~100 ms for one night,
+ * 43,200-row overnight file must parse well inside docs/service-targets.md P4 (csv-parse alone took ~100 ms for one night,
  * several times a COPY of the same rows). tests/shared/recordings checks this reader against csv-parse.
  *
  * Strict means: every record has as many fields as the first one, a quote may only open a field and must be

@@ -2,7 +2,7 @@ import type { OximetrySample } from '../clinical/oximetry-samples';
 import { MAX_VALUE_STEPS, VALUE_STEPS_PER_UNIT } from './values';
 
 /**
- * Compact storage of a recording's samples (targets.md: never one row per sample). Layout 1, four parallel
+ * Compact storage of a recording's samples (docs/service-targets.md: never one row per sample). Layout 1, four parallel
  * little-endian arrays, one entry per sample in time order:
  *   offsets  Int32   milliseconds from the earliest sample (Int32 holds 24.8 days; uploads stop at 26 h)
  *   spo2     Uint16  tenths of a percent; 0xFFFF = missing, 0xFFFE = a number outside 0–6553.3 (an artefact)

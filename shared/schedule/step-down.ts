@@ -47,7 +47,7 @@ export interface StudyResult {
 
 /**
  * Overnight target: mean SpO2 at or above the programme minimum (≥ 95 % with pulmonary hypertension) and under the
- * allowed share of valid time below 90 % (TSANZ 2020; BTS 2009 — clinical-methods.md §4). A study too short to
+ * allowed share of valid time below 90 % (TSANZ 2020; BTS 2009 — docs/clinical-sources.md §4). A study too short to
  * judge (below the policy's minimum valid time; default 5 h after Urschitz 2003, §5.1) meets nothing and is
  * reported as not judged, never as below target.
  */

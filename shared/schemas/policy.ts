@@ -88,7 +88,7 @@ export const programmeContactsSchema = z.strictObject({
 
 /**
  * A cylinder the programme's supplier delivers: its labelled contents when full and the pressure it is full at.
- * Contents left ≈ contents × (gauge − residual) ÷ full pressure (the factor method, clinical-methods.md §7).
+ * Contents left ≈ contents × (gauge − residual) ÷ full pressure (the factor method, docs/clinical-sources.md §7).
  */
 export const cylinderTypeSchema = z.strictObject({
   id: plainText().regex(/^[a-z0-9-]{1,40}$/, { error: 'Lower-case letters, digits and dashes' }),
@@ -133,8 +133,8 @@ export const DEFAULT_POLICY_SETTINGS: PolicySettings = {
   cannulaMaxFlowLpm: DEFAULT_CANNULA_MAX_FLOW_LPM,
   driftThresholdFio2: DEFAULT_DRIFT_THRESHOLD_FIO2,
   pressureModel: 'isa-1976',
-  // TSANZ 2020 / BTS 2009 targets (clinical-methods.md §4.2–4.3); PH target from the Starship guideline (§4.2).
-  // Spot readings: NHS GGC (mean ≥ 93 %) and ATS 2019 (≤ 90 % is low under 1 year), clinical-methods.md §4.1, §4.3.
+  // TSANZ 2020 / BTS 2009 targets (docs/clinical-sources.md §4.2–4.3); PH target from the Starship guideline (§4.2).
+  // Spot readings: NHS GGC (mean ≥ 93 %) and ATS 2019 (≤ 90 % is low under 1 year), docs/clinical-sources.md §4.1, §4.3.
   spo2Targets: { overnightMeanMin: 93, pctBelow90Max: 5, pulmonaryHypertensionMeanMin: 95, spotMeanMin: 93, spotLowMax: 90 },
   // Common practice: first home check within 72 h of discharge, weekly for four weeks, then four-weekly.
   schedule: { firstCheckWithinHours: 72, weeklyChecks: 4, thenEveryWeeks: 4, planAheadWeeks: 12, overnightStudyBeforeStepDown: true, followUpDaysAfterStepDown: 7 },
@@ -149,7 +149,7 @@ export const DEFAULT_POLICY_SETTINGS: PolicySettings = {
     failureAlertPeriodMinutes: 60 },
   // Placeholders until an admin enters the programme's own numbers.
   contacts: { phones: [], emergencyNumber: '999' },
-  // Demo defaults only (a supplier's labelled sizes vary, clinical-methods.md §7); reserve: common practice.
+  // Demo defaults only (a supplier's labelled sizes vary, docs/clinical-sources.md §7); reserve: common practice.
   supply: {
     cylinders: [
       { id: 'small-portable', name: 'Small portable (460 L at 230 bar)', contentLitres: 460, unit: 'bar', fullPressure: 230, residualPressure: 20 },

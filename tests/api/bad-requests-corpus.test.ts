@@ -11,7 +11,7 @@ import { anonymousAgent, signedInAgent, type Agent } from '../helpers/agents';
 import { makeProgrammeWithStaff } from '../helpers/factories';
 import { buildAndWalk, type MountedRoute } from '../helpers/route-walk';
 
-// R10 (docs targets.md): a corpus of bad requests over every mounted route; none may answer 500.
+// R10 (docs/service-targets.md): a corpus of bad requests over every mounted route; none may answer 500.
 let ctx: TestContext;
 let app: Express;
 let routes: MountedRoute[];

@@ -24,7 +24,7 @@ describe('POST /api/infants', () => {
     const { infant } = await enrolled(clinic);
     expect(infant).toMatchObject({ status: 'preparing', homeElevationM: 1780, weightKg: 3, activeSetting: null });
     // Stored pressure is the shared ISA function's value (checked against USSA-1976 in tests/shared); between the
-    // 611.22 mmHg that clinical-methods.md §2.3 lists for 1800 m and the 1500 m table value.
+    // 611.22 mmHg that docs/clinical-sources.md §2.3 lists for 1800 m and the 1500 m table value.
     expect(infant.homePressureMmHg).toBeCloseTo(isaPressureMmHg(1780), 2);
     expect(infant.homePressureMmHg).toBeGreaterThan(611.22);
     const rx = await ctx.deps.ds.query(`SELECT status, reason, version FROM prescriptions WHERE infant_id = $1`, [infant.id]);

@@ -24,7 +24,7 @@ describe('asking for a journey check', () => {
     expect(journeyResponseSchema.safeParse(res.body).success).toBe(true);
     const j = res.body.journey;
     expect(j).toMatchObject({ infantId: infant.id, status: 'waiting', plan: null, decision: null, rowVersion: 1, requestedBy: { id: clinic.people.family.id } });
-    // No cabin altitude given: the 8,000 ft maximum of 14 CFR 25.841(a) is planned for (clinical-methods.md §4.4).
+    // No cabin altitude given: the 8,000 ft maximum of 14 CFR 25.841(a) is planned for (docs/clinical-sources.md §4.4).
     expect(j.request).toMatchObject({ mode: 'flight', cabinAltitudeFt: 8000, hoursAway: 9, destinationElevationM: null, notes: null });
 
     const staff = (await coord.get(`/api/journeys/${j.id}`).expect(200)).body.journey;

@@ -123,7 +123,7 @@ describe('POST /api/prescriptions/:id/decision', () => {
 describe('POST /api/conversions/preview', () => {
   const body = { weightKg: 3, flowLpm: 0.25, sourceO2Percent: 100, hospital: { elevationM: 0 }, home: { elevationM: 1800 } };
 
-  it('when staff preview the worked example, then the flow is 0.526 L/min rounded up to 0.55 (clinical-methods.md §2.4, computed from the wet rule and STOP-ROP)', async () => {
+  it('when staff preview the worked example, then the flow is 0.526 L/min rounded up to 0.55 (docs/clinical-sources.md §2.4, computed from the wet rule and STOP-ROP)', async () => {
     const clinic = await makeClinic(ctx.deps);
     const agent = await signedInAgent(ctx.app, clinic.people.nurse.email);
     const res = await agent.post('/api/conversions/preview').set('X-CSRF-Token', agent.csrf).send(body).expect(200);

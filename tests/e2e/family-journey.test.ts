@@ -117,7 +117,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
 
   it('when the family reads a cylinder gauge, then the time shown is what the shared cylinder-time method gives', async () => {
     // Anchor for the method itself: E cylinder factor 0.28 L/psi, 2000 psi, residual 200 psi, 2 L/min → 252 min
-    // (clinical-methods.md §7 check value, formula and factor from the Virginia EMS cylinder guidance sheet).
+    // (docs/clinical-sources.md §7 check value, formula and factor from the Virginia EMS cylinder guidance sheet).
     expect(cylinderTime({ cylinder: { contentLitres: 0.28 * 2200, fullPressure: 2200, residualPressure: 200 }, gauge: 2000, flowLpm: 2, reservePercent: 0 }).minutesTotal).toBeCloseTo(252, 9);
 
     await page.getByRole('link', { name: 'Work out cylinder time' }).click();

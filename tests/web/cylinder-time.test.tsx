@@ -12,7 +12,7 @@ const baby: InfantSummary = {
   activeFlowLpm: 0.5, status: 'on_oxygen', nurse: null, consultant: null, flags: [],
 };
 
-// A D cylinder with the Virginia EMS sheet's factor 0.16 L/psi and 200 psi safe residual (clinical-methods.md §7):
+// A D cylinder with the Virginia EMS sheet's factor 0.16 L/psi and 200 psi safe residual (docs/clinical-sources.md §7):
 // 350 L ÷ 2187.5 psi = 0.16 exactly, so the §7 check value applies: D, 2000 psi, 0.5 L/min → 576 min.
 const dCylinder: CylinderType = { id: 'd-size', name: 'D cylinder (350 L)', contentLitres: 350, unit: 'psi', fullPressure: 2187.5, residualPressure: 200 };
 // The demo default (460 L at 230 bar, change at 20 bar): arithmetic only, (230 − 20) × 2 L/bar = 420 L.
@@ -59,7 +59,7 @@ describe('Cylinder time (family)', () => {
     const [only, ...rest] = results();
     expect(rest).toHaveLength(0);
     expect(only).toHaveTextContent('At 0.5 litres per minute (day and night):');
-    // 576 min (clinical-methods.md §7 check value) = 9 h 36 min.
+    // 576 min (docs/clinical-sources.md §7 check value) = 9 h 36 min.
     expect(only).toHaveTextContent('Lasts about 9 hours and 36 minutes, until the gauge reads 200 psi.');
     // Reserve 50 %: 576 ÷ 1.5 = 384 min to use, 192 min kept back.
     expect(only).toHaveTextContent(/Change it or plan a refill before 6 hours and 24 minutes from now \(about .+\)\./);
@@ -146,7 +146,7 @@ describe('Cylinder time (staff, from the record)', () => {
     await user.selectOptions(await screen.findByLabelText('Which cylinder?', undefined, { timeout: 5000 }), 'd-size');
     await user.type(screen.getByLabelText('What does the gauge read? (psi)'), '2000');
     await user.click(screen.getByRole('button', { name: 'Work out how long it lasts' }));
-    // (2000 − 200) × 0.16 ÷ 2 L/min = 144 min = 2 h 24 min (factor method, clinical-methods.md §7).
+    // (2000 − 200) × 0.16 ÷ 2 L/min = 144 min = 2 h 24 min (factor method, docs/clinical-sources.md §7).
     expect(results()[0]).toHaveTextContent('Lasts about 2 hours and 24 minutes, until the gauge reads 200 psi.');
     expect(screen.getByRole('complementary', { name: 'Cautions' })).toBeInTheDocument();
   });

@@ -16,11 +16,11 @@ const baby: InfantSummary = {
   activeFlowLpm: 0.25, status: 'on_oxygen', nurse: null, consultant: null, flags: [],
 };
 
-// An E-size cylinder by the Virginia sheet's factor 0.28 L/psi with 200 psi residual (clinical-methods.md §7 [C]).
+// An E-size cylinder by the Virginia sheet's factor 0.28 L/psi with 200 psi residual (docs/clinical-sources.md §7 [C]).
 const E_CYLINDER: CylinderType = { id: 'e', name: 'E cylinder', contentLitres: 560, unit: 'psi', fullPressure: 2000, residualPressure: 200 };
 const policy = { ...DEFAULT_POLICY_SETTINGS, supply: { cylinders: [E_CYLINDER], reservePercent: 50 } };
 
-// The real shared computation. clinical-methods.md §2.4 worked example [X]: 3 kg on 0.25 L/min of 100 % at sea level
+// The real shared computation. docs/clinical-sources.md §2.4 worked example [X]: 3 kg on 0.25 L/min of 100 % at sea level
 // needs 0.526 L/min at 1800 m, set at the next step up, 0.55 L/min.
 const roadPlan = planJourney({
   mode: 'road', destinationElevationM: 1800, cabinAltitudeFt: null, hoursAway: 24, origin: { elevationM: 0 }, weightKg: 3,

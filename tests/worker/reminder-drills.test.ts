@@ -11,7 +11,7 @@ import { signedInAgent } from '../helpers/agents';
 import { enrolmentBody, makeClinic } from '../helpers/infants';
 import { policyWithoutQuietHours, waitFor } from '../helpers/messaging';
 
-// Fault drills R1 and R2 (targets.md): 2,000 due reminders each, the worker or Redis killed mid-burst, and every
+// Fault drills R1 and R2 (docs/service-targets.md): 2,000 due reminders each, the worker or Redis killed mid-burst, and every
 // reminder must reach the fake SMS provider exactly once. R7 for e-mail: the worker killed while the mail server
 // has accepted messages it has not yet answered for. Bounded: loopback only, fixed counts, time-outs.
 const COUNT = 2000;

@@ -4,7 +4,7 @@ import { QUEUES } from '../../shared/jobs/catalogue';
 import { redisConnection } from '../../worker/queues';
 import { upsertSchedules } from '../../worker/schedules';
 
-// R6 (targets.md): job schedulers upserted from two processes at once leave one schedule each and no duplicate jobs.
+// R6 (docs/service-targets.md): job schedulers upserted from two processes at once leave one schedule each and no duplicate jobs.
 const prefix = `sched${Math.random().toString(36).slice(2, 8)}`;
 const connection = redisConnection(process.env.REDIS_URL ?? 'redis://127.0.0.1:63809');
 const queues = [new Queue(QUEUES.maintenance, { connection, prefix }), new Queue(QUEUES.maintenance, { connection, prefix })];

@@ -1,7 +1,7 @@
 import { Column, Entity, PrimaryColumn } from 'typeorm';
 
 /**
- * All samples of one recording in a single row (targets.md: never one row per sample). The four bytea columns
+ * All samples of one recording in a single row (docs/service-targets.md: never one row per sample). The four bytea columns
  * are parallel little-endian arrays, one entry per sample in time order; `layout` names the encoding, whose
  * definition is shared/recordings/sample-codec.ts. Layout 1:
  *   offsets  Int32   milliseconds from the earliest sample

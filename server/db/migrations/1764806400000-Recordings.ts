@@ -53,7 +53,7 @@ export class Recordings1764806400000 implements MigrationInterface {
         AND octet_length(pulse) = 2 * sample_count AND octet_length(flags) = sample_count)
     )`);
     // lz4 (PostgreSQL 14+, in Debian's build) stores a night about 10 ms faster than the default pglz, for ~15 %
-    // more bytes: the upload path is measured against a COPY (targets.md P4).
+    // more bytes: the upload path is measured against a COPY (docs/service-targets.md P4).
     for (const column of ['offsets', 'spo2', 'pulse', 'flags']) {
       await q.query(`ALTER TABLE recording_samples ALTER COLUMN ${column} SET COMPRESSION lz4`);
     }

@@ -1,7 +1,7 @@
 import { createRecordingParser, type ParsedRecording, type RecordingParseOptions } from '../../../shared/recordings/recording-parser';
 import { problemError, UploadRejectedError } from './upload-errors';
 
-// About 1 MB of text per step: a 20 MB file never holds the event loop for long (targets.md P5).
+// About 1 MB of text per step: a 20 MB file never holds the event loop for long (docs/service-targets.md P5).
 const CHUNK_CHARS = 1 << 20;
 const yieldToOthers = () => new Promise<void>((resolve) => setImmediate(resolve));
 

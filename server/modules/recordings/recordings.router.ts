@@ -9,7 +9,7 @@ import { actorOf, assertCanAny } from '../../lib/http';
 import type { RecordingsService } from './recordings.service';
 import { uploadErrorFrom, UploadRejectedError } from './upload-errors';
 
-// Multer's defaults are unlimited (targets.md, Uploads): every limit is explicit. Memory storage: the file is
+// Multer's defaults are unlimited (docs/service-targets.md, Uploads): every limit is explicit. Memory storage: the file is
 // parsed and checked whole before anything is written, and only the compact samples are kept.
 const upload = multer({
   storage: multer.memoryStorage(),

@@ -18,7 +18,7 @@ export interface UploadedFile {
 
 /**
  * Checks, parses and validates the whole file before writing anything; then the recording, its samples and the
- * audit entry go in one transaction, so an upload is stored whole or not at all (targets.md R3). The same bytes
+ * audit entry go in one transaction, so an upload is stored whole or not at all (docs/service-targets.md R3). The same bytes
  * for the same baby return the recording already stored.
  */
 export async function storeUpload(

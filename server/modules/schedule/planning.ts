@@ -18,7 +18,7 @@ function stateOf(r: PlanStateRow): PlanState {
 
 /**
  * Re-plans checks for a programme or a list of babies in pages: one read and two writes per page, whatever the
- * page size (targets.md P6: linear in babies, no per-baby queries). Safe to repeat: storage is an upsert by key.
+ * page size (docs/service-targets.md P6: linear in babies, no per-baby queries). Safe to repeat: storage is an upsert by key.
  */
 export async function replan(repos: AppRepos, where: { programmeId?: string; infantIds?: string[] }, now = new Date(), pageSize = 500) {
   const policies = new Map<string, PolicySettings>();

@@ -4,7 +4,7 @@ import { completedMonthsBetween, daysBetween } from '../../../shared/clinical/da
 
 describe('ages (AAP 2004 terminology)', () => {
   it('when born at 28+0 wk and 10 wk old, then PMA is 38+0 wk and corrected age is −2 wk', () => {
-    // clinical-methods.md §8.1 and §10 #24 [X from AAP 2004 definitions, Engle, Pediatrics 2004;114:1362]
+    // docs/clinical-sources.md §8.1 and §10 #24 [X from AAP 2004 definitions, Engle, Pediatrics 2004;114:1362]
     // 2024-01-01 + 70 days = 2024-03-11 (2024 is a leap year)
     const ages = agesAt({ birthDate: '2024-01-01', gestationAtBirth: { weeks: 28, days: 0 }, atDate: '2024-03-11' });
     expect(ages.chronological).toMatchObject({ totalDays: 70, weeks: 10, days: 0 });

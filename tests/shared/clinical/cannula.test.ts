@@ -7,7 +7,7 @@ import {
   stopRopTableFactorPercent,
 } from '../../../shared/clinical/cannula';
 
-// STOP-ROP Table 1 (clinical-methods.md §3.1) [C "STOP-ROP Effective FiO2 Conversion Tables for Infants on Nasal
+// STOP-ROP Table 1 (docs/clinical-sources.md §3.1) [C "STOP-ROP Effective FiO2 Conversion Tables for Infants on Nasal
 // Cannula"]. Rows are flows as the exact fractions the sheet means (the printed 0.03 is 1/32); columns are kg.
 const WEIGHTS_KG = [0.7, 1, 1.25, 1.5, 2, 2.5, 3, 3.5, 4];
 const TABLE_1: [string, number, number[]][] = [
@@ -31,7 +31,7 @@ const TABLE_1: [string, number, number[]][] = [
 
 describe('STOP-ROP Table 1 factor', () => {
   it('when every one of the 144 cells is computed, then all match the published table', () => {
-    // STOP-ROP Table 1 [C]; clinical-methods.md §3.1 reproduction: 0 mismatches with round-half-up
+    // STOP-ROP Table 1 [C]; docs/clinical-sources.md §3.1 reproduction: 0 mismatches with round-half-up
     const mismatches: string[] = [];
     let cells = 0;
     for (const [label, flowLpm, expected] of TABLE_1) {
@@ -65,7 +65,7 @@ describe('STOP-ROP Table 1 factor', () => {
   });
 });
 
-// clinical-methods.md §3.1 effective FiO2 check values [X] (model: 0.21 + factor × (source − 0.21)).
+// docs/clinical-sources.md §3.1 effective FiO2 check values [X] (model: 0.21 + factor × (source − 0.21)).
 const EFFECTIVE_TABLE = [
   { weightKg: 1.5, flowLpm: 0.25, source: 1, factor: 16.67, fio2: 0.3417 },
   { weightKg: 1.0, flowLpm: 0.125, source: 1, factor: 12.5, fio2: 0.3088 },
@@ -81,7 +81,7 @@ describe('effective FiO2 on a low-flow cannula (Benaron–Benitz as tabulated by
   it.each(EFFECTIVE_TABLE)(
     'when $weightKg kg on $flowLpm L/min of source $source, then effective FiO2 is $fio2',
     ({ weightKg, flowLpm, source, factor, fio2 }) => {
-      // clinical-methods.md §3.1 effective FiO2 table [X], printed to 4 decimals (0.30875 is printed 0.3088, so
+      // docs/clinical-sources.md §3.1 effective FiO2 table [X], printed to 4 decimals (0.30875 is printed 0.3088, so
       // the tolerance is half a unit in the last place, inclusive)
       expect(100 * cannulaFactor(flowLpm, weightKg)).toBeCloseTo(factor, 2);
       expect(Math.abs(effectiveFio2(flowLpm, weightKg, source) - fio2)).toBeLessThanOrEqual(0.00005 + 1e-12);

@@ -4,7 +4,7 @@ import { CONVERSION_WARNING_CODES, infeasibleReason, type ConversionWarning } fr
 import type { PrescriptionConversionInput } from '../../../shared/clinical/conversion-types';
 
 // Each warning at its limit: the last value that stays quiet beside the first that warns, and the words a
-// consultant reads (PRODUCT.md: show the cautions wherever a setting is shown; a warning with no words is no warning).
+// consultant reads (docs/product-rules.md: show the cautions wherever a setting is shown; a warning with no words is no warning).
 const base: PrescriptionConversionInput = { weightKg: 3, flowLpm: 0.25, sourceO2Percent: 100, hospital: { elevationM: 0 }, home: { elevationM: 0 } };
 const warnings = (extra: Partial<PrescriptionConversionInput>) => convertPrescription({ ...base, ...extra }).warnings;
 const find = (list: ConversionWarning[], code: string) => list.find((w) => w.code === code);
@@ -17,7 +17,7 @@ describe('conversion warnings at their limits', () => {
   });
 
   it('when the hospital supply is room air (21 %), then it is flagged as room air even with a flow', () => {
-    // A 21 % supply adds no oxygen whatever the flow (Benaron–Benitz mixing, clinical-methods.md §3.1 [C]).
+    // A 21 % supply adds no oxygen whatever the flow (Benaron–Benitz mixing, docs/clinical-sources.md §3.1 [C]).
     expect(find(warnings({ sourceO2Percent: 21, homeSourceO2Percent: 100 }), 'HOSPITAL_ON_ROOM_AIR')?.message).toMatch(/room air only/);
     expect(find(warnings({ sourceO2Percent: 22 }), 'HOSPITAL_ON_ROOM_AIR')).toBeUndefined();
   });
@@ -30,7 +30,7 @@ describe('conversion warnings at their limits', () => {
   });
 
   it('when the hospital flow is just below the weight and home is not capped, then no capped-factor warning', () => {
-    // STOP-ROP: the factor caps at flow ≥ weight (clinical-methods.md §3.1 [C]); 0.9 L/min at 1 kg is below it.
+    // STOP-ROP: the factor caps at flow ≥ weight (docs/clinical-sources.md §3.1 [C]); 0.9 L/min at 1 kg is below it.
     expect(find(warnings({ weightKg: 1, flowLpm: 0.9, hospital: { elevationM: 1000 } }), 'FACTOR_CAPPED')).toBeUndefined();
     expect(find(warnings({ weightKg: 1, flowLpm: 1 }), 'FACTOR_CAPPED')?.message).toMatch(/^A flow is at or above the weight in kg/);
   });
@@ -62,7 +62,7 @@ describe('conversion warnings at their limits', () => {
   });
 
   it('when the weight is at the ends of the STOP-ROP table (0.7 and 4 kg), then it is inside; beyond, it is flagged', () => {
-    // STOP-ROP Table 1 columns run 0.7 to 4 kg (clinical-methods.md §3.1 [C]).
+    // STOP-ROP Table 1 columns run 0.7 to 4 kg (docs/clinical-sources.md §3.1 [C]).
     expect(find(warnings({ weightKg: 0.7, flowLpm: 0.1 }), 'WEIGHT_OUTSIDE_MODEL_TABLE')).toBeUndefined();
     expect(find(warnings({ weightKg: 4 }), 'WEIGHT_OUTSIDE_MODEL_TABLE')).toBeUndefined();
     expect(find(warnings({ weightKg: 0.69, flowLpm: 0.1 }), 'WEIGHT_OUTSIDE_MODEL_TABLE')?.message).toMatch(/^The weight 0\.69 kg is outside the 0\.7–4 kg range/);

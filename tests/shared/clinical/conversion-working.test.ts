@@ -50,12 +50,12 @@ describe('prescription conversion: working lines', () => {
       expect(line.formula.length).toBeGreaterThan(3);
       expect(line.source.length).toBeGreaterThan(3);
     }
-    // A consultant redoes each line by hand (PRODUCT.md: show the working), so no two lines may read alike.
+    // A consultant redoes each line by hand (docs/product-rules.md: show the working), so no two lines may read alike.
     expect(new Set(working.map((line) => line.label)).size).toBe(working.length);
   });
 
   it('when a formula uses the water vapour pressure, then it shows the figure used (47 mmHg at 37 °C)', () => {
-    // 47 mmHg: saturated water vapour at 37 °C (clinical-methods.md §2.1, physiology references [C]).
+    // 47 mmHg: saturated water vapour at 37 °C (docs/clinical-sources.md §2.1, physiology references [C]).
     const { working } = convert();
     for (const key of ['hospital.pio2MmHg', 'home.targetFio2', 'home.pio2MmHg', 'home.deliveredPio2MmHg']) {
       expect(working.find((line) => line.key === key)?.formula, key).toContain('− 47)');
@@ -65,7 +65,7 @@ describe('prescription conversion: working lines', () => {
   });
 
   it('when the pressure model changes, then each pressure line names its own formula and source', () => {
-    // ISA 1976 needs the geopotential height; West 1996 works on geometric km (clinical-methods.md §1.1, §1.3 [C]).
+    // ISA 1976 needs the geopotential height; West 1996 works on geometric km (docs/clinical-sources.md §1.1, §1.3 [C]).
     const isa = convert().working;
     expect(isa.find((line) => line.key === 'home.pressureMmHg')?.formula).toMatch(/^PB = 101325 Pa/);
     expect(isa.find((line) => line.key === 'home.geopotentialM')?.formula).toContain('6356766');

@@ -17,7 +17,7 @@ const seaLevelTo = (home: PrescriptionConversionInput['home'], extra: Partial<Pr
 
 describe('prescription conversion: worked examples', () => {
   it('when 3 kg on 0.25 L/min of 100% goes from sea level to 1800 m, then 0.526 L/min is needed', () => {
-    // clinical-methods.md §2.4 worked example [X]: effective 0.2758, target 0.2758 × 713 / 564.22 = 0.3486,
+    // docs/clinical-sources.md §2.4 worked example [X]: effective 0.2758, target 0.2758 × 713 / 564.22 = 0.3486,
     // flow 0.526 L/min. The example uses the geopotential-table pressure 611.22 mmHg, given here as measured.
     const result = convertPrescription(seaLevelTo({ pressureMmHg: 611.22 }));
     expect(result.hospital.effectiveFio2).toBeCloseTo(0.2758, 4);

@@ -3,14 +3,14 @@ import { cylinderTime, fullCylinderMinutes, hoursAndMinutesText, type CylinderSp
 import { DEFAULT_POLICY_SETTINGS } from '../../../shared/schemas/policy';
 
 // The Virginia "Oxygen Cylinder Guidance" sheet gives factors of 0.28 L/psi (E) and 0.16 L/psi (D) with a 200 psi
-// safe residual (clinical-methods.md §7 [C]). A programme lists contents and full pressure, so each factor is
+// safe residual (docs/clinical-sources.md §7 [C]). A programme lists contents and full pressure, so each factor is
 // written as contents ÷ full pressure: 616 L ÷ 2200 psi = 0.28 and 352 L ÷ 2200 psi = 0.16.
 const E: CylinderSpec = { contentLitres: 616, fullPressure: 2200, residualPressure: 200 };
 const D: CylinderSpec = { contentLitres: 352, fullPressure: 2200, residualPressure: 200 };
 
 describe('cylinder time', () => {
   it('when an E cylinder reads 2000 psi at 2 L/min, then it lasts 252 minutes', () => {
-    // clinical-methods.md §7 and §10 #23: (2000 − 200) × 0.28 ÷ 2 = 252 min [C factor, X arithmetic]
+    // docs/clinical-sources.md §7 and §10 #23: (2000 − 200) × 0.28 ÷ 2 = 252 min [C factor, X arithmetic]
     const t = cylinderTime({ cylinder: E, gauge: 2000, flowLpm: 2, reservePercent: 0 });
     expect(t.factor).toBeCloseTo(0.28, 12);
     expect(t.minutesTotal).toBeCloseTo(252, 9);
@@ -69,7 +69,7 @@ describe('cylinder time', () => {
   });
 
   it('when the gauge is below the change-over pressure, then no usable gas is left, never a negative amount', () => {
-    // Factor method (clinical-methods.md §7 [C]): usable = (gauge − residual) × factor, floored at 0.
+    // Factor method (docs/clinical-sources.md §7 [C]): usable = (gauge − residual) × factor, floored at 0.
     const t = cylinderTime({ cylinder: E, gauge: 150, flowLpm: 1, reservePercent: 0 });
     expect(t.usableLitres).toBe(0);
     expect(t.reserveMinutes).toBe(0);

@@ -12,7 +12,7 @@ const { D, E } = US_CYLINDER_FACTORS_L_PER_PSI;
 
 describe('cylinder duration (psi gauges)', () => {
   it('when an E cylinder reads 2000 psi at 2 L/min, then it lasts 252 minutes', () => {
-    // clinical-methods.md §7 and §10 #23: (2000 − 200) × 0.28 / 2 = 252 min; factor 0.28 and 200 psi residual
+    // docs/clinical-sources.md §7 and §10 #23: (2000 − 200) × 0.28 / 2 = 252 min; factor 0.28 and 200 psi residual
     // from the Virginia "Oxygen Cylinder Guidance" sheet [C]
     expect(E).toBe(0.28);
     expect(cylinderMinutesFromPsi({ gaugePsi: 2000, cylinderFactorLPerPsi: E, flowLpm: 2 })).toBeCloseTo(252, 10);

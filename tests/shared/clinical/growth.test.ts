@@ -4,7 +4,7 @@ import { growthDrift } from '../../../shared/clinical/growth';
 
 describe('growth drift', () => {
   it('when 1.5 kg grows to 3 kg on 0.25 L/min of 100%, then effective FiO2 falls from 0.3417 to 0.2758', () => {
-    // clinical-methods.md §3.1 effective FiO2 table [X]: 1.5 kg → 0.3417, 3.0 kg → 0.2758 at 0.25 L/min, 100%
+    // docs/clinical-sources.md §3.1 effective FiO2 table [X]: 1.5 kg → 0.3417, 3.0 kg → 0.2758 at 0.25 L/min, 100%
     const drift = growthDrift({ flowLpm: 0.25, sourceO2Percent: 100, approvedWeightKg: 1.5, newWeightKg: 3 });
     expect(drift.approvedEffectiveFio2).toBeCloseTo(0.3417, 4);
     expect(drift.currentEffectiveFio2).toBeCloseTo(0.2758, 4);

@@ -3,7 +3,7 @@ import { homeFlowsOf, journeyDestination, journeyPlanForFamily, planJourney, typ
 import { journeyPlanSchema } from '../../../shared/schemas/journeys';
 import { DEFAULT_POLICY_SETTINGS, type CylinderType } from '../../../shared/schemas/policy';
 
-// An E-size cylinder by the Virginia sheet's factor (0.28 L/psi, 200 psi residual; clinical-methods.md §7 [C]),
+// An E-size cylinder by the Virginia sheet's factor (0.28 L/psi, 200 psi residual; docs/clinical-sources.md §7 [C]),
 // listed as 560 L at 2000 psi so contents ÷ full pressure = 0.28.
 const E_AT_2000: CylinderType = { id: 'e', name: 'E cylinder', contentLitres: 560, unit: 'psi', fullPressure: 2000, residualPressure: 200 };
 const policy = (reservePercent = 50, cylinders: CylinderType[] = [E_AT_2000]) => ({ ...DEFAULT_POLICY_SETTINGS, supply: { cylinders, reservePercent } });
@@ -15,7 +15,7 @@ const base = (over: Partial<JourneyPlanInput> = {}): JourneyPlanInput => ({
 
 describe('journey plan: where it is planned for', () => {
   it('when a flight gives no cabin altitude, then 8,000 ft = 2438.4 m is planned for', () => {
-    // 14 CFR 25.841(a): cabin pressure altitude at most 8,000 ft [C2]; 1 ft = 0.3048 m exactly (clinical-methods.md §4.4, units)
+    // 14 CFR 25.841(a): cabin pressure altitude at most 8,000 ft [C2]; 1 ft = 0.3048 m exactly (docs/clinical-sources.md §4.4, units)
     const plan = planJourney(base());
     expect(plan.destination).toMatchObject({ kind: 'aircraft-cabin' });
     expect(plan.destination.elevationM).toBeCloseTo(2438.4, 10);
@@ -34,7 +34,7 @@ describe('journey plan: where it is planned for', () => {
 
 describe('journey plan: the flow there', () => {
   it('when a 2 kg baby on 0.1 L/min at sea level flies, then 0.339 L/min is needed, set at 0.35', () => {
-    // clinical-methods.md §2.4 regression value [X]: 2 kg, 0.1 L/min, 100 %, to 2438.4 m → 0.339 L/min
+    // docs/clinical-sources.md §2.4 regression value [X]: 2 kg, 0.1 L/min, 100 %, to 2438.4 m → 0.339 L/min
     const plan = planJourney(base());
     for (const p of plan.periods) {
       expect(Math.abs((p.requiredFlowLpm as number) - 0.339)).toBeLessThan(0.001);
@@ -158,7 +158,7 @@ describe('journey plan: which way the air changes', () => {
     planJourney(base({ mode: 'road', origin, destinationElevationM, weightKg: 3, homeFlows: homeFlowsOf(0.5, null) })).cautions;
 
   it('when a road trip goes downhill, then the family is not told the air is thinner there', () => {
-    // ISA 1976: pressure falls with height (clinical-methods.md §1.1 [C]), so 5 m has denser air than 1780 m.
+    // ISA 1976: pressure falls with height (docs/clinical-sources.md §1.1 [C]), so 5 m has denser air than 1780 m.
     expect(cautionsFor({ elevationM: 1780 }, 5).some((c) => /thinner there/.test(c))).toBe(false);
   });
 
@@ -181,7 +181,7 @@ describe('journey plan: which way the air changes', () => {
 
 describe('journey plan: the working a consultant checks', () => {
   it('when a plan is made, then each supply and destination line is there, labelled, with its formula and source', () => {
-    // PRODUCT.md: every computed setting shows its working, so a consultant can redo each line by hand.
+    // docs/product-rules.md: every computed setting shows its working, so a consultant can redo each line by hand.
     const plan = planJourney(base({ mode: 'road', destinationElevationM: 1800, weightKg: 3, homeFlows: homeFlowsOf(0.25, null), hoursAway: 6 }));
     const lines = plan.working!.lines;
     expect(lines.map((l) => l.key)).toEqual(['destination.elevationM', 'destination.pressureMmHg', 'supply.flowLpm', 'supply.neededMinutes', 'cylinder.e.minutes', 'cylinder.e.count']);
@@ -214,7 +214,7 @@ describe('journey plan: the working a consultant checks', () => {
   });
 
   it('when a given cabin altitude is lower than the maximum, then the cautions name that altitude', () => {
-    // The plan states the altitude it assumed (PRODUCT.md: show the working, and the cautions wherever a setting is shown).
+    // The plan states the altitude it assumed (docs/product-rules.md: show the working, and the cautions wherever a setting is shown).
     const plan = planJourney(base({ cabinAltitudeFt: 6000 }));
     expect(plan.cautions.some((c) => /6,000 ft \(1,829 m\)/.test(c))).toBe(true);
     expect(plan.cautions.some((c) => /flows shown cover the flight/.test(c))).toBe(true);

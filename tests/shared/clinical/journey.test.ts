@@ -11,7 +11,7 @@ import { equivalentFio2 } from '../../../shared/clinical/oxygen';
 describe('journeys', () => {
   it('when no cabin altitude is given, then the 8,000 ft (2438.4 m) regulatory maximum is assumed', () => {
     // 14 CFR 25.841(a): cabin pressure altitude ≤ 8,000 ft [C2]; BTS 2022 quotes 2438 m [C]
-    // (clinical-methods.md §4.4)
+    // (docs/clinical-sources.md §4.4)
     expect(AIRCRAFT_CABIN_MAX_ALTITUDE_FT).toBe(8000);
     expect(AIRCRAFT_CABIN_MAX_ALTITUDE_M).toBeCloseTo(2438.4, 10);
     expect(destinationPressureSource({ kind: 'aircraft-cabin' })).toEqual({ elevationFt: 8000 });

@@ -5,7 +5,7 @@ import { detectDesaturations, DEFAULT_DESATURATION_RULES } from '../../../shared
 import type { OximetrySample } from '../../../shared/clinical/oximetry-samples';
 
 // The event definition is pinned in shared/clinical/oximetry-events.ts. Sources: ODI3/ODI4 as falls of ≥ 3 / ≥ 4
-// points from baseline per hour (Evans 2018; Urschitz 2003, clinical-methods.md §5.1); 10 s minimum duration is the
+// points from baseline per hour (Evans 2018; Urschitz 2003, docs/clinical-sources.md §5.1); 10 s minimum duration is the
 // common adult scoring convention (from memory); gap, artefact and recovery handling are our own pinned choices
 // because no published standard exists (§5.1: "ODI algorithm details are not standardised").
 
@@ -111,7 +111,7 @@ describe('desaturation events: minimum duration from policy', () => {
   });
 
   it('when a study has less valid time than the minimum, then it is not judged; at the minimum it is', () => {
-    // Urschitz 2003 excluded recordings with less than 5 h of artefact-free time (clinical-methods.md §5.1)
+    // Urschitz 2003 excluded recordings with less than 5 h of artefact-free time (docs/clinical-sources.md §5.1)
     const hour = trace(3600, () => 97);
     expect(summariseOximetry(hour).judged).toBe(false);
     expect(summariseOximetry(hour, { minValidMinutes: 60 }).judged).toBe(true);

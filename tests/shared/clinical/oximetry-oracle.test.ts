@@ -8,7 +8,7 @@ import { DEFAULT_ARTEFACT_RULES, type ArtefactRules, type OximetrySample } from 
  * definitions, sharing no code with shared/clinical. The other property tests compare the code with itself
  * (across orders and chunkings), so a rule applied wrongly the same way every time passes them; these do not.
  *
- * Definitions (clinical-methods.md §5.1): artefact-free time = valid samples × sample period (Urschitz 2003 [C]);
+ * Definitions (docs/clinical-sources.md §5.1): artefact-free time = valid samples × sample period (Urschitz 2003 [C]);
  * "% time < 90 %" counts readings strictly below the threshold (guideline wording [C]); mean, median and minimum
  * SpO2 are over valid samples only [C]. One sample per instant: a valid reading beats an artefact, and of two valid
  * readings the lower SpO2 is kept, so a dip is never lost to a duplicate (common practice).

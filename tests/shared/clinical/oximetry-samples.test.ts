@@ -18,7 +18,7 @@ const at = (tSec: number, spo2: number | null, pulse: number | null = 140, flagg
 describe('artefact rules: which samples count as valid time', () => {
   it('when SpO2 is exactly 100 %, then the sample is valid, and just above it is not', () => {
     // A saturation of 100 % is physically possible (the haemoglobin is full); above it is a device error
-    // (common practice; artefact rules in clinical-methods.md §5.1 [M]).
+    // (common practice; artefact rules in docs/clinical-sources.md §5.1 [M]).
     expect(isValidSample(at(0, 100))).toBe(true);
     expect(isValidSample(at(0, 100.1))).toBe(false);
   });

@@ -7,7 +7,7 @@ describe('oximetry summary: §5.3 synthetic trace', () => {
   const summary = summariseOximetry(buildTrace());
 
   it('when summarised, then ODI3 is 6/h and ODI4 is 4/h', () => {
-    // clinical-methods.md §5.3 [X]: all six dips fall ≥ 3 below 97; only the three 93 % dips and the 89 % dip ≥ 4
+    // docs/clinical-sources.md §5.3 [X]: all six dips fall ≥ 3 below 97; only the three 93 % dips and the 89 % dip ≥ 4
     expect(summary.odi3PerHour).toBeCloseTo(6, 12);
     expect(summary.odi4PerHour).toBeCloseTo(4, 12);
   });

@@ -12,7 +12,7 @@ import { paToMmHg } from '../../../shared/clinical/units';
 
 describe('inspired PO2', () => {
   it('when breathing air (0.2093) at sea level, then PIO2 is 149.2 mmHg', () => {
-    // clinical-methods.md §2.2 and §10 #9: (760 − 47) × 0.2093 = 149.2 mmHg [C physiology notes]; 149.23 computed
+    // docs/clinical-sources.md §2.2 and §10 #9: (760 − 47) × 0.2093 = 149.2 mmHg [C physiology notes]; 149.23 computed
     expect(inspiredPo2MmHg(0.2093, 760)).toBeCloseTo(149.23, 2);
   });
 
@@ -129,7 +129,7 @@ const TABLE_2_3 = [
 
 describe('FiO2 equivalence between pressures', () => {
   it.each(TABLE_2_3)('when the destination is $place ($pb mmHg), then wet and dry forms match §2.3', (row) => {
-    // clinical-methods.md §2.3 table [X]; wet form [C neonatal altitude page], dry form [C medical reference page]
+    // docs/clinical-sources.md §2.3 table [X]; wet form [C neonatal altitude page], dry form [C medical reference page]
     expect(equivalentFio2(0.21, row.pb, 760, 'wet')).toBeCloseTo(row.air[0], 4);
     expect(equivalentFio2(0.21, row.pb, 760, 'dry')).toBeCloseTo(row.air[1], 4);
     expect(equivalentFio2(0.21, 760, row.pb, 'wet')).toBeCloseTo(row.need[0], 4);

@@ -10,7 +10,7 @@ import {
 } from '../../../shared/clinical/pressure';
 import { mmHgToPa, paToMmHg } from '../../../shared/clinical/units';
 
-// clinical-methods.md §1.2. tablePa: U.S. Standard Atmosphere 1976 tabulated pressures by geometric altitude
+// docs/clinical-sources.md §1.2. tablePa: U.S. Standard Atmosphere 1976 tabulated pressures by geometric altitude
 // [C a]; geometricMmHg and geopotentialPa: computed from the USSA-1976 troposphere formula [X]; westMmHg: computed
 // from the West 1996 coefficients [X, coefficients C2].
 const TABLE_1_2 = [
@@ -28,7 +28,7 @@ const TABLE_1_2 = [
 
 describe('ISA barometric pressure (U.S. Standard Atmosphere 1976)', () => {
   it('when the constants are combined, then the exponent g0·M0/(R*·L) is 5.255876', () => {
-    // clinical-methods.md §1.1 and §10 #7: computed from the USSA-1976 constants
+    // docs/clinical-sources.md §1.1 and §10 #7: computed from the USSA-1976 constants
     expect(ISA_EXPONENT).toBeCloseTo(5.255876, 6);
   });
 

@@ -117,7 +117,7 @@ describe('refusals name the value that is wrong', () => {
   });
 
   it('when a requirement sits exactly on a step, then that step is chosen, not the next', () => {
-    // Never round down, and never round up past an exact match (clinical-methods.md; programme steps).
+    // Never round down, and never round up past an exact match (docs/clinical-sources.md; programme steps).
     expect(roundUpToStepLpm(0.25, [0.1, 0.25, 0.5])).toBe(0.25);
   });
 
@@ -131,11 +131,11 @@ describe('refusals name the value that is wrong', () => {
   });
 
   it('when an elevation is below −2 km or above the ISA troposphere, then it is refused; the limits themselves are not', () => {
-    // ISA 1976 troposphere up to 11 km geopotential (clinical-methods.md §1.1 [C]); −2 km is below any inhabited land
+    // ISA 1976 troposphere up to 11 km geopotential (docs/clinical-sources.md §1.1 [C]); −2 km is below any inhabited land
     // (the Dead Sea shore is near −430 m, from memory).
     expect(isaPressureMmHg(-2000)).toBeGreaterThan(760);
     expect(() => isaPressureMmHg(-2000.1)).toThrow('Elevation -2000.1 m is outside the supported range');
-    expect(isaPressurePaAtGeopotentialM(11000)).toBeCloseTo(22632.1, 0); // USSA 1976 tropopause 22632.1 Pa (clinical-methods.md §1.1 [C])
+    expect(isaPressurePaAtGeopotentialM(11000)).toBeCloseTo(22632.1, 0); // USSA 1976 tropopause 22632.1 Pa (docs/clinical-sources.md §1.1 [C])
     expect(() => isaPressurePaAtGeopotentialM(11000.1)).toThrow('Geopotential height 11000.1 m is outside the ISA troposphere');
     expect(() => resolvePressure({ pressureMmHg: 0 })).toThrow('Pressure 0 mmHg is not a usable measurement');
     expect(() => resolvePressure({ pressureMmHg: Number.NaN })).toThrow(RangeError);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { chooseChannel, smsNumber, type FamilyContactPrefs } from '../../../shared/reminders/recipient';
 
-// Consent rules are product rules (PRODUCT.md "Remind": consent is respected; the family may turn reminders off).
+// Consent rules are product rules (docs/product-rules.md "Messages": consent is respected; the family may turn reminders off).
 const contact = (over: Partial<FamilyContactPrefs> = {}): FamilyContactPrefs => ({
   preferredChannel: 'sms', consentSms: true, consentEmail: true, mobile: '+44 7700 900123', email: 'parent@test.example', remindersEnabled: true, ...over,
 });

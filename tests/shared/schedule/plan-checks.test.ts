@@ -99,7 +99,7 @@ describe('which states plan which checks', () => {
   });
 
   it('when a setting was stepped back up, then a follow-up study is planned for it too; an enrolment setting has none', () => {
-    // A failed follow-up steps back up (PRODUCT.md flow 6); the new setting is checked like a step down (common practice).
+    // A failed follow-up steps back up (docs/product-rules.md "Stepping down"); the new setting is checked like a step down (common practice).
     expect(keys({ active: { version: 5, approvedAt: NOW, reason: 'step_up', flowLpm: 0.3 } })).toContain('follow-up-v5');
     expect(keys({}).some((k) => k.startsWith('follow-up'))).toBe(false);
   });

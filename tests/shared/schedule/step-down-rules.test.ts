@@ -46,7 +46,7 @@ describe('step-down rules', () => {
   });
 
   it('when the study is too short to judge, then it counts neither for nor against the target', () => {
-    // Urschitz 2003 excluded studies with < 5 h artefact-free time (clinical-methods.md §5.1)
+    // Urschitz 2003 excluded studies with < 5 h artefact-free time (docs/clinical-sources.md §5.1)
     const short = byCode({ ...ready, study: { ...ready.study!, validMinutes: 60, meanSpo2: 99, pctBelow90: 0 } });
     expect(short.study_judged).toMatchObject({ met: false, message: 'The latest study has 1 h of valid recording, less than the 5 h needed to judge it: repeat the study.' });
     expect(short.study_on_target.message).toBe('A study too short to judge does not count for or against the target.');

@@ -59,7 +59,7 @@ describe('the next rung of the step-down ladder', () => {
 });
 
 describe('the overnight target', () => {
-  // BTS 2009 as cited by the Starship guideline (clinical-methods.md §4.2 [C2]): mean SpO2 ≥ 93 % and < 5 % of the
+  // BTS 2009 as cited by the Starship guideline (docs/clinical-sources.md §4.2 [C2]): mean SpO2 ≥ 93 % and < 5 % of the
   // time below 90 %; ≥ 95 % with pulmonary hypertension (Starship [C2]). A study needs 5 h of valid time to be
   // judged (Urschitz 2003, §5.1 [C]).
   const study = (meanSpo2: number | null, pctBelow90: number | null, validMinutes = 480) => ({ meanSpo2, pctBelow90, validMinutes });

@@ -14,7 +14,7 @@ describe('journey request contract', () => {
 
   it('when fields are wrong, then each one is named', () => {
     expect(fields(createJourneySchema.safeParse({ ...road, destinationElevationM: null, cabinAltitudeFt: 500 }))).toEqual(['cabinAltitudeFt', 'destinationElevationM']);
-    // 8,000 ft is the regulatory cabin maximum (14 CFR 25.841(a), clinical-methods.md §4.4).
+    // 8,000 ft is the regulatory cabin maximum (14 CFR 25.841(a), docs/clinical-sources.md §4.4).
     expect(fields(createJourneySchema.safeParse({ ...road, mode: 'flight', cabinAltitudeFt: 8001 }))).toEqual(['cabinAltitudeFt']);
     expect(fields(createJourneySchema.safeParse({ ...road, returnOn: '2026-12-09' }))).toEqual(['returnOn']);
     expect(fields(createJourneySchema.safeParse({ ...road, hoursAway: 0 }))).toEqual(['hoursAway']);

@@ -6,7 +6,7 @@ export interface Dip {
   spo2: number;
 }
 
-// clinical-methods.md §5.3 synthetic regression trace: 1 Hz, 3600 s, baseline 97 %; three dips to 93 % for 15 s,
+// docs/clinical-sources.md §5.3 synthetic regression trace: 1 Hz, 3600 s, baseline 97 %; three dips to 93 % for 15 s,
 // two to 94 % for 15 s, one to 89 % for 20 s. Dips sit 500 s apart so each one's 120 s baseline window holds only
 // baseline samples (the section assumes a fixed baseline of 97).
 export const SECTION_5_3_DIPS: Dip[] = [
