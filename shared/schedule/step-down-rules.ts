@@ -115,3 +115,9 @@ export function checkStepDownRules(f: StepDownFacts, p: PolicySettings): RuleChe
 }
 
 export const unmetRules = (checks: readonly RuleCheck[]) => checks.filter((c) => !c.met);
+
+/** The unmet rules recorded in a proposal's stored evidence; none for proposals that carry no rule checks. */
+export function unmetInEvidence(evidence: unknown): { code: string; message: string }[] {
+  const checks = (evidence as { checks?: unknown } | null | undefined)?.checks;
+  return Array.isArray(checks) ? (checks as { code: string; met: boolean; message: string }[]).filter((c) => c?.met === false) : [];
+}

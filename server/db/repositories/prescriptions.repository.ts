@@ -28,6 +28,9 @@ export function createPrescriptionsRepository(ds: DataSource) {
       const [row] = await m.query(`SELECT coalesce(max(version), 0) + 1 AS v FROM prescriptions WHERE infant_id = $1`, [infantId]);
       return Number(row.v);
     },
+    /** True while a proposal for this baby is being worked out or waits for sign-off. */
+    hasPending: async (infantId: string, m: EntityManager) =>
+      (await m.query(`SELECT 1 FROM prescriptions WHERE infant_id = $1 AND status IN ('preparing','proposed') LIMIT 1`, [infantId])).length > 0,
     /** A newer proposal replaces any still pending, so only one ever waits for sign-off per baby. */
     withdrawPending: (infantId: string, m: EntityManager) =>
       repo(m).update({ infantId, status: In(['preparing', 'proposed']) }, { status: 'withdrawn' }),

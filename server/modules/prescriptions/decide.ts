@@ -4,16 +4,14 @@ import { effectiveFio2 } from '../../../shared/clinical/cannula';
 import { FLOW_TOLERANCE_LPM } from '../../../shared/clinical/flowmeter';
 import type { AppAbility } from '../../../shared/auth/ability';
 import type { DecisionInput } from '../../../shared/schemas/prescriptions';
+import { unmetInEvidence } from '../../../shared/schedule/step-down-rules';
 import type { PrescriptionEntity } from '../../db/entities/prescription.entity';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { AppRepos } from '../../deps';
 import { ConflictError, NotFoundError, ValidationError, type FieldErrors } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 
-const unmetChecks = (rx: PrescriptionEntity): string[] => {
-  const checks = (rx.evidence as { checks?: { code: string; met: boolean }[] } | null)?.checks;
-  return Array.isArray(checks) ? checks.filter((c) => c.met === false).map((c) => c.code) : [];
-};
+const unmetChecks = (rx: PrescriptionEntity): string[] => unmetInEvidence(rx.evidence).map((c) => c.code);
 
 const STEP_CHANGE_REASONS: string[] = ['step_down', 'step_up', 'leave_programme'];
 const isStep = (flow: number, steps: readonly number[]) => steps.some((s) => Math.abs(s - flow) <= FLOW_TOLERANCE_LPM);

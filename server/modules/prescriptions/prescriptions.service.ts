@@ -11,13 +11,8 @@ import type { Actor } from '../../lib/http';
 import { todayIn } from '../../lib/dates';
 import { correctedAgeText } from '../infants/infants.mapper';
 import { decidePrescription } from './decide';
+import { unmetInEvidence } from '../../../shared/schedule/step-down-rules';
 import { forFamily, toPrescriptionDto } from './prescriptions.mapper';
-
-/** How many of the programme's step-down rules a proposal's evidence records as not met (0 for other proposals). */
-const unmetCount = (evidence: unknown) => {
-  const checks = (evidence as { checks?: { met?: boolean }[] } | null)?.checks;
-  return Array.isArray(checks) ? checks.filter((c) => c?.met === false).length : 0;
-};
 
 export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
   return {
@@ -49,7 +44,7 @@ export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs
           siteName: r.site_name, reason: r.reason as QueueItem['reason'],
           proposedFlowLpm: r.proposed_flow_lpm === null ? null : Number(r.proposed_flow_lpm),
           feasible: r.result ? r.result.feasible : r.proposed_flow_lpm !== null, warningCount: r.result?.warnings.length ?? 0,
-          unmetChecks: unmetCount(r.evidence), waitingSince: new Date(r.created_at).toISOString(),
+          unmetChecks: unmetInEvidence(r.evidence).length, waitingSince: new Date(r.created_at).toISOString(),
         })),
       };
     },

@@ -1,3 +1,5 @@
+import { DEFAULT_MIN_VALID_MINUTES } from '../../../shared/clinical/oximetry';
+import { DEFAULT_MIN_EVENT_SECONDS } from '../../../shared/clinical/oximetry-events';
 import type { DesaturationEvent } from '../../../shared/clinical/oximetry-events';
 import type { Recording, RecordingTrace } from '../../../shared/schemas/recordings';
 import { TRACE_THRESHOLD_SPO2, type TracePoint } from '../../../shared/recordings/trace';
@@ -16,7 +18,8 @@ export function toRecordingDto(r: RecordingWithUploader): Recording {
     dto.summary = {
       validMinutes: r.validMinutes ?? 0, meanSpo2: r.meanSpo2, medianSpo2: r.medianSpo2, minSpo2: r.minSpo2,
       pctBelow90: r.pctBelow90, pctBelow92: r.pctBelow92, pctBelow93: r.pctBelow93, odi3: r.odi3, odi4: r.odi4, meanPulse: r.meanPulse,
-      judged: r.judged ?? (r.validMinutes ?? 0) >= (r.minValidMinutes ?? 300), minValidMinutes: r.minValidMinutes ?? 300, minEventSeconds: r.minEventSeconds ?? 10,
+      // Every done recording has these since the StudyJudgement migration; the defaults only type the nullable columns.
+      judged: r.judged ?? false, minValidMinutes: r.minValidMinutes ?? DEFAULT_MIN_VALID_MINUTES, minEventSeconds: r.minEventSeconds ?? DEFAULT_MIN_EVENT_SECONDS,
     };
   }
   return dto;

@@ -53,8 +53,7 @@ export function createStepDownsService(ds: DataSource, repos: AppRepos) {
   /** Why no step down can be asked for at all (nothing to step down from, or a proposal already waiting). */
   async function blocked(infantId: string, active: PrescriptionEntity | null, m: EntityManager): Promise<string | null> {
     if (!active || (active.approvedFlowLpm ?? 0) <= 0) return 'This baby has no oxygen to step down from.';
-    const pending = await m.query(`SELECT 1 FROM prescriptions WHERE infant_id = $1 AND status IN ('preparing','proposed') LIMIT 1`, [infantId]);
-    return pending.length ? 'A new setting is already waiting for sign-off for this baby.' : null;
+    return (await repos.prescriptions.hasPending(infantId, m)) ? 'A new setting is already waiting for sign-off for this baby.' : null;
   }
 
   return {
@@ -118,8 +117,7 @@ export function createStepDownsService(ds: DataSource, repos: AppRepos) {
       return ds.transaction(async (m) => {
         const infant = await repos.infants.findForUpdate(infantId, m);
         if (!infant || ['preparing', 'awaiting_signoff', 'sent_back', 'left_programme'].includes(infant.status)) return null;
-        const pending = await m.query(`SELECT 1 FROM prescriptions WHERE infant_id = $1 AND status IN ('preparing','proposed') LIMIT 1`, [infantId]);
-        if (pending.length) return null;
+        if (await repos.prescriptions.hasPending(infantId, m)) return null;
         const policy = await repos.policies.current(infant.programmeId, m);
         const target = meetsOvernightTarget(study, policy.settings, infant.diagnoses.includes('pulmonary_hypertension'));
         // A study too short to judge says nothing either way: no flag raised or cleared, nothing proposed.

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkStepDownRules, unmetRules, type StepDownFacts } from '../../../shared/schedule/step-down-rules';
+import { checkStepDownRules, unmetInEvidence, unmetRules, type StepDownFacts } from '../../../shared/schedule/step-down-rules';
 import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '../../../shared/schemas/policy';
 
 // Defaults and their sources are listed in shared/schedule/step-down-rules.ts: 14 days on a setting (common
@@ -100,5 +100,14 @@ describe('step-down rules', () => {
     expect(c.study_judged.met).toBe(false);
     expect(byCode({ ...ready, study: { ...ready.study!, recordedAt: daysAgo(0.5) } }, strict).study_judged.message).toMatch(/less than the 10 h needed/);
     expect(c.readings_in_range.message).toBe('1 reading in the last 2 days, mean SpO2 95 % (at least 96 % needed).');
+  });
+
+  it('when a stored proposal is read back, then only the rules recorded as not met are counted; other proposals have none', () => {
+    // the consultant's queue and decision read the evidence stored with the proposal (docs/product-rules.md "Stepping down")
+    const checks = checkStepDownRules({ ...ready, readings: [] }, P);
+    expect(unmetInEvidence({ checks }).map((c) => c.code)).toEqual(['readings_in_range']);
+    expect(unmetInEvidence({ recordingId: 'r1', targetMet: true })).toEqual([]);
+    expect(unmetInEvidence(null)).toEqual([]);
+    expect(unmetInEvidence(undefined)).toEqual([]);
   });
 });

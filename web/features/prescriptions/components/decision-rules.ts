@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { FLOW_TOLERANCE_LPM } from '../../../../shared/clinical/flowmeter';
+import { unmetInEvidence } from '../../../../shared/schedule/step-down-rules';
 import { decisionSchema, type DecisionInput, type Prescription } from '../../../../shared/schemas/prescriptions';
 
 export const DECISION_MODES = ['as_proposed', 'different', 'send_back'] as const;
@@ -19,10 +20,7 @@ export interface DecisionFormValues {
 export type DecisionFacts = Pick<Prescription, 'proposedFlowLpm' | 'requiredFlowLpm'> & Partial<Pick<Prescription, 'evidence'>>;
 
 /** The programme's step-down rules the proposal's evidence records as not met (empty for other proposals). */
-export function unmetChecksOf(rx: DecisionFacts): { code: string; message: string }[] {
-  const checks = (rx.evidence as { checks?: { code: string; met: boolean; message: string }[] } | null | undefined)?.checks;
-  return Array.isArray(checks) ? checks.filter((c) => c.met === false) : [];
-}
+export const unmetChecksOf = (rx: DecisionFacts) => unmetInEvidence(rx.evidence);
 export const unmetReasonMessage = (n: number) => `${n} step-down ${n === 1 ? 'rule is' : 'rules are'} not met: record why you approve anyway`;
 
 export const isBelowRequired = (flowLpm: number, rx: DecisionFacts) =>
