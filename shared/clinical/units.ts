@@ -45,3 +45,8 @@ export function feetToMetres(lengthFt: number): number {
 export function metresToFeet(lengthM: number): number {
   return lengthM / METRES_PER_FOOT;
 }
+
+/** Minutes as hours to one decimal, for sentences such as "1.5 h of valid recording". */
+export function hoursOneDecimal(minutes: number): number {
+  return Math.round((minutes / 60) * 10) / 10;
+}

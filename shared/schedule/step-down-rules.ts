@@ -1,6 +1,7 @@
 import type { PolicySettings } from '../schemas/policy';
 import type { InfantFlag } from '../schemas/infants';
 import { meetsOvernightTarget } from './step-down';
+import { hoursOneDecimal } from '../clinical/units';
 
 /**
  * The programme's rules for a step down, checked on the server before a request is accepted and shown on the
@@ -72,13 +73,13 @@ function studyChecks(f: StepDownFacts, p: PolicySettings): RuleCheck[] {
   const min = p.oximetry.minValidMinutes;
   if (s.validMinutes < min) {
     return [
-      { code: 'study_judged', met: false, message: `The latest study has ${oneDecimal(s.validMinutes / 60)} h of valid recording, less than the ${oneDecimal(min / 60)} h needed to judge it: repeat the study.` },
+      { code: 'study_judged', met: false, message: `The latest study has ${hoursOneDecimal(s.validMinutes)} h of valid recording, less than the ${hoursOneDecimal(min)} h needed to judge it: repeat the study.` },
       { code: 'study_on_target', met: false, message: 'A study too short to judge does not count for or against the target.' },
     ];
   }
   const target = meetsOvernightTarget(s, p, f.pulmonaryHypertension);
   return [
-    { code: 'study_judged', met: true, message: `A study from the last ${days(within)} with ${oneDecimal(s.validMinutes / 60)} h of valid recording.` },
+    { code: 'study_judged', met: true, message: `A study from the last ${days(within)} with ${hoursOneDecimal(s.validMinutes)} h of valid recording.` },
     { code: 'study_on_target', met: target.met, message: target.met ? 'The latest study meets the overnight target.' : `The latest study is below the overnight target: ${target.reasons.join('; ')}.` },
   ];
 }

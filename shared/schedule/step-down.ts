@@ -1,5 +1,6 @@
 import type { PolicySettings } from '../schemas/policy';
 import { FLOW_TOLERANCE_LPM } from '../clinical/flowmeter';
+import { hoursOneDecimal } from '../clinical/units';
 
 export interface Setting {
   flowLpm: number;
@@ -57,7 +58,7 @@ export function isJudged(validMinutes: number, policy: PolicySettings): boolean 
 
 export function meetsOvernightTarget(study: StudyResult, policy: PolicySettings, pulmonaryHypertension: boolean): { met: boolean; judged: boolean; reasons: string[] } {
   if (!isJudged(study.validMinutes, policy)) {
-    const hours = Math.round((policy.oximetry.minValidMinutes / 60) * 10) / 10;
+    const hours = hoursOneDecimal(policy.oximetry.minValidMinutes);
     return { met: false, judged: false, reasons: [`too short to judge: less than ${hours} hours of valid recording`] };
   }
   const t = policy.spo2Targets;

@@ -1,3 +1,4 @@
+import { hoursOneDecimal } from '../../../shared/clinical/units';
 import { DEFAULT_MIN_VALID_MINUTES } from '../../../shared/clinical/oximetry';
 import type { DataSource } from 'typeorm';
 import type { AppRepos } from '../../deps';
@@ -14,7 +15,7 @@ export async function afterStudy(ds: DataSource, repos: AppRepos, recordingId: s
     const [open] = await repos.checks.openOfKinds(r.infantId, ['overnight_study', 'room_air_challenge'], m);
     if (open && r.judged === false) {
       // Too short to judge: the planned study stays open and says a repeat is needed (the nurse's day shows it).
-      const hours = Math.round(((r.minValidMinutes ?? DEFAULT_MIN_VALID_MINUTES) / 60) * 10) / 10;
+      const hours = hoursOneDecimal(r.minValidMinutes ?? DEFAULT_MIN_VALID_MINUTES);
       const when = (r.startedAt ?? r.uploadedAt).toISOString().slice(0, 10);
       await m.query(`UPDATE checks SET note = $2, updated_at = now() WHERE id = $1`, [
         open.id, `Repeat needed: the recording of ${when} had less than ${hours} hours of valid time, too short to judge.`,

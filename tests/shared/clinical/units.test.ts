@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
   feetToMetres,
+  hoursOneDecimal,
   hPaToMmHg,
   kPaToMmHg,
   metresToFeet,
@@ -50,3 +51,15 @@ describe('pressure and length units', () => {
     );
   });
 });
+
+describe('hours for sentences', () => {
+  it('when minutes are written as hours, then they keep one decimal, rounding halves up', () => {
+    // 300 min is the 5 h minimum valid time (Urschitz 2003, docs/clinical-sources.md §5.1)
+    expect(hoursOneDecimal(300)).toBe(5);
+    expect(hoursOneDecimal(60)).toBe(1);
+    expect(hoursOneDecimal(534)).toBe(8.9);
+    expect(hoursOneDecimal(531)).toBe(8.9);
+    expect(hoursOneDecimal(530)).toBe(8.8);
+  });
+});
+

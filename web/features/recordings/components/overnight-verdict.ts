@@ -1,3 +1,4 @@
+import { hoursOneDecimal } from '../../../../shared/clinical/units';
 import type { PolicySettings } from '../../../../shared/schemas/policy';
 import type { RecordingSummary } from '../../../../shared/schemas/recordings';
 import { meetsOvernightTarget } from '../../../../shared/schedule/step-down';
@@ -20,7 +21,7 @@ export function overnightVerdict(summary: RecordingSummary, settings: PolicySett
     pulmonaryHypertension,
   );
   const t = settings.spo2Targets;
-  const hours = (minutes: number) => `${Math.round((minutes / 60) * 10) / 10} h`;
+  const hours = (minutes: number) => `${hoursOneDecimal(minutes)} h`;
   if (!summary.judged) {
     return {
       met: false, judged: false,
