@@ -214,4 +214,42 @@ describe('Enrol a baby', () => {
     // The record's code loads lazily; under a busy machine that can take longer than waitFor's default second.
     await waitFor(() => expect(currentUrl(router)).toBe(`/infants/${INFANT_ID}`), { timeout: 5000 });
   });
+
+  it('when steps are passed, then the step bar ticks them in words, the check step writes dates in words and language and zone are choices', async () => {
+    const { posts } = stubEnrol(() => json(201, enrolled));
+    const { user } = renderApp('/enrol');
+    const bar = () => within(screen.getByRole('navigation', { name: 'Enrolment steps' }));
+    await fillBaby(user);
+    expect(bar().queryByText(/\(done\)/)).toBeNull();
+    await next(user);
+    await fillHospital(user);
+    await next(user);
+    // Read as text: jsdom's name calculation drops the spaces between the button's inline parts, a browser keeps them.
+    await waitFor(() => expect(stepTitle()).toBe('Step 3 of 5: Home'));
+    const steps = bar().getAllByRole('button');
+    expect(steps.map((step) => step.textContent)).toEqual([
+      'Step 1: Baby (done)', 'Step 2: Hospital setting (done)', '3Step 3: Home', '4Step 4: Care team and family', '5Step 5: Check and save',
+    ]);
+    expect(steps[2]).toHaveAttribute('aria-current', 'step');
+    await fillHome(user);
+    await next(user);
+    await fillCare(user);
+    const language = screen.getByRole('combobox', { name: /^Language/ });
+    const zone = screen.getByRole('combobox', { name: /^Time zone/ });
+    // The programme's zone is offered first; free text is no longer possible.
+    expect(within(zone).getAllByRole('option')[0]).toHaveValue('Europe/London');
+    expect(within(zone).getByRole('option', { name: 'America / Buenos Aires' })).toBeInTheDocument();
+    expect(within(language).getAllByRole('option')[0]).toHaveValue('en');
+    expect(within(language).getByRole('option', { name: 'Welsh — messages in English' })).toHaveValue('cy');
+    await user.selectOptions(language, 'cy');
+    await user.selectOptions(zone, 'Europe/Dublin');
+    await next(user);
+    await waitFor(() => expect(stepTitle()).toBe('Step 5 of 5: Check and save'));
+    expect(screen.getByText('10 Jan 2025')).toBeInTheDocument();
+    expect(screen.getByText('2.4 kg on 1 Apr 2025')).toBeInTheDocument();
+    expect(screen.queryByText(/2025-0/)).toBeNull();
+    await user.click(screen.getByRole('button', { name: 'Enrol baby' }));
+    await waitFor(() => expect(posts).toHaveLength(1));
+    expect((posts[0].body as Record<string, any>).contacts[0]).toMatchObject({ language: 'cy', timeZone: 'Europe/Dublin' });
+  });
 });
