@@ -113,6 +113,11 @@ describe('Infant record: visits', () => {
     const { user } = renderApp(`/infants/${ID}`);
     const card = await visitsCard();
     await user.click(await within(card).findByRole('button', { name: 'Move' }));
+    // The move form's way out is not another "Cancel" beside the visit's own.
+    expect(within(card).queryByRole('button', { name: /cancel/i })).not.toBeInTheDocument();
+    await user.click(within(card).getByRole('button', { name: 'Keep the visit as it is' }));
+    expect(within(card).queryByRole('button', { name: 'Move the visit' })).not.toBeInTheDocument();
+    await user.click(await within(card).findByRole('button', { name: 'Move' }));
     const before = visitCalls();
     await user.click(within(card).getByRole('button', { name: 'Move the visit' }));
     expect(await within(card).findByRole('alert')).toHaveTextContent(/changed this visit while you were editing/);
@@ -126,7 +131,10 @@ describe('Infant record: visits', () => {
     });
     const { user } = renderApp(`/infants/${ID}`);
     const card = await visitsCard();
-    await user.click(await within(card).findByRole('button', { name: 'Cancel' }));
+    await user.click(await within(card).findByRole('button', { name: 'Cancel the visit' }));
+    // Inside the form the way out says what it keeps, so it cannot be read as cancelling the visit.
+    expect(within(card).getByRole('button', { name: 'Keep the visit as it is' })).toBeInTheDocument();
+    expect(within(card).getAllByRole('button', { name: /cancel/i }).map((b) => b.textContent)).toEqual(['Cancel the visit']);
     await user.click(within(card).getByRole('button', { name: 'Cancel the visit' }));
     expect(await within(card).findByText('Say why the visit is cancelled')).toBeInTheDocument();
     expect(cancels).toHaveLength(0);

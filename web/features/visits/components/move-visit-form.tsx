@@ -40,7 +40,7 @@ export function MoveVisitForm({ visit, onClose }: { visit: Visit; onClose: () =>
         <TextField label="New date" type="date" error={errors.date?.message} {...register('date')} />
         <TextField label="New time" type="time" hint="The family's local time" error={errors.time?.message} {...register('time')} />
       </div>
-      <FormActions pending={move.isPending} submitLabel="Move the visit" pendingLabel="Moving…" onCancel={onClose} />
+      <FormActions pending={move.isPending} submitLabel="Move the visit" pendingLabel="Moving…" onCancel={onClose} cancelLabel="Keep the visit as it is" />
     </form>
   );
 }
