@@ -33,6 +33,11 @@ export function dateTimeInWords(instant: Date, timeZone?: string): string {
   return `${date.format(instant)}, ${time.format(instant)}`;
 }
 
+/** The calendar day of an instant in the given zone (the reader's own when none is given): "3 Dec 2026". */
+export function dayInWords(instant: Date, timeZone?: string): string {
+  return formattersFor(timeZone).date.format(instant);
+}
+
 /** An instant's clock time alone, "21:05". */
 export function timeInWords(instant: Date, timeZone?: string): string {
   return formattersFor(timeZone).time.format(instant);

@@ -97,6 +97,9 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     }
     await page.getByRole('complementary', { name: 'Keep your baby safe' }).waitFor();
 
+    // Below the emergency, the setting and the visits, the rest of the page is folded under its heading.
+    const unfold = (title: string) => page.getByRole('button', { name: new RegExp(`^${title}`) }).click();
+    await unfold('Who to call');
     const calls = page.getByRole('list', { name: 'Numbers to call' });
     await calls.waitFor();
     for (const phone of PHONES) {
@@ -108,6 +111,8 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     await page.getByText(emergencyCallText(emergencyNumber)).waitFor();
     expect(await page.getByRole('link', { name: `Call the emergency number, ${emergencyNumber}` }).getAttribute('href')).toBe(`tel:${emergencyNumber}`);
 
+    await unfold('Warning signs that need help now');
+    await unfold('Oxygen safety at home');
     const signs = page.getByRole('list', { name: 'Warning signs' }).getByRole('listitem');
     expect(await signs.allTextContents()).toEqual([...WARNING_SIGNS]);
     const safety = page.getByRole('list', { name: 'Oxygen safety at home' }).getByRole('listitem');
@@ -120,6 +125,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     // (docs/clinical-sources.md §7 check value, formula and factor from the Virginia EMS cylinder guidance sheet).
     expect(cylinderTime({ cylinder: { contentLitres: 0.28 * 2200, fullPressure: 2200, residualPressure: 200 }, gauge: 2000, flowLpm: 2, reservePercent: 0 }).minutesTotal).toBeCloseTo(252, 9);
 
+    await page.getByRole('button', { name: /^How long will a cylinder last\?/ }).click();
     await page.getByRole('link', { name: 'Work out cylinder time' }).click();
     await page.waitForURL(/\/family\/cylinder/);
     const supply = (await api('GET', '/api/policy')).body.settings.supply as {
@@ -148,6 +154,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
 
   it('when the family asks for a flight check, then the page says it waits for the consultant and shows no numbers yet', async () => {
     await page.getByRole('link', { name: 'Back to our plan' }).click();
+    await page.getByRole('button', { name: /^Trips/ }).click();
     await page.getByRole('link', { name: 'Ask for a trip check' }).click();
     await page.waitForURL(/\/family\/journey/);
     const session = (await api('GET', '/api/session')).body;

@@ -255,7 +255,8 @@ describe('Journey check: the family sees the answer', { timeout: 20_000 }, () =>
     const declined = journey({ id: 'a1a1a1a1-0000-4000-8000-000000000093', status: 'declined', plan: null }, { destinationName: 'Tallow Ridge' });
     const past = approvedFor(-10, 'a1a1a1a1-0000-4000-8000-000000000094', 'Emberly');
     stubFamilyHome([approvedFor(30), waiting, declined, past]);
-    renderApp('/family');
+    const { user } = renderApp('/family');
+    await user.click(await screen.findByRole('button', { name: /^Trips/ }, { timeout: 5000 }));
     const list = await screen.findByRole('list', { name: 'Your trips' }, { timeout: 5000 });
     const lines = within(list).getAllByRole('listitem').map((li) => li.textContent ?? '');
     expect(lines).toHaveLength(3);
