@@ -76,6 +76,9 @@ describe('Infant record: visits', () => {
     await user.click(within(card).getByRole('button', { name: 'Book a visit' }));
     const form = within(card).getByRole('form', { name: 'Book a visit' });
     await user.type(within(form).getByLabelText('Date'), '2037-03-29');
+    // Typed on the 24-hour clock in a plain box: the browser's time box may show am/pm.
+    expect(within(form).getByLabelText(/^Time/)).toHaveAttribute('type', 'text');
+    expect(within(form).getByLabelText(/^Time/)).toHaveAccessibleDescription(/24-hour clock/);
     await user.type(within(form).getByLabelText(/^Time/), '01:30');
     await user.selectOptions(await within(form).findByLabelText('Who will see the family'), await within(form).findByRole('option', { name: 'Tobias Fenwright' }));
     await user.type(within(form).getByLabelText('What it is for'), 'Spot check and weight');
