@@ -240,7 +240,9 @@ describe('Journey check: the family sees the answer', { timeout: 20_000 }, () =>
 
   it('when an approved trip is days away, then it shows with the flow there and the cylinders to take', async () => {
     stubFamilyHome([approvedFor(2)]);
-    renderApp('/family');
+    const { user } = renderApp('/family');
+    // Days ahead, the trip is folded under its name and dates; under way, it shows open (next test).
+    await user.click(await screen.findByRole('button', { name: /^Your trip to Cindermoor/ }, { timeout: 5000 }));
     const trip = await screen.findByRole('region', { name: 'Your trip to Cindermoor' }, { timeout: 5000 });
     expect(within(trip).getByText('Set the flowmeter to 0.55 litres per minute, day and night')).toBeInTheDocument();
     const cylinders = within(trip).getByRole('list', { name: 'Cylinders to take' });
@@ -248,6 +250,14 @@ describe('Journey check: the family sees the answer', { timeout: 20_000 }, () =>
     expect(within(trip).getByText('This includes 50% extra in case of delays.')).toBeInTheDocument();
     expect(within(trip).getByRole('complementary', { name: 'Before you go to Cindermoor' })).toHaveTextContent(/thinner there/);
     expect(trip).not.toHaveTextContent(/L\/min|mmHg|FiO2/);
+  });
+
+  it('when an approved trip is under way, then its setting shows open, not folded', async () => {
+    stubFamilyHome([approvedFor(0)]);
+    renderApp('/family');
+    const trip = await screen.findByRole('region', { name: 'Your trip to Cindermoor' }, { timeout: 5000 });
+    expect(within(trip).getByText('Set the flowmeter to 0.55 litres per minute, day and night')).toBeVisible();
+    expect(screen.queryByRole('button', { name: /^Your trip to Cindermoor/ })).not.toBeInTheDocument();
   });
 
   it('when trips are further off, waiting or not approved, then each is one line and no numbers are shown', async () => {

@@ -12,9 +12,26 @@ import { EmergencySection } from '../../features/family/components/emergency-sec
 import { OxygenSafety } from '../../features/family/components/oxygen-safety';
 import { WhoToCall } from '../../features/family/components/who-to-call';
 import { CurrentTrips, PlanningATrip } from '../../features/journeys/components/family-trips';
-import { todayIn } from '../../features/journeys/components/journey-words';
+import { datesWords, todayIn, tripIsCurrent } from '../../features/journeys/components/journey-words';
+import { useInfantJourneys } from '../../features/journeys/api/get-journeys';
 import { useSignedInUser } from '../../lib/signed-in-user';
 import { usePageTitle } from '../../lib/page-title';
+
+/**
+ * A trip under way is today's setting, shown in full; one still days ahead folds under its dates, so the week
+ * before a trip does not push everything else down.
+ */
+function TripSoon({ infantId, today }: { infantId: string; today: string }) {
+  const soon = (useInfantJourneys(infantId).data ?? []).filter((j) => tripIsCurrent(j, today));
+  if (soon.length === 0) return null;
+  if (soon.some((j) => j.request.departOn <= today)) return <CurrentTrips infantId={infantId} today={today} />;
+  const first = [...soon].sort((a, b) => a.request.departOn.localeCompare(b.request.departOn))[0];
+  return (
+    <FoldedSection title={`Your trip to ${first.request.destinationName}`} large summary={`Approved, ${datesWords(first.request)}: the setting there and what to take.`}>
+      <CurrentTrips infantId={infantId} today={today} />
+    </FoldedSection>
+  );
+}
 
 /**
  * Phone-first and large type: families read this at home, often one-handed, often tired. Ordered by urgency: what
@@ -35,7 +52,7 @@ export function Component() {
       <EmergencySection />
       <OurPlan />
       <NextVisits infantId={baby?.id} />
-      {baby && <CurrentTrips infantId={baby.id} today={today} />}
+      {baby && <TripSoon infantId={baby.id} today={today} />}
       <div className="flex flex-col gap-3">
         <WhoToCall />
         {baby && <CylinderLinkCard href={withBaby('/family/cylinder')} />}
