@@ -7,9 +7,10 @@ import path from 'node:path';
 import { cylinderTime } from '../../shared/clinical/cylinder-time';
 import { addDays } from '../../shared/clinical/dates';
 import {
-  OXYGEN_SAFETY_POINTS, PERIOD_LABELS, WARNING_SIGNS, emergencyCallText, flowInWords, flowText,
+  OXYGEN_SAFETY_POINTS, WARNING_SIGNS, emergencyCallText, flowInWords, flowText, periodLines,
 } from '../../shared/family/care-text';
 import { JOURNEY_PERIODS } from '../../shared/schemas/journeys';
+import { homeFlowsOf } from '../../shared/clinical/journey-plan';
 import { axeReport as report, seriousViolations as seriousOn } from '../helpers/a11y';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 
@@ -176,6 +177,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     journeyId = asked.id;
 
     await page.getByRole('link', { name: 'Back to our plan' }).last().click();
+    await page.getByRole('button', { name: /^Trips/ }).click();
     await page.getByRole('list', { name: 'Your trips' }).getByText(`Your trip to ${DESTINATION}`, { exact: false }).waitFor();
     expect(await page.getByRole('list', { name: 'Your trips' }).textContent()).toContain('waiting for the consultant to check it');
   });
@@ -201,6 +203,8 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     await signIn('family@larkmoor.example');
     await page.waitForURL(`${base}/family`);
     const { journey } = (await api('GET', `/api/journeys/${journeyId}`)).body;
+    // Two days ahead, the trip is folded under its name; opened, it shows in full.
+    await page.getByRole('button', { name: new RegExp(`^Your trip to ${DESTINATION}`) }).click();
     const trip = page.getByRole('region', { name: `Your trip to ${DESTINATION}` });
     await trip.waitFor();
     // A flight with no higher destination is planned for the cabin only; the card must not read as a new home setting.
@@ -229,8 +233,9 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     expect(readFileSync(file).subarray(0, 5).toString('latin1')).toBe('%PDF-');
     const text = spaced(execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }));
     const line = (flow: number) => (flow === 0 ? 'off (no oxygen)' : `${flowText(flow)}: ${flowInWords(flow)}`);
-    if (plan.periods === null) expect(text).toContain(`Day and night: ${line(plan.approvedFlowLpm)}`);
-    else for (const p of JOURNEY_PERIODS) expect(text).toContain(`${PERIOD_LABELS[p]}: ${line(plan.periods[p])}`);
+    // One line when awake, asleep and feeding share the flow, else one per part of the day.
+    const flows = homeFlowsOf(plan.approvedFlowLpm, plan.periods);
+    for (const l of periodLines(JOURNEY_PERIODS.map((period) => ({ period, flowLpm: flows[period] })))) expect(text).toContain(`${l.label}: ${line(l.flowLpm)}`);
     // The plan prints the approved trip leaving soonest; ours leaves in 2 days, before any demo trip of the family's.
     expect(text).toContain(`Approved journey: ${DESTINATION}`);
     for (const phone of PHONES) expect(text).toContain(phone.number);
@@ -238,7 +243,10 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
 
   it('when axe checks each family page, then none has a serious or critical violation', async () => {
     const pages: Array<[string, () => Promise<void>]> = [
-      ['/family', () => page.getByRole('region', { name: `Your trip to ${DESTINATION}` }).waitFor()],
+      ['/family', async () => {
+        await page.getByRole('button', { name: new RegExp(`^Your trip to ${DESTINATION}`) }).click();
+        await page.getByRole('region', { name: `Your trip to ${DESTINATION}` }).waitFor();
+      }],
       ['/family/cylinder', async () => {
         await page.getByLabel('Which cylinder?').selectOption({ index: 1 });
         await page.getByLabel(/What does the gauge read\?/).fill('50');
