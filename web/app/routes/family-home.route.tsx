@@ -12,7 +12,8 @@ import { EmergencySection } from '../../features/family/components/emergency-sec
 import { OxygenSafety } from '../../features/family/components/oxygen-safety';
 import { WhoToCall } from '../../features/family/components/who-to-call';
 import { CurrentTrips, PlanningATrip } from '../../features/journeys/components/family-trips';
-import { datesWords, todayIn, tripIsCurrent } from '../../features/journeys/components/journey-words';
+import { todayIn, tripIsCurrent } from '../../features/journeys/components/journey-words';
+import { formatDate } from '../../lib/format';
 import { useInfantJourneys } from '../../features/journeys/api/get-journeys';
 import { useSignedInUser } from '../../lib/signed-in-user';
 import { usePageTitle } from '../../lib/page-title';
@@ -27,7 +28,7 @@ function TripSoon({ infantId, today }: { infantId: string; today: string }) {
   if (soon.some((j) => j.request.departOn <= today)) return <CurrentTrips infantId={infantId} today={today} />;
   const first = [...soon].sort((a, b) => a.request.departOn.localeCompare(b.request.departOn))[0];
   return (
-    <FoldedSection title={`Your trip to ${first.request.destinationName}`} large summary={`Approved, ${datesWords(first.request)}: the setting there and what to take.`}>
+    <FoldedSection title={`Your trip to ${first.request.destinationName}`} large summary={`Approved, ${formatDate(first.request.departOn)} to ${formatDate(first.request.returnOn)}: the setting there and what to take.`}>
       <CurrentTrips infantId={infantId} today={today} />
     </FoldedSection>
   );

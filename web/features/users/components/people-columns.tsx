@@ -13,7 +13,7 @@ const helper = createColumnHelper<ServerTableFeatures, User>();
 
 export const peopleColumns = helper.columns([
   helper.accessor('name', { header: 'Name', cell: (info) => <span className="font-semibold">{info.getValue()}</span> }),
-  helper.accessor('email', { header: 'E-mail', cell: (info) => <EmailText address={info.getValue()} /> }),
+  helper.accessor('email', { header: 'E-mail', cell: (info) => <EmailText address={info.getValue()} className="xl:whitespace-nowrap" /> }),
   helper.accessor('role', { header: 'Role', cell: (info) => ROLE_LABELS[info.getValue()] }),
   helper.accessor('disabled', {
     id: 'status',
