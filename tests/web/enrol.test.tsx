@@ -1,4 +1,4 @@
-import { screen, waitFor, within } from '@testing-library/react';
+import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { convertPrescription } from '../../shared/clinical/conversion';
 import { DEFAULT_POLICY_SETTINGS } from '../../shared/schemas/policy';
@@ -90,7 +90,9 @@ async function fillAll(user: User) {
   await waitFor(() => expect(stepTitle()).toBe('Step 5 of 5: Check and save'));
 }
 
-describe('Enrol a baby', () => {
+// A five-step form typed key by key: on a loaded machine a run can pass the default 5 s, and a step's answer 1 s.
+configure({ asyncUtilTimeout: 5000 });
+describe('Enrol a baby', { timeout: 20_000 }, () => {
   it('when Next is pressed on an empty step, then the shared schema explains beside the fields and the step stays', async () => {
     stubEnrol(() => json(500));
     const { user } = renderApp('/enrol');

@@ -46,29 +46,42 @@ export function ContactLocaleFields({ index, defaultTimeZone }: { index: number;
   const { getValues, register, formState: { errors } } = useFormContext<{ contacts: ContactValues[] }>();
   // The lists are built from the values the contact arrived with: rebuilt on each choice, the chosen option would
   // move between groups and the browser would lose the selection.
-  const [{ languages, zones }] = useState(() => ({
-    languages: languageChoices(getValues(`contacts.${index}.language`)),
-    zones: timeZoneChoices(defaultTimeZone, getValues(`contacts.${index}.timeZone`)),
-  }));
+  // Built once as elements too: the zone list has some 400 options, and the form re-renders on every keystroke.
+  const [{ languageOptions, zoneOptions }] = useState(() => {
+    const languages = languageChoices(getValues(`contacts.${index}.language`));
+    const zones = timeZoneChoices(defaultTimeZone, getValues(`contacts.${index}.timeZone`));
+    return {
+      languageOptions: (
+        <>
+          <optgroup label="Messages in this language">
+            {languages.withMessages.map((option) => <option key={option.code} value={option.code}>{option.label}</option>)}
+          </optgroup>
+          <optgroup label="Other languages">
+            {languages.others.map((option) => <option key={option.code} value={option.code}>{option.label}</option>)}
+          </optgroup>
+        </>
+      ),
+      zoneOptions: (
+        <>
+          <optgroup label="Most likely">
+            {zones.likely.map((zone) => <option key={zone} value={zone}>{zoneLabel(zone)}</option>)}
+          </optgroup>
+          <optgroup label="All time zones">
+            {zones.others.map((zone) => <option key={zone} value={zone}>{zoneLabel(zone)}</option>)}
+          </optgroup>
+        </>
+      ),
+    };
+  });
   return (
     <div className="grid gap-4 sm:grid-cols-2">
       <SelectField label="Language" hint="Messages go out in this language where we have them" error={errorText(errors, `contacts.${index}.language`)}
         {...register(`contacts.${index}.language`)}>
-        <optgroup label="Messages in this language">
-          {languages.withMessages.map((option) => <option key={option.code} value={option.code}>{option.label}</option>)}
-        </optgroup>
-        <optgroup label="Other languages">
-          {languages.others.map((option) => <option key={option.code} value={option.code}>{option.label}</option>)}
-        </optgroup>
+        {languageOptions}
       </SelectField>
       <SelectField label="Time zone" hint="Where the family lives; visit times and reminders follow it" error={errorText(errors, `contacts.${index}.timeZone`)}
         {...register(`contacts.${index}.timeZone`)}>
-        <optgroup label="Most likely">
-          {zones.likely.map((zone) => <option key={zone} value={zone}>{zoneLabel(zone)}</option>)}
-        </optgroup>
-        <optgroup label="All time zones">
-          {zones.others.map((zone) => <option key={zone} value={zone}>{zoneLabel(zone)}</option>)}
-        </optgroup>
+        {zoneOptions}
       </SelectField>
     </div>
   );
