@@ -72,11 +72,37 @@ export function journeyCautions(f: JourneyCautionFacts): string[] {
     out.push('The air is thinner there than at home, so the same flow gives less oxygen. Going higher than the place entered needs a new check.');
   }
   out.push(
-    `Cylinder numbers cover ${f.hoursAway} hour(s) away from your home supply at the highest setting of the day there, with ${f.reservePercent}% extra as a reserve.`,
+    `Cylinder numbers cover ${hoursText(f.hoursAway)} away from your home supply at the highest setting of the day there, with ${f.reservePercent}% extra as a reserve.`,
     TRAVEL_SAFETY,
     'If your baby’s breathing or colour worries you on the way or while away, call the local emergency number.',
   );
   return out;
+}
+
+/** "1 hour", "3 hours", "1.5 hours": never "hour(s)". */
+export function hoursText(hours: number): string {
+  return `${Number(hours.toFixed(1)).toLocaleString('en-GB')} ${hours === 1 ? 'hour' : 'hours'}`;
+}
+
+/**
+ * The parts of the day with their flows, as few lines as they need: one line when awake, asleep and feeding share
+ * the flow ("Awake, asleep and feeding"), else a line for each part.
+ */
+export function periodLines<F>(periods: ReadonlyArray<{ period: keyof typeof PERIOD_LABELS; flowLpm: F }>): Array<{ label: string; flowLpm: F }> {
+  if (periods.length > 1 && periods.every((p) => p.flowLpm === periods[0].flowLpm)) {
+    const names = periods.map((p) => PERIOD_LABELS[p.period].toLowerCase());
+    const label = `${names.slice(0, -1).join(', ')} and ${names.at(-1)}`;
+    return [{ label: label[0].toUpperCase() + label.slice(1), flowLpm: periods[0].flowLpm }];
+  }
+  return periods.map((p) => ({ label: PERIOD_LABELS[p.period], flowLpm: p.flowLpm }));
+}
+
+/**
+ * The saturation figures the programme works to, for a family to read: the mean to stay at or above (higher with
+ * pulmonary hypertension) and the reading counted as low. From the programme's settings, whose sources are there.
+ */
+export function spo2TargetText(t: { meanMin: number; lowAtOrBelow: number }): string {
+  return `Oxygen saturation (SpO2) to aim for: ${t.meanMin}% or more on average. A steady reading of ${t.lowAtOrBelow}% or less is low: check the cannula, tubing and supply, then call your team if it stays low.`;
 }
 
 const NUMBER_WORDS = ['zero', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'eleven', 'twelve', 'thirteen', 'fourteen', 'fifteen'];

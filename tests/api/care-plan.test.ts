@@ -7,6 +7,8 @@ import { AbilityBuilder, createMongoAbility } from '@casl/ability';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AppAbility } from '../../shared/auth/ability';
 import { WARNING_SIGNS, flowInWords } from '../../shared/family/care-text';
+import { dateInWords } from '../../shared/dates/date-words';
+import { readFile } from 'node:fs/promises';
 import { createCarePlanService } from '../../server/modules/care-plan/care-plan.service';
 import { ForbiddenError } from '../../server/lib/errors';
 import { createTestContext, type TestContext } from '../helpers/test-app';
@@ -40,14 +42,14 @@ async function download(agent: Agent, infantId: string) {
   await writeFile(file, res.body as Buffer);
   const { stdout: text } = await run('pdftotext', ['-layout', file, '-']);
   const { stdout: info } = await run('pdfinfo', [file]);
-  return { res, text: text.replace(/\s+/g, ' '), pages: Number(/Pages:\s+(\d+)/.exec(info)?.[1]) };
+  return { res, file, info, text: text.replace(/\s+/g, ' '), pages: Number(/Pages:\s+(\d+)/.exec(info)?.[1]) };
 }
 
 const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
 
 describe('GET /api/infants/:id/care-plan.pdf', () => {
   it('when the family downloads the plan, then it is a one- or two-page PDF with the approved flow, the numbers to call and the warning signs', async () => {
-    const { infant, family, coord, rx } = await approvedBaby(ctx.deps, ctx.app);
+    const { infant, family, coord, rx, clinic } = await approvedBaby(ctx.deps, ctx.app);
     const { res, text, pages } = await download(family, infant.id);
     expect(res.headers['content-type']).toBe('application/pdf');
     expect(res.headers['cache-control']).toBe('no-store');
@@ -62,6 +64,16 @@ describe('GET /api/infants/:id/care-plan.pdf', () => {
     expect(text).toContain(WARNING_SIGNS[2]);
     expect(text).toMatch(/No smoking or vaping near the oxygen/);
     expect(text).not.toContain('Approved journey');
+    // Dates in words, never the stored ISO form.
+    expect(text).toContain(`born ${dateInWords(infant.birthDate)}`);
+    expect(text).not.toMatch(/\d{4}-\d{2}-\d{2}/);
+    // One setting all day: one line, not three identical ones.
+    expect(text).toContain(`Awake, asleep and feeding: ${Number(rx.approvedFlowLpm.toFixed(3))} L/min`);
+    expect(text).not.toMatch(/Asleep: /);
+    // The programme's default figures: overnight mean >= 93 % (TSANZ 2020; BTS 2009), a spot reading <= 90 % is
+    // low (ATS 2019), as stored in shared/schemas/policy.ts.
+    expect(text).toContain('Oxygen saturation (SpO2) to aim for: 93% or more on average. A steady reading of 90% or less is low');
+    expect(text).toContain(`Your baby’s hospital: ${clinic.site.name}. Programme: ${clinic.programme.name}.`);
     // The coordinator gets the same document.
     expect((await download(coord, infant.id)).text).toContain(`${Number(rx.approvedFlowLpm.toFixed(3))} L/min`);
   });
@@ -73,10 +85,38 @@ describe('GET /api/infants/:id/care-plan.pdf', () => {
     const approved = (await post(consultant, `/api/journeys/${j.id}/decision`, { decision: 'approve', rowVersion: 1 }).expect(200)).body.journey;
     const { text, pages } = await download(family, infant.id);
     expect(text).toContain('Approved journey: Tallow Ridge visit');
-    expect(text).toContain(`Awake on the flight: ${approved.plan.periods[0].flowLpm} L/min`);
+    // The same flow for every part of the day there: one line.
+    expect(approved.plan.periods.every((p: { flowLpm: number }) => p.flowLpm === approved.plan.periods[0].flowLpm)).toBe(true);
+    expect(text).toContain(`Awake, asleep and feeding on the flight: ${approved.plan.periods[0].flowLpm} L/min`);
     expect(text).toContain("Only for the trip (on the flight); at home keep to your usual setting above.");
     expect(text).toMatch(/hypoxic challenge test/);
+    expect(text).toContain(`By air, ${dateInWords(day(4))} to ${dateInWords(day(9))}, 6 hours away from the home supply.`);
+    expect(text).toContain('Cylinder numbers cover 6 hours away');
+    expect(text).not.toContain('hour(s)');
     expect(pages).toBeLessThanOrEqual(2);
+  });
+
+  it('when the plan is read by assistive technology, then it is a tagged PDF 1.7 in English with headings, paragraphs and lists', async () => {
+    const { infant, family } = await approvedBaby(ctx.deps, ctx.app);
+    const { file, info } = await download(family, infant.id);
+    expect(info).toMatch(/Tagged:\s+yes/);
+    expect(info).toMatch(/PDF version:\s+1\.7/);
+    // pdfkit writes objects uncompressed (only page content is deflated), so the catalog and tree read as text.
+    const raw = (await readFile(file)).toString('latin1');
+    const object = (ref: string) => new RegExp(`(?:^|\\n)${ref.replace(' R', '')} obj\\s*<<([\\s\\S]*?)>>\\s*endobj`).exec(raw)?.[1] ?? '';
+    const catalog = /<<([^]*?\/Type \/Catalog[^]*?)>>\s*endobj/.exec(raw)?.[1] ?? '';
+    expect(catalog).toContain('/Lang (en-GB)');
+    const markInfo = /\/MarkInfo (\d+ 0 R)/.exec(catalog)?.[1] ?? '';
+    expect(object(markInfo)).toMatch(/\/Marked true/);
+    const treeRoot = /\/StructTreeRoot (\d+ 0 R)/.exec(catalog)?.[1] ?? '';
+    expect(object(treeRoot)).toMatch(/\/Type \/StructTreeRoot/);
+    expect(/\/ViewerPreferences (\d+ 0 R)/.exec(catalog) && object(/\/ViewerPreferences (\d+ 0 R)/.exec(catalog)![1])).toMatch(/\/DisplayDocTitle true/);
+    const roles = [...raw.matchAll(/\/S \/(\w+)/g)].map((m) => m[1]);
+    expect(roles.filter((r) => r === 'Document')).toHaveLength(1);
+    expect(roles.filter((r) => r === 'H1')).toHaveLength(1);
+    expect(roles.filter((r) => r === 'H2').length).toBeGreaterThanOrEqual(4);
+    expect(roles.filter((r) => r === 'LI')).toHaveLength(roles.filter((r) => r === 'LBody').length);
+    expect(roles).toContain('P');
   });
 
   it('when a name carries quotes, line breaks or accents, then the file name stays plain ASCII', async () => {

@@ -7,9 +7,10 @@ import path from 'node:path';
 import { cylinderTime } from '../../shared/clinical/cylinder-time';
 import { addDays } from '../../shared/clinical/dates';
 import {
-  OXYGEN_SAFETY_POINTS, PERIOD_LABELS, WARNING_SIGNS, emergencyCallText, flowInWords, flowText,
+  OXYGEN_SAFETY_POINTS, WARNING_SIGNS, emergencyCallText, flowInWords, flowText, periodLines,
 } from '../../shared/family/care-text';
 import { JOURNEY_PERIODS } from '../../shared/schemas/journeys';
+import { homeFlowsOf } from '../../shared/clinical/journey-plan';
 import { axeReport as report, seriousViolations as seriousOn } from '../helpers/a11y';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 
@@ -97,6 +98,9 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     }
     await page.getByRole('complementary', { name: 'Keep your baby safe' }).waitFor();
 
+    // Below the emergency, the setting and the visits, the rest of the page is folded under its heading.
+    const unfold = (title: string) => page.getByRole('button', { name: new RegExp(`^${title}`) }).click();
+    await unfold('Who to call');
     const calls = page.getByRole('list', { name: 'Numbers to call' });
     await calls.waitFor();
     for (const phone of PHONES) {
@@ -108,6 +112,8 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     await page.getByText(emergencyCallText(emergencyNumber)).waitFor();
     expect(await page.getByRole('link', { name: `Call the emergency number, ${emergencyNumber}` }).getAttribute('href')).toBe(`tel:${emergencyNumber}`);
 
+    await unfold('Warning signs that need help now');
+    await unfold('Oxygen safety at home');
     const signs = page.getByRole('list', { name: 'Warning signs' }).getByRole('listitem');
     expect(await signs.allTextContents()).toEqual([...WARNING_SIGNS]);
     const safety = page.getByRole('list', { name: 'Oxygen safety at home' }).getByRole('listitem');
@@ -120,6 +126,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     // (docs/clinical-sources.md §7 check value, formula and factor from the Virginia EMS cylinder guidance sheet).
     expect(cylinderTime({ cylinder: { contentLitres: 0.28 * 2200, fullPressure: 2200, residualPressure: 200 }, gauge: 2000, flowLpm: 2, reservePercent: 0 }).minutesTotal).toBeCloseTo(252, 9);
 
+    await page.getByRole('button', { name: /^How long will a cylinder last\?/ }).click();
     await page.getByRole('link', { name: 'Work out cylinder time' }).click();
     await page.waitForURL(/\/family\/cylinder/);
     const supply = (await api('GET', '/api/policy')).body.settings.supply as {
@@ -148,6 +155,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
 
   it('when the family asks for a flight check, then the page says it waits for the consultant and shows no numbers yet', async () => {
     await page.getByRole('link', { name: 'Back to our plan' }).click();
+    await page.getByRole('button', { name: /^Trips/ }).click();
     await page.getByRole('link', { name: 'Ask for a trip check' }).click();
     await page.waitForURL(/\/family\/journey/);
     const session = (await api('GET', '/api/session')).body;
@@ -169,6 +177,7 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     journeyId = asked.id;
 
     await page.getByRole('link', { name: 'Back to our plan' }).last().click();
+    await page.getByRole('button', { name: /^Trips/ }).click();
     await page.getByRole('list', { name: 'Your trips' }).getByText(`Your trip to ${DESTINATION}`, { exact: false }).waitFor();
     expect(await page.getByRole('list', { name: 'Your trips' }).textContent()).toContain('waiting for the consultant to check it');
   });
@@ -194,6 +203,8 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     await signIn('family@larkmoor.example');
     await page.waitForURL(`${base}/family`);
     const { journey } = (await api('GET', `/api/journeys/${journeyId}`)).body;
+    // Two days ahead, the trip is folded under its name; opened, it shows in full.
+    await page.getByRole('button', { name: new RegExp(`^Your trip to ${DESTINATION}`) }).click();
     const trip = page.getByRole('region', { name: `Your trip to ${DESTINATION}` });
     await trip.waitFor();
     // A flight with no higher destination is planned for the cabin only; the card must not read as a new home setting.
@@ -222,8 +233,9 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
     expect(readFileSync(file).subarray(0, 5).toString('latin1')).toBe('%PDF-');
     const text = spaced(execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }));
     const line = (flow: number) => (flow === 0 ? 'off (no oxygen)' : `${flowText(flow)}: ${flowInWords(flow)}`);
-    if (plan.periods === null) expect(text).toContain(`Day and night: ${line(plan.approvedFlowLpm)}`);
-    else for (const p of JOURNEY_PERIODS) expect(text).toContain(`${PERIOD_LABELS[p]}: ${line(plan.periods[p])}`);
+    // One line when awake, asleep and feeding share the flow, else one per part of the day.
+    const flows = homeFlowsOf(plan.approvedFlowLpm, plan.periods);
+    for (const l of periodLines(JOURNEY_PERIODS.map((period) => ({ period, flowLpm: flows[period] })))) expect(text).toContain(`${l.label}: ${line(l.flowLpm)}`);
     // The plan prints the approved trip leaving soonest; ours leaves in 2 days, before any demo trip of the family's.
     expect(text).toContain(`Approved journey: ${DESTINATION}`);
     for (const phone of PHONES) expect(text).toContain(phone.number);
@@ -231,7 +243,10 @@ describe('a family on a phone: plan, cylinder time, a flight check, the printed 
 
   it('when axe checks each family page, then none has a serious or critical violation', async () => {
     const pages: Array<[string, () => Promise<void>]> = [
-      ['/family', () => page.getByRole('region', { name: `Your trip to ${DESTINATION}` }).waitFor()],
+      ['/family', async () => {
+        await page.getByRole('button', { name: new RegExp(`^Your trip to ${DESTINATION}`) }).click();
+        await page.getByRole('region', { name: `Your trip to ${DESTINATION}` }).waitFor();
+      }],
       ['/family/cylinder', async () => {
         await page.getByLabel('Which cylinder?').selectOption({ index: 1 });
         await page.getByLabel(/What does the gauge read\?/).fill('50');

@@ -1,4 +1,4 @@
-import { screen, waitFor, within } from '@testing-library/react';
+import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { convertPrescription } from '../../shared/clinical/conversion';
 import { DEFAULT_POLICY_SETTINGS } from '../../shared/schemas/policy';
@@ -90,7 +90,9 @@ async function fillAll(user: User) {
   await waitFor(() => expect(stepTitle()).toBe('Step 5 of 5: Check and save'));
 }
 
-describe('Enrol a baby', () => {
+// A five-step form typed key by key: on a loaded machine a run can pass the default 5 s, and a step's answer 1 s.
+configure({ asyncUtilTimeout: 5000 });
+describe('Enrol a baby', { timeout: 20_000 }, () => {
   it('when Next is pressed on an empty step, then the shared schema explains beside the fields and the step stays', async () => {
     stubEnrol(() => json(500));
     const { user } = renderApp('/enrol');
@@ -213,5 +215,43 @@ describe('Enrol a baby', () => {
     release();
     // The record's code loads lazily; under a busy machine that can take longer than waitFor's default second.
     await waitFor(() => expect(currentUrl(router)).toBe(`/infants/${INFANT_ID}`), { timeout: 5000 });
+  });
+
+  it('when steps are passed, then the step bar ticks them in words, the check step writes dates in words and language and zone are choices', async () => {
+    const { posts } = stubEnrol(() => json(201, enrolled));
+    const { user } = renderApp('/enrol');
+    const bar = () => within(screen.getByRole('navigation', { name: 'Enrolment steps' }));
+    await fillBaby(user);
+    expect(bar().queryByText(/\(done\)/)).toBeNull();
+    await next(user);
+    await fillHospital(user);
+    await next(user);
+    // Read as text: jsdom's name calculation drops the spaces between the button's inline parts, a browser keeps them.
+    await waitFor(() => expect(stepTitle()).toBe('Step 3 of 5: Home'));
+    const steps = bar().getAllByRole('button');
+    expect(steps.map((step) => step.textContent)).toEqual([
+      'Step 1: Baby (done)', 'Step 2: Hospital setting (done)', '3Step 3: Home', '4Step 4: Care team and family', '5Step 5: Check and save',
+    ]);
+    expect(steps[2]).toHaveAttribute('aria-current', 'step');
+    await fillHome(user);
+    await next(user);
+    await fillCare(user);
+    const language = screen.getByRole('combobox', { name: /^Language/ });
+    const zone = screen.getByRole('combobox', { name: /^Time zone/ });
+    // The programme's zone is offered first; free text is no longer possible.
+    expect(within(zone).getAllByRole('option')[0]).toHaveValue('Europe/London');
+    expect(within(zone).getByRole('option', { name: 'America / Buenos Aires' })).toBeInTheDocument();
+    expect(within(language).getAllByRole('option')[0]).toHaveValue('en');
+    expect(within(language).getByRole('option', { name: 'Welsh — messages in English' })).toHaveValue('cy');
+    await user.selectOptions(language, 'cy');
+    await user.selectOptions(zone, 'Europe/Dublin');
+    await next(user);
+    await waitFor(() => expect(stepTitle()).toBe('Step 5 of 5: Check and save'));
+    expect(screen.getByText('10 Jan 2025')).toBeInTheDocument();
+    expect(screen.getByText('2.4 kg on 1 Apr 2025')).toBeInTheDocument();
+    expect(screen.queryByText(/2025-0/)).toBeNull();
+    await user.click(screen.getByRole('button', { name: 'Enrol baby' }));
+    await waitFor(() => expect(posts).toHaveLength(1));
+    expect((posts[0].body as Record<string, any>).contacts[0]).toMatchObject({ language: 'cy', timeZone: 'Europe/Dublin' });
   });
 });

@@ -44,12 +44,16 @@ function stubFamily(options: { plans?: Prescription[]; contacts?: PolicySettings
 }
 
 const opened = () => screen.findByRole('heading', { level: 1, name: 'Our plan' }, { timeout: 5000 });
+type User = ReturnType<typeof renderApp>['user'];
+/** Opens a folded part of the page by its heading's button (its name starts with the heading's words). */
+const unfold = async (user: User, title: string) => user.click(await screen.findByRole('button', { name: new RegExp(`^${title}`) }));
 
 describe('Family home: who to call', () => {
   it('when the policy lists numbers, then each is a dial link with its label and when to call', async () => {
     stubFamily();
-    renderApp('/family');
+    const { user } = renderApp('/family');
     await opened();
+    await unfold(user, 'Who to call');
     const list = await screen.findByRole('list', { name: 'Numbers to call' });
     const items = within(list).getAllByRole('listitem');
     expect(items).toHaveLength(2);
@@ -63,8 +67,9 @@ describe('Family home: who to call', () => {
 
   it('when there is an emergency number, then the emergency section names it and dials it', async () => {
     stubFamily({ contacts: { phones: [], emergencyNumber: '112' } });
-    renderApp('/family');
+    const { user } = renderApp('/family');
     await opened();
+    await unfold(user, 'Who to call');
     const section = screen.getByRole('region', { name: 'In an emergency' });
     expect(await within(section).findByText(/call 112 straight away/)).toBeInTheDocument();
     expect(within(section).getByRole('link', { name: 'Call the emergency number, 112' })).toHaveAttribute('href', 'tel:112');
@@ -75,8 +80,10 @@ describe('Family home: who to call', () => {
 describe('Family home: warning signs and oxygen safety', () => {
   it('when the page opens, then every warning sign and safety point from the shared care text is listed', async () => {
     stubFamily();
-    renderApp('/family');
+    const { user } = renderApp('/family');
     await opened();
+    await unfold(user, 'Warning signs that need help now');
+    await unfold(user, 'Oxygen safety at home');
     const signs = within(screen.getByRole('list', { name: 'Warning signs' })).getAllByRole('listitem').map((li) => li.textContent);
     expect(signs).toEqual([...WARNING_SIGNS]);
     expect(signs.some((sign) => /blue, grey or very pale/.test(sign ?? ''))).toBe(true);
@@ -84,6 +91,30 @@ describe('Family home: warning signs and oxygen safety', () => {
     expect(safety).toEqual([...OXYGEN_SAFETY_POINTS]);
     expect(safety.join(' ')).toMatch(/smoking/);
     expect(safety.join(' ')).toMatch(/upright/);
+  });
+});
+
+describe('Family home: order and length', () => {
+  it('when the page opens, then the emergency comes first, then today’s setting with its cautions and the visits; the rest is folded', async () => {
+    stubFamily();
+    renderApp('/family');
+    await opened();
+    await screen.findByText(/Set the flowmeter to/);
+    const headings = screen.getAllByRole('heading', { level: 2 }).map((h) => h.textContent?.trim());
+    expect(headings.slice(0, 2)).toEqual(['In an emergency', 'Home oxygen plan']);
+    expect(headings.indexOf('Home oxygen plan')).toBeLessThan(headings.findIndex((h) => /visits/i.test(h ?? '')));
+    // The setting is never shown without its cautions: decision support, the team decides, local guidance, fire.
+    const cautions = screen.getByRole('complementary', { name: 'Keep your baby safe' });
+    expect(cautions).toHaveTextContent(/support your team’s decision/);
+    expect(cautions).toHaveTextContent(/hospital’s own guidance comes first/);
+    expect(cautions).toHaveTextContent(/Oxygen makes fire spread fast/);
+    const folds = ['Warning signs that need help now', 'Who to call', 'How long will a cylinder last?', 'Trips', 'Oxygen safety at home', 'Tell the team a reading'];
+    for (const title of folds) {
+      const button = screen.getByRole('button', { name: new RegExp(`^${title.replace('?', '\\?')}`) });
+      expect(button).toHaveAttribute('aria-expanded', 'false');
+      expect(document.getElementById(button.getAttribute('aria-controls')!)).not.toBeVisible();
+    }
+    expect(screen.queryByRole('list', { name: 'Numbers to call' })).not.toBeInTheDocument();
   });
 });
 
@@ -130,8 +161,11 @@ describe('Family home: the printed care plan', () => {
 describe('Family home: accessibility', () => {
   it('when everything is on the page, then axe finds no serious or critical problems', { timeout: 30_000 }, async () => {
     stubFamily();
-    renderApp('/family');
+    const { user } = renderApp('/family');
     await opened();
+    for (const title of ['Warning signs that need help now', 'Who to call', 'How long will a cylinder last', 'Trips', 'Oxygen safety at home', 'Tell the team a reading']) {
+      await unfold(user, title);
+    }
     await screen.findByRole('list', { name: 'Numbers to call' });
     await screen.findByRole('link', { name: /Download care plan/ });
     // jsdom cannot compute colours, so contrast is left to the browser test.

@@ -46,7 +46,7 @@ describe('Family plan', () => {
     const card = (await screen.findByText(/Set the flowmeter to/)).closest('section')!;
     expect(screen.getByText('Set the flowmeter to 0.25 litres per minute, day and night')).toBeInTheDocument();
     expect(within(card).getByText('The oxygen comes from your oxygen concentrator.')).toBeInTheDocument();
-    expect(within(card).getByText('Approved by Dr Ilse Varga on 30 November 2025.')).toBeInTheDocument();
+    expect(within(card).getByText('Approved by Dr Ilse Varga on 30 Nov 2025.')).toBeInTheDocument();
     expect(within(card).getByRole('complementary', { name: 'Keep your baby safe' })).toBeInTheDocument();
     expect(screen.getByText('For Juniper Ashcombe')).toBeInTheDocument();
     expect(screen.queryByRole('table')).not.toBeInTheDocument();
@@ -96,6 +96,7 @@ describe('a reading from home', () => {
       },
     });
     const { user } = renderApp('/family');
+    await user.click(await screen.findByRole('button', { name: /^Tell the team a reading/ }, { timeout: 5000 }));
     await user.type(await screen.findByLabelText('Oxygen level shown on the monitor (%)'), '94');
     await user.click(screen.getByLabelText('Asleep'));
     expect(screen.queryByLabelText(/Weight/)).not.toBeInTheDocument();

@@ -240,7 +240,9 @@ describe('Journey check: the family sees the answer', { timeout: 20_000 }, () =>
 
   it('when an approved trip is days away, then it shows with the flow there and the cylinders to take', async () => {
     stubFamilyHome([approvedFor(2)]);
-    renderApp('/family');
+    const { user } = renderApp('/family');
+    // Days ahead, the trip is folded under its name and dates; under way, it shows open (next test).
+    await user.click(await screen.findByRole('button', { name: /^Your trip to Cindermoor/ }, { timeout: 5000 }));
     const trip = await screen.findByRole('region', { name: 'Your trip to Cindermoor' }, { timeout: 5000 });
     expect(within(trip).getByText('Set the flowmeter to 0.55 litres per minute, day and night')).toBeInTheDocument();
     const cylinders = within(trip).getByRole('list', { name: 'Cylinders to take' });
@@ -250,12 +252,21 @@ describe('Journey check: the family sees the answer', { timeout: 20_000 }, () =>
     expect(trip).not.toHaveTextContent(/L\/min|mmHg|FiO2/);
   });
 
+  it('when an approved trip is under way, then its setting shows open, not folded', async () => {
+    stubFamilyHome([approvedFor(0)]);
+    renderApp('/family');
+    const trip = await screen.findByRole('region', { name: 'Your trip to Cindermoor' }, { timeout: 5000 });
+    expect(within(trip).getByText('Set the flowmeter to 0.55 litres per minute, day and night')).toBeVisible();
+    expect(screen.queryByRole('button', { name: /^Your trip to Cindermoor/ })).not.toBeInTheDocument();
+  });
+
   it('when trips are further off, waiting or not approved, then each is one line and no numbers are shown', async () => {
     const waiting = journey({ id: 'a1a1a1a1-0000-4000-8000-000000000092', plan: null }, { destinationName: 'High Saddle' });
     const declined = journey({ id: 'a1a1a1a1-0000-4000-8000-000000000093', status: 'declined', plan: null }, { destinationName: 'Tallow Ridge' });
     const past = approvedFor(-10, 'a1a1a1a1-0000-4000-8000-000000000094', 'Emberly');
     stubFamilyHome([approvedFor(30), waiting, declined, past]);
-    renderApp('/family');
+    const { user } = renderApp('/family');
+    await user.click(await screen.findByRole('button', { name: /^Trips/ }, { timeout: 5000 }));
     const list = await screen.findByRole('list', { name: 'Your trips' }, { timeout: 5000 });
     const lines = within(list).getAllByRole('listitem').map((li) => li.textContent ?? '');
     expect(lines).toHaveLength(3);

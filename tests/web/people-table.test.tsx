@@ -41,6 +41,16 @@ describe('People table', () => {
     expect(screen.getByText('Page 1 of 3 · 60 people')).toBeInTheDocument();
   });
 
+  it('when an address is long, then it may wrap only before the @ and the dots of the domain, never inside a word', async () => {
+    stubPeople();
+    renderApp('/admin/people');
+    const address = await screen.findByText('ada.pennick@larkmoor.example');
+    expect(address.className).not.toMatch(/break-all/);
+    // Each <wbr> is a place the line may break; the text between them is kept whole.
+    const pieces = address.innerHTML.split('<wbr>');
+    expect(pieces).toEqual(['ada.pennick', '@larkmoor', '.example']);
+  });
+
   it('when a header or the next page is clicked, then sort and page go into the URL and the request', async () => {
     const { listCalls } = stubPeople();
     const { user, router } = renderApp('/admin/people');

@@ -276,4 +276,33 @@ describe('Programme settings', { timeout: 20_000 }, () => {
     expect(form.getAllByRole('region', { name: 'There is a problem' }).some((box) => box.textContent?.includes('A row the form does not have'))).toBe(true);
     expect(reserve).toHaveValue(60);
   });
+
+  it('when the long form opens, then a section list links to every section and moves focus there', async () => {
+    stubPolicy(() => json(500));
+    const { user } = await openSettings();
+    const nav = screen.getByRole('navigation', { name: 'Sections' });
+    const links = within(nav).getAllByRole('link');
+    expect(links.map((link) => link.textContent)).toEqual([
+      'Saturation targets', 'Check schedule', 'Stepping down', 'Overnight oximetry analysis', 'Flowmeter and cannula', 'Cylinders',
+      'Readings', 'Reminders', 'Numbers for families',
+    ]);
+    // Every link lands on a section of the form whose legend is the link's words.
+    for (const link of links) {
+      const target = document.getElementById(link.getAttribute('href')!.slice(1));
+      expect(target?.tagName).toBe('FIELDSET');
+      expect(target?.querySelector('legend')?.textContent).toBe(link.textContent);
+    }
+    await user.click(within(nav).getByRole('link', { name: 'Reminders' }));
+    expect(document.activeElement).toBe(screen.getByRole('group', { name: 'Reminders' }));
+  });
+
+  it('when times are shown, then they are typed on the 24-hour clock, never in a box that may show am/pm', async () => {
+    stubPolicy(() => json(500));
+    const { form } = await openSettings();
+    const quietStart = form.getByLabelText('Quiet hours start at');
+    expect(quietStart).toHaveAttribute('type', 'text');
+    expect(quietStart).toHaveValue(DEFAULT_POLICY_SETTINGS.reminders.quietStart);
+    expect(quietStart).toHaveAccessibleDescription(/24-hour clock, e\.g\. 14:30/);
+    expect(document.querySelectorAll('input[type="time"]')).toHaveLength(0);
+  });
 });

@@ -76,6 +76,9 @@ describe('Infant record: visits', () => {
     await user.click(within(card).getByRole('button', { name: 'Book a visit' }));
     const form = within(card).getByRole('form', { name: 'Book a visit' });
     await user.type(within(form).getByLabelText('Date'), '2037-03-29');
+    // Typed on the 24-hour clock in a plain box: the browser's time box may show am/pm.
+    expect(within(form).getByLabelText(/^Time/)).toHaveAttribute('type', 'text');
+    expect(within(form).getByLabelText(/^Time/)).toHaveAccessibleDescription(/24-hour clock/);
     await user.type(within(form).getByLabelText(/^Time/), '01:30');
     await user.selectOptions(await within(form).findByLabelText('Who will see the family'), await within(form).findByRole('option', { name: 'Tobias Fenwright' }));
     await user.type(within(form).getByLabelText('What it is for'), 'Spot check and weight');
@@ -113,6 +116,11 @@ describe('Infant record: visits', () => {
     const { user } = renderApp(`/infants/${ID}`);
     const card = await visitsCard();
     await user.click(await within(card).findByRole('button', { name: 'Move' }));
+    // The move form's way out is not another "Cancel" beside the visit's own.
+    expect(within(card).queryByRole('button', { name: /cancel/i })).not.toBeInTheDocument();
+    await user.click(within(card).getByRole('button', { name: 'Keep the visit as it is' }));
+    expect(within(card).queryByRole('button', { name: 'Move the visit' })).not.toBeInTheDocument();
+    await user.click(await within(card).findByRole('button', { name: 'Move' }));
     const before = visitCalls();
     await user.click(within(card).getByRole('button', { name: 'Move the visit' }));
     expect(await within(card).findByRole('alert')).toHaveTextContent(/changed this visit while you were editing/);
@@ -126,7 +134,10 @@ describe('Infant record: visits', () => {
     });
     const { user } = renderApp(`/infants/${ID}`);
     const card = await visitsCard();
-    await user.click(await within(card).findByRole('button', { name: 'Cancel' }));
+    await user.click(await within(card).findByRole('button', { name: 'Cancel the visit' }));
+    // Inside the form the way out says what it keeps, so it cannot be read as cancelling the visit.
+    expect(within(card).getByRole('button', { name: 'Keep the visit as it is' })).toBeInTheDocument();
+    expect(within(card).getAllByRole('button', { name: /cancel/i }).map((b) => b.textContent)).toEqual(['Cancel the visit']);
     await user.click(within(card).getByRole('button', { name: 'Cancel the visit' }));
     expect(await within(card).findByText('Say why the visit is cancelled')).toBeInTheDocument();
     expect(cancels).toHaveLength(0);

@@ -28,11 +28,12 @@ export function createCarePlanService(repos: AppRepos) {
       if (!ability.can('read', subject('Prescription', { ...own, status: rx.status } as Record<string, unknown>))) {
         throw new ForbiddenError('You cannot print this plan.');
       }
-      const [programme, policy, contacts, names] = await Promise.all([
+      const [programme, policy, contacts, names, site] = await Promise.all([
         repos.programmes.findById(infant.programmeId),
         repos.policies.current(infant.programmeId),
         repos.contacts.listForInfant(infant.id),
         repos.infants.peopleNames([rx.decidedBy]),
+        repos.sites.findInProgramme(infant.siteId, infant.programmeId),
       ]);
       const timeZone = contacts[0]?.timeZone ?? programme?.timeZone ?? 'UTC';
       const today = todayIn(timeZone);
@@ -40,19 +41,25 @@ export function createCarePlanService(repos: AppRepos) {
       const journey = canSeeJourneys ? await repos.journeys.currentApproved(infant.id, today) : null;
       const flows = homeFlowsOf(rx.approvedFlowLpm, rx.periods);
       const babyName = `${infant.givenName} ${infant.familyName}`;
+      const targets = policy.settings.spo2Targets;
 
       const data: CarePlanData = {
         programmeName: programme?.name ?? '',
+        hospitalName: site?.name ?? '',
         printedOn: today,
         baby: { name: babyName, birthDate: infant.birthDate },
         home: { elevationM: infant.homeElevationM, pressureMmHg: infant.homePressureMmHg, measured: 'pressureMmHg' in infant.homeLocation },
         setting: {
           periods: JOURNEY_PERIODS.map((period) => ({ period, flowLpm: flows[period] })),
-          allDay: rx.periods === null,
           source: rx.source,
           o2Percent: rx.sourceO2Percent,
           approvedBy: rx.decidedBy ? names.get(rx.decidedBy) ?? '' : '',
           approvedOn: rx.decidedAt ? todayIn(timeZone, rx.decidedAt) : null,
+        },
+        // The figures the programme works to; with pulmonary hypertension the higher mean (see shared/schemas/policy.ts).
+        spo2Target: {
+          meanMin: infant.diagnoses.includes('pulmonary_hypertension') ? targets.pulmonaryHypertensionMeanMin : targets.overnightMeanMin,
+          lowAtOrBelow: targets.spotLowMax,
         },
         phones: policy.settings.contacts.phones,
         emergencyNumber: policy.settings.contacts.emergencyNumber,

@@ -13,6 +13,7 @@ const STAFF_POINTS = [
 const FAMILY_POINTS = [
   'Use only the setting your baby’s care team gave you. Do not change it yourself.',
   'Your care team sets the oxygen levels to aim for and when to worry. Ask them if you are unsure.',
+  'These figures support your team’s decision: a consultant approved them, and your hospital’s own guidance comes first.',
   'Oxygen makes fire spread fast: no smoking and no candles or flames in the home, keep the oxygen away from heaters and cookers, and do not put oily creams or petroleum jelly on your baby’s face.',
   'In an emergency, call your local emergency number straight away.',
 ];

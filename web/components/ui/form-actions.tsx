@@ -6,17 +6,19 @@ interface FormActionsProps {
   submitLabel: string;
   pendingLabel?: string;
   onCancel: () => void;
+  /** Name the way out when "Cancel" could be read as cancelling the thing itself (a visit, an order). */
+  cancelLabel?: string;
 }
 
 /** The submit and Cancel pair at the foot of an editing form. */
-export function FormActions({ pending, submitLabel, pendingLabel = 'Saving…', onCancel }: FormActionsProps) {
+export function FormActions({ pending, submitLabel, pendingLabel = 'Saving…', onCancel, cancelLabel = 'Cancel' }: FormActionsProps) {
   return (
     <div className="flex flex-wrap gap-3">
       <Button type="submit" disabled={pending}>
         {pending ? pendingLabel : submitLabel}
       </Button>
       <Button variant="quiet" onClick={onCancel} disabled={pending}>
-        Cancel
+        {cancelLabel}
       </Button>
     </div>
   );

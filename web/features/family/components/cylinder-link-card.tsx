@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
-import { Card } from '../../../components/ui/card';
+import { FoldedSection } from '../../../components/ui/folded-section';
 
 export function CylinderLinkCard({ href }: { href: string }) {
   return (
-    <Card title="How long will a cylinder last?">
+    <FoldedSection title="How long will a cylinder last?" large summary="Read the gauge and work it out.">
       <p className="mb-3 text-xl leading-relaxed text-ink-700">Read the gauge on the cylinder and see how long it lasts at your baby’s flow.</p>
       <Link
         to={href}
@@ -11,6 +11,6 @@ export function CylinderLinkCard({ href }: { href: string }) {
       >
         Work out cylinder time
       </Link>
-    </Card>
+    </FoldedSection>
   );
 }

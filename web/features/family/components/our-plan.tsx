@@ -1,4 +1,4 @@
-import { Link, useSearchParams } from 'react-router-dom';
+import { useSearchParams } from 'react-router-dom';
 import { Alert } from '../../../components/ui/alert';
 import { Spinner } from '../../../components/ui/spinner';
 import { errorMessage } from '../../../lib/api-error';
@@ -28,9 +28,6 @@ export function OurPlan() {
       ) : (
         <PlanCard plan={plan.data ?? null} />
       )}
-      <Link to="/family/preferences" className="inline-flex min-h-13 items-center self-start rounded-xl border-2 border-brand-600 bg-surface-0 px-5 text-xl font-semibold text-brand-800">
-        Contact details and reminders
-      </Link>
     </div>
   );
 }

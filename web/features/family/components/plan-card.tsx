@@ -3,9 +3,9 @@ import { CarePlanLink } from '../../../components/clinical/care-plan-link';
 import { Cautions } from '../../../components/clinical/cautions';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
+import { formatDay } from '../../../lib/format';
 import { PlanWords } from './plan-words';
 
-const longDate = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric' });
 
 export const NO_PLAN_YET = "Your baby's home oxygen plan will show here once the consultant has approved it.";
 
@@ -24,7 +24,7 @@ export function PlanCard({ plan }: { plan: Prescription | null }) {
         <PlanWords flowLpm={plan.approvedFlowLpm} periods={plan.periods} source={plan.source} />
         {plan.decidedAt && (
           <p className="text-lg text-ink-700">
-            Approved{plan.decidedBy?.name ? ` by ${plan.decidedBy.name}` : ''} on {longDate.format(new Date(plan.decidedAt))}.
+            Approved{plan.decidedBy?.name ? ` by ${plan.decidedBy.name}` : ''} on {formatDay(plan.decidedAt)}.
           </p>
         )}
         <div>

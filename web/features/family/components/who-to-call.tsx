@@ -1,5 +1,5 @@
 import { Alert } from '../../../components/ui/alert';
-import { Card } from '../../../components/ui/card';
+import { FoldedSection } from '../../../components/ui/folded-section';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { Spinner } from '../../../components/ui/spinner';
 import { errorMessage } from '../../../lib/api-error';
@@ -12,7 +12,7 @@ export const NO_NUMBERS_YET = 'Your home-care team will give you the numbers to 
 export function WhoToCall() {
   const contacts = useProgrammeContacts();
   return (
-    <Card title="Who to call">
+    <FoldedSection title="Who to call" large summary="Your home oxygen team and the hospital, and when to call each.">
       {contacts.isPending ? (
         <Spinner label="Loading the numbers" />
       ) : contacts.isError ? (
@@ -32,6 +32,6 @@ export function WhoToCall() {
           ))}
         </ul>
       )}
-    </Card>
+    </FoldedSection>
   );
 }

@@ -2,18 +2,11 @@ import { useFieldArray, useFormContext } from 'react-hook-form';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
 import { Choice, ChoiceGroup } from './choice-fields';
+import { ContactLocaleFields } from './contact-locale-fields';
 import { emptyContact, type ContactValues } from './enrol-values';
 import { errorText } from './form-helpers';
 
 const MAX_CONTACTS = 4;
-
-const timeZones = (() => {
-  try {
-    return Intl.supportedValuesOf('timeZone');
-  } catch {
-    return [];
-  }
-})();
 
 interface ContactFieldsProps {
   /** New contacts start in the programme's time zone. */
@@ -51,15 +44,7 @@ export function ContactFields({ defaultTimeZone }: ContactFieldsProps) {
               <Choice type="checkbox" label="Agrees to SMS" {...register(at('consentSms'))} />
               <Choice type="checkbox" label="Agrees to e-mail" {...register(at('consentEmail'))} />
             </ChoiceGroup>
-            <div className="grid gap-4 sm:grid-cols-2">
-              <TextField label="Language" hint="A code such as en or cy" error={err(at('language'))} {...register(at('language'))} />
-              <TextField
-                label="Time zone"
-                list="nestflow-time-zones"
-                error={err(at('timeZone'))}
-                {...register(at('timeZone'))}
-              />
-            </div>
+            <ContactLocaleFields index={index} defaultTimeZone={defaultTimeZone} />
             {fields.length > 1 && (
               <div>
                 <Button variant="quiet" size="sm" onClick={() => remove(index)}>
@@ -70,11 +55,6 @@ export function ContactFields({ defaultTimeZone }: ContactFieldsProps) {
           </fieldset>
         );
       })}
-      <datalist id="nestflow-time-zones">
-        {timeZones.map((zone) => (
-          <option key={zone} value={zone} />
-        ))}
-      </datalist>
       {listError && (
         <p role="alert" className="font-semibold text-danger-800">
           {listError}

@@ -4,6 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { useSites, useStaff } from '../api/get-programme-data';
 import type { EnrolValues } from './enrol-values';
 import { FactList } from '../../../components/ui/fact-list';
+import { formatDate } from '../../../lib/format';
 
 const SEX_WORDS: Record<string, string> = { female: 'Female', male: 'Male', unknown: 'Not known' };
 const HOSPITAL_SOURCE_WORDS: Record<string, string> = { cylinder: 'wall or cylinder', concentrator: 'concentrator', blended: 'blended' };
@@ -46,10 +47,10 @@ export function EnrolCheckStep({ control, onEdit }: { control: Control<EnrolValu
       <Section title="Baby" step={0} onEdit={onEdit} rows={[
         ['Name', `${show(baby?.givenName)} ${show(baby?.familyName)}`],
         ['Sex', SEX_WORDS[baby?.sex ?? ''] ?? '—'],
-        ['Birth date', show(baby?.birthDate)],
+        ['Birth date', formatDate(baby?.birthDate)],
         ['Gestation at birth', `${show(baby?.gestation?.weeks)} weeks ${show(baby?.gestation?.days)} days`],
         ['Birth weight', `${show(baby?.birthWeightG)} g`],
-        ['Current weight', `${show(baby?.weightKg)} kg on ${show(baby?.weightDate)}`],
+        ['Current weight', `${show(baby?.weightKg)} kg on ${formatDate(baby?.weightDate)}`],
         ['Diagnoses', (baby?.diagnoses ?? []).map((d) => DIAGNOSIS_LABELS[d]).join(', ') || 'None ticked'],
       ]} />
       <Section title="Hospital setting" step={1} onEdit={onEdit} rows={[

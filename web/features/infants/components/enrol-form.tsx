@@ -44,6 +44,8 @@ export function EnrolForm() {
   const moved = useRef(false);
   // Each "Next" (or step link, or save) stopped by a problem: the error summary takes focus each time.
   const [stopped, setStopped] = useState(0);
+  // Steps a "Next" has checked and passed, ticked in the step bar.
+  const [passed, setPassed] = useState<ReadonlySet<number>>(new Set());
 
   useEffect(() => {
     if (moved.current) heading.current?.focus();
@@ -58,6 +60,7 @@ export function EnrolForm() {
         setStopped((n) => n + 1);
         return;
       }
+      setPassed((done) => new Set(done).add(at));
     }
     moved.current = true;
     setStep(target);
@@ -119,7 +122,7 @@ export function EnrolForm() {
     <FormProvider {...form}>
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_24rem] lg:items-start">
         <form onSubmit={onSubmit} noValidate aria-labelledby="enrol-step-title" className="flex min-w-0 flex-col gap-5">
-          <EnrolStepper current={step} withErrors={stepsWithErrors(formState.errors)} onGo={go} />
+          <EnrolStepper current={step} done={passed} withErrors={stepsWithErrors(formState.errors)} onGo={go} />
           <ErrorSummary attempt={stopped} problem={serverProblem} />
           <section className="rounded-2xl border border-surface-200 bg-surface-0 p-4 shadow-sm sm:p-6">
             <h2 id="enrol-step-title" ref={heading} tabIndex={-1} className="mb-4 text-xl font-bold text-ink-900">

@@ -1,4 +1,5 @@
 import { get, useFormContext, type FieldError } from 'react-hook-form';
+import { CLOCK_HINT, CLOCK_INPUT } from '../../../components/ui/clock-input';
 import { TextField } from '../../../components/ui/field';
 import type { PolicyFormValues } from './policy-values';
 
@@ -21,9 +22,12 @@ interface TextSettingProps {
 export function TextSetting({ name, label, hint, type = 'text', className = '', inputMode }: TextSettingProps) {
   const { register, formState } = useFormContext<PolicyFormValues>();
   const error = get(formState.errors, name) as FieldError | undefined;
+  // A clock setting is typed as text: the browser's time box shows "am"/"pm" in some locales, and times here are
+  // always on the 24-hour clock.
+  const clock = type === 'time';
   return (
-    <TextField label={label} type={type} hint={hint} inputMode={inputMode} error={error?.message} className={className}
-      spellCheck={false} {...register(name)} />
+    <TextField label={label} type={clock ? 'text' : type} hint={clock ? [CLOCK_HINT, hint].filter(Boolean).join('. ') : hint}
+      inputMode={inputMode} error={error?.message} className={className} spellCheck={false} {...(clock ? CLOCK_INPUT : {})} {...register(name)} />
   );
 }
 

@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { useFormContext } from 'react-hook-form';
 import { DEFAULT_POLICY_SETTINGS, oximetryRulesSchema, scheduleRulesSchema, spo2TargetsSchema, stepDownRulesSchema } from '../../../../shared/schemas/policy';
 import { NumberSetting } from './policy-field';
+import { policySectionId } from './policy-section-nav';
 import { SOURCES } from './policy-sources';
 import type { PolicyFormValues } from './policy-values';
 
@@ -10,7 +11,7 @@ export const defaultText = (value: number | string, source?: string) => `Default
 
 export function Section({ title, children }: { title: string; children: ReactNode }) {
   return (
-    <fieldset className="rounded-2xl border border-surface-200 bg-surface-0 p-4 shadow-sm sm:p-6">
+    <fieldset id={policySectionId(title)} className="scroll-mt-4 rounded-2xl border border-surface-200 bg-surface-0 p-4 shadow-sm sm:p-6">
       <legend className="float-left mb-4 w-full text-lg font-bold text-ink-900">{title}</legend>
       <div className="clear-both grid gap-x-6 gap-y-5 sm:grid-cols-2">{children}</div>
     </fieldset>

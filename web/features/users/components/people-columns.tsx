@@ -2,6 +2,7 @@ import { createColumnHelper } from '@tanstack/react-table';
 import { ROLE_LABELS } from '../../../../shared/auth/roles';
 import { USER_SORTS, type ListUsersQuery, type User } from '../../../../shared/schemas/users';
 import { Badge } from '../../../components/ui/badge';
+import { EmailText } from '../../../components/ui/email-text';
 import { urlSort } from '../../../components/ui/data-table/url-sort';
 import type { ServerTableFeatures } from '../../../components/ui/data-table/use-server-table';
 import { formatDateTime } from '../../../lib/format';
@@ -12,7 +13,7 @@ const helper = createColumnHelper<ServerTableFeatures, User>();
 
 export const peopleColumns = helper.columns([
   helper.accessor('name', { header: 'Name', cell: (info) => <span className="font-semibold">{info.getValue()}</span> }),
-  helper.accessor('email', { header: 'E-mail', cell: (info) => <span className="break-all">{info.getValue()}</span> }),
+  helper.accessor('email', { header: 'E-mail', cell: (info) => <EmailText address={info.getValue()} className="xl:whitespace-nowrap" /> }),
   helper.accessor('role', { header: 'Role', cell: (info) => ROLE_LABELS[info.getValue()] }),
   helper.accessor('disabled', {
     id: 'status',

@@ -3,6 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { bookVisitSchema, VISIT_KIND_LABELS, VISIT_KINDS, type BookVisitInput } from '../../../../shared/schemas/visits';
 import { ErrorSummary } from '../../../components/ui/error-summary';
+import { CLOCK_HINT, CLOCK_INPUT } from '../../../components/ui/clock-input';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
 import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';
@@ -40,7 +41,7 @@ export function BookVisitForm({ infantId, onClose }: { infantId: string; onClose
       </SelectField>
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Date" type="date" error={errors.date?.message} {...register('date')} />
-        <TextField label="Time" type="time" hint="The family's local time" error={errors.time?.message} {...register('time')} />
+        <TextField label="Time" {...CLOCK_INPUT} hint={`The family's local time, ${CLOCK_HINT}`} error={errors.time?.message} {...register('time')} />
       </div>
       <TextField label="Length (minutes)" type="number" inputMode="numeric" error={errors.durationMinutes?.message}
         {...register('durationMinutes', asNumber)} />

@@ -33,7 +33,7 @@ export function CancelVisitForm({ visit, onClose }: { visit: Visit; onClose: () 
       <TextField label="Why it is cancelled" error={errors.reason?.message} {...register('reason')} />
       <div className="flex flex-wrap gap-2">
         <Button type="submit" variant="danger" disabled={cancel.isPending}>{cancel.isPending ? 'Cancelling…' : 'Cancel the visit'}</Button>
-        <Button variant="quiet" onClick={onClose} disabled={cancel.isPending}>Keep it</Button>
+        <Button variant="quiet" onClick={onClose} disabled={cancel.isPending}>Keep the visit as it is</Button>
       </div>
     </form>
   );

@@ -3,6 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { moveVisitSchema, type MoveVisitInput, type Visit } from '../../../../shared/schemas/visits';
 import { Alert } from '../../../components/ui/alert';
 import { ErrorSummary } from '../../../components/ui/error-summary';
+import { CLOCK_HINT, CLOCK_INPUT } from '../../../components/ui/clock-input';
 import { TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';
 import { isApiError } from '../../../lib/api-error';
@@ -38,9 +39,9 @@ export function MoveVisitForm({ visit, onClose }: { visit: Visit; onClose: () =>
       {stale ? <Alert tone="warn">{problem}</Alert> : <ErrorSummary attempt={submitCount} failure={move.error} problem={problem} />}
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField label="New date" type="date" error={errors.date?.message} {...register('date')} />
-        <TextField label="New time" type="time" hint="The family's local time" error={errors.time?.message} {...register('time')} />
+        <TextField label="New time" {...CLOCK_INPUT} hint={`The family's local time, ${CLOCK_HINT}`} error={errors.time?.message} {...register('time')} />
       </div>
-      <FormActions pending={move.isPending} submitLabel="Move the visit" pendingLabel="Moving…" onCancel={onClose} />
+      <FormActions pending={move.isPending} submitLabel="Move the visit" pendingLabel="Moving…" onCancel={onClose} cancelLabel="Keep the visit as it is" />
     </form>
   );
 }

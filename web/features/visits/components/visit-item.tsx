@@ -25,7 +25,7 @@ export function VisitItem({ visit, canManage }: { visit: Visit; canManage: boole
       {open && editing === null && (
         <div className="flex flex-wrap gap-2">
           <Button variant="secondary" size="sm" onClick={() => setEditing('move')}>Move</Button>
-          <Button variant="quiet" size="sm" onClick={() => setEditing('cancel')}>Cancel</Button>
+          <Button variant="quiet" size="sm" onClick={() => setEditing('cancel')}>Cancel the visit</Button>
         </div>
       )}
       {open && editing === 'move' && <MoveVisitForm visit={visit} onClose={() => setEditing(null)} />}
