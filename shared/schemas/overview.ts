@@ -69,7 +69,7 @@ export const consultantOverviewSchema = z.object({
   asOf: z.string(),
   proposals: waitingSchema,
   journeys: waitingSchema,
-  /** Step downs asked for although one or more programme rules were not met, oldest first. */
+  /** Step-down proposals waiting whose rule checks, as stored with them, include one not met; oldest first. */
   unmetStepDowns: z.array(unmetStepDownSchema),
 });
 export type ConsultantOverview = z.infer<typeof consultantOverviewSchema>;

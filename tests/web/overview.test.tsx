@@ -63,7 +63,7 @@ describe('the coordinator overview', () => {
     stubApi({ 'GET /api/session': sessionHandler('coordinator'), 'GET /api/overview': () => json(200, coordinator) });
     renderApp('/coordinator');
     await screen.findByText('Babies by status');
-    expect(await figure(/^8 waiting for sign-off Oldest has waited 4 days$/)).toHaveAttribute('href', '/caseload?flag=new_setting_waiting');
+    expect(await figure(/^8 settings waiting for sign-off Oldest has waited 4 days$/)).toHaveAttribute('href', '/caseload?flag=new_setting_waiting');
     expect(screen.getByRole('link', { name: /^5 checks overdue for 4 babies$/ })).toHaveAttribute('href', '/caseload?flag=check_overdue');
     expect(screen.getByRole('link', { name: /^3 messages failed and 1 not known to have arrived$/ })).toHaveAttribute('href', '/messages?status=failed');
     expect(screen.getByRole('link', { name: /^2 journey checks waiting Oldest has waited 2 days$/ })).toHaveAttribute('href', '#journeys-waiting');
@@ -116,12 +116,12 @@ describe('the admin overview', () => {
 });
 
 describe('the consultant overview', () => {
-  it('when decisions wait, then settings and journey checks are counted and step downs against a rule are named', async () => {
+  it('when decisions wait, then settings and journey checks are counted and step downs with rules not met are named', async () => {
     stubApi({ 'GET /api/session': sessionHandler('consultant'), 'GET /api/overview': () => json(200, consultant) });
     renderApp('/consultant');
     expect(await figure(/^9 settings to sign off Oldest has waited 3 days$/)).toHaveAttribute('href', '/sign-off');
     expect(screen.getByRole('link', { name: /^2 journey checks Oldest has waited 5 hours$/ })).toHaveAttribute('href', '/sign-off');
-    expect(screen.getByRole('link', { name: /^1 step down against a rule/ })).toHaveAttribute('href', '#against-rules');
+    expect(screen.getByRole('link', { name: /^1 step down with rules not met/ })).toHaveAttribute('href', '#rules-not-met');
     expect(screen.getByRole('link', { name: 'Review Isla Calloway' })).toHaveAttribute('href', '/sign-off/f1f1f1f1-0000-4000-8000-000000000001');
     expect(screen.getByText(/2 rules not met · waiting 1 day/)).toBeInTheDocument();
   });

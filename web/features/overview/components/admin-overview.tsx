@@ -41,7 +41,7 @@ export function AdminFigures({ o }: { o: Data }) {
           className="group flex min-h-28 flex-col justify-between gap-1 rounded-2xl border border-l-8 border-surface-200 border-l-brand-200 bg-surface-0 p-4 shadow-sm hover:bg-brand-50">
           <span className="flex flex-wrap items-baseline gap-x-2">
             <span className="text-lg font-semibold text-brand-800 underline decoration-brand-300 underline-offset-4">Programme settings</span>{' '}
-            <span className="text-4xl font-bold tabular-nums text-ink-900 sm:text-5xl">{policy.version === 0 ? 'Defaults' : `Version ${policy.version}`}</span>
+            <span className="whitespace-nowrap text-3xl font-bold tabular-nums text-ink-900 sm:text-4xl">{policy.version === 0 ? 'Defaults' : `Version ${policy.version}`}</span>
           </span>{' '}
           <span className="text-ink-700">{policy.savedAt ? `saved ${longDate(policy.savedAt)}` : 'nobody has saved settings yet'}</span>
         </Link>

@@ -11,9 +11,9 @@ const oldest = (since: string | null, asOf: string) => (since ? `Oldest has wait
 
 function UnmetStepDowns({ o }: { o: Data }) {
   return (
-    <section aria-labelledby="against-rules" className="flex flex-col gap-3 rounded-2xl border border-surface-200 bg-surface-0 p-4 shadow-sm sm:p-6">
-      <h2 id="against-rules" tabIndex={-1} className="text-lg font-bold text-ink-900">Step downs asked for against a rule</h2>
-      <p className="text-ink-700">The person asking gave a reason to go ahead although one or more programme rules were not met.</p>
+    <section aria-labelledby="rules-not-met" className="flex flex-col gap-3 rounded-2xl border border-surface-200 bg-surface-0 p-4 shadow-sm sm:p-6">
+      <h2 id="rules-not-met" tabIndex={-1} className="text-lg font-bold text-ink-900">Step downs with rules not met</h2>
+      <p className="text-ink-700">Each was asked for, or proposed after an overnight study, while one or more of the programme’s step-down rules were not met. The review shows every rule with its evidence.</p>
       {o.unmetStepDowns.length === 0 ? <EmptyState message="None waiting: every step down waiting meets the programme’s rules." /> : (
         <ul className="flex flex-col divide-y divide-surface-200 rounded-lg border border-surface-200">
           {o.unmetStepDowns.map((s) => (
@@ -36,8 +36,8 @@ export function ConsultantFigures({ o }: { o: Data }) {
           detail={oldest(o.proposals.oldestSince, o.asOf)} />
         <FigureLink to="/sign-off" count={o.journeys.count} label={plural(o.journeys.count, 'journey check', 'journey checks')}
           detail={oldest(o.journeys.oldestSince, o.asOf)} />
-        <FigureLink to="#against-rules" count={o.unmetStepDowns.length} attention
-          label={plural(o.unmetStepDowns.length, 'step down against a rule', 'step downs against a rule')} detail="each needs your judgement" />
+        <FigureLink to="#rules-not-met" count={o.unmetStepDowns.length} attention
+          label={plural(o.unmetStepDowns.length, 'step down with rules not met', 'step downs with rules not met')} detail="each needs your judgement" />
       </FigureGrid>
       <div className="grid gap-4 lg:grid-cols-2">
         <UnmetStepDowns o={o} />

@@ -38,7 +38,7 @@ export function CoordinatorFigures({ o }: { o: Data }) {
   return (
     <div className="flex flex-col gap-6">
       <FigureGrid label="What needs doing">
-        <FigureLink to="/caseload?flag=new_setting_waiting" count={signOff.count} label="waiting for sign-off"
+        <FigureLink to="/caseload?flag=new_setting_waiting" count={signOff.count} label={plural(signOff.count, 'setting waiting for sign-off', 'settings waiting for sign-off')}
           detail={oldest(signOff.oldestSince, o.asOf, 'Nothing waiting')} />
         <FigureLink to="/caseload?flag=check_overdue" count={overdueChecks.count} label={plural(overdueChecks.count, 'check overdue', 'checks overdue')} attention
           detail={overdueChecks.count ? `for ${overdueChecks.babies} ${plural(overdueChecks.babies, 'baby', 'babies')}` : 'All checks on time'} />
