@@ -2,6 +2,7 @@ import { Link } from 'react-router-dom';
 import { ROLE_LABELS } from '../../../../shared/auth/roles';
 import type { AdminOverview as Data } from '../../../../shared/schemas/overview';
 import { Card } from '../../../components/ui/card';
+import { useSignedInUser } from '../../../lib/signed-in-user';
 import { useOverview } from '../api/get-overview';
 import { FigureGrid, FigureLink } from './figure-link';
 import { OverviewLoadState } from './load-state';
@@ -28,8 +29,9 @@ function PeopleByRole({ people }: { people: Data['people'] }) {
 
 export function AdminFigures({ o }: { o: Data }) {
   const { policy, messagesThisWeek: week } = o;
+  const { programmeTimeZone: zone } = useSignedInUser();
   const active = o.people.reduce((sum, p) => sum + p.active, 0);
-  const since = `since ${dayAndDate(week.since)}`;
+  const since = `since ${dayAndDate(week.since, zone)}`;
   return (
     <div className="flex flex-col gap-6">
       <FigureGrid label="The programme at a glance">
@@ -43,7 +45,7 @@ export function AdminFigures({ o }: { o: Data }) {
             <span className="text-lg font-semibold text-brand-800 underline decoration-brand-300 underline-offset-4">Programme settings</span>{' '}
             <span className="whitespace-nowrap text-3xl font-bold tabular-nums text-ink-900 sm:text-4xl">{policy.version === 0 ? 'Defaults' : `Version ${policy.version}`}</span>
           </span>{' '}
-          <span className="text-ink-700">{policy.savedAt ? `saved ${longDate(policy.savedAt)}` : 'nobody has saved settings yet'}</span>
+          <span className="text-ink-700">{policy.savedAt ? `saved ${longDate(policy.savedAt, zone)}` : 'nobody has saved settings yet'}</span>
         </Link>
       </FigureGrid>
       <div className="grid gap-4 lg:grid-cols-2">

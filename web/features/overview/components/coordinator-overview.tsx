@@ -7,7 +7,7 @@ import { BabiesByStatus } from './babies-by-status';
 import { FigureGrid, FigureLink } from './figure-link';
 import { OverviewLoadState } from './load-state';
 import { OnOxygenCard } from './on-oxygen-card';
-import { longDate, plural, waitedFor } from './overview-format';
+import { calendarDate, plural, waitedFor } from './overview-format';
 
 const oldest = (since: string | null, asOf: string, none: string) => (since ? `Oldest has waited ${waitedFor(since, asOf)}` : none);
 
@@ -22,7 +22,7 @@ function JourneysWaiting({ o }: { o: Data }) {
             {items.map((j) => (
               <li key={j.id} className="flex flex-wrap items-baseline justify-between gap-x-3 gap-y-0.5 px-3 py-2">
                 <Link to={`/journeys/${j.id}`} className="font-semibold text-brand-800 underline">{j.infantName} to {j.destinationName}</Link>
-                <span className="text-ink-700">leaves {longDate(j.departOn)} · waiting {waitedFor(j.waitingSince, o.asOf)}</span>
+                <span className="text-ink-700">leaves {calendarDate(j.departOn)} · waiting {waitedFor(j.waitingSince, o.asOf)}</span>
               </li>
             ))}
           </ul>

@@ -1,6 +1,3 @@
-const dayMonthYear = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric' });
-const weekday = new Intl.DateTimeFormat('en-GB', { weekday: 'long', day: 'numeric', month: 'long' });
-
 export const plural = (n: number, one: string, many: string) => `${n === 1 ? one : many}`;
 
 /** "3 days", "5 hours", "under an hour": how long the oldest item has waited, measured at the server's "now". */
@@ -12,5 +9,11 @@ export function waitedFor(since: string, asOf: string): string {
   return hours >= 1 ? `${hours} ${plural(hours, 'hour', 'hours')}` : 'under an hour';
 }
 
-export const longDate = (iso: string) => dayMonthYear.format(new Date(iso));
-export const dayAndDate = (iso: string) => weekday.format(new Date(iso));
+/** An instant as the programme's calendar shows it ("12 November 2026"), wherever the browser is. */
+export const longDate = (iso: string, timeZone: string) =>
+  new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone }).format(new Date(iso));
+/** "Monday 30 November" in the programme's time zone. */
+export const dayAndDate = (iso: string, timeZone: string) =>
+  new Intl.DateTimeFormat('en-GB', { weekday: 'long', day: 'numeric', month: 'long', timeZone }).format(new Date(iso));
+/** A calendar date (YYYY-MM-DD) in words; it has no time zone, so it is read as one. */
+export const calendarDate = (ymd: string) => longDate(`${ymd}T00:00:00Z`, 'UTC');
