@@ -7,6 +7,8 @@ import { seedMonitoring } from './seed-monitoring';
 import { seedVisits } from './seed-visits';
 import { seedJourneys } from './seed-journeys';
 import { seedPolicies } from './seed-policy';
+import { seedHistory } from './seed-history';
+import { seedWaiting } from './seed-waiting';
 
 const env = loadEnv();
 if (env.NODE_ENV === 'production') {
@@ -21,7 +23,10 @@ try {
   const studies = await seedMonitoring(deps, 'larkmoor');
   const visits = await seedVisits(deps, 'larkmoor');
   const journeys = await seedJourneys(deps, 'larkmoor');
-  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s), ${journeys} journey check(s)).`);
+  // After the others: the overview's year of history and the work waiting on the start pages.
+  const history = await seedHistory(deps, 'larkmoor');
+  const waiting = await seedWaiting(deps, 'larkmoor');
+  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s), ${journeys} journey check(s), ${history} former baby/babies, ${waiting} waiting item(s)).`);
 } finally {
   await closeDeps(deps);
 }

@@ -45,6 +45,8 @@ import { createJourneysService } from './modules/journeys/journeys.service';
 import { journeysRouters } from './modules/journeys/journeys.router';
 import { createCarePlanService } from './modules/care-plan/care-plan.service';
 import { carePlanRouter } from './modules/care-plan/care-plan.router';
+import { overviewRouter } from './modules/overview/overview.router';
+import { createOverviewService } from './modules/overview/overview.service';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -134,6 +136,7 @@ export function createApp(deps: AppDeps): Express {
   const journeys = journeysRouters(createJourneysService(deps.ds, repos));
   api.use('/infants', journeys.infants, carePlanRouter(createCarePlanService(repos)));
   api.use('/journeys', journeys.journeys);
+  api.use('/overview', overviewRouter(createOverviewService(repos), deps.clock));
   api.use(apiNotFound);
   app.use('/api', api);
 

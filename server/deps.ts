@@ -20,6 +20,7 @@ import { createRecordingsRepository } from './db/repositories/recordings.reposit
 import { createRemindersRepository } from './db/repositories/reminders.repository';
 import { createJourneysRepository } from './db/repositories/journeys.repository';
 import { createAccountTokensRepository } from './db/repositories/account-tokens.repository';
+import { createOverviewRepository } from './db/repositories/overview.repository';
 import { createMailSender, type MailSender } from './notifications/mail-sender';
 import { createLogger, type Logger } from './lib/logger';
 
@@ -57,6 +58,7 @@ export function createRepos(ds: DataSource) {
     journeys: createJourneysRepository(ds),
     reminders: createRemindersRepository(ds),
     accountTokens: createAccountTokensRepository(ds),
+    overview: createOverviewRepository(ds),
   };
 }
 export type AppRepos = ReturnType<typeof createRepos>;

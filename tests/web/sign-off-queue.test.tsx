@@ -76,16 +76,6 @@ describe('Sign-off queue', () => {
     expect(await screen.findByText('Nothing is waiting for your sign-off.')).toBeInTheDocument();
   });
 
-  it('when the consultant opens their overview, then it shows how many wait and the first few', async () => {
-    stubApi({ 'GET /api/session': sessionHandler('consultant'), 'GET /api/prescriptions/queue': () => json(200, { items }) });
-    renderApp('/consultant');
-    expect(await screen.findByText('proposals are waiting.', { exact: false })).toHaveTextContent('4 proposals are waiting.');
-    expect(screen.getByRole('link', { name: 'Juniper Ashcombe' })).toHaveAttribute('href', `/sign-off/${items[0].prescriptionId}`);
-    expect(screen.getByRole('link', { name: 'Wren Tallis' })).toBeInTheDocument();
-    expect(screen.queryByRole('link', { name: 'Ivo Penrose' })).not.toBeInTheDocument();
-    expect(screen.getByRole('link', { name: 'Open the whole queue (4)' })).toHaveAttribute('href', '/sign-off');
-  });
-
   it.each(['/sign-off', `/sign-off/${items[0].prescriptionId}`])('when a family opens %s, then it is refused and nothing is fetched', async (path) => {
     const fetchMock = stubApi({ 'GET /api/session': sessionHandler('family') });
     renderApp(path);

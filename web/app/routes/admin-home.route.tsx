@@ -1,9 +1,7 @@
-import { Link } from 'react-router-dom';
-import { buttonClasses } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
-import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { ServiceStatus } from '../../features/health/components/service-status';
+import { AdminOverview } from '../../features/overview/components/admin-overview';
 import { useSignedInUser } from '../../lib/signed-in-user';
 import { usePageTitle } from '../../lib/page-title';
 
@@ -12,22 +10,12 @@ export function Component() {
   usePageTitle('Overview');
   return (
     <>
-      <PageHeader title="Overview" intro={`Running ${user.programmeName}: accounts, programme settings and the message log.`} />
-      <div className="grid gap-4 md:grid-cols-2">
-        <Card title="People">
-          <p className="mb-4 text-ink-700">Add staff and family accounts, and disable accounts that should no longer sign in.</p>
-          <Link to="/admin/people" className={buttonClasses('secondary')}>
-            Open People
-          </Link>
-        </Card>
+      <PageHeader title="Overview" intro={`Running ${user.programmeName}: accounts, programme settings and messages. Each figure opens the list behind it.`} />
+      <AdminOverview />
+      {/* Apart from the figures, so it still answers when the database behind them does not. */}
+      <div className="mt-4 grid gap-4 lg:grid-cols-2">
         <Card title="Service status">
           <ServiceStatus />
-        </Card>
-        <Card title="Programme settings">
-          <EmptyState message="Nothing here yet: targets, visit schedule and equipment steps will be set here." />
-        </Card>
-        <Card title="Message log">
-          <EmptyState message="Reminders sent to families and staff will be listed here." />
         </Card>
       </div>
     </>

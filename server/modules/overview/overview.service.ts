@@ -1,0 +1,98 @@
+import type { AppAbility } from '../../../shared/auth/ability';
+import { ROLES } from '../../../shared/auth/roles';
+import { INFANT_STATUSES } from '../../../shared/schemas/infants';
+import {
+  JOURNEYS_LISTED, ON_OXYGEN_MONTHS, type AdminOverview, type ConsultantOverview, type CoordinatorOverview, type MonthCount,
+} from '../../../shared/schemas/overview';
+import { unmetInEvidence } from '../../../shared/schedule/step-down-rules';
+import { accessibleWhere } from '../../auth/casl-to-sql';
+import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
+import { JOURNEY_ACL_COLUMNS } from '../../db/repositories/journeys.repository';
+import { PRESCRIPTION_ACL_COLUMNS } from '../../db/repositories/prescriptions.repository';
+import { USER_ACL_COLUMNS } from '../../db/repositories/users.repository';
+import type { AppRepos } from '../../deps';
+
+/** Who is asking: the programme whose figures these are, its time zone (months, weeks) and the instant of "now". */
+export interface OverviewCaller { programmeId: string; timeZone: string; now: Date }
+
+const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
+const countOf = (rows: { status: string; n: number }[], status: string) => rows.find((r) => r.status === status)?.n ?? 0;
+
+export function createOverviewService(repos: AppRepos) {
+  const { overview } = repos;
+  const infants = (ability: AppAbility) => accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS);
+
+  async function onOxygenByMonth(ability: AppAbility, c: OverviewCaller): Promise<MonthCount[]> {
+    const rows = await overview.onOxygenByMonth(infants(ability), c.timeZone, c.now, ON_OXYGEN_MONTHS);
+    return rows.map((r) => ({ month: r.month, count: r.n }));
+  }
+
+  return {
+    async coordinator(ability: AppAbility, c: OverviewCaller): Promise<CoordinatorOverview> {
+      const [statuses, signOff, overdue, messages, journeys, months] = await Promise.all([
+        overview.babiesByStatus(infants(ability)),
+        overview.proposalsWaiting(accessibleWhere(ability, 'read', 'Prescription', PRESCRIPTION_ACL_COLUMNS)),
+        overview.overdueChecks(infants(ability), c.now),
+        overview.messagesByStatus(c.programmeId, infants(ability), ['failed', 'unknown'], null),
+        overview.journeysWaiting(accessibleWhere(ability, 'read', 'Journey', JOURNEY_ACL_COLUMNS), JOURNEYS_LISTED),
+        onOxygenByMonth(ability, c),
+      ]);
+      return {
+        role: 'coordinator', asOf: c.now.toISOString(),
+        babiesByStatus: INFANT_STATUSES.map((status) => ({ status, count: countOf(statuses, status) })),
+        signOff: { count: signOff.n, oldestSince: iso(signOff.oldest) },
+        overdueChecks: { count: overdue.n, babies: overdue.babies },
+        messagesNeedingAction: { failed: countOf(messages, 'failed'), unknown: countOf(messages, 'unknown') },
+        journeysWaiting: {
+          count: journeys.n, oldestSince: iso(journeys.oldest),
+          oldest: journeys.oldestItems.map((j) => ({
+            id: j.id, infantName: j.infant_name, destinationName: j.destination_name, departOn: j.depart_on, waitingSince: iso(j.created_at)!,
+          })),
+        },
+        onOxygenByMonth: months,
+      };
+    },
+
+    async admin(ability: AppAbility, c: OverviewCaller): Promise<AdminOverview> {
+      const since = await overview.weekStart(c.timeZone, c.now);
+      const [people, policy, messages, months] = await Promise.all([
+        overview.peopleByRole(accessibleWhere(ability, 'read', 'User', USER_ACL_COLUMNS)),
+        repos.policies.current(c.programmeId),
+        overview.messagesByStatus(c.programmeId, infants(ability), ['sent', 'failed', 'unknown'], since),
+        onOxygenByMonth(ability, c),
+      ]);
+      return {
+        role: 'admin', asOf: c.now.toISOString(),
+        people: ROLES.map((role) => {
+          const row = people.find((p) => p.role === role);
+          return { role, active: row?.active ?? 0, disabled: row?.disabled ?? 0 };
+        }),
+        policy: { version: policy.version, savedAt: policy.createdAt },
+        messagesThisWeek: {
+          since: since.toISOString(), sent: countOf(messages, 'sent'), failed: countOf(messages, 'failed'),
+          unknown: countOf(messages, 'unknown'),
+        },
+        onOxygenByMonth: months,
+      };
+    },
+
+    async consultant(ability: AppAbility, c: OverviewCaller): Promise<ConsultantOverview> {
+      const rx = accessibleWhere(ability, 'approve', 'Prescription', PRESCRIPTION_ACL_COLUMNS);
+      const [proposals, journeys, stepDowns] = await Promise.all([
+        overview.proposalsWaiting(rx),
+        overview.journeysWaiting(accessibleWhere(ability, 'approve', 'Journey', JOURNEY_ACL_COLUMNS), 0),
+        overview.stepDownsWaiting(rx),
+      ]);
+      return {
+        role: 'consultant', asOf: c.now.toISOString(),
+        proposals: { count: proposals.n, oldestSince: iso(proposals.oldest) },
+        journeys: { count: journeys.n, oldestSince: iso(journeys.oldest) },
+        // The same reader of the stored rule checks as the sign-off queue and the decision form.
+        unmetStepDowns: stepDowns
+          .map((r) => ({ prescriptionId: r.id, infantName: r.infant_name, unmetRules: unmetInEvidence(r.evidence).length, waitingSince: iso(r.created_at)! }))
+          .filter((r) => r.unmetRules > 0),
+      };
+    },
+  };
+}
+export type OverviewService = ReturnType<typeof createOverviewService>;
