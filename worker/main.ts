@@ -96,7 +96,7 @@ for (const [name, w] of [[QUEUES.maintenance, maintenance], [QUEUES.clinical, cl
 for (const q of [maintenanceQueue, messagesQueue]) q.on('error', logEvery(60_000, (err: Error) => logger.warn('queue connection error', { queue: q.name, err: err.message })));
 
 // The heartbeat the API's readiness check shows: a worker silent for over a minute is reported missing.
-const heartbeatRedis = new Redis(env.REDIS_URL, { maxRetriesPerRequest: 1, enableOfflineQueue: false });
+const heartbeatRedis = new Redis(env.REDIS_URL, { maxRetriesPerRequest: 1 });
 heartbeatRedis.on('error', logEvery(60_000, (err: Error) => logger.warn('heartbeat connection error', { err: err.message })));
 const me = workerId();
 const sendBeat = () => beat(heartbeatRedis, prefix, me, new Date()).catch((err) => logger.warn('heartbeat not written', { err: (err as Error).message }));
