@@ -4,12 +4,7 @@
 import { build } from 'esbuild';
 import { cpSync, rmSync } from 'node:fs';
 import path from 'node:path';
-
-export const ENTRY_POINTS = {
-  'server/main': 'server/main.ts',
-  'server/migrate': 'server/db/migrate.ts',
-  'worker/main': 'worker/main.ts',
-} as const;
+import { ENTRY_POINTS } from './entry-points';
 
 const root = path.resolve(import.meta.dirname, '../..');
 const out = path.join(root, 'dist');
