@@ -9,7 +9,9 @@ import pg from 'pg';
 import { loadEnv } from '../server/env';
 import { closeDeps, createDeps } from '../server/deps';
 import { createApp } from '../server/app';
+import { fork } from 'node:child_process';
 import { SCALE_PASSWORD, scaleProgrammes, seedScale } from '../seed/scale';
+import { replan } from '../server/modules/schedule/planning';
 
 const ADMIN_URL = process.env.BENCH_ADMIN_URL ?? 'postgres://postgres@127.0.0.1:54329/postgres';
 const SCALE_URL = process.env.BENCH_SCALE_DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/nestflow_scale';
@@ -142,6 +144,60 @@ console.log(`\npage 21 of the ${large!.babies.toLocaleString('en')}-baby caseloa
 console.log(`  bare node:http + pg (best SQL)  median ${bareRate.toFixed(0)} req/s`);
 console.log(`  Nestflow API                    median ${appRate.toFixed(0)} req/s`);
 console.log(`  ratio (target ≥ 0.8)            ${(appRate / bareRate).toFixed(2)}×`);
+
+// Open loop: requests are sent at a fixed rate whatever the answers' speed (a closed loop would slow down with the
+// server and hide queueing), and the latency of each is kept.
+async function openLoop(url: string, headers: Record<string, string>, perSecond: number, seconds: number): Promise<{ p50: number; p99: number; errors: number }> {
+  const times: number[] = [];
+  let errors = 0;
+  const pending: Array<Promise<void>> = [];
+  const start = process.hrtime.bigint();
+  const total = perSecond * seconds;
+  for (let i = 0; i < total; i++) {
+    const due = Number(start) / 1e6 + (i * 1000) / perSecond;
+    const wait = due - Number(process.hrtime.bigint()) / 1e6;
+    if (wait > 0) await new Promise((r) => setTimeout(r, wait));
+    const sent = process.hrtime.bigint();
+    pending.push(fetch(url, { headers }).then(async (res) => {
+      await res.arrayBuffer();
+      if (!res.ok) errors++;
+      // Measured from when it was due, so a late send counts against the server too.
+      times.push(Number(process.hrtime.bigint()) / 1e6 - Math.min(due, Number(sent) / 1e6));
+    }, () => { errors++; }));
+  }
+  await Promise.all(pending);
+  return { p50: pct(times, 0.5), p99: pct(times, 0.99), errors };
+}
+const RATE = Number(process.env.BENCH_RATE ?? 50);
+const SECONDS = 20;
+const appIdle = await openLoop(appUrl, { cookie }, RATE, SECONDS);
+const bareIdle = await openLoop(bareUrl, {}, RATE, SECONDS);
+const analyser = fork('bench/lib/analyse-loop.ts', [], { execArgv: ['--import', 'tsx'], stdio: ['ignore', 'pipe', 'inherit', 'ipc'] });
+await new Promise((r) => analyser.once('message', r));
+const appBusy = await openLoop(appUrl, { cookie }, RATE, SECONDS);
+let analysed = '';
+analyser.stdout!.on('data', (d) => { analysed += String(d); });
+const stopped = new Promise((r) => analyser.once('exit', r));
+analyser.kill('SIGTERM');
+await stopped;
+console.log(`\nopen loop, ${RATE} requests/s for ${SECONDS} s (latency from when each request was due)`);
+console.table([
+  { route: 'bare node:http + pg', 'p50 ms': bareIdle.p50.toFixed(1), 'p99 ms': bareIdle.p99.toFixed(1), errors: bareIdle.errors },
+  { route: 'Nestflow API, idle', 'p50 ms': appIdle.p50.toFixed(1), 'p99 ms': appIdle.p99.toFixed(1), errors: appIdle.errors },
+  { route: `Nestflow API, 24 h recordings analysed meanwhile (${analysed.trim() || '?'} finished)`, 'p50 ms': appBusy.p50.toFixed(1), 'p99 ms': appBusy.p99.toFixed(1), errors: appBusy.errors },
+]);
+
+// Re-planning every baby's checks, as the daily job and a policy change do: wall time at N/10 and N babies.
+const planTimes: Array<{ babies: string; seconds: string; 'ms per baby': string }> = [];
+for (const programme of [tenth!, large!]) {
+  const [{ id }] = (await pool.query(`SELECT id FROM programmes WHERE slug = $1`, [programme.slug])).rows;
+  const t = process.hrtime.bigint();
+  const { planned } = await replan(deps.repos, { programmeId: id }, new Date('2026-12-01T06:00:00Z'));
+  const took = ms(t);
+  planTimes.push({ babies: planned.toLocaleString('en'), seconds: (took / 1000).toFixed(1), 'ms per baby': (took / planned).toFixed(3) });
+}
+console.log('\nre-planning all checks of a programme');
+console.table(planTimes);
 
 // Statements per request, counted at the driver.
 async function countStatements(method: string, url: string, body?: unknown, csrf?: string): Promise<number> {
