@@ -31,8 +31,9 @@ export REDIS_URL="redis://127.0.0.1:$REDIS_TEST_PORT"
 
 log "Type-checking"
 npx tsc --noEmit -p tsconfig.json
-log "Building the web app"
+log "Building the web app and compiling the API and worker (dist/)"
 npx vite build --logLevel warn
+node --import tsx scripts/build/server.ts
 
 mkdir -p artifacts
 report="artifacts/vitest-report.json"

@@ -10,6 +10,7 @@ import { createCsrf } from './auth/csrf';
 import { absoluteTimeout, createSessionMiddleware } from './auth/session-middleware';
 import { createSignInLimiter } from './auth/sign-in-limiter';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { requestLog } from './middleware/request-log';
 import { healthRouter } from './modules/health/health.router';
 import { createSessionService } from './modules/session/session.service';
 import { sessionRouter } from './modules/session/session.router';
@@ -54,6 +55,7 @@ export function createApp(deps: AppDeps): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', env.TRUST_PROXY ? 1 : false);
+  app.use(requestLog(logger));
   // gzip for the web bundle and JSON (a phone on a slow line downloads about a third of the bytes); PDFs and
   // other already-compressed types are left as they are by the filter's defaults.
   app.use(compression());
@@ -95,7 +97,7 @@ export function createApp(deps: AppDeps): Express {
   const csrf = createCsrf(env.SESSION_SECRET, env.COOKIE_SECURE);
 
   const api = express.Router();
-  api.use('/health', healthRouter(deps.ds, deps.redis));
+  api.use('/health', healthRouter({ ds: deps.ds, redis: deps.redis, queuePrefix: env.QUEUE_PREFIX, clock: deps.clock }));
   // Provider callbacks carry a signature instead of a session or a CSRF token.
   api.use('/webhooks/sms', smsInboundRouter({ ds: deps.ds, repos, logger: deps.logger, authToken: env.TWILIO_AUTH_TOKEN, webhookUrl: env.INBOUND_WEBHOOK_URL }));
   api.use(express.json({ limit: '200kb' }));

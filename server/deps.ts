@@ -22,7 +22,7 @@ import { createJourneysRepository } from './db/repositories/journeys.repository'
 import { createAccountTokensRepository } from './db/repositories/account-tokens.repository';
 import { createOverviewRepository } from './db/repositories/overview.repository';
 import { createMailSender, type MailSender } from './notifications/mail-sender';
-import { createLogger, type Logger } from './lib/logger';
+import { createLogger, logEvery, type Logger } from './lib/logger';
 
 /** Everything the app needs from the outside world, built once per process and closed in order on shutdown. */
 export interface AppDeps {
@@ -67,10 +67,11 @@ export async function createDeps(env: Env, name = 'api'): Promise<AppDeps> {
   const ds = createDataSource(env.DATABASE_URL, { applicationName: `nestflow-${name}`, quiet: env.NODE_ENV === 'test' });
   await ds.initialize();
   const redis = new Redis(env.REDIS_URL, { maxRetriesPerRequest: 2, enableOfflineQueue: true, lazyConnect: false });
-  redis.on('error', () => undefined);
-  const sessionPool = new pg.Pool({ connectionString: env.DATABASE_URL, max: 5, application_name: `nestflow-${name}-sessions` });
-  sessionPool.on('error', () => undefined);
   const logger = createLogger(env.NODE_ENV === 'test' ? 'silent' : env.LOG_LEVEL, name);
+  // Connection errors are logged (at most once a minute while they last), never swallowed; requests meanwhile get 503.
+  redis.on('error', logEvery(60_000, (err: Error) => logger.warn('redis connection error', { err: err.message })));
+  const sessionPool = new pg.Pool({ connectionString: env.DATABASE_URL, max: 5, application_name: `nestflow-${name}-sessions` });
+  sessionPool.on('error', logEvery(60_000, (err: Error) => logger.warn('session database connection error', { err: err.message })));
   const mail = createMailSender(env, { timeoutMs: env.SEND_TIMEOUT_MS });
   return { env, ds, redis, sessionPool, logger, mail, repos: createRepos(ds), jobs: createJobProducer(env.REDIS_URL, env.QUEUE_PREFIX, logger, { attempts: env.REMINDER_ATTEMPTS, backoffMs: env.REMINDER_BACKOFF_MS }) };
 }

@@ -9,7 +9,7 @@ const boolFromString = z
 // Empty means "not set": lets SMS_API_BASE= switch the SMS sender to the hosted service.
 const optionalUrl = z.union([z.literal(''), z.url()]).optional();
 
-const envSchema = z
+export const envSchema = z
   .object({
     NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
     HOST: z.string().default('127.0.0.1'),

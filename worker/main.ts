@@ -4,7 +4,9 @@ import { loadEnv } from '../server/env';
 import { createDataSource } from '../server/db/data-source';
 import { createRepos } from '../server/deps';
 import { createJobProducer } from '../server/jobs/producer';
-import { createLogger } from '../server/lib/logger';
+import { Redis } from 'ioredis';
+import { createLogger, logEvery } from '../server/lib/logger';
+import { beat, HEARTBEAT_EVERY_MS, stopBeating, workerId } from '../server/lib/heartbeat';
 import { JOBS, QUEUES } from '../shared/jobs/catalogue';
 import { redisConnection } from './queues';
 import { pruneSessions } from './processors/prune-sessions.processor';
@@ -87,15 +89,29 @@ const messages = new Worker(QUEUES.messages, (job) => deliverReminderProcessor(j
   connection, prefix, concurrency: env.REMINDER_CONCURRENCY, lockDuration: 15_000, stalledInterval: 5_000, maxStalledCount: 10,
 });
 for (const [name, w] of [[QUEUES.maintenance, maintenance], [QUEUES.clinical, clinical], [QUEUES.planning, planning], [QUEUES.messages, messages]] as const) {
-  w.on('failed', (job, err) => logger.warn('job failed', { queue: name, job: job?.name, attempts: job?.attemptsMade, err: err.message }));
+  w.on('failed', (job, err) => logger.warn('job failed', { queue: name, job: job?.name, jobId: job?.id, attempts: job?.attemptsMade, err: err.message }));
+  // Without an 'error' listener a lost Redis connection inside a BullMQ worker is an unhandled error event.
+  w.on('error', logEvery(60_000, (err: Error) => logger.error('worker queue error', { queue: name, err: err.message })));
 }
-logger.info('worker started', { queues: Object.values(QUEUES) });
+for (const q of [maintenanceQueue, messagesQueue]) q.on('error', logEvery(60_000, (err: Error) => logger.warn('queue connection error', { queue: q.name, err: err.message })));
+
+// The heartbeat the API's readiness check shows: a worker silent for over a minute is reported missing.
+const heartbeatRedis = new Redis(env.REDIS_URL, { maxRetriesPerRequest: 1 });
+heartbeatRedis.on('error', logEvery(60_000, (err: Error) => logger.warn('heartbeat connection error', { err: err.message })));
+const me = workerId();
+const sendBeat = () => beat(heartbeatRedis, prefix, me, new Date()).catch((err) => logger.warn('heartbeat not written', { err: (err as Error).message }));
+await sendBeat();
+const heartbeatTimer = setInterval(sendBeat, HEARTBEAT_EVERY_MS);
+logger.info('worker started', { queues: Object.values(QUEUES), workerId: me });
 
 let closing = false;
 async function shutdown(signal: string) {
   if (closing) return;
   closing = true;
   logger.info('worker shutting down', { signal });
+  clearInterval(heartbeatTimer);
+  await stopBeating(heartbeatRedis, prefix, me).catch(() => undefined);
+  heartbeatRedis.disconnect();
   // Let active jobs finish before the connections go.
   await Promise.all([maintenance.close(), clinical.close(), planning.close(), messages.close()]);
   await Promise.all([maintenanceQueue.close(), messagesQueue.close()]);

@@ -1,6 +1,7 @@
 import { Queue, type JobsOptions } from 'bullmq';
 import { JOBS, QUEUES, conversionJobId, planDedupId, recordingJobId, replanJobId, type JobKey, type JobPayload } from '../../shared/jobs/catalogue';
-import type { Logger } from '../lib/logger';
+import { logEvery, type Logger } from '../lib/logger';
+import { redisOptionsFromUrl } from '../lib/redis-url';
 import { addReminderJobs, type ReminderJobOptions } from './reminder-jobs';
 
 /** How far ahead due reminders are put on the queue (as delayed jobs); the rest wait in PostgreSQL. */
@@ -23,13 +24,11 @@ const JOB_OPTIONS = { attempts: 5, backoff: { type: 'exponential', delay: 2000 }
  * reconciler enqueues it later, so a failed enqueue is logged, never surfaced as a failed request.
  */
 export function createJobProducer(redisUrl: string, prefix: string, logger: Logger, reminderOptions: ReminderJobOptions = { attempts: 6, backoffMs: 30_000 }): JobProducer {
-  const u = new URL(redisUrl);
-  const connection = {
-    host: u.hostname, port: Number(u.port || 6379), db: u.pathname.length > 1 ? Number(u.pathname.slice(1)) : 0,
-    enableOfflineQueue: false, maxRetriesPerRequest: 1,
-  };
+  const connection = { ...redisOptionsFromUrl(redisUrl), enableOfflineQueue: false, maxRetriesPerRequest: 1 };
   const queues = new Map(Object.values(QUEUES).map((name) => [name, new Queue(name, { prefix, connection })]));
-  for (const q of queues.values()) q.on('error', () => undefined);
+  // A lost connection is logged (once a minute at most while it lasts); the enqueue itself falls back below.
+  const onError = logEvery(60_000, (err: Error) => logger.warn('job queue connection error', { err: err.message }));
+  for (const q of queues.values()) q.on('error', onError);
 
   async function add<K extends JobKey>(key: K, data: JobPayload<K>, options: JobsOptions) {
     const job = JOBS[key];

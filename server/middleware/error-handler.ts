@@ -44,41 +44,43 @@ const isRedisDown = (err: unknown) =>
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
     if (res.headersSent) return;
+    // Every error body carries the request id of its access-log line, so a reported failure can be found in the log.
+    const send = (status: number, error: Record<string, unknown>) => res.status(status).json({ error: { ...error, requestId: req.id === undefined ? undefined : String(req.id) } });
     if (err instanceof AppError) {
       if (err.status === 429 && 'retryAfterSeconds' in err) res.set('Retry-After', String(err.retryAfterSeconds));
-      res.status(err.status).json({ error: { code: err.code, message: err.message, details: err.details } });
+      send(err.status, { code: err.code, message: err.message, details: err.details });
       return;
     }
     if ((err as { code?: string }).code === 'EBADCSRFTOKEN') {
-      res.status(403).json({ error: { code: 'csrf_invalid', message: 'Your session form token is missing or out of date. Reload the page and try again.' } });
+      send(403, { code: 'csrf_invalid', message: 'Your session form token is missing or out of date. Reload the page and try again.' });
       return;
     }
     if (isBadCompressedBody(err)) {
-      res.status(400).json({ error: { code: 'bad_encoding', message: 'The request body is not in the content encoding its header names.' } });
+      send(400, { code: 'bad_encoding', message: 'The request body is not in the content encoding its header names.' });
       return;
     }
     const status = clientStatus(err);
     if (status !== undefined) {
       const known = CLIENT_ERROR_TYPES[String((err as { type?: string }).type)];
       const fallback = status === 404 ? { code: 'not_found', message: 'Not found.' } : { code: 'bad_request', message: 'The request could not be read.' };
-      res.status(status).json({ error: known ?? fallback });
+      send(status, known ?? fallback);
       return;
     }
     if (isBadCharacter(err)) {
-      res.status(400).json({ error: { code: 'bad_text', message: 'The request holds a character that cannot be stored (for example a NUL).' } });
+      send(400, { code: 'bad_text', message: 'The request holds a character that cannot be stored (for example a NUL).' });
       return;
     }
     if (isRedisDown(err)) {
-      logger.warn('redis unavailable', { path: req.path });
-      res.status(503).json({ error: { code: 'unavailable', message: 'Nestflow is briefly unavailable. Please try again in a moment.' } });
+      logger.warn('redis unavailable', { requestId: req.id, path: req.path, err });
+      send(503, { code: 'unavailable', message: 'Nestflow is briefly unavailable. Please try again in a moment.' });
       return;
     }
     if (isDatabaseDown(err)) {
-      logger.warn('database unavailable', { path: req.path });
-      res.status(503).json({ error: { code: 'unavailable', message: 'Nestflow is briefly unavailable. Please try again in a moment.' } });
+      logger.warn('database unavailable', { requestId: req.id, path: req.path, err });
+      send(503, { code: 'unavailable', message: 'Nestflow is briefly unavailable. Please try again in a moment.' });
       return;
     }
-    logger.error('unhandled error', { path: req.path, method: req.method, err: (err as Error)?.stack });
-    res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side. Please try again.' } });
+    logger.error('unhandled error', { requestId: req.id, path: req.path, method: req.method, err });
+    send(500, { code: 'internal', message: 'Something went wrong on our side. Please try again.' });
   };
 }

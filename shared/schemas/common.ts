@@ -29,6 +29,8 @@ export const errorBodySchema = z.object({
     message: z.string(),
     // Per-field messages (400, 422 needs_confirmation), or the unmet rules of a 422 policy_not_met.
     details: z.record(z.string(), z.union([z.array(z.string()), z.array(z.object({ code: z.string(), message: z.string() }))])).optional(),
+    /** The id of the request's access-log line, to quote when reporting a problem. */
+    requestId: z.string().optional(),
   }),
 });
 export type ErrorBody = z.infer<typeof errorBodySchema>;

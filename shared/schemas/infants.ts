@@ -131,6 +131,9 @@ export const listInfantsQuerySchema = pageQuerySchema.extend({
   q: plainText().trim().max(100).optional(),
   scope: z.enum(['mine', 'programme']).optional(),
   flag: z.enum(INFANT_FLAGS).optional(),
+  // Paging by position: the opaque cursor of the page's last row (next) or first row (prev), from the previous answer.
+  cursor: plainText().trim().max(400).optional(),
+  direction: z.enum(['next', 'prev'], { error: 'Direction is next or prev' }).default('next'),
 });
 export type ListInfantsQuery = z.infer<typeof listInfantsQuerySchema>;
 
@@ -159,7 +162,13 @@ export const infantSummarySchema = z.object({
   flags: z.array(z.enum(INFANT_FLAGS)),
 });
 export type InfantSummary = z.infer<typeof infantSummarySchema>;
-export const infantsPageSchema = pagedSchema(infantSummarySchema);
+export const infantsPageSchema = pagedSchema(infantSummarySchema).extend({
+  /** Above 10,000 matching babies the total is PostgreSQL's estimate ("about N"). */
+  totalIsEstimate: z.boolean().optional(),
+  /** Cursors for the pages after and before this one; null at either end. */
+  nextCursor: z.string().nullable().optional(),
+  prevCursor: z.string().nullable().optional(),
+});
 
 export const contactSchemaOut = z.object({
   id: z.uuid(), name: z.string(), relation: z.string(), mobile: z.string().nullable(), email: z.string().nullable(),

@@ -101,7 +101,7 @@ describe('focus on the page heading after navigation', () => {
         signedIn = true;
         return sessionHandler('admin', 'csrf-2')(request);
       },
-      'GET /api/health': () => json(200, { status: 'ok', db: 'ok', redis: 'ok' }),
+      'GET /api/health/ready': () => json(200, { status: 'ok', db: 'ok', redis: 'ok', migrations: 'current', workers: { status: 'ok', running: 1, seen: [] } }),
     });
     const { user } = renderApp('/sign-in');
     const signInHeading = await screen.findByRole('heading', { level: 1, name: 'Sign in' });

@@ -43,10 +43,11 @@ describe('errors and missing pages', () => {
   it('when the status check answers, then the admin sees each part in words', async () => {
     stubApi({
       'GET /api/session': sessionHandler('admin'),
-      'GET /api/health': () => json(200, { status: 'degraded', db: 'ok', redis: 'down' }),
+      'GET /api/health/ready': () => json(200, { status: 'degraded', db: 'ok', redis: 'down', migrations: 'current', workers: { status: 'missing', running: 0, seen: [] } }),
     });
     renderApp('/admin');
     expect(await screen.findByText('Not reachable')).toBeInTheDocument();
     expect(screen.getByText('Working')).toBeInTheDocument();
+    expect(screen.getByText('Not heard from for over a minute')).toBeInTheDocument();
   });
 });

@@ -16,7 +16,7 @@ describe('role navigation', () => {
   it.each(cases)('when a $role signs in, then / leads to $home and the menu offers only their work', async ({ role, home, heading, items }) => {
     stubApi({
       'GET /api/session': sessionHandler(role),
-      'GET /api/health': () => json(200, { status: 'ok', db: 'ok', redis: 'ok' }),
+      'GET /api/health/ready': () => json(200, { status: 'ok', db: 'ok', redis: 'ok', migrations: 'current', workers: { status: 'ok', running: 1, seen: [] } }),
     });
     const { router } = renderApp('/');
 

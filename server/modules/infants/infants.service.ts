@@ -2,7 +2,8 @@ import type { DataSource } from 'typeorm';
 import type { AppAbility } from '../../../shared/auth/ability';
 import type { ContactInput, EnrolInfantInput, ListInfantsQuery, UpdateInfantInput } from '../../../shared/schemas/infants';
 import { accessibleWhere, type SqlFilter } from '../../auth/casl-to-sql';
-import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
+import { INFANT_ACL_COLUMNS, SORT_KEYS, sortValues, type InfantListRow } from '../../db/repositories/infants.repository';
+import { decodeCursor, encodeCursor } from '../../lib/cursor';
 import type { AppRepos } from '../../deps';
 import type { JobProducer } from '../../jobs/producer';
 import { ForbiddenError, NotFoundError } from '../../lib/errors';
@@ -35,8 +36,24 @@ export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobP
       if (query.scope === 'programme' && user.role === 'nurse') throw new ForbiddenError('A nurse sees their own caseload.');
       if (query.scope === 'mine' && user.role === 'consultant') extra = { sql: 'i.consultant_id = :me', params: { me: user.id } };
       if (query.scope === 'mine' && user.role === 'nurse') extra = { sql: 'i.nurse_id = :me', params: { me: user.id } };
-      const rows = await repos.infants.list(query, acl(ability), extra);
-      return { items: rows.map((r) => toSummary(r, today)), total: rows.length ? Number(rows[0].total) : 0 };
+      const keys = SORT_KEYS[query.sort.replace('-', '')]!.cols.length;
+      const from = query.cursor ? decodeCursor(query.cursor, query.sort, keys) : undefined;
+      const position = !from ? { offset: (query.page - 1) * query.pageSize } : query.direction === 'prev' ? { before: from } : { after: from };
+      const [{ rows, more }, count] = await Promise.all([
+        repos.infants.list(query, acl(ability), extra, position),
+        repos.infants.count(query, acl(ability), extra),
+      ]);
+      const cursorOf = (r: InfantListRow | undefined) => (r ? encodeCursor({ sort: query.sort, values: sortValues(query.sort, r), id: r.id }) : null);
+      // Going back, "more" means more pages before this one; a page reached by "next" always has one before it.
+      const hasNext = query.direction === 'prev' && from ? true : more;
+      const hasPrev = query.direction === 'prev' && from ? more : !!from || query.page > 1;
+      return {
+        items: rows.map((r) => toSummary(r, today)),
+        total: count.total,
+        totalIsEstimate: count.estimate,
+        nextCursor: hasNext ? cursorOf(rows.at(-1)) : null,
+        prevCursor: hasPrev ? cursorOf(rows[0]) : null,
+      };
     },
 
     async enrol(ability: AppAbility, actor: Actor, input: EnrolInfantInput, today: string) {

@@ -10,7 +10,7 @@ export const healthKeys = {
 export const healthQueryOptions = () =>
   queryOptions({
     queryKey: healthKeys.current(),
-    queryFn: ({ signal }) => api.get('/api/health', healthSchema, undefined, signal),
+    queryFn: ({ signal }) => api.get('/api/health/ready', healthSchema, undefined, signal),
     refetchInterval: 60_000,
     // A status card must report a failing server, not replace the page with an error.
     throwOnError: false,

@@ -2,11 +2,11 @@ import { Badge } from '../../../components/ui/badge';
 import { Spinner } from '../../../components/ui/spinner';
 import { useHealth } from '../api/get-health';
 
-function Part({ label, state }: { label: string; state: 'ok' | 'down' }) {
+function Part({ label, ok, words }: { label: string; ok: boolean; words: string }) {
   return (
     <li className="flex items-center justify-between gap-3 py-2">
       <span>{label}</span>
-      <Badge tone={state === 'ok' ? 'ok' : 'danger'}>{state === 'ok' ? 'Working' : 'Not reachable'}</Badge>
+      <Badge tone={ok ? 'ok' : 'danger'}>{words}</Badge>
     </li>
   );
 }
@@ -17,8 +17,13 @@ export function ServiceStatus() {
   if (health.isError) return <p className="text-danger-800">The status check did not answer: {health.error.message}</p>;
   return (
     <ul className="divide-y divide-surface-200">
-      <Part label="Database" state={health.data.db} />
-      <Part label="Job queue" state={health.data.redis} />
+      <Part label="Database" ok={health.data.db === 'ok'} words={health.data.db === 'ok' ? 'Working' : 'Not reachable'} />
+      <Part label="Job queue" ok={health.data.redis === 'ok'} words={health.data.redis === 'ok' ? 'Working' : 'Not reachable'} />
+      <Part
+        label="Background worker (reminders, analyses)"
+        ok={health.data.workers.status === 'ok'}
+        words={health.data.workers.status === 'ok' ? `Working (${health.data.workers.running})` : 'Not heard from for over a minute'}
+      />
     </ul>
   );
 }

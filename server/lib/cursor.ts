@@ -1,0 +1,25 @@
+import { ValidationError } from './errors';
+
+// A list cursor: the sort it belongs to, the sort key's values of one row (exact text) and that row's id, as
+// base64url JSON. It is a position, not a secret: a forged one only moves the page, and the caller's ability still
+// filters every row in SQL.
+export interface Cursor { sort: string; values: string[]; id: string }
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export const encodeCursor = (c: Cursor): string => Buffer.from(JSON.stringify([c.sort, c.values, c.id])).toString('base64url');
+
+export function decodeCursor(text: string, sort: string, keyCount: number): Cursor {
+  const bad = () => new ValidationError({ 'query.cursor': ['This page link is out of date or damaged; go back to the first page.'] });
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(Buffer.from(text, 'base64url').toString('utf8'));
+  } catch {
+    throw bad();
+  }
+  if (!Array.isArray(parsed) || parsed.length !== 3) throw bad();
+  const [s, values, id] = parsed as [unknown, unknown, unknown];
+  if (s !== sort || typeof id !== 'string' || !UUID.test(id)) throw bad();
+  if (!Array.isArray(values) || values.length !== keyCount || !values.every((v) => typeof v === 'string' && v.length <= 200)) throw bad();
+  return { sort, values: values as string[], id };
+}
