@@ -103,7 +103,7 @@ describe('the admin overview', () => {
   it('when the programme runs, then people, the settings version and this week’s messages are figures that open their pages', async () => {
     stubApi({
       'GET /api/session': sessionHandler('admin'), 'GET /api/overview': () => json(200, admin),
-      'GET /api/health': () => json(200, { status: 'ok', db: 'ok', redis: 'ok' }),
+      'GET /api/health/ready': () => json(200, { status: 'ok', db: 'ok', redis: 'ok', migrations: 'current', workers: { status: 'ok', running: 1, seen: [] } }),
     });
     renderApp('/admin');
     expect(await figure(/^41 people can sign in/)).toHaveAttribute('href', '/admin/people');
