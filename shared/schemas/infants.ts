@@ -189,4 +189,5 @@ export const auditEventSchema = z.object({
   details: z.record(z.string(), z.unknown()),
 });
 export type AuditEvent = z.infer<typeof auditEventSchema>;
-export const auditEventsSchema = z.object({ items: z.array(auditEventSchema) });
+/** `people`: names for the staff ids the details point at (a visit's nurse, a new consultant), so each line reads in words. */
+export const auditEventsSchema = z.object({ items: z.array(auditEventSchema), people: z.record(z.string(), z.string()).default({}) });
