@@ -42,9 +42,11 @@ export function orderedFlags(flags: readonly InfantFlag[]): InfantFlag[] {
 export function FlagBadge({ flag }: { flag: InfantFlag }) {
   const kind = INFANT_FLAG_KINDS[flag];
   return (
-    <span className={`inline-flex items-center gap-1.5 rounded-md border px-2 py-0.5 text-sm ${TONES[kind]}`}>
-      {kind === 'clinical' ? <ClinicalIcon /> : <AdminIcon />}
-      <span className="font-bold uppercase tracking-wide text-xs">{INFANT_FLAG_KIND_LABELS[kind]}</span>
+    <span className={`inline-flex flex-col rounded-md border px-2 py-0.5 text-sm leading-snug ${TONES[kind]}`}>
+      <span className="inline-flex items-center gap-1 whitespace-nowrap text-xs font-bold">
+        {kind === 'clinical' ? <ClinicalIcon /> : <AdminIcon />}
+        {INFANT_FLAG_KIND_LABELS[kind]}
+      </span>
       <span className="font-semibold">{INFANT_FLAG_LABELS[flag]}</span>
     </span>
   );
