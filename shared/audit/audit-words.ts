@@ -59,6 +59,7 @@ function readingCorrection(d: Details): string {
   return `Corrected a spot reading: ${changes.length ? changes.join(', ') : 'no figure changed'}`;
 }
 
+const tripWords = (d: Details) => (str(d.destinationName) ? ` for ${str(d.destinationName)}${str(d.departOn) ? ` (leaving ${dayWords(d.departOn)})` : ''}` : '');
 const timeWords = (date: unknown, time: unknown) => `${dayWords(date)}${str(time) ? ` at ${str(time)}` : ''}`;
 
 function visitMoved(d: Details, people: PeopleNames): string {
@@ -114,8 +115,8 @@ const WORDS: Record<AuditAction, Words> = {
   'recording.reanalysed': (d) => `Analysed an overnight recording again with the updated rules (version ${str(d.previousVersion) ?? num(d.previousVersion) ?? '?'} → ${str(d.analysisVersion) ?? num(d.analysisVersion) ?? '?'})${d.judged === false ? ', too short to judge' : ''}`,
   'recording.failed': (d) => `An overnight recording could not be analysed${because(d.reason)}`,
   'journey.requested': (d) => `Asked for a journey check: ${d.mode === 'flight' ? 'flight' : 'by road'} to ${str(d.destinationName) ?? 'a destination'}, ${dayWords(d.departOn)} to ${dayWords(d.returnOn)}${d.exceedsCannula === true ? '; the flow there is beyond a cannula' : ''}`,
-  'journey.approved': (d) => `Approved a journey check${because(d.reason, ' — ')}`,
-  'journey.declined': (d) => `Declined a journey check${because(d.reason)}`,
+  'journey.approved': (d) => `Approved the journey check${tripWords(d)}${because(d.reason, ' — ')}`,
+  'journey.declined': (d) => `Declined the journey check${tripWords(d)}${because(d.reason)}`,
   'visit.booked': (d) => `Booked a ${str(d.kind) && str(d.kind)! in VISIT_KIND_LABELS ? VISIT_KIND_LABELS[str(d.kind) as keyof typeof VISIT_KIND_LABELS].toLowerCase() : 'visit'} for ${timeWords(d.date, d.time)}`,
   'visit.moved': visitMoved,
   'visit.cancelled': (d) => `Cancelled a visit${str(d.date) ? ` for ${timeWords(d.date, d.time)}` : ''}${because(d.reason)}`,

@@ -97,4 +97,10 @@ describe('audit lines in words', () => {
     expect(auditWords('step_down.requested_against_rules', { unmet: ['time_on_setting', 'study_judged'], overrideReason: 'Family moving abroad' }))
       .toBe('Asked for a step down although not met: long enough on the current setting and a recent study long enough to judge. Reason given: Family moving abroad');
   });
+
+  it('when a journey check is decided, then the line names the trip and the reason', () => {
+    expect(auditWords('journey.declined', { journeyId: 'j', reason: 'Cabin altitude needs a fitness-to-fly test first', destinationName: 'Cindermoor', departOn: '2026-12-14' }))
+      .toBe('Declined the journey check for Cindermoor (leaving Mon, 14 Dec 2026): Cabin altitude needs a fitness-to-fly test first');
+    expect(auditWords('journey.approved', { journeyId: 'j', reason: null })).toBe('Approved the journey check');
+  });
 });
