@@ -1,5 +1,5 @@
 /**
- * Every action the API and the worker write to `audit_events`, as stored. A new action goes here and gets its
+ * Every action the API, the worker and the demo seed write to `audit_events`, as stored. A new action goes here and gets its
  * sentence in `audit-words.ts` (the type makes a missing one a compile error; tests/shared/audit-words.test.ts
  * also reads the server's source and fails on an action missing from this list).
  */
@@ -15,7 +15,7 @@ export const AUDIT_ACTIONS = [
   'contact.preferences_changed', 'contact.sms_stopped',
   'message.retried', 'message.confirmed-arrived',
   'policy.changed',
-  'user.invited', 'user.invitation_resent', 'user.invite_existing_address', 'user.setup_link_sent', 'user.enabled', 'user.disabled',
+  'user.created', 'user.invited', 'user.invitation_resent', 'user.invite_existing_address', 'user.setup_link_sent', 'user.enabled', 'user.disabled',
   'user.password_set', 'user.password_changed', 'user.password_change_failed',
   'session.signed_in', 'session.signed_out', 'session.sign_in_failed', 'session.sign_in_blocked', 'session.owner_alerted',
 ] as const;

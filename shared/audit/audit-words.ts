@@ -125,6 +125,7 @@ const WORDS: Record<AuditAction, Words> = {
   'message.retried': (d) => `Sent ${template(d)} message again`,
   'message.confirmed-arrived': (d) => `Recorded that ${template(d)} message did arrive`,
   'policy.changed': (d) => `Changed the programme settings${num(d.version) !== null ? ` (version ${num(d.version)})` : ''}${list(d.changed).length ? `: ${list(d.changed).map(String).join(', ')}` : ''}`,
+  'user.created': (d) => `Created the account of ${roleWords(d.role)}${str(d.by) === 'demo-seed' ? ' (demo set-up)' : ''}`,
   'user.invited': (d) => `Added ${roleWords(d.role)} and sent a set-up link`,
   'user.invitation_resent': (d) => `Sent ${roleWords(d.role)} a new set-up link`,
   'user.invite_existing_address': (d) => `Tried to add ${roleWords(d.role)} with an address that already has an account; its owner was told`,

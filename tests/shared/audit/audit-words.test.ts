@@ -23,11 +23,11 @@ const TEMPLATES: Record<string, string[]> = {
   '`journey.${j.status}`': ['journey.approved', 'journey.declined'],
 };
 
-/** Every `action:` written next to an audit entry in server/ and worker/: its string literals, and its templates. */
+/** Every `action:` written next to an audit entry in server/, worker/ and seed/: its string literals, and its templates. */
 function actionsInSource() {
   const literals = new Set<string>();
   const templates = new Set<string>();
-  for (const file of [...sourceFiles(join(ROOT, 'server')), ...sourceFiles(join(ROOT, 'worker'))]) {
+  for (const file of ['server', 'worker', 'seed'].flatMap((dir) => sourceFiles(join(ROOT, dir)))) {
     const text = readFileSync(file, 'utf8');
     if (!text.includes('audit.append(')) continue;
     for (const match of text.matchAll(/\baction:\s*([^,\n]+(?:\?[^,\n]+)?)/g)) {
