@@ -11,11 +11,14 @@ export interface TracePoint {
   /** Lowest valid SpO2 in the bucket, so a short dip stays visible however far the trace is squeezed. */
   spo2Min: number | null;
   spo2Mean: number | null;
+  /** Mean pulse (beats per minute) of the bucket's valid samples that carry one; null when none does. */
+  pulseMean: number | null;
 }
 
 /**
- * Whole-second buckets wide enough for at most `maxPoints`; artefacts (the analysis's own rules) are left out,
- * and a bucket without a valid sample is a null point so the chart shows a gap rather than a false line.
+ * Whole-second buckets wide enough for at most `maxPoints`; artefacts (the analysis's own rules) are left out of
+ * both SpO2 and pulse, and a bucket without a valid sample is a null point so the chart shows a gap rather than a
+ * false line. A valid sample without a pulse (files with no pulse column) counts for SpO2 only.
  */
 export function decimateTrace(ordered: readonly OximetrySample[], maxPoints = TRACE_MAX_POINTS): TracePoint[] {
   if (ordered.length === 0) return [];
@@ -26,6 +29,8 @@ export function decimateTrace(ordered: readonly OximetrySample[], maxPoints = TR
   const min = new Float64Array(buckets).fill(Infinity);
   const sum = new Float64Array(buckets);
   const count = new Uint32Array(buckets);
+  const pulseSum = new Float64Array(buckets);
+  const pulseCount = new Uint32Array(buckets);
   for (const sample of ordered) {
     if (!isValidSample(sample, DEFAULT_ARTEFACT_RULES)) continue;
     // At most floor(span / bucketSec) = buckets − 1, since every sample lies within the span.
@@ -34,6 +39,10 @@ export function decimateTrace(ordered: readonly OximetrySample[], maxPoints = TR
     if (v < min[b]) min[b] = v;
     sum[b] += v;
     count[b] += 1;
+    if (sample.pulse !== null) {
+      pulseSum[b] += sample.pulse;
+      pulseCount[b] += 1;
+    }
   }
   // Stryker disable next-line ArrayDeclaration: preallocation only; the loop below writes every index
   const points: TracePoint[] = new Array(buckets);
@@ -43,6 +52,7 @@ export function decimateTrace(ordered: readonly OximetrySample[], maxPoints = TR
       tSec: first + b * bucketSec,
       spo2Min: some ? min[b] : null,
       spo2Mean: some ? Math.round((sum[b] / count[b]) * 100) / 100 : null,
+      pulseMean: pulseCount[b] > 0 ? Math.round((pulseSum[b] / pulseCount[b]) * 10) / 10 : null,
     };
   }
   return points;

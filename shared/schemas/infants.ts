@@ -34,6 +34,21 @@ export const INFANT_FLAG_LABELS: Record<InfantFlag, string> = {
   below_target: 'Below SpO2 target',
 };
 
+/**
+ * Clinical flags are about the baby's oxygen and need a clinician's eye; administrative ones are work waiting
+ * (a sign-off, an overdue check). Screens tell them apart by icon and words, never by colour alone.
+ */
+export type InfantFlagKind = 'clinical' | 'admin';
+export const INFANT_FLAG_KINDS: Record<InfantFlag, InfantFlagKind> = {
+  growth_drift: 'clinical',
+  new_setting_waiting: 'admin',
+  not_reachable_by_cannula: 'clinical',
+  above_cannula_limit: 'clinical',
+  check_overdue: 'admin',
+  below_target: 'clinical',
+};
+export const INFANT_FLAG_KIND_LABELS: Record<InfantFlagKind, string> = { clinical: 'Clinical', admin: 'To do' };
+
 const isoDate = z.iso.date({ error: 'Use a date like 2026-11-30' });
 const text = (label: string, max = 120) =>
   plainText().trim().min(1, { error: `Enter the ${label}` }).max(max, { error: `At most ${max} characters` });
@@ -198,4 +213,5 @@ export const auditEventSchema = z.object({
   details: z.record(z.string(), z.unknown()),
 });
 export type AuditEvent = z.infer<typeof auditEventSchema>;
-export const auditEventsSchema = z.object({ items: z.array(auditEventSchema) });
+/** `people`: names for the staff ids the details point at (a visit's nurse, a new consultant), so each line reads in words. */
+export const auditEventsSchema = z.object({ items: z.array(auditEventSchema), people: z.record(z.string(), z.string()).default({}) });

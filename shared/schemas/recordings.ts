@@ -86,7 +86,11 @@ export const recordingListSchema = pagedSchema(recordingSchema);
 export const listRecordingsQuerySchema = pageQuerySchema;
 
 export const recordingTraceSchema = z.object({
-  points: z.array(z.object({ tSec: z.number(), spo2Min: z.number().nullable(), spo2Mean: z.number().nullable() })),
+  points: z.array(z.object({
+    tSec: z.number(), spo2Min: z.number().nullable(), spo2Mean: z.number().nullable(),
+    /** Mean pulse per bucket (bpm); absent in answers from before it was added. */
+    pulseMean: z.number().nullable().default(null),
+  })),
   /** ODI3 events; `deep` marks those that also count for ODI4. Empty until the analysis is done. */
   events: z.array(z.object({ startSec: z.number(), endSec: z.number(), nadir: z.number(), deep: z.boolean() })),
   threshold: z.number(),

@@ -65,6 +65,11 @@ describe('POST /api/infants/:id/recordings, then the analysis', () => {
     expect(trace.threshold).toBe(90);
     expect(trace.points).toHaveLength(1800);
     expect(Math.min(...trace.points.map((p) => p.spo2Min ?? 101))).toBe(expected.minSpo2);
+    // The pulse trace comes with it: the answer itself carries a mean pulse per 2 s bucket (schema defaults would hide its absence).
+    const rawPoints = (await nurse.get(`/api/recordings/${id}/trace`).expect(200)).body.points as Array<{ pulseMean: number | null }>;
+    expect(rawPoints.every((p) => 'pulseMean' in p)).toBe(true);
+    const pulses = samples.slice(0, 2).map((s) => s.pulse).filter((v): v is number => v !== null);
+    expect(rawPoints[0].pulseMean).toBe(Math.round((pulses.reduce((a, b) => a + b, 0) / pulses.length) * 10) / 10);
     expect(trace.events).toEqual(expected.odi3Events.map((e) => ({ startSec: e.startTSec, endSec: e.endTSec, nadir: e.nadirSpo2, deep: e.deep })));
 
     const list = await nurse.get(`/api/infants/${baby.id}/recordings`).expect(200);

@@ -20,7 +20,7 @@ const api = (method: string, path: string, body?: unknown) => pageApi(page)(meth
 
 
 describe('monitoring on a phone', () => {
-  it("when the nurse opens a spot check on today's round, then one tap saves the reading and the check leaves the list", async () => {
+  it("when the nurse opens a spot check on today's round, then one tap saves the reading and the check stays in its place, marked done", async () => {
     await signIn('nurse@larkmoor.example');
     await page.goto(`${base}/nurse`);
     const day = await api('GET', '/api/my-day');
@@ -32,7 +32,13 @@ describe('monitoring on a phone', () => {
     await page.getByLabel('Asleep').check();
     await screenshot(page, 'nurse-day-reading-form-phone');
     await page.getByRole('button', { name: 'Save reading' }).click();
-    await expect.poll(async () => (await api('GET', '/api/my-day')).body.items.some((i: { id: string }) => i.id === spot.id), { timeout: 10_000 }).toBe(false);
+    const place = (items: Array<{ id: string }>) => items.findIndex((i) => i.id === spot.id);
+    const before = place(day.body.items);
+    await expect.poll(async () => (await api('GET', '/api/my-day')).body.items.find((i: { id: string }) => i.id === spot.id)?.status, { timeout: 10_000 }).toBe('done');
+    // The round keeps its order: the stop is where it was, so the numbers of the others do not move.
+    expect(place((await api('GET', '/api/my-day')).body.items)).toBe(before);
+    const stop = page.getByRole('list', { name: 'Checks in route order' }).getByRole('listitem').nth(before);
+    await expect.poll(async () => stop.textContent(), { timeout: 10_000 }).toMatch(new RegExp(`^${before + 1}${spot.infantName}.*Done.*done at`));
     const readings = await api('GET', `/api/infants/${spot.infantId}/readings`);
     expect(readings.body.items.at(-1)).toMatchObject({ spo2: 94, pulse: 138, state: 'asleep', checkId: spot.id });
     await screenshot(page, 'nurse-day-after-save-phone');

@@ -1,5 +1,5 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import type { Role } from '../../shared/auth/roles';
 import { INFANT_FLAG_LABELS, INFANT_STATUS_LABELS, type InfantSummary } from '../../shared/schemas/infants';
 import { json, sessionHandler, stubApi } from './support/fake-api';
@@ -66,7 +66,7 @@ describe('Caseload', () => {
 
     await user.selectOptions(screen.getByLabelText('Status'), INFANT_STATUS_LABELS.awaiting_signoff);
     await waitFor(() => expect(currentUrl(router)).toBe('/caseload?sort=-elevation&status=awaiting_signoff'));
-    await user.selectOptions(screen.getByLabelText('Flag'), INFANT_FLAG_LABELS.growth_drift);
+    await user.selectOptions(screen.getByLabelText('Flag'), 'Clinical: Outgrowing flow');
     await user.type(screen.getByLabelText('Search by name'), 'ash{Enter}');
     await waitFor(() =>
       expect(currentUrl(router)).toBe('/caseload?sort=-elevation&status=awaiting_signoff&q=ash&flag=growth_drift'),
@@ -103,5 +103,53 @@ describe('Caseload', () => {
     renderApp('/caseload?status=left_programme');
     expect(await screen.findByText('No baby matches these filters.')).toBeInTheDocument();
     expect(screen.queryByRole('table')).not.toBeInTheDocument();
+  });
+
+  it('when a baby is off oxygen or has left, then no flow is shown as current: the words say why', async () => {
+    stubCaseload('coordinator', [
+      { ...rows[0], id: '7a7a7a7a-0000-4000-8000-000000000003', name: 'Odile Marsh', status: 'off_oxygen', activeFlowLpm: 0.1, flags: [] },
+      { ...rows[0], id: '7a7a7a7a-0000-4000-8000-000000000004', name: 'Lark Penrose', status: 'left_programme', activeFlowLpm: 0.05, flags: [] },
+    ], 2);
+    renderApp('/caseload');
+    const body = within(await screen.findByRole('table')).getAllByRole('row').slice(1);
+    expect(within(body[0]).getByText('None, off oxygen')).toBeInTheDocument();
+    expect(within(body[1]).getByText('None, left the programme')).toBeInTheDocument();
+    expect(screen.queryByText(/0\.1 L\/min|0\.05 L\/min/)).not.toBeInTheDocument();
+  });
+
+  it('when a baby has clinical and administrative flags, then each says its kind in words (and icon), clinical first', async () => {
+    stubCaseload('coordinator', [{ ...rows[0], flags: ['check_overdue', 'below_target'] }], 1);
+    renderApp('/caseload');
+    const flags = within(await screen.findByRole('list', { name: 'Flags' })).getAllByRole('listitem');
+    expect(flags.map((f) => f.textContent)).toEqual([`Clinical${INFANT_FLAG_LABELS.below_target}`, `To do${INFANT_FLAG_LABELS.check_overdue}`]);
+    for (const flag of flags) expect(flag.querySelector('svg[aria-hidden="true"]')).not.toBeNull();
+    // Two different icons, so the kinds differ in shape as well as in words.
+    expect(flags[0].querySelector('svg')!.innerHTML).not.toBe(flags[1].querySelector('svg')!.innerHTML);
+  });
+
+  it('when the screen is narrow, then each baby is a card with every fact and the order is chosen from a menu', async () => {
+    const listeners: Array<() => void> = [];
+    vi.stubGlobal('matchMedia', (query: string) => ({
+      matches: false, media: query, addEventListener: (_: string, l: () => void) => listeners.push(l), removeEventListener: () => undefined,
+    }));
+    try {
+      const listCalls = stubCaseload('coordinator');
+      const { user, router } = renderApp('/caseload');
+      const cards = within(await screen.findByRole('list', { name: 'Babies in the caseload' })).getAllByRole('listitem').filter((li) => li.querySelector('h2'));
+      expect(screen.queryByRole('table')).not.toBeInTheDocument();
+      expect(cards).toHaveLength(2);
+      const first = within(cards[0]);
+      expect(first.getByRole('heading', { level: 2, name: 'Juniper Ashdown' })).toBeInTheDocument();
+      expect(first.getByRole('link', { name: 'Juniper Ashdown' })).toHaveAttribute('href', `/infants/${rows[0].id}`);
+      for (const text of ['0.125 L/min', '6 wk 2 d', '1,780 m', 'Ada Pennick', 'Dr Ilse Varga', INFANT_STATUS_LABELS.on_oxygen, INFANT_FLAG_LABELS.growth_drift]) {
+        expect(first.getByText(text)).toBeInTheDocument();
+      }
+      await user.selectOptions(screen.getByLabelText('Sort by'), 'Home elevation, highest first');
+      await waitFor(() => expect(currentUrl(router)).toBe('/caseload?sort=-elevation'));
+      await waitFor(() => expect(listCalls.at(-1)?.get('sort')).toBe('-elevation'));
+      expect(screen.getByText('Page 1 of 3 · 60 babies')).toBeInTheDocument();
+    } finally {
+      vi.unstubAllGlobals();
+    }
   });
 });

@@ -3,6 +3,7 @@ import type uPlot from 'uplot';
 import { describe, expect, it, vi } from 'vitest';
 import type { RecordingTrace } from '../../shared/schemas/recordings';
 import { ReadingsChart } from '../../web/features/charts/components/readings-chart';
+import { PulseTraceChart, pulseRange } from '../../web/features/charts/components/pulse-trace-chart';
 import { Spo2TraceChart } from '../../web/features/charts/components/spo2-trace-chart';
 import type { UplotChartProps } from '../../web/features/charts/components/uplot-chart';
 
@@ -16,7 +17,7 @@ vi.mock('../../web/features/charts/components/uplot-chart', () => ({
 }));
 
 const trace: RecordingTrace = {
-  points: [{ tSec: 0, spo2Min: 95, spo2Mean: 96 }, { tSec: 18, spo2Min: null, spo2Mean: null }, { tSec: 36, spo2Min: 84, spo2Mean: 90 }],
+  points: [{ tSec: 0, spo2Min: 95, spo2Mean: 96, pulseMean: 142 }, { tSec: 18, spo2Min: null, spo2Mean: null, pulseMean: null }, { tSec: 36, spo2Min: 84, spo2Mean: 90, pulseMean: 151.5 }],
   events: [
     { startSec: 3600, endSec: 3601, nadir: 86, deep: true },
     { startSec: 7200, endSec: 7260, nadir: 91, deep: false },
@@ -31,7 +32,7 @@ function fakePlot() {
   const ctx = {
     canvas: { width: 800 },
     save: vi.fn(), restore: vi.fn(), beginPath: vi.fn(), rect: vi.fn(), clip: vi.fn(), moveTo: vi.fn(), lineTo: vi.fn(), stroke: vi.fn(),
-    setLineDash: vi.fn(), fillText: vi.fn(), measureText: () => ({ width: 30 }),
+    setLineDash: vi.fn(), fillText: vi.fn(), measureText: () => ({ width: 30 }), closePath: vi.fn(), fill: vi.fn(),
     set fillStyle(value: string) { fill = value; },
     get fillStyle() { return fill; },
     fillRect: (...rect: number[]) => calls.push({ fill, rect }),
@@ -80,8 +81,31 @@ describe('SpO2 trace chart', () => {
     expect(deep.rect[2]).toBe(3);
     expect(light.rect).toEqual([40 + 720, 10, 6, 200]);
     expect(deep.fill).not.toBe(light.fill);
+    // Beyond colour: the deeper fall is hatched (diagonal strokes) and carries one filled triangle; the lighter one has neither.
+    expect(ctx.stroke).toHaveBeenCalledTimes(1);
+    expect(ctx.fill).toHaveBeenCalledTimes(1);
+    expect(ctx.closePath).toHaveBeenCalledTimes(1);
     hooks.draw[0](u);
     expect(ctx.fillText).toHaveBeenCalledWith('90 %', expect.any(Number), expect.any(Number));
+  });
+});
+
+describe('Pulse trace chart', () => {
+  it('when the trace has pulse means, then they are drawn on the same time axis with a bpm range at least 40 beats wide', async () => {
+    render(<PulseTraceChart trace={trace} startedAt={null} description="Pulse." />);
+    const { data, options } = await lastGiven();
+    expect(data).toEqual([[0, 18, 36], [142, null, 151.5]]);
+    expect(options.series.map((s) => s.label)).toEqual(['From start', 'Mean pulse']);
+    expect(options.scales?.y?.range).toEqual([120, 170]);
+    expect(pulseRange([60, 220])).toEqual([50, 230]);
+    expect(pulseRange([null])).toEqual([80, 200]);
+  });
+
+  it('when the file had no pulse column, then no chart is drawn and the page says so', () => {
+    const none = { ...trace, points: trace.points.map((p) => ({ ...p, pulseMean: null })) };
+    render(<PulseTraceChart trace={none} startedAt={null} description="Pulse." />);
+    expect(screen.getByText('This file has no pulse readings, so there is no pulse trace.')).toBeInTheDocument();
+    expect(screen.queryByRole('figure')).not.toBeInTheDocument();
   });
 });
 

@@ -56,10 +56,12 @@ function stubRecord(role: Role, extra: Record<string, (request: FakeRequest) => 
       auditCalls.push(request);
       return json(200, {
         items: [
+          { id: '4', at: '2025-04-02T09:06:00.000Z', action: 'visit.moved', actor: { id: '00000000-0000-4000-8000-00000000000a', name: 'Tobias Fenwick' }, details: { visitId: 'v1', before: { date: '2025-04-08', time: '10:00', staffId: null }, after: { date: '2025-04-09', time: '14:30', staffId: '00000000-0000-4000-8000-00000000000b' } } },
           { id: '3', at: '2025-04-02T09:05:00.000Z', action: 'infant.updated', actor: { id: '00000000-0000-4000-8000-00000000000a', name: 'Tobias Fenwick' }, details: { changes: { weightKg: { from: 2.4, to: 2.9 }, weightDate: { from: '2025-04-01', to: '2025-04-02' } } } },
           { id: '2', at: '2025-04-02T09:00:02.000Z', action: 'prescription.proposed', actor: null, details: { version: 1, proposedFlowLpm: 0.125, feasible: true } },
           { id: '1', at: '2025-04-02T09:00:00.000Z', action: 'infant.enrolled', actor: { id: '00000000-0000-4000-8000-00000000000a', name: 'Tobias Fenwick' }, details: {} },
         ],
+        people: { '00000000-0000-4000-8000-00000000000b': 'Ada Pennick' },
       });
     },
     'GET /api/users': ({ url }) => json(200, { items: url.searchParams.get('role') === 'nurse' ? [nurse] : [consultant], total: 1 }),
@@ -100,11 +102,13 @@ describe('Infant record', () => {
     expect(header).toHaveTextContent('No approved setting yet');
   });
 
-  it('when the audit trail loads, then known actions read in plain words', async () => {
+  it('when the audit trail loads, then every line reads in words with what changed, never as a code', async () => {
     stubRecord('coordinator');
     renderApp(`/infants/${ID}`);
     const audit = (await screen.findByRole('heading', { name: 'Audit trail' })).closest('section') as HTMLElement;
-    expect(await within(audit).findByText('Changed the record: weight 2.4 → 2.9 kg, weighing date')).toBeInTheDocument();
+    expect(await within(audit).findByText('Changed the record: weight from 2.4 kg to 2.9 kg, weighing date from Tue, 1 Apr 2025 to Wed, 2 Apr 2025')).toBeInTheDocument();
+    expect(within(audit).getByText('Moved a visit from Tue, 8 Apr 2025 at 10:00 to Wed, 9 Apr 2025 at 14:30; now with Ada Pennick (was nobody)')).toBeInTheDocument();
+    expect(within(audit).queryByText(/visit\.moved/)).not.toBeInTheDocument();
     expect(within(audit).getByText('Worked out version 1: proposed 0.125 L/min')).toBeInTheDocument();
     expect(within(audit).getByText('Enrolled the baby')).toBeInTheDocument();
     expect(within(audit).getByText('Nestflow (automatic)')).toBeInTheDocument();

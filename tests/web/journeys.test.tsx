@@ -160,6 +160,22 @@ describe('Journey check: the consultant decides', { timeout: 30_000 }, () => {
     expect(screen.getByText(/PROPOSAL — not approved/)).toBeInTheDocument();
   });
 
+  it('when a flight check names a destination elevation, then the review shows the elevation as entered beside the cabin altitude', async () => {
+    stubReview(journey({ plan: flightPlan }, { mode: 'flight', destinationName: 'Cindermoor', destinationElevationM: 1780, cabinAltitudeFt: 8000, hoursAway: 6 }), () => json(200, {}));
+    renderApp(`/journeys/${JOURNEY_ID}`);
+    const facts = await screen.findByRole('region', { name: 'Journey' });
+    expect(within(facts).getByText('Destination elevation (as entered)').nextElementSibling).toHaveTextContent('1,780 m above sea level');
+    expect(facts).toHaveTextContent('By air, planned for a cabin at 8,000 ft; destination 1,780 m above sea level');
+    expect(screen.getByRole('list', { name: 'Cautions for this journey' })).toBeInTheDocument();
+  });
+
+  it('when a road check is reviewed, then the elevation the family entered is its own fact', async () => {
+    stubReview(journey(), () => json(200, {}));
+    renderApp(`/journeys/${JOURNEY_ID}`);
+    const facts = await screen.findByRole('region', { name: 'Journey' });
+    expect(within(facts).getByText('Destination elevation (as entered)').nextElementSibling).toHaveTextContent('1,800 m above sea level');
+  });
+
   it('when the consultant approves, then the decision carries the version seen and the sign-off page opens', async () => {
     const decisions = stubReview(journey(), () => json(200, { journey: decided('approved') }));
     const { user, router } = renderApp(`/journeys/${JOURNEY_ID}`);
@@ -260,21 +276,31 @@ describe('Journey check: the family sees the answer', { timeout: 20_000 }, () =>
     expect(screen.queryByRole('button', { name: /^Your trip to Cindermoor/ })).not.toBeInTheDocument();
   });
 
-  it('when trips are further off, waiting or not approved, then each is one line and no numbers are shown', async () => {
+  it('when an approved trip is still weeks away, then its figures are there at once (airline forms need them), one tap open, with the cautions', async () => {
+    stubFamilyHome([approvedFor(60)]);
+    const { user } = renderApp('/family');
+    await user.click(await screen.findByRole('button', { name: /^Your trip to Cindermoor/ }, { timeout: 5000 }));
+    const trip = await screen.findByRole('region', { name: 'Your trip to Cindermoor' }, { timeout: 5000 });
+    expect(within(trip).getByText('Set the flowmeter to 0.55 litres per minute, day and night')).toBeInTheDocument();
+    expect(within(trip).getByRole('complementary', { name: 'Before you go to Cindermoor' })).toHaveTextContent(/thinner there/);
+    expect(screen.queryByRole('list', { name: 'Your trips' })).not.toBeInTheDocument();
+  });
+
+  it('when trips are waiting or not approved, then each is one line and no numbers are shown; a past trip is gone', async () => {
     const waiting = journey({ id: 'a1a1a1a1-0000-4000-8000-000000000092', plan: null }, { destinationName: 'High Saddle' });
     const declined = journey({ id: 'a1a1a1a1-0000-4000-8000-000000000093', status: 'declined', plan: null }, { destinationName: 'Tallow Ridge' });
     const past = approvedFor(-10, 'a1a1a1a1-0000-4000-8000-000000000094', 'Emberly');
-    stubFamilyHome([approvedFor(30), waiting, declined, past]);
+    stubFamilyHome([waiting, declined, past]);
     const { user } = renderApp('/family');
     await user.click(await screen.findByRole('button', { name: /^Trips/ }, { timeout: 5000 }));
     const list = await screen.findByRole('list', { name: 'Your trips' }, { timeout: 5000 });
     const lines = within(list).getAllByRole('listitem').map((li) => li.textContent ?? '');
-    expect(lines).toHaveLength(3);
+    expect(lines).toHaveLength(2);
     expect(lines.find((l) => l.includes('High Saddle'))).toMatch(/waiting for the consultant/);
     expect(lines.find((l) => l.includes('Tallow Ridge'))).toMatch(/did not approve/);
-    expect(lines.find((l) => l.includes('Cindermoor'))).toMatch(/is approved\. The flow and the cylinders to take show here from/);
     expect(screen.queryByRole('region', { name: /Your trip to/ })).not.toBeInTheDocument();
     expect(screen.queryByText(/Emberly/)).not.toBeInTheDocument();
+    expect(list).not.toHaveTextContent(/litres|L\/min/);
     expect(screen.getByRole('link', { name: 'Ask for a trip check' })).toHaveAttribute('href', `/family/journey?baby=${BABY_ID}`);
   });
 });

@@ -164,4 +164,32 @@ describe('My day', () => {
     renderApp('/nurse');
     expect(await screen.findByText('Nothing due today.')).toBeInTheDocument();
   });
+
+  it('when a check was done earlier today, then it keeps its place and number, ticked and closed, and the rest keep theirs', async () => {
+    const done = dayItem({ status: 'done', doneAt: `${TODAY}T10:40:00.000Z` });
+    stubApi({
+      'GET /api/session': sessionHandler('nurse'),
+      'GET /api/my-day': () => json(200, { date: TODAY, items: [DAY_ITEMS[0], done, DAY_ITEMS[2]], upcoming: [], visits: [] }),
+    });
+    renderApp('/nurse');
+    const list = await screen.findByRole('list', { name: 'Checks in route order' });
+    const stops = within(list).getAllByRole('listitem');
+    expect(stops.map((li) => li.textContent?.slice(0, 1))).toEqual(['1', '2', '3']);
+    expect(within(stops[1]).getByText('Done')).toBeInTheDocument();
+    expect(within(stops[1]).getByRole('link', { name: 'Juniper Ashcombe' })).toHaveAttribute('href', `/infants/${done.infantId}`);
+    expect(within(stops[1]).queryByRole('button')).not.toBeInTheDocument();
+    expect(within(stops[2]).getByRole('button', { name: /^Ada Brindlewood/ })).toBeInTheDocument();
+    expect(screen.getByRole('heading', { name: /3 checks, in route order, 1 done/ })).toBeInTheDocument();
+  });
+
+  it('when checks are coming up this week, then each baby\'s name links to the record', async () => {
+    const later = dayItem({ id: 'c1c1c1c1-0000-4000-8000-000000000009', dueDate: '2026-12-04', kind: 'overnight_study' });
+    stubApi({
+      'GET /api/session': sessionHandler('nurse'),
+      'GET /api/my-day': () => json(200, { date: TODAY, items: [], upcoming: [later], visits: [] }),
+    });
+    renderApp('/nurse');
+    const section = (await screen.findByRole('heading', { name: 'Coming up this week' })).closest('section') as HTMLElement;
+    expect(within(section).getByRole('link', { name: 'Juniper Ashcombe' })).toHaveAttribute('href', `/infants/${later.infantId}`);
+  });
 });

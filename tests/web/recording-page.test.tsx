@@ -5,6 +5,8 @@ import type { InfantDetail } from '../../shared/schemas/infants';
 import type { Recording, RecordingTrace } from '../../shared/schemas/recordings';
 import { apiError, json, PROGRAMME_ID, sessionHandler, sessionUser, stubApi } from './support/fake-api';
 import { renderApp } from './support/render-app';
+import { getToasts, showToast } from '../../web/components/ui/toast-store';
+import { ANALYSED_TOAST, ANALYSING_TOAST } from '../../web/features/recordings/api/analysing-toast';
 
 // jsdom has no canvas: the uPlot wrapper is replaced, and what the chart says is checked in its caption and table.
 vi.mock('../../web/features/charts/components/uplot-chart', () => ({ default: () => <div data-testid="uplot-chart" /> }));
@@ -37,7 +39,7 @@ const summary = {
 const done: Recording = { ...base, status: 'done', analysisVersion: 'nestflow-oximetry-1.0.0', analysedAt: '2025-04-10T07:00:05.000Z', summary };
 
 const trace: RecordingTrace = {
-  points: [{ tSec: 0, spo2Min: 95, spo2Mean: 96 }, { tSec: 18, spo2Min: null, spo2Mean: null }, { tSec: 36, spo2Min: 84, spo2Mean: 90 }],
+  points: [{ tSec: 0, spo2Min: 95, spo2Mean: 96, pulseMean: 142 }, { tSec: 18, spo2Min: null, spo2Mean: null, pulseMean: null }, { tSec: 36, spo2Min: 84, spo2Mean: 90, pulseMean: 151.5 }],
   events: [
     { startSec: 3605, endSec: 3623, nadir: 86, deep: true },
     { startSec: 7200, endSec: 7212, nadir: 91, deep: false },
@@ -124,10 +126,12 @@ describe('Recording page', () => {
       [clock('2025-04-09T22:00:00Z'), '12 s', '91 %', 'No'],
     ]);
     expect(screen.getByRole('heading', { name: 'Desaturation events (2)' })).toBeInTheDocument();
-    const caption = screen.getByRole('figure');
+    const [caption, pulse] = screen.getAllByRole('figure');
+    expect(pulse).toHaveTextContent('Pulse over 9:58 h: mean 139 /min; plotted means from 142 /min to 152 /min, on the same time axis as the SpO2 chart.');
+    expect(screen.getByRole('heading', { name: 'Pulse through the night' })).toBeInTheDocument();
     expect(caption).toHaveTextContent(/SpO2 over 9:58 h: mean 95\.8 %, lowest 81\.0 %, 1\.2 % of valid time below 90 %, 2 desaturation events/);
     expect(caption).toHaveTextContent('1 with a fall of 4 points or more');
-    expect(await screen.findByTestId('uplot-chart')).toBeInTheDocument();
+    expect(await screen.findAllByTestId('uplot-chart')).toHaveLength(2);
   });
 
   it('when the file is shown, then its SHA-256 is shortened with a copy button, and who uploaded it and the analysis version are given', async () => {
@@ -166,5 +170,25 @@ describe('Recording page', () => {
     stubApi({ 'GET /api/session': sessionHandler('family') });
     renderApp(`/recordings/${REC_ID}`);
     expect(await screen.findByRole('heading', { name: 'Not part of your work' }, { timeout: 5000 })).toBeInTheDocument();
+  });
+
+  it('when the results appear after an upload, then "being analysed" goes and a message says the results are here', async () => {
+    showToast('ok', ANALYSING_TOAST);
+    stubRecording([base, done]);
+    renderApp(`/recordings/${REC_ID}`);
+    await opened();
+    expect(screen.getByText(ANALYSING_TOAST)).toBeInTheDocument();
+    await screen.findByRole('heading', { name: 'Summary' }, { timeout: 5000 });
+    expect(await screen.findByText(ANALYSED_TOAST)).toBeInTheDocument();
+    expect(screen.queryByText(ANALYSING_TOAST)).not.toBeInTheDocument();
+    expect(getToasts().map((t) => t.message)).toEqual([ANALYSED_TOAST]);
+  });
+
+  it('when a finished recording is opened with no upload message showing, then no message is added', async () => {
+    stubRecording([done]);
+    renderApp(`/recordings/${REC_ID}`);
+    await opened();
+    await screen.findByRole('heading', { name: 'Summary' });
+    expect(getToasts()).toEqual([]);
   });
 });

@@ -80,8 +80,11 @@ export function createChecksRepository(ds: DataSource) {
       );
     },
 
-    /** The nurse's day: open checks due by the end of `today`, on babies the caller may read, grouped by address. */
-    day: (acl: SqlFilter, today: string, until: string): Promise<DayRow[]> =>
+    /**
+     * The nurse's day: open checks due by `until`, and those done during `today` (in `timeZone`), on babies the
+     * caller may read. Done ones stay so the round keeps its order and numbers all day while readings are saved.
+     */
+    day: (acl: SqlFilter, today: string, until: string, timeZone: string): Promise<DayRow[]> =>
       ds.createQueryBuilder()
         .select(['c.id AS id', 'c.infant_id AS infant_id', 'c.kind AS kind', 'c.plan_key AS plan_key', 'c.due_at AS due_at', 'c.due_date::text AS due_date',
           'c.status AS status', 'c.done_at AS done_at', 'c.note AS note', 'i.given_name AS given_name', 'i.family_name AS family_name', 'i.home_address AS home_address',
@@ -89,13 +92,15 @@ export function createChecksRepository(ds: DataSource) {
         .from('checks', 'c')
         .innerJoin('infants', 'i', 'i.id = c.infant_id')
         .leftJoin('prescriptions', 'p', "p.infant_id = i.id AND p.status = 'active'")
-        .where("c.status IN ('planned','overdue')")
+        .where("(c.status IN ('planned','overdue') OR (c.status = 'done' AND (c.done_at AT TIME ZONE :timeZone)::date = CAST(:today AS date)))", { timeZone, today })
         // Step-down reviews are the consultant's; the round holds what a nurse does at the door or overnight.
         .andWhere("c.kind <> 'step_down_review'")
         .andWhere('c.due_date <= :until', { until })
         .andWhere(acl.sql, acl.params)
-        .orderBy(`CASE WHEN c.due_date <= '${'$'}{today}' THEN 0 ELSE 1 END`, 'ASC')
+        .orderBy('CASE WHEN c.due_date <= CAST(:today AS date) THEN 0 ELSE 1 END', 'ASC')
         .addOrderBy('c.due_at', 'ASC')
+        // A tie on the due time must not swap two stops between one load of the day and the next.
+        .addOrderBy('c.id', 'ASC')
         .limit(300)
         .getRawMany(),
   };

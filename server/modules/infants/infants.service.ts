@@ -12,6 +12,18 @@ import { enrolInfant } from './enrol';
 import { toDetail, toSummary } from './infants.mapper';
 import { replaceContacts, updateInfant } from './update';
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const asObject = (v: unknown) => (v && typeof v === 'object' ? (v as Record<string, unknown>) : {});
+
+/** Staff ids an audit line names: a visit's nurse before and after, a changed nurse or consultant on the record. */
+function staffIdsIn(details: Record<string, unknown> | null): string[] {
+  const d = asObject(details);
+  const changes = asObject(d.changes);
+  const ids = [asObject(d.before).staffId, asObject(d.after).staffId, d.staffId,
+    asObject(changes.nurseId).from, asObject(changes.nurseId).to, asObject(changes.consultantId).from, asObject(changes.consultantId).to];
+  return ids.filter((id): id is string => typeof id === 'string' && UUID.test(id));
+}
+
 export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
   const acl = (ability: AppAbility) => accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS);
 
@@ -78,7 +90,9 @@ export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobP
       if (!infant) throw new NotFoundError('No such baby in your records.');
       const events = await repos.audit.listForEntity('infant', id);
       const names = await repos.infants.peopleNames(events.map((e) => e.actorId));
+      const mentioned = await repos.infants.peopleNames(events.flatMap((e) => staffIdsIn(e.details)));
       return {
+        people: Object.fromEntries(mentioned),
         items: events.map((e) => ({
           id: String(e.id), at: e.at.toISOString(), action: e.action, actor: e.actorId ? { id: e.actorId, name: names.get(e.actorId) ?? '' } : null, details: e.details,
         })),

@@ -126,7 +126,7 @@ export function createJourneysService(ds: DataSource, repos: AppRepos) {
         await repos.journeys.save(j, m);
         await repos.audit.append({
           programmeId: j.programmeId, actorId: actor.id, action: `journey.${j.status}`, entityType: 'infant', entityId: j.infantId, ip: actor.ip,
-          details: { journeyId: j.id, reason: j.decisionReason },
+          details: { journeyId: j.id, reason: j.decisionReason, destinationName: j.destinationName, departOn: j.departOn },
         }, m);
         if (input.decision === 'approve') {
           await createReminderPlanner(repos).journeyApproved(

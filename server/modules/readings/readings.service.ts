@@ -64,7 +64,7 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
         await repos.infants.save(locked, m);
         // After the save: completing a check clears the overdue flag in SQL, which a later entity save would undo.
         if (check) await repos.checks.complete(check, actor.id, `reading:${reading.id}`, m);
-        await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: family ? 'reading.family_reported' : 'reading.logged', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { readingId: reading.id, checkId: check?.id ?? null } }, m);
+        await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: family ? 'reading.family_reported' : 'reading.logged', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { readingId: reading.id, checkId: check?.id ?? null, spo2: reading.spo2, pulse: reading.pulse, flowLpm: reading.flowLpm, state: reading.state } }, m);
         return { reading, rxId };
       });
       if (out.rxId) await jobs.enqueueConversion(out.rxId);
@@ -99,7 +99,7 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
         const { rowVersion, ...changes } = input;
         Object.assign(r, Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined)), { rowVersion: rowVersion + 1 });
         await repos.readings.save(r, m);
-        await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'reading.corrected', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { readingId: r.id, before } }, m);
+        await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'reading.corrected', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { readingId: r.id, before, after: { spo2: r.spo2, pulse: r.pulse, flowLpm: r.flowLpm, state: r.state, notes: r.notes } } }, m);
         return { r, window: policy.settings.readingEditWindowMinutes };
       });
       return (await toDto([saved.r], saved.window))[0];

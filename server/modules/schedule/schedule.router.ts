@@ -4,9 +4,10 @@ import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { assertCanAny, currentUser } from '../../lib/http';
 import { todayIn } from '../../lib/dates';
+import { systemClock, type Clock } from '../../lib/clock';
 import type { ScheduleService } from './schedule.service';
 
-export function scheduleRouters(service: ScheduleService) {
+export function scheduleRouters(service: ScheduleService, clock: Clock = systemClock) {
   const infants = Router();
   infants.use(requireUser);
   infants.get('/:id/schedule', validate({ params: idParamsSchema }), async (req, res) => {
@@ -18,7 +19,8 @@ export function scheduleRouters(service: ScheduleService) {
   day.use(requireUser);
   day.get('/', async (req, res) => {
     assertCanAny(req, 'read', 'Reading');
-    res.json(await service.day(req.ability, todayIn(currentUser(req).programmeTimeZone), currentUser(req).id));
+    const { programmeTimeZone, id } = currentUser(req);
+    res.json(await service.day(req.ability, todayIn(programmeTimeZone, clock.now()), id, programmeTimeZone));
   });
   return { infants, day };
 }

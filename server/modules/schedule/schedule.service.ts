@@ -26,8 +26,8 @@ export function createScheduleService(repos: AppRepos) {
       };
     },
 
-    async day(ability: AppAbility, today: string, userId: string): Promise<MyDay> {
-      const rows = await repos.checks.day(accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), today, addDays(today, 7));
+    async day(ability: AppAbility, today: string, userId: string, timeZone: string): Promise<MyDay> {
+      const rows = await repos.checks.day(accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), today, addDays(today, 7), timeZone);
       const all = rows.map((r): DayItem => ({
         id: r.id, infantId: r.infant_id, kind: r.kind as DayItem['kind'], planKey: r.plan_key, dueAt: new Date(r.due_at).toISOString(), dueDate: r.due_date,
         status: r.status as DayItem['status'], doneAt: r.done_at ? new Date(r.done_at).toISOString() : null, note: r.note,
@@ -37,7 +37,8 @@ export function createScheduleService(repos: AppRepos) {
       }));
       const visits = await repos.visits.forStaffOn(userId, today, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS));
       return {
-        date: today, items: all.filter((i) => i.dueDate <= today), upcoming: all.filter((i) => i.dueDate > today),
+        // Today's round keeps the checks already done today in their places; the week ahead lists only what is still open.
+        date: today, items: all.filter((i) => i.dueDate <= today || i.status === 'done'), upcoming: all.filter((i) => i.dueDate > today && i.status !== 'done'),
         visits: visits.map((v) => ({
           id: v.id, infantId: v.infantId, infantName: v.infantName, homeAddress: v.homeAddress, kind: v.kind, date: v.localDate, time: v.localTime,
           startsAt: v.startsAt.toISOString(), durationMinutes: v.durationMinutes, purpose: v.purpose,

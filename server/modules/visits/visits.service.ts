@@ -115,7 +115,7 @@ export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobPr
         const { visit, infant } = await lockVisit(ability, id, m);
         Object.assign(visit, { status: 'cancelled', cancelReason: reason, rowVersion: visit.rowVersion + 1 });
         await repos.visits.save(visit, m);
-        await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'visit.cancelled', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { visitId: visit.id, reason } }, m);
+        await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'visit.cancelled', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { visitId: visit.id, date: visit.localDate, time: visit.localTime, reason } }, m);
         const reminders = await planner.visitChanged(facts(visit), 'visit-cancelled', (await repos.policies.current(infant.programmeId, m)).settings, m);
         return { visit, reminders };
       });

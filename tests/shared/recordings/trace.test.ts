@@ -18,9 +18,9 @@ describe('trace for display', () => {
     const samples = steadySamples(120, [[10, { spo2: 0 }], [11, { flagged: true, spo2: 70 }], [12, { spo2: null }]]);
     const points = decimateTrace(samples, 40);
     expect(points).toHaveLength(40);
-    expect(points[3]).toEqual({ tSec: 9, spo2Min: 96, spo2Mean: 96 });
-    expect(points[4]).toEqual({ tSec: 12, spo2Min: 96, spo2Mean: 96 });
-    expect(decimateTrace(steadySamples(120, [[60, { spo2: null }], [61, { spo2: null }], [62, { spo2: null }]]), 40)[20]).toEqual({ tSec: 60, spo2Min: null, spo2Mean: null });
+    expect(points[3]).toEqual({ tSec: 9, spo2Min: 96, spo2Mean: 96, pulseMean: 135 });
+    expect(points[4]).toEqual({ tSec: 12, spo2Min: 96, spo2Mean: 96, pulseMean: 135 });
+    expect(decimateTrace(steadySamples(120, [[60, { spo2: null }], [61, { spo2: null }], [62, { spo2: null }]]), 40)[20]).toEqual({ tSec: 60, spo2Min: null, spo2Mean: null, pulseMean: null });
   });
 
   it('when a recording is short, then buckets are single seconds', () => {
@@ -34,7 +34,7 @@ describe('trace for display', () => {
     const points = decimateTrace(samples, 10);
     expect(points).toHaveLength(10);
     expect(points[0].tSec).toBe(100);
-    expect(points[9]).toEqual({ tSec: 190, spo2Min: 85, spo2Mean: 94.9 });
+    expect(points[9]).toEqual({ tSec: 190, spo2Min: 85, spo2Mean: 94.9, pulseMean: 135 });
   });
 
   it('when a span is one second more than the points allow, then buckets widen to 2 s rather than exceed the points', () => {
@@ -43,5 +43,16 @@ describe('trace for display', () => {
     expect(points.map((p) => p.tSec)).toEqual([0, 2, 4, 6, 8, 10]);
     expect(decimateTrace(steadySamples(10), 10)).toHaveLength(10);
   });
-});
 
+  it('when samples carry a pulse, then each bucket has the mean pulse of its valid samples; artefacts and missing pulses are left out', () => {
+    // Artefact rules (docs/clinical-sources.md §5.1, the analysis's own): a pulse outside 40–250 bpm makes the whole sample
+    // an artefact; a missing pulse does not (some exports carry none), so that sample counts for SpO2 only.
+    const samples = steadySamples(12, [[0, { pulse: 140 }], [1, { pulse: 151 }], [3, { pulse: 300, spo2: 80 }], [4, { pulse: null }], [5, { pulse: null }], [6, { pulse: 39 }]]);
+    const points = decimateTrace(samples, 4);
+    expect(points.map((p) => p.tSec)).toEqual([0, 3, 6, 9]);
+    expect(points[0]).toEqual({ tSec: 0, spo2Min: 96, spo2Mean: 96, pulseMean: 142 }); // (140 + 151 + 135) / 3
+    expect(points[1]).toEqual({ tSec: 3, spo2Min: 96, spo2Mean: 96, pulseMean: null }); // 300 bpm out, the others have none
+    expect(points[2]).toEqual({ tSec: 6, spo2Min: 96, spo2Mean: 96, pulseMean: 135 }); // 39 bpm out with its SpO2
+    expect(decimateTrace(steadySamples(2, [[0, { pulse: 140 }], [1, { pulse: 141 }]]), 1)[0].pulseMean).toBe(140.5);
+  });
+});

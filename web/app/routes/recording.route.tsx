@@ -8,6 +8,7 @@ import { Card } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';
 import { PageHeader } from '../../components/ui/page-header';
 import { Spinner } from '../../components/ui/spinner';
+import { PulseTraceChart } from '../../features/charts/components/pulse-trace-chart';
 import { Spo2TraceChart } from '../../features/charts/components/spo2-trace-chart';
 import { infantQueryOptions } from '../../features/infants/api/get-infant';
 import { infantKeys } from '../../features/infants/api/infant-keys';
@@ -19,7 +20,8 @@ import { DesaturationTable } from '../../features/recordings/components/desatura
 import { RecordingFacts } from '../../features/recordings/components/recording-facts';
 import { RecordingProgress, RecordingStatusBadge } from '../../features/recordings/components/recording-status';
 import { RecordingSummaryCard } from '../../features/recordings/components/recording-summary';
-import { traceDescription } from '../../features/recordings/components/trace-description';
+import { pulseDescription, traceDescription } from '../../features/recordings/components/trace-description';
+import { useReplaceAnalysingToast } from '../../features/recordings/api/analysing-toast';
 import { errorMessage, isApiError } from '../../lib/api-error';
 import { formatDateTime } from '../../lib/format';
 import { BackToRecordLink } from '../../features/infants/components/back-to-record-link';
@@ -52,6 +54,10 @@ function TraceCard({ recording }: { recording: Recording }) {
       {trace.data && (
         <div className="flex flex-col gap-5">
           <Spo2TraceChart trace={trace.data} startedAt={recording.startedAt} description={traceDescription(recording, trace.data)} />
+          <div className="flex flex-col gap-2">
+            <h3 className="font-bold text-ink-900">Pulse through the night</h3>
+            <PulseTraceChart trace={trace.data} startedAt={recording.startedAt} description={pulseDescription(recording, trace.data)} />
+          </div>
           <div className="flex flex-col gap-2">
             <h3 className="font-bold text-ink-900">Desaturation events ({trace.data.events.length})</h3>
             <DesaturationTable events={trace.data.events} startedAt={recording.startedAt} />
@@ -89,6 +95,7 @@ export function Component() {
   const infant = useQuery({ ...infantQueryOptions(infantId), enabled: infantId !== '' });
   usePageTitle('Overnight recording', infant.data?.name);
   useRefreshBabyWhenSettled(recording.data);
+  useReplaceAnalysingToast(recording.data);
 
   if (recording.isError) {
     if (isApiError(recording.error) && [400, 404].includes(recording.error.status)) {

@@ -18,18 +18,54 @@ export interface XRange {
   from: number;
   to: number;
   fill: string;
+  /** Diagonal lines over the band in this colour: a pattern, so two kinds of band differ by more than colour. */
+  hatch?: string;
+  /** A solid downward triangle at the top of the band in this colour: a shape that shows even on a 3 px band. */
+  marker?: string;
+}
+
+function hatchBand(ctx: CanvasRenderingContext2D, x: number, top: number, width: number, height: number, stroke: string, px: number) {
+  ctx.save();
+  ctx.beginPath();
+  ctx.rect(x, top, width, height);
+  ctx.clip();
+  ctx.strokeStyle = stroke;
+  ctx.lineWidth = 1.5 * px;
+  const gap = 6 * px;
+  ctx.beginPath();
+  for (let offset = -height; offset < width; offset += gap) {
+    ctx.moveTo(x + offset, top + height);
+    ctx.lineTo(x + offset + height, top);
+  }
+  ctx.stroke();
+  ctx.restore();
+}
+
+function triangleAt(ctx: CanvasRenderingContext2D, centre: number, top: number, colour: string, px: number) {
+  const half = 5 * px;
+  ctx.fillStyle = colour;
+  ctx.beginPath();
+  ctx.moveTo(centre - half, top);
+  ctx.lineTo(centre + half, top);
+  ctx.lineTo(centre, top + 8 * px);
+  ctx.closePath();
+  ctx.fill();
 }
 
 /** Vertical bands, never thinner than 3 px, so a ten-second dip still shows on a ten-hour night. */
 export function shadeXRanges(u: uPlot, ranges: readonly XRange[]) {
-  const minWidth = 3 * ratioOf(u);
+  const px = ratioOf(u);
+  const minWidth = 3 * px;
   clipped(u, (ctx) => {
     for (const range of ranges) {
       const x0 = u.valToPos(range.from, 'x', true);
       const x1 = u.valToPos(range.to, 'x', true);
       const width = Math.max(x1 - x0, minWidth);
+      const left = x0 - (width - (x1 - x0)) / 2;
       ctx.fillStyle = range.fill;
-      ctx.fillRect(x0 - (width - (x1 - x0)) / 2, u.bbox.top, width, u.bbox.height);
+      ctx.fillRect(left, u.bbox.top, width, u.bbox.height);
+      if (range.hatch) hatchBand(ctx, left, u.bbox.top, width, u.bbox.height, range.hatch, px);
+      if (range.marker) triangleAt(ctx, left + width / 2, u.bbox.top, range.marker, px);
     }
   });
 }

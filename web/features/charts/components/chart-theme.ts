@@ -6,6 +6,9 @@ export const CHART_COLOURS = {
   threshold: '#b42323', // danger-600
   eventLight: 'rgba(246, 215, 155, 0.55)', // warn-200
   eventDeep: 'rgba(166, 95, 0, 0.30)', // warn-600
+  eventDeepHatch: 'rgba(122, 70, 0, 0.55)', // warn-800, hatching over the deeper bands
+  eventDeepMarker: '#7a4500', // warn-800
+  pulse: '#1f7a4a', // ok-600
   targetBand: 'rgba(185, 224, 200, 0.45)', // ok-200
   axis: '#3d3850', // ink-700
   grid: '#e6e1d9', // surface-200

@@ -26,6 +26,8 @@ function buildChart(trace: RecordingTrace, startedAt: string | null) {
     from: e.startSec + offset,
     to: e.endSec + offset,
     fill: e.deep ? CHART_COLOURS.eventDeep : CHART_COLOURS.eventLight,
+    // A fall of 4 points or more is hatched and marked with a triangle, so it differs in pattern and shape too.
+    ...(e.deep ? { hatch: CHART_COLOURS.eventDeepHatch, marker: CHART_COLOURS.eventDeepMarker } : {}),
   }));
   const options: Omit<uPlot.Options, 'width' | 'height'> = {
     scales: { x: { time: clockTime }, y: { range: [50, 100] } },
@@ -56,8 +58,12 @@ function TraceKey({ threshold }: { threshold: number }) {
       <span><span className={`${line} border-t-[3px] border-brand-600`} /> Mean SpO2</span>
       <span><span className={`${line} border-t border-straw-700`} /> Lowest SpO2</span>
       <span><span className={`${line} border-t-2 border-dashed border-danger-600`} /> {threshold} % line</span>
-      <span><span className={`${area} bg-warn-200`} /> Fall of 3 points or more</span>
-      <span><span className={`${area} bg-warn-600/40`} /> Fall of 4 points or more</span>
+      <span><span className={`${area} bg-warn-200`} /> Fall of 3 points or more (plain band)</span>
+      <span>
+        <span className={`${area} relative bg-warn-600/40 bg-[repeating-linear-gradient(135deg,rgba(122,70,0,0.6)_0_1.5px,transparent_1.5px_6px)]`} />
+        <svg viewBox="0 0 10 8" className="ml-0.5 inline-block h-2 w-2.5 align-middle text-warn-800"><path d="M0 0h10L5 8z" fill="currentColor" /></svg>
+        {' '}Fall of 4 points or more (hatched, triangle on top)
+      </span>
     </p>
   );
 }

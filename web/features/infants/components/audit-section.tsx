@@ -36,7 +36,7 @@ export function AuditSection({ infantId, versionsState }: AuditSectionProps) {
                 <tr key={event.id} className="border-t border-surface-200 align-top">
                   <td className="whitespace-nowrap px-3 py-2 text-ink-700">{formatDateTime(event.at)}</td>
                   <td className="px-3 py-2 text-ink-900">{event.actor?.name || 'Nestflow (automatic)'}</td>
-                  <td className="px-3 py-2 text-ink-900">{auditText(event)}</td>
+                  <td className="px-3 py-2 text-ink-900">{auditText(event, audit.data.people)}</td>
                 </tr>
               ))}
             </tbody>

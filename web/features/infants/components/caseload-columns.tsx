@@ -1,7 +1,6 @@
 import { Link } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
 import {
-  INFANT_FLAG_LABELS,
   INFANT_SORTS,
   INFANT_STATUS_LABELS,
   type InfantStatus,
@@ -12,6 +11,7 @@ import { formatFlow, formatMmHg } from '../../../components/clinical/clinical-fo
 import { Badge } from '../../../components/ui/badge';
 import { urlSort } from '../../../components/ui/data-table/url-sort';
 import type { ServerTableFeatures } from '../../../components/ui/data-table/use-server-table';
+import { FlagList } from './flag-badge';
 
 const helper = createColumnHelper<ServerTableFeatures, InfantSummary>();
 
@@ -28,6 +28,16 @@ export const STATUS_TONES: Record<InfantStatus, Tone> = {
 
 export function placeText(row: Pick<InfantSummary, 'homeElevationM' | 'homePressureMmHg'>): string {
   return row.homeElevationM === null ? `measured ${formatMmHg(row.homePressureMmHg)} mmHg` : `${row.homeElevationM.toLocaleString('en-GB')} m`;
+}
+
+/**
+ * The flow a baby is on now. Off oxygen (observing) or out of the programme, the last approved flow is history,
+ * not a current setting: say so rather than show a number someone could act on.
+ */
+export function currentFlowText(row: Pick<InfantSummary, 'status' | 'activeFlowLpm'>): string {
+  if (row.status === 'off_oxygen') return 'None, off oxygen';
+  if (row.status === 'left_programme') return 'None, left the programme';
+  return row.activeFlowLpm === null ? '—' : `${formatFlow(row.activeFlowLpm)} L/min`;
 }
 
 const allColumns = helper.columns([
@@ -48,10 +58,7 @@ const allColumns = helper.columns([
   helper.accessor('activeFlowLpm', {
     header: 'Current flow',
     enableSorting: false,
-    cell: (info) => {
-      const flow = info.getValue();
-      return <span className="whitespace-nowrap">{flow === null ? '—' : `${formatFlow(flow)} L/min`}</span>;
-    },
+    cell: (info) => <span className="whitespace-nowrap">{currentFlowText(info.row.original)}</span>,
   }),
   helper.accessor('status', {
     header: 'Status',
@@ -64,15 +71,7 @@ const allColumns = helper.columns([
   helper.accessor('flags', {
     header: 'Flags',
     enableSorting: false,
-    cell: (info) => (
-      <span className="flex flex-col items-start gap-1">
-        {info.getValue().map((flag) => (
-          <Badge key={flag} tone="warn">
-            {INFANT_FLAG_LABELS[flag]}
-          </Badge>
-        ))}
-      </span>
-    ),
+    cell: (info) => <FlagList flags={info.getValue()} />,
   }),
   // People last: the clinical state of the baby is what a row is scanned for.
   helper.accessor((row) => row.nurse?.name ?? '—', { id: 'nurse', header: 'Nurse', enableSorting: false }),

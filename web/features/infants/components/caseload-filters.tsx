@@ -1,4 +1,6 @@
 import {
+  INFANT_FLAG_KIND_LABELS,
+  INFANT_FLAG_KINDS,
   INFANT_FLAGS,
   INFANT_FLAG_LABELS,
   INFANT_STATUSES,
@@ -7,6 +9,11 @@ import {
 } from '../../../../shared/schemas/infants';
 import { SearchForm } from '../../../components/ui/data-table/search-form';
 import { SelectFilter } from '../../../components/ui/data-table/select-filter';
+
+// The menu names each flag's kind too, as the badges do.
+const FLAG_CHOICES = Object.fromEntries(
+  INFANT_FLAGS.map((flag) => [flag, `${INFANT_FLAG_KIND_LABELS[INFANT_FLAG_KINDS[flag]]}: ${INFANT_FLAG_LABELS[flag]}`]),
+) as typeof INFANT_FLAG_LABELS;
 
 interface CaseloadFiltersProps {
   query: ListInfantsQuery;
@@ -31,7 +38,7 @@ export function CaseloadFilters({ query, update, offerMine }: CaseloadFiltersPro
         label="Flag"
         value={query.flag}
         options={INFANT_FLAGS}
-        labels={INFANT_FLAG_LABELS}
+        labels={FLAG_CHOICES}
         anyLabel="Any or none"
         onChange={(flag) => update({ flag, page: 1 })}
       />

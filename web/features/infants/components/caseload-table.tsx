@@ -7,7 +7,9 @@ import { useServerTable } from '../../../components/ui/data-table/use-server-tab
 import { EmptyState } from '../../../components/ui/empty-state';
 import { Spinner } from '../../../components/ui/spinner';
 import { useSignedInUser } from '../../../lib/signed-in-user';
+import { useMediaQuery, WIDE_SCREEN } from '../../../lib/use-media-query';
 import { useInfants } from '../api/get-infants';
+import { CaseloadCards, CaseloadSortChoice } from './caseload-cards';
 import { caseloadColumnsFor, caseloadSort } from './caseload-columns';
 
 interface CaseloadTableProps {
@@ -20,6 +22,7 @@ export function CaseloadTable({ query, update, emptyMessage }: CaseloadTableProp
   const user = useSignedInUser();
   const columns = useMemo(() => caseloadColumnsFor(user.role), [user.role]);
   const infants = useInfants(query);
+  const wide = useMediaQuery(WIDE_SCREEN, true);
   const table = useServerTable({
     columns,
     result: infants.data,
@@ -37,9 +40,17 @@ export function CaseloadTable({ query, update, emptyMessage }: CaseloadTableProp
   if (infants.data.items.length === 0) {
     return <EmptyState message={filtered ? 'No baby matches these filters.' : emptyMessage} />;
   }
+  if (!wide) {
+    return (
+      <div className="flex flex-col gap-4">
+        <CaseloadSortChoice query={query} update={update} />
+        <CaseloadCards items={infants.data.items} showNurse={user.role !== 'nurse'} busy={infants.isPlaceholderData} />
+        <Pager table={table} total={infants.data.total} noun={{ one: 'baby', other: 'babies' }} />
+      </div>
+    );
+  }
   return (
     <div className="flex flex-col gap-4">
-      <p className="text-sm text-ink-500 md:hidden">Swipe the table sideways to see every column.</p>
       <TableFrame
         table={table}
         caption={`Babies in the caseload, ${infants.data.total} in all`}

@@ -1,8 +1,9 @@
 import { PageHeading } from '../../../components/ui/page-heading';
-import { INFANT_FLAG_LABELS, INFANT_STATUS_LABELS, type InfantDetail } from '../../../../shared/schemas/infants';
+import { INFANT_STATUS_LABELS, type InfantDetail } from '../../../../shared/schemas/infants';
 import { settingText } from '../../../components/clinical/setting-text';
 import { Badge } from '../../../components/ui/badge';
 import { STATUS_TONES } from './caseload-columns';
+import { FlagList } from './flag-badge';
 import { formatDate, homePlaceText } from './record-format';
 
 function Fact({ label, children }: { label: string; children: React.ReactNode }) {
@@ -21,11 +22,7 @@ export function InfantHeader({ infant }: { infant: InfantDetail }) {
       <div className="flex flex-wrap items-center gap-3">
         <PageHeading>{infant.name}</PageHeading>
         <Badge tone={STATUS_TONES[infant.status]}>{INFANT_STATUS_LABELS[infant.status]}</Badge>
-        {infant.flags.map((flag) => (
-          <Badge key={flag} tone="warn">
-            {INFANT_FLAG_LABELS[flag]}
-          </Badge>
-        ))}
+        <FlagList flags={infant.flags} className="flex flex-wrap items-center gap-2" />
       </div>
       <dl className="grid grid-cols-1 gap-3 rounded-2xl border border-surface-200 bg-surface-0 p-4 sm:grid-cols-2 lg:grid-cols-4">
         <Fact label="Corrected age">
@@ -35,7 +32,9 @@ export function InfantHeader({ infant }: { infant: InfantDetail }) {
           {infant.weightKg} kg <span className="font-normal text-ink-700">on {formatDate(infant.weightDate)}</span>
         </Fact>
         <Fact label="Home">{homePlaceText(infant.homeElevationM, infant.homePressureMmHg)}</Fact>
-        <Fact label="Current plan">{setting ? settingText(setting) : 'No approved setting yet'}</Fact>
+        <Fact label="Current plan">
+          {infant.status === 'off_oxygen' ? 'Off oxygen, observing' : infant.status === 'left_programme' ? 'Left the programme' : setting ? settingText(setting) : 'No approved setting yet'}
+        </Fact>
       </dl>
     </header>
   );

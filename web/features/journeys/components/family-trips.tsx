@@ -1,11 +1,10 @@
 import { Link } from 'react-router-dom';
 import type { Journey, JourneyPlan } from '../../../../shared/schemas/journeys';
-import { addDays } from '../../../../shared/clinical/dates';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { errorMessage } from '../../../lib/api-error';
 import { useInfantJourneys } from '../api/get-journeys';
-import { datesWords, dayWords, SHOW_TRIP_DAYS_BEFORE, tripIsCurrent } from './journey-words';
+import { datesWords, tripIsCurrent } from './journey-words';
 import { TripCard } from './trip-card';
 
 const hasPlan = (j: Journey): j is Journey & { plan: JourneyPlan } => j.plan !== null;
@@ -14,7 +13,8 @@ function statusSentence(j: Journey): string {
   const trip = `Your trip to ${j.request.destinationName} ${datesWords(j.request)}`;
   if (j.status === 'waiting') return `${trip}: waiting for the consultant to check it.`;
   if (j.status === 'declined') return `${trip}: the consultant did not approve the plan. Your home-care team will talk to you about it.`;
-  return `${trip} is approved. The flow and the cylinders to take show here from ${dayWords(addDays(j.request.departOn, -SHOW_TRIP_DAYS_BEFORE))}.`;
+  // An approved trip with its figures shows in full above; this line is only for one the server sent without them.
+  return `${trip} is approved. Your home-care team will give you the flow and the cylinders to take.`;
 }
 
 interface TripsProps {
@@ -25,7 +25,7 @@ interface TripsProps {
 
 const byDeparture = (a: Journey, b: Journey) => a.request.departOn.localeCompare(b.request.departOn);
 
-/** Approved trips close to their dates, in full: the flow there and what to take. */
+/** Approved trips, in full from the day they are approved until the return: the flow there and what to take. */
 export function CurrentTrips({ infantId, today }: TripsProps) {
   const journeys = useInfantJourneys(infantId);
   const current = (journeys.data ?? []).filter((j) => tripIsCurrent(j, today)).filter(hasPlan).sort(byDeparture);
@@ -38,7 +38,7 @@ export function CurrentTrips({ infantId, today }: TripsProps) {
   );
 }
 
-/** Trips still ahead as one line each (waiting, not approved, approved but not yet close), and the way to ask. */
+/** Trips still ahead that are not approved yet as one line each (waiting, not approved), and the way to ask. */
 export function PlanningATrip({ infantId, today, newTripHref }: TripsProps & { newTripHref: string }) {
   const journeys = useInfantJourneys(infantId);
   const others = (journeys.data ?? []).filter((j) => !tripIsCurrent(j, today) && j.request.returnOn >= today).sort(byDeparture);

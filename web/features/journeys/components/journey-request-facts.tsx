@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 import { JOURNEY_STATUS_LABELS, type Journey } from '../../../../shared/schemas/journeys';
 import { Badge } from '../../../components/ui/badge';
 import { formatDateTime } from '../../../lib/format';
-import { hoursWords, shortDayWords, wayWords } from './journey-words';
+import { destinationElevationWords, hoursWords, shortDayWords, wayWords } from './journey-words';
 import { FactList } from '../../../components/ui/fact-list';
 
 export const STATUS_TONES = { waiting: 'warn', approved: 'ok', declined: 'danger' } as const;
@@ -12,6 +12,7 @@ export function JourneyRequestFacts({ journey }: { journey: Journey }) {
   const { request } = journey;
   const facts: [string, ReactNode][] = [
     ['Destination', request.destinationName],
+    ['Destination elevation (as entered)', destinationElevationWords(request)],
     ['How', wayWords(request)],
     ['Dates', `${shortDayWords(request.departOn)} to ${shortDayWords(request.returnOn)}`],
     ['Away from home supply', hoursWords(request.hoursAway)],

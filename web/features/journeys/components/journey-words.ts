@@ -1,5 +1,4 @@
 import type { Journey, JourneyPeriod } from '../../../../shared/schemas/journeys';
-import { addDays } from '../../../../shared/clinical/dates';
 
 // Journey dates are the family's calendar days; formatting them at UTC noon keeps any browser zone from moving them.
 const asUtcNoon = (date: string) => new Date(`${date}T12:00:00Z`);
@@ -26,7 +25,14 @@ export function wayWords(request: Journey['request']): string {
     return request.destinationElevationM === null ? 'By road' : `By road, ${request.destinationElevationM.toLocaleString('en-GB')} m above sea level`;
   }
   const cabin = (request.cabinAltitudeFt ?? 8000).toLocaleString('en-GB');
-  return `By air, planned for a cabin at ${cabin} ft`;
+  const there = request.destinationElevationM === null ? '' : `; destination ${request.destinationElevationM.toLocaleString('en-GB')} m above sea level`;
+  return `By air, planned for a cabin at ${cabin} ft${there}`;
+}
+
+/** The destination's elevation as the person asking entered it, for the consultant to check against the plan. */
+export function destinationElevationWords(request: Journey['request']): string {
+  if (request.destinationElevationM !== null) return `${request.destinationElevationM.toLocaleString('en-GB')} m above sea level`;
+  return request.mode === 'flight' ? 'Not given: planned for the aircraft cabin only' : 'Not given';
 }
 
 /** YYYY-MM-DD in a time zone: the programme's calendar, which the server also checks dates against. */
@@ -36,10 +42,10 @@ export function todayIn(timeZone: string, now = new Date()): string {
   return `${part('year')}-${part('month')}-${part('day')}`;
 }
 
-/** An approved trip shows on the family page from this many days before leaving until the day of return. */
-export const SHOW_TRIP_DAYS_BEFORE = 7;
-
+/**
+ * An approved trip shows in full on the family page from the moment it is approved until the day of return:
+ * families need the approved figures early (airline forms ask for them weeks ahead).
+ */
 export function tripIsCurrent(journey: Journey, today: string): boolean {
-  return journey.status === 'approved' && journey.plan !== null
-    && today >= addDays(journey.request.departOn, -SHOW_TRIP_DAYS_BEFORE) && today <= journey.request.returnOn;
+  return journey.status === 'approved' && journey.plan !== null && today <= journey.request.returnOn;
 }

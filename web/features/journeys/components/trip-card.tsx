@@ -58,8 +58,8 @@ function CylindersToTake({ plan }: { plan: JourneyPlan }) {
 }
 
 /**
- * The card shows from a week before leaving, under the home plan: say when its setting applies, so no one moves
- * the flowmeter to the trip's setting at home.
+ * The card shows from approval until the return, under the home plan: say when its setting applies, so no one
+ * moves the flowmeter to the trip's setting at home.
  */
 function whenItApplies(request: Journey['request'], plan: JourneyPlan): string {
   if (request.mode === 'road') return `While you are away at ${request.destinationName}:`;

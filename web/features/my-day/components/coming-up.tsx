@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import type { DayItem } from '../../../../shared/schemas/schedule';
 import { CHECK_KIND_LABELS } from '../../../../shared/schemas/schedule';
 import { formatShortDay } from './day-format';
@@ -11,7 +12,7 @@ export function ComingUp({ items }: { items: DayItem[] }) {
       <ul className="flex flex-col divide-y divide-surface-200 rounded-xl border border-surface-200 bg-white">
         {items.map((item) => (
           <li key={item.id} className="flex flex-wrap items-baseline justify-between gap-x-3 gap-y-1 px-4 py-3">
-            <span className="font-semibold text-ink-900">{item.infantName}</span>
+            <Link to={`/infants/${item.infantId}`} className="font-semibold text-brand-700 underline underline-offset-2">{item.infantName}</Link>
             <span className="text-ink-700">
               {CHECK_KIND_LABELS[item.kind]} · due {formatShortDay(item.dueDate)}
             </span>

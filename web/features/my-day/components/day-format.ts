@@ -38,3 +38,8 @@ export function lengthText(minutes: number): string {
   ];
   return parts.filter(Boolean).join(' ');
 }
+
+const clockTime = new Intl.DateTimeFormat('en-GB', { timeStyle: 'short' });
+
+/** "11:40", in the device's zone: when a check was done today. */
+export const doneTimeText = (iso: string | null): string => (iso ? clockTime.format(new Date(iso)) : 'today');

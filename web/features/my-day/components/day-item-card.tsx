@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { CHECK_KIND_LABELS, type DayItem } from '../../../../shared/schemas/schedule';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Badge } from '../../../components/ui/badge';
-import { completesWithReading, dueText, isOverdue } from './day-format';
+import { completesWithReading, doneTimeText, dueText, isOverdue } from './day-format';
 
 interface DayItemCardProps {
   item: DayItem;
@@ -16,8 +16,35 @@ interface DayItemCardProps {
 
 const flowText = (flow: number | null) => (flow === null ? 'No approved setting' : flow === 0 ? 'Off oxygen' : `${formatFlow(flow)} L/min`);
 
+/** A stop already done today: it keeps its place and number, with a tick and the time, and opens nothing. */
+function DoneStop({ item, stop }: { item: DayItem; stop: number }) {
+  return (
+    <li className="flex items-start gap-3 rounded-2xl border border-ok-200 bg-ok-50 p-4">
+      <span aria-hidden="true" className="flex size-8 shrink-0 items-center justify-center rounded-full bg-ok-200 font-bold text-ok-800">
+        {stop}
+      </span>
+      <span className="flex min-w-0 flex-1 flex-col gap-1">
+        <span className="flex flex-wrap items-center gap-x-3 gap-y-1">
+          <Link to={`/infants/${item.infantId}`} className="text-lg font-bold text-ink-900 underline underline-offset-2">{item.infantName}</Link>
+          <Badge tone="ok">
+            <span aria-hidden="true">✓&nbsp;</span>Done
+          </Badge>
+        </span>
+        <span className="text-ink-700">
+          {CHECK_KIND_LABELS[item.kind]} · done at {doneTimeText(item.doneAt)}
+        </span>
+        <span className="text-ink-900">{item.homeAddress}</span>
+      </span>
+    </li>
+  );
+}
+
 /** One stop on the day's round; the whole top of the card is one large tap target that opens the reading form. */
-export function DayItemCard({ item, stop, today, open, onToggle, children }: DayItemCardProps) {
+export function DayItemCard(props: DayItemCardProps) {
+  return props.item.status === 'done' ? <DoneStop item={props.item} stop={props.stop} /> : <OpenStop {...props} />;
+}
+
+function OpenStop({ item, stop, today, open, onToggle, children }: DayItemCardProps) {
   const panelId = useId();
   const overdue = isOverdue(item, today);
   return (

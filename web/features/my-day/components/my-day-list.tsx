@@ -17,6 +17,9 @@ export function MyDayList({ renderForm }: { renderForm: (item: DayItem) => React
   if (day.isPending) return <Spinner label="Loading today’s checks" />;
   if (day.isError) return <Alert>{day.error.message}</Alert>;
   const { date, items, upcoming, visits } = day.data;
+  // Checks done today stay in the list, so each stop keeps its number all day.
+  const left = items.filter((item) => item.status !== 'done').length;
+  const done = items.length - left;
 
   return (
     <div className="flex flex-col gap-6">
@@ -27,7 +30,9 @@ export function MyDayList({ renderForm }: { renderForm: (item: DayItem) => React
           {items.length > 0 && (
             <>
               {' '}
-              <span className="font-semibold text-ink-700">· {countText(items.length)}, in route order</span>
+              <span className="font-semibold text-ink-700">
+                · {countText(items.length)}, in route order{done > 0 ? `, ${done} done` : ''}
+              </span>
             </>
           )}
         </h2>
@@ -36,7 +41,7 @@ export function MyDayList({ renderForm }: { renderForm: (item: DayItem) => React
         ) : (
           <ol aria-label="Checks in route order" className="flex flex-col gap-3">
             {items.map((item, index) => (
-              <DayItemCard key={item.id} item={item} stop={index + 1} today={date} open={openId === item.id}
+              <DayItemCard key={item.id} item={item} stop={index + 1} today={date} open={openId === item.id && item.status !== 'done'}
                 onToggle={() => setOpenId((current) => (current === item.id ? null : item.id))}>
                 {renderForm(item)}
               </DayItemCard>

@@ -31,8 +31,21 @@ const FIELDS = ['takenAt', 'spo2', 'pulse', 'flowLpm', 'state', 'weightKg', 'not
 const freshValues = (checkId?: string, defaultFlowLpm?: number | null): Values =>
   ({ takenAt: new Date().toISOString(), flowLpm: defaultFlowLpm ?? undefined, checkId }) as Values;
 
-/** The quick spot reading: a nurse at the door fills it with a thumb and saves it with one tap. */
-export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFamily = false }: ReadingFormProps) {
+/**
+ * The quick spot reading: a nurse at the door fills it with a thumb and saves it with one tap. After a save the
+ * form starts again from scratch (a new instance): a reset keeps what the browser still holds in number inputs
+ * whose fresh value is "empty", so the next reading would start from the last SpO2, pulse and notes.
+ */
+export function ReadingForm(props: ReadingFormProps) {
+  const [round, setRound] = useState(0);
+  const onSaved = (reading: Reading) => {
+    setRound((n) => n + 1);
+    props.onSaved?.(reading);
+  };
+  return <ReadingFormBody key={round} {...props} onSaved={onSaved} />;
+}
+
+function ReadingFormBody({ infantId, checkId, defaultFlowLpm, onSaved, forFamily = false }: ReadingFormProps) {
   const create = useCreateReading(infantId);
   // A second tap can land before the button re-renders as disabled; one reading must not be stored twice.
   const sending = useRef(false);
@@ -51,8 +64,6 @@ export function ReadingForm({ infantId, checkId, defaultFlowLpm, onSaved, forFam
     const input = untouched ? { ...values, takenAt: new Date().toISOString() } : values;
     try {
       const reading = await create.mutateAsync(input);
-      form.reset(freshValues(checkId, defaultFlowLpm));
-      setWeightWarnings(null);
       onSaved?.(reading);
     } catch (error) {
       if (isApiError(error) && error.code === 'needs_confirmation') return setWeightWarnings(detailMessages(error.details?.weightKg));

@@ -6,6 +6,7 @@ import {
 } from '../../../../shared/schemas/recordings';
 import { postForm } from './post-form';
 import { recordingKeys } from './recording-keys';
+import { ANALYSING_TOAST } from './analysing-toast';
 
 export interface UploadInput {
   file: File;
@@ -36,7 +37,7 @@ export function useUploadRecording(infantId: string) {
     meta: {
       inlineErrors: [...RECORDING_UPLOAD_ERRORS, 'validation_failed', 'forbidden', 'not_found', 'conflict'],
       successToast: (data) =>
-        (data as UploadResult).created ? 'Recording uploaded. It is being analysed.' : 'This file was already uploaded for this baby; here it is.',
+        (data as UploadResult).created ? ANALYSING_TOAST : 'This file was already uploaded for this baby; here it is.',
     },
     onSuccess: () => queryClient.invalidateQueries({ queryKey: recordingKeys.infantLists(infantId) }),
   });
