@@ -10,13 +10,13 @@ import boundaries from 'eslint-plugin-boundaries';
 import globals from 'globals';
 
 const tiers = [
-  { type: 'web', pattern: 'web/**', mode: 'full' },
-  { type: 'server', pattern: 'server/**', mode: 'full' },
-  { type: 'worker', pattern: 'worker/**', mode: 'full' },
-  { type: 'shared', pattern: 'shared/**', mode: 'full' },
-  { type: 'seed', pattern: 'seed/**', mode: 'full' },
-  { type: 'fakes', pattern: 'fakes/**', mode: 'full' },
-  { type: 'tooling', pattern: '{tests,scripts,bench}/**', mode: 'full' },
+  { type: 'web', pattern: 'web/**', partialMatch: false },
+  { type: 'server', pattern: 'server/**', partialMatch: false },
+  { type: 'worker', pattern: 'worker/**', partialMatch: false },
+  { type: 'shared', pattern: 'shared/**', partialMatch: false },
+  { type: 'seed', pattern: 'seed/**', partialMatch: false },
+  { type: 'fakes', pattern: 'fakes/**', partialMatch: false },
+  { type: 'tooling', pattern: '{tests,scripts,bench}/**', partialMatch: false },
 ];
 const may = (from, to) => ({ from: { element: { type: from } }, allow: { to: { element: { types: { anyOf: to } } } } });
 

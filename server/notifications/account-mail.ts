@@ -5,7 +5,7 @@ import type { MailSender } from './mail-sender';
 // readable form, and the row that queued it would be exactly that.
 
 // Control characters (CR/LF included) become spaces, so no value can start a new line or header.
-const plain = (value: string) => value.replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029]+/g, ' ');
+const plain = (value: string) => value.replace(/[\p{Cc}\u2028\u2029]+/gu, ' ');
 
 export interface AccountMailContext {
   to: string;

@@ -28,7 +28,7 @@ export function hasTemplate(template: MessageTemplate, channel: Channel): boolea
 // Values never become template text (Mustache does not re-read them), and every value is escaped for where it
 // lands: control characters (CR/LF included) become spaces in plain text and in the subject, so no value can
 // start a new header line; the HTML part escapes markup.
-const plain = (value: unknown) => String(value).replace(/[\u0000-\u001f\u007f\u2028\u2029]+/g, ' ');
+const plain = (value: unknown) => String(value).replace(/[\p{Cc}\u2028\u2029]+/gu, ' ');
 const html = (value: unknown) => Mustache.escape(plain(value));
 
 export interface RenderedMessage {

@@ -2,8 +2,8 @@ import { z } from 'zod';
 
 // C0 and C1 control characters, DEL and lone UTF-16 surrogates: a NUL cannot be stored in PostgreSQL text, and the
 // others only hide or reshape what a reader sees. Multi-line text keeps tab, line feed and carriage return.
-const CONTROL_ANY = /[\u0000-\u001f\u007f-\u009f]|\p{Cs}/u;
-const CONTROL_MULTILINE = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f-\u009f]|\p{Cs}/u;
+const CONTROL_ANY = /[\p{Cc}\p{Cs}]/u;
+const CONTROL_MULTILINE = /(?![\t\n\r])\p{Cc}|\p{Cs}/u;
 
 /**
  * The one base for every text a person or a client sends (body fields, search parameters, form fields): a string

@@ -45,7 +45,7 @@ async function viewFor(template: MessageTemplate, language = 'en', over: Record<
 
 const channelsOf = (t: MessageTemplate): Channel[] => (FAMILY.includes(t) ? ['sms', 'email'] : ['email']);
 // Any control character; in an e-mail body only line breaks are allowed.
-const CONTROL = /[\u0000-\u001f\u007f]/;
+const CONTROL = /\p{Cc}/u;
 
 describe('message templates', () => {
   it('when the list of templates is read, then each is either a family message or a staff message', () => {

@@ -39,6 +39,6 @@ export async function parseUploadText(text: string, options: RecordingParseOptio
 /** The client's name for the file, for display only: no folders, no control characters, bounded length. */
 export function cleanFileName(name: string | undefined): string {
   const base = (name ?? '').split(/[\\/]/).pop() ?? '';
-  const cleaned = base.replace(/[\u0000-\u001f\u007f]/g, '').trim().slice(0, 200);
+  const cleaned = base.replace(/\p{Cc}/gu, '').trim().slice(0, 200);
   return cleaned || 'recording.csv';
 }

@@ -113,8 +113,8 @@ export function DetailsEditor({ infant, onDone }: { infant: InfantDetail; onDone
         {weightWarnings && <WeightConfirm warnings={weightWarnings} name="weightConfirmed" />}
         <HomeFields />
         <div className="grid gap-4 sm:grid-cols-2">
-          <StaffSelect role="nurse" label="Home-care nurse" error={err('nurseId')} {...register('nurseId')} />
-          <StaffSelect role="consultant" label="Consultant" error={err('consultantId')} {...register('consultantId')} />
+          <StaffSelect staffRole="nurse" label="Home-care nurse" error={err('nurseId')} {...register('nurseId')} />
+          <StaffSelect staffRole="consultant" label="Consultant" error={err('consultantId')} {...register('consultantId')} />
         </div>
         <p className="text-sm text-ink-700">A change of weight or home opens a new proposal for the consultant.</p>
         <FormActions pending={update.isPending} submitLabel="Save details" onCancel={onDone} />

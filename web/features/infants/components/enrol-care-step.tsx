@@ -14,8 +14,8 @@ export function EnrolCareStep() {
   return (
     <div className="flex flex-col gap-6">
       <div className="grid gap-4 sm:grid-cols-2">
-        <StaffSelect role="nurse" label="Home-care nurse" error={errorText(errors, 'care.nurseId')} {...register('care.nurseId')} />
-        <StaffSelect role="consultant" label="Consultant" error={errorText(errors, 'care.consultantId')} {...register('care.consultantId')} />
+        <StaffSelect staffRole="nurse" label="Home-care nurse" error={errorText(errors, 'care.nurseId')} {...register('care.nurseId')} />
+        <StaffSelect staffRole="consultant" label="Consultant" error={errorText(errors, 'care.consultantId')} {...register('care.consultantId')} />
       </div>
       <div className="flex flex-col gap-2">
         <h3 className="text-lg font-bold text-ink-900">Family</h3>

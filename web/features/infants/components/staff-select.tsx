@@ -5,14 +5,14 @@ import { Spinner } from '../../../components/ui/spinner';
 import { useStaff } from '../api/get-programme-data';
 
 interface StaffSelectProps extends SelectHTMLAttributes<HTMLSelectElement> {
-  role: 'nurse' | 'consultant';
+  staffRole: 'nurse' | 'consultant';
   label: string;
   error?: string;
   ref?: Ref<HTMLSelectElement>;
 }
 
 /** A select of the programme's active nurses or consultants. */
-export function StaffSelect({ role, label, error, ...select }: StaffSelectProps) {
+export function StaffSelect({ staffRole: role, label, error, ...select }: StaffSelectProps) {
   const staff = useStaff(role);
   if (staff.isPending) return <Spinner label={`Loading ${role === 'nurse' ? 'nurses' : 'consultants'}`} />;
   if (staff.isError) return <Alert>{staff.error.message}</Alert>;

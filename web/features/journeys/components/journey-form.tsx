@@ -1,3 +1,4 @@
+import type { FormEvent } from 'react';
 import { useRef } from 'react';
 import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -31,7 +32,8 @@ export function JourneyForm({ infantId, today, onSent }: JourneyFormProps) {
   });
   const { setError, formState } = form;
 
-  const onSubmit = form.handleSubmit(async (input) => {
+  // handleSubmit is called from the submit event, so the double-tap guard (a ref) is read then, never while drawing.
+  const onSubmit = (event: FormEvent<HTMLFormElement>) => form.handleSubmit(async (input) => {
     if (sending.current) return;
     sending.current = true;
     try {
@@ -42,7 +44,7 @@ export function JourneyForm({ infantId, today, onSent }: JourneyFormProps) {
     } finally {
       sending.current = false;
     }
-  });
+  })(event);
 
   const problem = formProblem(formState.errors.root?.server?.message, create);
   const busy = create.isPending || formState.isSubmitting;

@@ -18,7 +18,7 @@ export function useCreateReading(infantId: string) {
     // Field problems sit beside the fields and the rest above the form, so no toast repeats them.
     meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: describe },
     onSuccess: (reading) => {
-      queryClient.setQueryData(readingKeys.detail(reading.id), reading);
+      queryClient.setQueryData(readingKeys.detail(reading.infantId, reading.id), reading);
       return queryClient.invalidateQueries({ queryKey: readingKeys.list(infantId) });
     },
   });

@@ -9,7 +9,7 @@ import { readingKeys } from './reading-keys';
  */
 export const readingQueryOptions = (infantId: string, readingId: string) =>
   queryOptions({
-    queryKey: readingKeys.detail(readingId),
+    queryKey: readingKeys.detail(infantId, readingId),
     queryFn: async ({ signal }) => {
       const list = await api.get(`/api/infants/${encodeURIComponent(infantId)}/readings`, readingListSchema, undefined, signal);
       const found = list.items.find((reading) => reading.id === readingId);

@@ -3,5 +3,5 @@ export const readingKeys = {
   lists: () => [...readingKeys.all, 'list'] as const,
   list: (infantId: string) => [...readingKeys.lists(), infantId] as const,
   details: () => [...readingKeys.all, 'detail'] as const,
-  detail: (readingId: string) => [...readingKeys.details(), readingId] as const,
+  detail: (infantId: string, readingId: string) => [...readingKeys.details(), infantId, readingId] as const,
 };

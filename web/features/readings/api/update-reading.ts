@@ -10,7 +10,7 @@ export function useUpdateReading(readingId: string) {
       apiRequest(`/api/readings/${encodeURIComponent(readingId)}`, { method: 'PATCH', body: input, schema: readingSchema }),
     meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: () => 'Reading corrected.' },
     onSuccess: (reading) => {
-      queryClient.setQueryData(readingKeys.detail(reading.id), reading);
+      queryClient.setQueryData(readingKeys.detail(reading.infantId, reading.id), reading);
       return queryClient.invalidateQueries({ queryKey: readingKeys.list(reading.infantId) });
     },
   });

@@ -1,3 +1,4 @@
+import type { FormEvent } from 'react';
 import { useRef, useState } from 'react';
 import { FormProvider, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -56,7 +57,8 @@ function ReadingFormBody({ infantId, checkId, defaultFlowLpm, onSaved, forFamily
   });
   const { register, formState, setError } = form;
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  // handleSubmit is called from the submit event, so the double-tap guard (a ref) is read then, never while drawing.
+  const onSubmit = (event: FormEvent<HTMLFormElement>) => form.handleSubmit(async (values) => {
     if (sending.current) return;
     sending.current = true;
     // "Now" means when it is saved, unless the nurse set the time herself.
@@ -73,7 +75,7 @@ function ReadingFormBody({ infantId, checkId, defaultFlowLpm, onSaved, forFamily
     } finally {
       sending.current = false;
     }
-  });
+  })(event);
 
   const problem = isApiError(create.error) && create.error.code === 'needs_confirmation' ? undefined : formProblem(formState.errors.root?.server?.message, create);
   const busy = create.isPending || formState.isSubmitting;

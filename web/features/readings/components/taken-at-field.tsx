@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { useController, type Control } from 'react-hook-form';
 import type { z } from 'zod';
 import type { createReadingSchema } from '../../../../shared/schemas/readings';
@@ -8,17 +9,22 @@ type Values = z.input<typeof createReadingSchema>;
 
 /** Holds an ISO instant for the schema while the phone shows its own date-and-time picker. */
 export function TakenAtField({ control }: { control: Control<Values> }) {
-  const { field, fieldState } = useController({ control, name: 'takenAt' });
+  const {
+    field: { name, ref, value, onChange, onBlur },
+    fieldState,
+  } = useController({ control, name: 'takenAt' });
+  // The latest time the picker offers: now, when the form first showed (a reading cannot be from the future).
+  const [latest] = useState(() => toLocalInput(new Date().toISOString()));
   return (
     <TextField
       label="Time taken"
       type="datetime-local"
-      name={field.name}
-      ref={field.ref}
-      value={toLocalInput(field.value)}
-      max={toLocalInput(new Date().toISOString())}
-      onChange={(event) => field.onChange(fromLocalInput(event.target.value))}
-      onBlur={field.onBlur}
+      name={name}
+      ref={ref}
+      value={toLocalInput(value)}
+      max={latest}
+      onChange={(event) => onChange(fromLocalInput(event.target.value))}
+      onBlur={onBlur}
       error={fieldState.error?.message}
     />
   );

@@ -1,3 +1,4 @@
+import { ScrollRegion } from '../../../components/ui/scroll-region';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { INFANT_FLAG_LABELS } from '../../../../shared/schemas/infants';
@@ -58,7 +59,7 @@ function ReadingsEvidence({ readings }: { readings: StepDownEvidence['readings']
   return (
     <div className="flex flex-col gap-2">
       <p className="font-semibold text-ink-900">{readingTrend(readings.map((r) => r.spo2))}</p>
-      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Latest readings">
+      <ScrollRegion label="Latest readings">
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Latest spot readings, newest first</caption>
           <thead>
@@ -80,7 +81,7 @@ function ReadingsEvidence({ readings }: { readings: StepDownEvidence['readings']
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollRegion>
     </div>
   );
 }

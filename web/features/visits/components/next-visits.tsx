@@ -1,13 +1,15 @@
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { Spinner } from '../../../components/ui/spinner';
+import { useNow } from '../../../lib/use-now';
 import { useInfantVisits } from '../api/get-visits';
 import { upcomingVisits, visitSentence } from './visit-words';
 
 /** The family's view: only visits still to come, one plain sentence each. */
 export function NextVisits({ infantId }: { infantId: string | undefined }) {
   const visits = useInfantVisits(infantId);
-  const upcoming = visits.data ? upcomingVisits(visits.data.items, Date.now()) : [];
+  const now = useNow();
+  const upcoming = visits.data ? upcomingVisits(visits.data.items, now) : [];
   return (
     <Card title="Next visits">
       {visits.isLoading && <Spinner label="Loading your visits" />}

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useNow } from '../../../lib/use-now';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -15,7 +16,7 @@ const listClasses = 'flex flex-col divide-y divide-surface-200 rounded-lg border
 export function VisitsSection({ infantId, canManage }: { infantId: string; canManage: boolean }) {
   const visits = useInfantVisits(infantId);
   const [booking, setBooking] = useState(false);
-  const now = Date.now();
+  const now = useNow();
   const items = visits.data?.items ?? [];
   const upcoming = upcomingVisits(items, now);
   const earlier = earlierVisits(items, now);
