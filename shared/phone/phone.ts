@@ -47,12 +47,8 @@ export const isE164 = (value: string) => /^\+[1-9][0-9]{6,14}$/.test(value);
  * any other ('+34 612 34 56 78'). Text that cannot be read is shown as it was stored.
  */
 export function formatPhone(value: string, country: CountryCode): string {
-  let parsed: PhoneNumber | undefined;
-  try {
-    parsed = parsePhoneNumberFromString(value, country);
-  } catch {
-    parsed = undefined;
-  }
+  const read = readPhone(value, country, 'any');
+  const parsed = read.ok ? parsePhoneNumberFromString(read.e164) : undefined;
   if (!parsed) return value;
   return parsed.country === country || (!parsed.country && parsed.countryCallingCode === getCountryCallingCode(country)) ? parsed.formatNational() : parsed.formatInternational();
 }
