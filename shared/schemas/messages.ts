@@ -3,6 +3,8 @@ import { pageQuerySchema, pagedSchema } from './common';
 
 // Every message Nestflow sends is first a row (a "reminder") written with the change that causes it.
 export const MESSAGE_TEMPLATES = [
+  'visit-booked',
+  'visit-today',
   'visit-day-before',
   'visit-morning',
   'visit-moved',
@@ -14,6 +16,8 @@ export const MESSAGE_TEMPLATES = [
 ] as const;
 export type MessageTemplate = (typeof MESSAGE_TEMPLATES)[number];
 export const MESSAGE_TEMPLATE_LABELS: Record<MessageTemplate, string> = {
+  'visit-booked': 'Visit booked (family)',
+  'visit-today': 'Visit booked for today (family)',
   'visit-day-before': 'Visit tomorrow (family)',
   'visit-morning': 'Visit today (family)',
   'visit-moved': 'Visit moved (family)',

@@ -43,6 +43,8 @@ export async function messageView(ctx: ContentContext, m: EntityManager): Promis
   };
   const lang = language.split('-')[0];
   switch (r.template as MessageTemplate) {
+    case 'visit-booked':
+    case 'visit-today':
     case 'visit-day-before':
     case 'visit-morning':
     case 'visit-moved':
