@@ -156,3 +156,31 @@ describe('sending a failed message again', () => {
     expect((await post(admin, `/api/messages/${failedId}/retry`).expect(200)).body.message).toMatchObject({ id: failedId, status: 'scheduled', infant: null });
   });
 });
+
+describe('message log: search', () => {
+  it("when the coordinator searches by baby, recipient or number, then only matching rows come back, within the caller's programme", async () => {
+    const a = await programmeWithVisit();
+    const b = await programmeWithVisit();
+    // Another programme's baby has the same made-up family name: the search never reaches across programmes.
+    await ctx.deps.ds.query(`UPDATE infants SET family_name = $2 WHERE id = $1`, [b.infant.id, a.infant.familyName]);
+    const ids = async (q: string) => (await a.coord.get(`/api/messages?q=${encodeURIComponent(q)}&pageSize=100`).expect(200)).body;
+
+    const byBaby = await ids(a.infant.familyName.toLowerCase());
+    expect(byBaby.total).toBe(3);
+    expect(byBaby.items.every((m: { infant: { id: string } }) => m.infant.id === a.infant.id)).toBe(true);
+    expect((await ids('Parent One')).total).toBe(3);
+    // The number as a family would say it (national form) finds the E.164 address.
+    expect((await ids('07700 900001')).total).toBe(3);
+    expect((await ids('nobody-by-that-name')).total).toBe(0);
+    // LIKE's wildcards are plain text here: '%' alone matches nothing.
+    expect((await ids('%')).total).toBe(0);
+  });
+
+  it('when the search text is too long or holds control characters, then 400 names the field', async () => {
+    const { coord } = await programmeWithVisit();
+    const long = await coord.get(`/api/messages?q=${'a'.repeat(101)}`).expect(400);
+    expect(long.body.error.details).toEqual({ 'query.q': ['At most 100 characters'] });
+    const control = await coord.get('/api/messages?q=ab%07cd').expect(400);
+    expect(Object.keys(control.body.error.details)).toEqual(['query.q']);
+  });
+});
