@@ -145,6 +145,21 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     expect((await mailTo(contact.email!)).map((m) => m.subject).at(-1)).toMatch(/is cancelled/);
   });
 
+  it('when the family switched from e-mail to text after a reminder was planned, then it goes by text to the number they gave, chosen at send time', async () => {
+    const { clinic, coord, infant, contact } = await family({ channel: 'email', timeZone: 'Europe/London' });
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
+    const [first] = await rowsOf(visit.id);
+    // Planned while e-mail was preferred: the log shows e-mail for now.
+    expect(first).toMatchObject({ channel: 'email', to_address: contact.email });
+    const newMobile = testMobile();
+    await ctx.deps.ds.query(`UPDATE family_contacts SET preferred_channel = 'sms', consent_sms = true, mobile = $2 WHERE infant_id = $1`, [infant.id, newMobile]);
+    await makeDue([first.id]);
+    const [done] = await settled([first.id]);
+    expect(done).toMatchObject({ status: 'sent', channel: 'sms', to_address: newMobile });
+    expect((await smsTo(newMobile)).map((m) => m.body).join()).toContain('home visit');
+    expect(await mailTo(contact.email!)).toHaveLength(0);
+  });
+
   it('when the SMS provider answers 5xx twice, then the message is retried with backoff and sent once on the third attempt', async () => {
     const { clinic, coord, infant, contact } = await family();
     const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
