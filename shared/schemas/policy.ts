@@ -73,8 +73,10 @@ export const reminderRulesSchema = z.strictObject({
   failureAlertPeriodMinutes: int(5, 24 * 60, 'minutes'),
 });
 
-// Checked against the programme's country in updatePolicySchema (landlines allowed: families call these numbers).
-const phoneNumber = plainText().trim().min(1, { error: 'Enter the number' }).max(40, { error: 'At most 40 characters' });
+// The characters here, so the message shows beside the row even when another part of the form is wrong; whether it
+// is a number of the programme's country is checked in updatePolicySchema (landlines allowed: families call these).
+const phoneNumber = plainText().trim().max(40, { error: 'At most 40 characters' })
+  .regex(/^[+0-9 ().-]*[0-9][+0-9 ().-]*$/, { error: 'Use digits, spaces and an optional leading +' });
 
 /** Who a family calls, shown on the family page and the printed care plan. */
 export const programmeContactsSchema = z.strictObject({
