@@ -34,7 +34,7 @@ function enrolment(b: DemoBaby, siteId: string, nurseId: string, consultantId: s
     care: { nurseId, consultantId },
     contacts: [{
       // The baby with a family account is that person's baby: the contact carries their name.
-      name: DEMO_PEOPLE.find((p) => p.email === familyEmail)?.name ?? `${b.sex === 'female' ? 'Sam' : 'Alex'} ${b.familyName}`, relation: 'Parent', mobile: `+44 7700 900${String(100 + Number(b.key.slice(-3))).slice(-3)}`,
+      name: DEMO_PEOPLE.find((p) => p.email === familyEmail)?.name ?? `${b.sex === 'female' ? 'Sam' : 'Alex'} ${b.familyName}`, relation: 'Parent', mobile: `+447700900${String(100 + Number(b.key.slice(-3))).slice(-3)}`,
       email: familyEmail ?? `${b.familyName.toLowerCase()}.family@example.org`, preferredChannel: Number(b.key.slice(-1)) % 2 ? 'sms' : 'email',
       consentSms: true, consentEmail: true, language: 'en', timeZone: 'Europe/London',
     }],

@@ -8,11 +8,11 @@ import type { AppDeps } from '../server/deps';
 export async function seedPolicies(deps: AppDeps): Promise<number> {
   const demo: Record<string, Array<{ label: string; number: string; when: string }>> = {
     larkmoor: [
-      { label: 'Home oxygen nurses', number: '+44 1632 960 214', when: 'Weekdays 08:00–18:00, for questions about the oxygen or the plan' },
-      { label: 'Children’s ward (out of hours)', number: '+44 1632 960 877', when: 'Evenings, nights and weekends' },
-      { label: 'Oxygen supplier', number: '+44 1632 960 555', when: 'Cylinder deliveries and equipment faults, any time' },
+      { label: 'Home oxygen nurses', number: '+441632960214', when: 'Weekdays 08:00–18:00, for questions about the oxygen or the plan' },
+      { label: 'Children’s ward (out of hours)', number: '+441632960877', when: 'Evenings, nights and weekends' },
+      { label: 'Oxygen supplier', number: '+441632960555', when: 'Cylinder deliveries and equipment faults, any time' },
     ],
-    saltmarsh: [{ label: 'Outreach team', number: '+44 1632 960 390', when: 'Weekdays 09:00–17:00' }],
+    saltmarsh: [{ label: 'Outreach team', number: '+441632960390', when: 'Weekdays 09:00–17:00' }],
   };
   let n = 0;
   for (const [slug, phones] of Object.entries(demo)) {

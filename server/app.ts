@@ -124,7 +124,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/conversions', conversionsRouter(repos.policies));
   api.use('/infants', infantsRouter(createInfantsService(deps.ds, repos, deps.jobs), prescriptions));
   api.use('/infants', schedule.infants, readings.infants, stepDownsRouter(createStepDownsService(deps.ds, repos), deps.clock));
-  const visits = visitsRouters(createVisitsService(deps.ds, repos, deps.jobs));
+  const visits = visitsRouters(createVisitsService(deps.ds, repos, deps.jobs, deps.clock));
   api.use('/infants', visits.infants);
   api.use('/visits', visits.visits);
   api.use('/my-day', schedule.day);

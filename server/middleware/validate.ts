@@ -1,4 +1,4 @@
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import type { z } from 'zod';
 import { ValidationError, type FieldErrors } from '../lib/errors';
 
@@ -16,9 +16,13 @@ export function zodIssuesToFields(issues: readonly z.core.$ZodIssue[], prefix?: 
   return out;
 }
 
-/** Runs the shared contract on each part of the request and replaces it with the parsed value. */
-export function validate(schemas: Schemas): RequestHandler {
+/**
+ * Runs the shared contract on each part of the request and replaces it with the parsed value. A function picks the
+ * contract per request (phone numbers are read in the caller's programme's country).
+ */
+export function validate(schemasOrPick: Schemas | ((req: Request) => Schemas)): RequestHandler {
   return (req, _res, next) => {
+    const schemas = typeof schemasOrPick === 'function' ? schemasOrPick(req) : schemasOrPick;
     const details: FieldErrors = {};
     for (const part of ['params', 'query', 'body'] as const) {
       const schema = schemas[part];

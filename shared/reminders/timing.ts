@@ -116,3 +116,22 @@ export function changeNoteAt(now: Date, timeZone: string, q: QuietHours): Date {
 export function journeyReminderAt(departOn: string, timeZone: string, rules: ReminderRules): Date {
   return outsideQuietHours(instantAtOrAfter(addDays(departOn, -1), rules.dayBeforeAt, timeZone), timeZone, rules);
 }
+
+export type PlannedBookingNote =
+  | { template: 'visit-booked' | 'visit-today'; sendAt: Date; notAfter: Date; skip: null }
+  | { template: 'visit-today'; sendAt: Date; notAfter: Date; skip: 'quiet-hours' };
+
+/**
+ * The note that tells a family a visit was booked, so a later "moved" or "cancelled" message refers to something
+ * they were told. It goes now, or when quiet hours end. When that moment falls on the visit's own local day it is
+ * the short "today at …" note (and replaces that morning's reminder); one that quiet hours would hold until after
+ * the visit has started is planned as skipped, so the log shows why. A visit already started gets none.
+ */
+export function planBookingNote(visit: VisitTiming, q: QuietHours, now: Date): PlannedBookingNote | null {
+  const notAfter = visit.startsAt;
+  if (notAfter.getTime() <= now.getTime()) return null;
+  const sendAt = outsideQuietHours(now, visit.timeZone, q);
+  if (sendAt.getTime() >= notAfter.getTime()) return { template: 'visit-today', sendAt, notAfter, skip: 'quiet-hours' };
+  const template = localParts(sendAt, visit.timeZone).date === visit.date ? 'visit-today' : 'visit-booked';
+  return { template, sendAt, notAfter, skip: null };
+}

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { pageQuerySchema, pagedSchema, plainText } from './common';
 import { pressureSourceSchema } from './conversions';
+import { optionalPhoneNumber, perCountry } from './phone';
 
 export const DIAGNOSES = ['chronic_lung_disease', 'pulmonary_hypertension', 'heart_disease', 'airway', 'other'] as const;
 export const DIAGNOSIS_LABELS: Record<(typeof DIAGNOSES)[number], string> = {
@@ -23,7 +24,7 @@ export const INFANT_STATUS_LABELS: Record<InfantStatus, string> = {
   left_programme: 'Left the programme',
 };
 
-export const INFANT_FLAGS = ['growth_drift', 'new_setting_waiting', 'not_reachable_by_cannula', 'above_cannula_limit', 'check_overdue', 'below_target'] as const;
+export const INFANT_FLAGS = ['growth_drift', 'new_setting_waiting', 'not_reachable_by_cannula', 'above_cannula_limit', 'check_overdue', 'below_target', 'number_unreadable'] as const;
 export type InfantFlag = (typeof INFANT_FLAGS)[number];
 export const INFANT_FLAG_LABELS: Record<InfantFlag, string> = {
   growth_drift: 'Outgrowing flow',
@@ -32,6 +33,8 @@ export const INFANT_FLAG_LABELS: Record<InfantFlag, string> = {
   above_cannula_limit: 'Above cannula limit',
   check_overdue: 'Check overdue',
   below_target: 'Below SpO2 target',
+  // Set by the move to E.164 numbers for a family number it could not read; cleared when the contacts are saved again.
+  number_unreadable: 'Family number unreadable',
 };
 
 /**
@@ -46,6 +49,7 @@ export const INFANT_FLAG_KINDS: Record<InfantFlag, InfantFlagKind> = {
   above_cannula_limit: 'clinical',
   check_overdue: 'admin',
   below_target: 'clinical',
+  number_unreadable: 'admin',
 };
 export const INFANT_FLAG_KIND_LABELS: Record<InfantFlagKind, string> = { clinical: 'Clinical', admin: 'To do' };
 
@@ -53,11 +57,12 @@ const isoDate = z.iso.date({ error: 'Use a date like 2026-11-30' });
 const text = (label: string, max = 120) =>
   plainText().trim().min(1, { error: `Enter the ${label}` }).max(max, { error: `At most ${max} characters` });
 
-export const contactSchema = z
+/** A family contact; the mobile is read in the programme's country and must be able to receive texts. */
+export const contactSchemaFor = perCountry((country) => z
   .strictObject({
     name: text('name'),
     relation: text('relation', 60),
-    mobile: plainText().trim().regex(/^\+?[0-9 ()-]{7,20}$/, { error: 'Enter a mobile number, e.g. +44 7700 900123' }).optional().or(z.literal('').transform(() => undefined)),
+    mobile: optionalPhoneNumber(country, 'mobile').optional(),
     email: plainText().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address' })).optional().or(z.literal('').transform(() => undefined)),
     preferredChannel: z.enum(['sms', 'email'], { error: 'Choose SMS or e-mail' }),
     consentSms: z.boolean(),
@@ -70,8 +75,10 @@ export const contactSchema = z
     if (c.preferredChannel === 'email' && !c.email) ctx.addIssue({ code: 'custom', path: ['email'], message: 'E-mail is preferred: enter an e-mail address' });
     if (c.consentSms && !c.mobile) ctx.addIssue({ code: 'custom', path: ['mobile'], message: 'SMS consent needs a mobile number' });
     if (c.consentEmail && !c.email) ctx.addIssue({ code: 'custom', path: ['email'], message: 'E-mail consent needs an e-mail address' });
-  });
-export type ContactInput = z.infer<typeof contactSchema>;
+  }));
+export type ContactInput = z.infer<ReturnType<typeof contactSchemaFor>>;
+const contactListFor = perCountry((country) =>
+  z.array(contactSchemaFor(country)).min(1, { error: 'Add at least one family contact' }).max(4, { error: 'At most 4 contacts' }));
 
 export const hospitalSettingSchema = z
   .strictObject({
@@ -112,17 +119,17 @@ export const babySchema = z.strictObject({
   diagnoses: z.array(z.enum(DIAGNOSES)).max(DIAGNOSES.length).default([]),
 });
 
-export const enrolInfantSchema = z.strictObject({
+export const enrolInfantSchemaFor = perCountry((country) => z.strictObject({
   /** Made by the form once; a repeated submit with the same key returns the same baby. */
   enrolKey: z.uuid(),
   baby: babySchema,
   hospital: hospitalSettingSchema,
   home: homeSettingSchema,
   care: z.strictObject({ nurseId: z.uuid({ error: 'Choose the home-care nurse' }), consultantId: z.uuid({ error: 'Choose the consultant' }) }),
-  contacts: z.array(contactSchema).min(1, { error: 'Add at least one family contact' }).max(4, { error: 'At most 4 contacts' }),
-});
-export type EnrolInfantInput = z.infer<typeof enrolInfantSchema>;
-export type EnrolInfantFormValues = z.input<typeof enrolInfantSchema>;
+  contacts: contactListFor(country),
+}));
+export type EnrolInfantInput = z.infer<ReturnType<typeof enrolInfantSchemaFor>>;
+export type EnrolInfantFormValues = z.input<ReturnType<typeof enrolInfantSchemaFor>>;
 
 export const updateInfantSchema = z
   .strictObject({
@@ -137,7 +144,7 @@ export const updateInfantSchema = z
   .refine((v) => (v.weightKg === undefined) === (v.weightDate === undefined), { error: 'Give the weight with the date it was taken', path: ['weightDate'] });
 export type UpdateInfantInput = z.infer<typeof updateInfantSchema>;
 
-export const replaceContactsSchema = z.strictObject({ contacts: enrolInfantSchema.shape.contacts });
+export const replaceContactsSchemaFor = perCountry((country) => z.strictObject({ contacts: contactListFor(country) }));
 
 export const INFANT_SORTS = ['name', '-name', 'correctedAge', '-correctedAge', 'elevation', '-elevation', 'status', '-status', 'enrolled', '-enrolled'] as const;
 export const listInfantsQuerySchema = pageQuerySchema.extend({

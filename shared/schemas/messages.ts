@@ -1,8 +1,10 @@
 import { z } from 'zod';
-import { pageQuerySchema, pagedSchema } from './common';
+import { pageQuerySchema, pagedSchema, plainText } from './common';
 
 // Every message Nestflow sends is first a row (a "reminder") written with the change that causes it.
 export const MESSAGE_TEMPLATES = [
+  'visit-booked',
+  'visit-today',
   'visit-day-before',
   'visit-morning',
   'visit-moved',
@@ -14,6 +16,8 @@ export const MESSAGE_TEMPLATES = [
 ] as const;
 export type MessageTemplate = (typeof MESSAGE_TEMPLATES)[number];
 export const MESSAGE_TEMPLATE_LABELS: Record<MessageTemplate, string> = {
+  'visit-booked': 'Visit booked (family)',
+  'visit-today': 'Visit booked for today (family)',
   'visit-day-before': 'Visit tomorrow (family)',
   'visit-morning': 'Visit today (family)',
   'visit-moved': 'Visit moved (family)',
@@ -54,6 +58,8 @@ export const listMessagesQuerySchema = pageQuerySchema.extend({
   channel: z.enum(CHANNELS, { error: 'Unknown channel' }).optional(),
   template: z.enum(MESSAGE_TEMPLATES, { error: 'Unknown message type' }).optional(),
   infantId: z.uuid({ error: 'Must be a valid id' }).optional(),
+  /** Part of the baby's name, the recipient's name, or their address or number. */
+  q: plainText().trim().max(100, { error: 'At most 100 characters' }).optional(),
 });
 export type ListMessagesQuery = z.infer<typeof listMessagesQuerySchema>;
 

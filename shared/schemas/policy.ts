@@ -1,5 +1,7 @@
 import { z } from 'zod';
 import { plainText } from './common';
+import { countryCodeSchema } from './phone';
+import { DEFAULT_COUNTRY, readPhone } from '../phone/phone';
 import { DEFAULT_CANNULA_MAX_FLOW_LPM, DEFAULT_FLOWMETER_STEPS_LPM } from '../clinical/flowmeter';
 import { DEFAULT_DRIFT_THRESHOLD_FIO2 } from '../clinical/growth';
 
@@ -71,7 +73,10 @@ export const reminderRulesSchema = z.strictObject({
   failureAlertPeriodMinutes: int(5, 24 * 60, 'minutes'),
 });
 
-const phoneNumber = plainText().trim().regex(/^\+?[0-9][0-9 ()-]{1,22}$/, { error: 'Use digits, spaces and an optional leading +' });
+// The characters here, so the message shows beside the row even when another part of the form is wrong; whether it
+// is a number of the programme's country is checked in updatePolicySchema (landlines allowed: families call these).
+const phoneNumber = plainText().trim().max(40, { error: 'At most 40 characters' })
+  .regex(/^[+0-9 ().-]*[0-9][+0-9 ().-]*$/, { error: 'Use digits, spaces and an optional leading +' });
 
 /** Who a family calls, shown on the family page and the printed care plan. */
 export const programmeContactsSchema = z.strictObject({
@@ -109,6 +114,8 @@ export const equipmentSupplySchema = z.strictObject({
 
 /** A programme's clinical settings; every change is a new numbered version. */
 export const policySettingsSchema = z.strictObject({
+  /** ISO 3166 code: family and programme numbers typed without a country code are read, and shown, as its numbers. */
+  country: countryCodeSchema,
   flowmeterStepsLpm: z
     .array(z.number().positive({ error: 'Flowmeter steps must be above 0 L/min' }).max(15))
     .min(1, { error: 'Give at least one flowmeter step' })
@@ -129,6 +136,8 @@ export const policySettingsSchema = z.strictObject({
 export type PolicySettings = z.infer<typeof policySettingsSchema>;
 
 export const DEFAULT_POLICY_SETTINGS: PolicySettings = {
+  // The demo programmes are in the United Kingdom.
+  country: DEFAULT_COUNTRY,
   flowmeterStepsLpm: [...DEFAULT_FLOWMETER_STEPS_LPM],
   cannulaMaxFlowLpm: DEFAULT_CANNULA_MAX_FLOW_LPM,
   driftThresholdFio2: DEFAULT_DRIFT_THRESHOLD_FIO2,
@@ -188,6 +197,18 @@ export const updatePolicySchema = z.strictObject({
   /** The version the admin edited; a stale one is refused so two admins cannot overwrite each other silently. */
   baseVersion: z.number().int().min(0),
   settings: policySettingsSchema,
+}).superRefine((v, ctx) => {
+  v.settings.contacts.phones.forEach((p, i) => {
+    const r = readPhone(p.number, v.settings.country, 'any');
+    if (!r.ok) ctx.addIssue({ code: 'custom', path: ['settings', 'contacts', 'phones', i, 'number'], message: r.message });
+  });
+}).transform((v) => {
+  // Stored in E.164 like every other number; shown in the country's own form.
+  const phones = v.settings.contacts.phones.map((p) => {
+    const r = readPhone(p.number, v.settings.country, 'any');
+    return r.ok ? { ...p, number: r.e164 } : p;
+  });
+  return { ...v, settings: { ...v.settings, contacts: { ...v.settings.contacts, phones } } };
 });
 export type UpdatePolicyInput = z.infer<typeof updatePolicySchema>;
 

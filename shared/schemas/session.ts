@@ -10,6 +10,8 @@ export const sessionUserSchema = z.object({
   programmeId: z.uuid(),
   programmeName: z.string(),
   programmeTimeZone: z.string(),
+  /** ISO 3166 code from the programme's policy: how numbers without a country code are read and shown. */
+  programmeCountry: z.string(),
 });
 export type SessionUser = z.infer<typeof sessionUserSchema>;
 

@@ -30,7 +30,8 @@ describe('POST /api/infants', () => {
     const rx = await ctx.deps.ds.query(`SELECT status, reason, version FROM prescriptions WHERE infant_id = $1`, [infant.id]);
     expect(rx).toEqual([{ status: 'preparing', reason: 'enrolment', version: 1 }]);
     const contacts = await ctx.deps.repos.contacts.listForInfant(infant.id);
-    expect(contacts.map((c) => c.mobile)).toEqual(['+44 7700 900001']);
+    // Typed '+44 7700 900001', stored in E.164.
+    expect(contacts.map((c) => c.mobile)).toEqual(['+447700900001']);
     const audit = await ctx.deps.repos.audit.listForEntity('infant', infant.id);
     expect(audit.map((a) => a.action).sort()).toEqual(['infant.enrolled', 'prescription.requested']);
   });

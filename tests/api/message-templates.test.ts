@@ -10,7 +10,7 @@ import { reminderRow } from '../helpers/reminders';
 const PROGRAMME = "Larkmoor Children's Home Oxygen Service";
 const PHONE = '01632 960001';
 const settings: PolicySettings = { ...DEFAULT_POLICY_SETTINGS, contacts: { phones: [{ label: 'Office', number: PHONE, when: 'Weekdays' }], emergencyNumber: '999' } };
-const FAMILY: MessageTemplate[] = ['visit-day-before', 'visit-morning', 'visit-moved', 'visit-cancelled', 'journey-day-before'];
+const FAMILY: MessageTemplate[] = ['visit-booked', 'visit-today', 'visit-day-before', 'visit-morning', 'visit-moved', 'visit-cancelled', 'journey-day-before'];
 const STAFF: MessageTemplate[] = ['nurse-digest', 'consultant-digest', 'delivery-failed'];
 const noDb = undefined as unknown as EntityManager;
 

@@ -59,12 +59,14 @@ describe('message log: who may see it', () => {
 });
 
 describe('message log: what it lists', () => {
-  it("when a visit is booked, then the coordinator and the admin see the family's two reminders, and another programme sees none of them", async () => {
+  it("when a visit is booked, then the coordinator and the admin see the family's booking note and two reminders, and another programme sees none of them", async () => {
     const { clinic, coord, infant, visit } = await programmeWithVisit();
     const res = await coord.get('/api/messages?sort=sendAt').expect(200);
-    expect(res.body.total).toBe(2);
-    // 17:00 the day before and 08:00 on the day, London time (policy defaults; timing is checked in tests/shared/reminders).
+    expect(res.body.total).toBe(3);
+    // The booking note first (now, or when quiet hours end), then 17:00 the day before and 08:00 on the day, London
+    // time (policy defaults; timing is checked in tests/shared/reminders).
     expect(res.body.items).toEqual([
+      expect.objectContaining({ template: 'visit-booked', channel: 'sms', status: 'scheduled' }),
       expect.objectContaining({
         template: 'visit-day-before', channel: 'sms', status: 'scheduled', reason: null, attempts: 0, sentAt: null,
         recipient: { kind: 'family', name: 'Parent One', address: '+447700900001' }, infant: { id: infant.id, name: `Test ${infant.familyName}` },
@@ -73,11 +75,11 @@ describe('message log: what it lists', () => {
       expect.objectContaining({ template: 'visit-morning', status: 'scheduled', sendAt: localToInstant(visit.date, '08:00', 'Europe/London')!.toISOString() }),
     ]);
     const admin = await signedInAgent(ctx.app, clinic.people.admin.email);
-    expect((await admin.get('/api/messages').expect(200)).body.items.map((m: { template: string }) => m.template).sort()).toEqual(['visit-day-before', 'visit-morning']);
+    expect((await admin.get('/api/messages').expect(200)).body.items.map((m: { template: string }) => m.template).sort()).toEqual(['visit-booked', 'visit-day-before', 'visit-morning']);
 
     const other = await programmeWithVisit();
     const outsider = (await other.coord.get('/api/messages?pageSize=100').expect(200)).body;
-    expect(outsider.total).toBe(2);
+    expect(outsider.total).toBe(3);
     expect(outsider.items.every((m: { infant: { id: string } }) => m.infant.id === other.infant.id)).toBe(true);
     expect((await other.coord.get(`/api/messages?infantId=${infant.id}`).expect(200)).body).toEqual({ items: [], total: 0 });
   });
@@ -89,9 +91,9 @@ describe('message log: what it lists', () => {
     expect(failed.total).toBe(1);
     expect(failed.items[0]).toMatchObject({ id: failedId, status: 'failed', lastError: 'Unknown number', attempts: 1 });
     const page2 = (await coord.get('/api/messages?pageSize=2&page=2&sort=sendAt').expect(200)).body;
-    expect(page2.total).toBe(3);
-    expect(page2.items).toHaveLength(1);
-    expect((await coord.get('/api/messages?page=9').expect(200)).body).toEqual({ items: [], total: 3 });
+    expect(page2.total).toBe(4);
+    expect(page2.items).toHaveLength(2);
+    expect((await coord.get('/api/messages?page=9').expect(200)).body).toEqual({ items: [], total: 4 });
   });
 });
 
@@ -152,5 +154,33 @@ describe('sending a failed message again', () => {
     const failedId = await insertReminder(ctx.deps, { programmeId: clinic.programme.id, template: 'nurse-digest' });
     const admin = await signedInAgent(ctx.app, clinic.people.admin.email);
     expect((await post(admin, `/api/messages/${failedId}/retry`).expect(200)).body.message).toMatchObject({ id: failedId, status: 'scheduled', infant: null });
+  });
+});
+
+describe('message log: search', () => {
+  it("when the coordinator searches by baby, recipient or number, then only matching rows come back, within the caller's programme", async () => {
+    const a = await programmeWithVisit();
+    const b = await programmeWithVisit();
+    // Another programme's baby has the same made-up family name: the search never reaches across programmes.
+    await ctx.deps.ds.query(`UPDATE infants SET family_name = $2 WHERE id = $1`, [b.infant.id, a.infant.familyName]);
+    const ids = async (q: string) => (await a.coord.get(`/api/messages?q=${encodeURIComponent(q)}&pageSize=100`).expect(200)).body;
+
+    const byBaby = await ids(a.infant.familyName.toLowerCase());
+    expect(byBaby.total).toBe(3);
+    expect(byBaby.items.every((m: { infant: { id: string } }) => m.infant.id === a.infant.id)).toBe(true);
+    expect((await ids('Parent One')).total).toBe(3);
+    // The number as a family would say it (national form) finds the E.164 address.
+    expect((await ids('07700 900001')).total).toBe(3);
+    expect((await ids('nobody-by-that-name')).total).toBe(0);
+    // LIKE's wildcards are plain text here: '%' alone matches nothing.
+    expect((await ids('%')).total).toBe(0);
+  });
+
+  it('when the search text is too long or holds control characters, then 400 names the field', async () => {
+    const { coord } = await programmeWithVisit();
+    const long = await coord.get(`/api/messages?q=${'a'.repeat(101)}`).expect(400);
+    expect(long.body.error.details).toEqual({ 'query.q': ['At most 100 characters'] });
+    const control = await coord.get('/api/messages?q=ab%07cd').expect(400);
+    expect(Object.keys(control.body.error.details)).toEqual(['query.q']);
   });
 });

@@ -19,9 +19,13 @@ afterAll(() => ctx.close());
 const future = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 const post = (a: Agent, path: string, body: unknown) => a.post(path).set('X-CSRF-Token', a.csrf).send(body as object);
 
-/** A baby whose one contact has SMS consent and a mobile of its own, stored the way people type it. */
+/**
+ * A baby whose one contact has SMS consent and a mobile of its own, typed with spaces. Numbers come from Ofcom's
+ * drama range (07700 900xxx), 900400–900499 in this file only: a STOP reaches every contact with the number.
+ */
+let nextNumber = 900400 + randomInt(0, 50);
 async function babyWithMobile() {
-  const digits = String(randomInt(100000, 999999));
+  const digits = String(nextNumber++);
   const stored = `+44 7700 ${digits.slice(0, 3)} ${digits.slice(3)}`;
   const clinic = await makeClinic(ctx.deps);
   const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
@@ -40,7 +44,7 @@ const stopsFor = (infantId: string) =>
   ctx.deps.ds.query(`SELECT actor_id, details FROM audit_events WHERE action = 'contact.sms_stopped' AND entity_id = $1`, [infantId]);
 
 describe('POST /api/webhooks/sms', () => {
-  it('when a correctly signed STOP arrives from the number stored with spaces, then SMS consent is withdrawn and audited, with no session or CSRF token', async () => {
+  it('when a correctly signed STOP arrives from the number typed with spaces, then SMS consent is withdrawn and audited, with no session or CSRF token', async () => {
     const { infant, e164 } = await babyWithMobile();
     const before = await contact(infant.id);
     const res = await signed(reply(e164, 'STOP')).expect(200);

@@ -80,3 +80,13 @@ export async function waitFor<T>(what: string, probe: () => Promise<T | null | u
     await new Promise((r) => setTimeout(r, everyMs));
   }
 }
+
+let nextMobile = 500;
+/**
+ * A different mobile for each family of a test file (the fakes' inboxes are per file), in Ofcom's drama range
+ * 07700 900000–900999, which the phone reader accepts as a mobile that is nobody's.
+ */
+export function testMobile(): string {
+  nextMobile = nextMobile >= 999 ? 500 : nextMobile + 1;
+  return `+447700900${nextMobile}`;
+}

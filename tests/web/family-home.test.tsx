@@ -22,11 +22,11 @@ const approved: Prescription = {
   decisionReason: null, createdAt: '2025-11-30T10:00:00.000Z',
 };
 
-// Fictional numbers in the UK drama range (01632 960xxx), as the demo scenario asks.
+// Fictional numbers in the UK drama range (01632 960xxx), as the demo scenario asks; stored in E.164, shown national.
 const contacts: PolicySettings['contacts'] = {
   phones: [
-    { label: 'Home oxygen nurses', number: '+44 (0)1632 960 123', when: 'Weekdays 8am to 6pm, for questions about the oxygen or the plan' },
-    { label: 'Children’s ward', number: '01632 960 456', when: 'Evenings, nights and weekends' },
+    { label: 'Home oxygen nurses', number: '+441632960123', when: 'Weekdays 8am to 6pm, for questions about the oxygen or the plan' },
+    { label: 'Children’s ward', number: '+441632960456', when: 'Evenings, nights and weekends' },
   ],
   emergencyNumber: '999',
 };
@@ -61,8 +61,8 @@ describe('Family home: who to call', () => {
     expect(items[0]).toHaveTextContent('Weekdays 8am to 6pm, for questions about the oxygen or the plan');
     // The dialler gets digits and the leading + only, without the "(0)" written for callers at home (common
     // practice); the number is shown as the programme wrote it.
-    expect(within(items[0]).getByRole('link', { name: 'Call Home oxygen nurses on +44 (0)1632 960 123' })).toHaveAttribute('href', 'tel:+441632960123');
-    expect(within(items[1]).getByRole('link', { name: 'Call Children’s ward on 01632 960 456' })).toHaveAttribute('href', 'tel:01632960456');
+    expect(within(items[0]).getByRole('link', { name: 'Call Home oxygen nurses on 01632 960123' })).toHaveAttribute('href', 'tel:+441632960123');
+    expect(within(items[1]).getByRole('link', { name: 'Call Children’s ward on 01632 960456' })).toHaveAttribute('href', 'tel:+441632960456');
   });
 
   it('when there is an emergency number, then the emergency section names it and dials it', async () => {

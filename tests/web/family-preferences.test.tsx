@@ -12,7 +12,8 @@ const saved = (overrides: Partial<Preferences> = {}): Preferences => ({
   contactId: 'c3c3c3c3-0000-4000-8000-000000000051',
   name: 'Rosa Quill',
   relation: 'mother',
-  mobile: '+44 7700 900123',
+  mobile: '+447700900123',
+  country: 'GB',
   email: null,
   preferredChannel: 'sms',
   consentSms: true,
@@ -66,7 +67,8 @@ describe('Family preferences', { timeout: 20_000 }, () => {
 
     const form = within(await screen.findByRole('form', { name: 'Contact details and reminders' }));
     expect(currentUrl(router)).toBe('/family/preferences');
-    expect(form.getByLabelText('Mobile number')).toHaveValue('+44 7700 900123');
+    // Stored in E.164, shown in the national form of the programme's country.
+    expect(form.getByLabelText('Mobile number')).toHaveValue('07700 900123');
     expect(form.getByLabelText('E-mail address')).toHaveValue('');
     expect(form.getByRole('radio', { name: 'Text message' })).toBeChecked();
     expect(form.getByRole('checkbox', { name: 'Text messages' })).toBeChecked();
@@ -95,7 +97,7 @@ describe('Family preferences', { timeout: 20_000 }, () => {
     await waitFor(() => expect(puts).toHaveLength(1));
     expect(puts[0].headers.get('X-CSRF-Token')).toBe('csrf-1');
     expect(puts[0].body).toEqual({
-      rowVersion: 3, mobile: '+44 7700 900123', email: null, preferredChannel: 'sms', consentSms: true, consentEmail: false,
+      rowVersion: 3, mobile: '+447700900123', email: null, preferredChannel: 'sms', consentSms: true, consentEmail: false,
       language: 'en', remindersEnabled: false,
     });
     expect(await screen.findByText('Saved — we have noted this change')).toBeInTheDocument();
@@ -130,6 +132,27 @@ describe('Family preferences', { timeout: 20_000 }, () => {
     expect(screen.getByLabelText('E-mail address')).toHaveValue('rosa.quill@example.org');
   });
 
+  it('when a landline is typed as the mobile, then the form refuses it with the reason before sending; a national mobile goes in E.164', async () => {
+    let stored = saved();
+    const { puts } = stubPreferences((request) => {
+      stored = { ...stored, ...(request.body as Partial<Preferences>), rowVersion: 4 };
+      return json(200, { preferences: stored });
+    }, () => stored);
+    const { user, form } = await openPreferences();
+    const mobile = form.getByLabelText('Mobile number');
+    await user.clear(mobile);
+    // 020 7946 0xxx: a London landline range kept for drama (Ofcom).
+    await user.type(mobile, '020 7946 0123');
+    await user.click(form.getByRole('button', { name: 'Save my choices' }));
+    expect(await form.findByText('This number cannot receive text messages (a landline or a service number): enter a mobile number')).toBeInTheDocument();
+    expect(puts).toHaveLength(0);
+    await user.clear(mobile);
+    await user.type(mobile, '07700 900777');
+    await user.click(form.getByRole('button', { name: 'Save my choices' }));
+    await waitFor(() => expect(puts).toHaveLength(1));
+    expect((puts[0].body as { mobile: string }).mobile).toBe('+447700900777');
+  });
+
   it('when e-mail is chosen without an address, then the form says so beside the field and sends nothing', async () => {
     const { puts } = stubPreferences(() => json(500));
     const { user, form } = await openPreferences();
@@ -156,11 +179,11 @@ describe('Family preferences', { timeout: 20_000 }, () => {
     const { user, form } = await openPreferences();
     const mobile = form.getByLabelText('Mobile number');
     await user.clear(mobile);
-    await user.type(mobile, '+44 20 7946 0000');
+    await user.type(mobile, '07700 900555');
     await user.click(form.getByRole('button', { name: 'Save my choices' }));
     expect(await form.findByText('This number cannot receive text messages')).toBeInTheDocument();
     expect(mobile).toHaveAttribute('aria-invalid', 'true');
-    expect(mobile).toHaveValue('+44 20 7946 0000');
+    expect(mobile).toHaveValue('07700 900555');
     // A message for a field the form does not have is shown above it rather than lost.
     expect(form.getByRole('region', { name: 'There is a problem' })).toHaveTextContent('This contact is no longer linked to your account');
   });

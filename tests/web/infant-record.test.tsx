@@ -21,7 +21,7 @@ const infant: InfantDetail = {
   homeElevationM: 1780, homePressureMmHg: 614.2, activeFlowLpm: null, activeSetting: null, status: 'preparing', flags: [],
   nurse: { id: nurse.id, name: nurse.name }, consultant: { id: consultant.id, name: consultant.name },
   contacts: [{
-    id: '3c3c3c3c-0000-4000-8000-000000000001', name: 'Mara Ashdown', relation: 'mother', mobile: '+44 7700 900123', email: null,
+    id: '3c3c3c3c-0000-4000-8000-000000000001', name: 'Mara Ashdown', relation: 'mother', mobile: '+447700900123', email: null,
     preferredChannel: 'sms', consentSms: true, consentEmail: false, language: 'en', timeZone: 'Europe/London',
   }],
   rowVersion: 3, enrolledAt: '2025-04-02T09:00:00.000Z',
@@ -195,7 +195,8 @@ describe('Infant record', () => {
     await waitFor(() => expect(puts).toHaveLength(1));
     expect(puts[0].body).toEqual({
       contacts: [{
-        name: 'Mara Ashdown', relation: 'mother', mobile: '+44 7700 900123', email: 'mara@example.org', preferredChannel: 'sms',
+        // Shown as 07700 900123 in the form, sent in E.164 by the shared contract.
+        name: 'Mara Ashdown', relation: 'mother', mobile: '+447700900123', email: 'mara@example.org', preferredChannel: 'sms',
         consentSms: true, consentEmail: true, language: 'en', timeZone: 'Europe/London',
       }],
     });

@@ -16,7 +16,7 @@ function message(n: number, overrides: Partial<Message> = {}): Message {
     channel: 'sms',
     status: 'sent',
     reason: null,
-    recipient: { kind: 'family', name: 'Rosa Quill', address: '+44 7700 900123' },
+    recipient: { kind: 'family', name: 'Rosa Quill', address: '+447700900123' },
     infant: BABY,
     sendAt: '2026-07-01T16:00:00.000Z',
     sentAt: '2026-07-01T16:00:02.000Z',
@@ -68,9 +68,9 @@ describe('Message log', () => {
     // 16:00 UTC on 1 July is 17:00 in London (British Summer Time): the programme's clock, not UTC.
     expect(sent.getByText('1 Jul 2026, 17:00')).toBeInTheDocument();
     expect(sent.getByText('Rosa Quill')).toBeInTheDocument();
-    expect(sent.getByText('+44 7700 900123')).toBeInTheDocument();
-    expect(sent.getByText(/^Family/)).toBeInTheDocument();
-    expect(sent.getByText('SMS')).toBeInTheDocument();
+    // Stored in E.164, shown as people in the programme's country (GB) write it.
+    expect(sent.getByText('07700 900123')).toBeInTheDocument();
+    expect(sent.getByText('Family · SMS')).toBeInTheDocument();
     expect(sent.getByText('Visit tomorrow (family)')).toBeInTheDocument();
     expect(sent.getByText('Sent')).toBeInTheDocument();
     expect(sent.getByText('SM-0001')).toBeInTheDocument();
@@ -80,14 +80,15 @@ describe('Message log', () => {
     const failed = within(rows[1]);
     expect(failed.getByText('Failed')).toBeInTheDocument();
     expect(failed.getByText('Mailbox unavailable (550)')).toBeInTheDocument();
-    expect(failed.getByText('E-mail')).toBeInTheDocument();
+    expect(failed.getByText('Family · E-mail')).toBeInTheDocument();
     expect(failed.getByText('3 attempts')).toBeInTheDocument();
     expect(failed.getByRole('button', { name: /Send again/ })).toBeInTheDocument();
 
     const skipped = within(rows[2]);
     expect(skipped.getByText('Not sent')).toBeInTheDocument();
     expect(skipped.getByText(SKIP_REASONS['quiet-hours'])).toBeInTheDocument();
-    expect(skipped.getByText('—', { selector: 'td' })).toBeInTheDocument();
+    // Skipped before any channel was chosen: no channel is named.
+    expect(skipped.getByText('Family')).toBeInTheDocument();
 
     const digest = within(rows[3]);
     expect(digest.getByText("Nurse's morning list")).toBeInTheDocument();
@@ -205,7 +206,7 @@ describe('Message log', () => {
   it('when nothing matches the filters, then the page says so in words', async () => {
     stubLog({ rows: () => [] });
     renderApp('/messages?status=failed');
-    expect(await screen.findByText('No message matches these filters.')).toBeInTheDocument();
+    expect(await screen.findByText('No message matches this search and these filters.')).toBeInTheDocument();
   });
 
   it('when a coordinator signs in, then the menu offers the log and the empty log says so in words', async () => {
@@ -220,5 +221,21 @@ describe('Message log', () => {
     stubApi({ 'GET /api/session': sessionHandler('nurse') });
     renderApp('/messages');
     expect(await screen.findByRole('heading', { level: 1, name: 'Not part of your work' })).toBeInTheDocument();
+  });
+
+  it('when the coordinator types in the search box, then after a pause the log is searched by that text, once, and the URL keeps it', async () => {
+    const { listCalls } = stubLog();
+    const { user, router } = renderApp('/messages');
+    await bodyRows();
+    const box = screen.getByRole('searchbox', { name: 'Search by baby, name or number' });
+    await user.type(box, 'Juniper');
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?q=Juniper'));
+    await waitFor(() => expect(listCalls.at(-1)?.get('q')).toBe('Juniper'));
+    // One search for the word, not one per letter.
+    expect(listCalls.filter((p) => p.get('q')).map((p) => p.get('q'))).toEqual(['Juniper']);
+    // Enter searches at once; clearing the box shows everything again.
+    await user.clear(box);
+    await user.type(box, '07700 900123{Enter}');
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?q=07700+900123'));
   });
 });

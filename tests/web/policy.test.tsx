@@ -202,7 +202,8 @@ describe('Programme settings', { timeout: 20_000 }, () => {
     await waitFor(() => expect(puts).toHaveLength(1));
     const sent = (puts[0].body as { settings: Policy['settings'] }).settings;
     expect(sent.reminders).toEqual({ ...DEFAULT_POLICY_SETTINGS.reminders, quietStart: '20:30' });
-    expect(sent.contacts).toEqual({ phones: [{ label: 'Home oxygen nurses', number: '+44 1632 960001', when: 'Weekdays 08:00–18:00' }], emergencyNumber: '999' });
+    // Typed with spaces, sent as E.164 (the shared contract reads it in the programme's country).
+    expect(sent.contacts).toEqual({ phones: [{ label: 'Home oxygen nurses', number: '+441632960001', when: 'Weekdays 08:00–18:00' }], emergencyNumber: '999' });
     expect(sent.supply).toEqual({
       cylinders: [
         DEFAULT_POLICY_SETTINGS.supply.cylinders[1],

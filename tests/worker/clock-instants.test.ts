@@ -3,7 +3,7 @@ import { planDigests } from '../../server/modules/reminders/digests';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent } from '../helpers/agents';
 import { enrolmentBody, makeClinic } from '../helpers/infants';
-import { policyWithoutQuietHours, startMessaging, type Messaging } from '../helpers/messaging';
+import { policyWithoutQuietHours, startMessaging, testMobile, type Messaging } from '../helpers/messaging';
 
 // Time-dependent delivery decisions run at fixed instants, never at the hour the suite happens to run: around
 // midnight, around noon, and through both clock changes of Europe/London (the programmes' zone). UK clocks go
@@ -31,7 +31,7 @@ async function clinicWithBaby(opts: { quietHours: boolean; timeZone?: string }) 
   if (!opts.quietHours) await policyWithoutQuietHours(ctx.deps, clinic.programme.id);
   const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
   const body = enrolmentBody(clinic);
-  const mobile = `+447700${String(Math.floor(Math.random() * 1e6)).padStart(6, '0')}`;
+  const mobile = testMobile();
   body.contacts[0] = { ...body.contacts[0], timeZone: opts.timeZone ?? 'Europe/London', mobile };
   const infant = (await coord.post('/api/infants').set('X-CSRF-Token', coord.csrf).send(body).expect(201)).body;
   return { clinic, infant, mobile };

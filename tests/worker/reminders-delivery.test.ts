@@ -4,7 +4,7 @@ import { reconcileReminders } from '../../server/modules/reminders/reconcile';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent, type Agent } from '../helpers/agents';
 import { enrolmentBody, makeClinic } from '../helpers/infants';
-import { bringForward, policyWithoutQuietHours, startMessaging, waitFor, type Messaging } from '../helpers/messaging';
+import { bringForward, policyWithoutQuietHours, startMessaging, testMobile, waitFor, type Messaging } from '../helpers/messaging';
 
 let ctx: TestContext;
 let msg: Messaging;
@@ -22,7 +22,32 @@ const post = (a: Agent, path: string, body: unknown) => a.post(path).set('X-CSRF
 const visitBody = (staffId: string, over: Record<string, unknown> = {}) => ({ kind: 'home_visit', date: future(5), time: '10:30', durationMinutes: 45, staffId, purpose: 'Spot check and weight', ...over });
 
 interface Row { id: string; template: string; status: string; reason: string | null; send_at: Date; channel: string | null; to_address: string | null; attempts: number; provider_id: string | null; contact_id: string | null; user_id: string | null; last_error: string | null }
-const rowsOf = (visitId: string): Promise<Row[]> => ctx.deps.ds.query(`SELECT * FROM reminders WHERE visit_id = $1 ORDER BY send_at, template`, [visitId]);
+// The booking note (tests/api/visit-booking-note.test.ts) goes at once; these tests are about the reminders after it.
+const NOTES = `('visit-booked', 'visit-today')`;
+const rowsOf = (visitId: string): Promise<Row[]> => ctx.deps.ds.query(`SELECT * FROM reminders WHERE visit_id = $1 AND template NOT IN ${NOTES} ORDER BY send_at, template`, [visitId]);
+
+/** Books a visit and waits until its booking note has settled, so a fault set up next meets the reminder under test. */
+async function book(coord: Agent, infantId: string, body: Record<string, unknown>) {
+  const visit = (await post(coord, `/api/infants/${infantId}/visits`, body).expect(201)).body;
+  await waitFor('the booking note', async () => {
+    const rows: Array<{ status: string }> = await ctx.deps.ds.query(`SELECT status FROM reminders WHERE visit_id = $1 AND template IN ${NOTES}`, [visit.id]);
+    return rows.length > 0 && rows.every((r) => r.status !== 'scheduled');
+  });
+  return visit;
+}
+/** What reached a number or an address, the booking notes left out. */
+async function notesSent(): Promise<Set<string>> {
+  const rows: Array<{ id: string; provider_id: string | null }> = await ctx.deps.ds.query(`SELECT id, provider_id FROM reminders WHERE template IN ${NOTES}`);
+  return new Set(rows.flatMap((r) => [r.provider_id ?? '', `<reminder-${r.id}@nestflow.invalid>`]));
+}
+const smsTo = async (mobile: string) => {
+  const notes = await notesSent();
+  return msg.sms.messages().filter((m) => m.to === mobile && !notes.has(m.sid));
+};
+const mailTo = async (address: string) => {
+  const notes = await notesSent();
+  return msg.mail.messages().filter((m) => m.envelope.to.includes(address) && !notes.has(String(m.headers['message-id'])));
+};
 
 /** "Time passes": the reminders' moment is brought to now, as a fake clock would, and the reconciler runs. */
 async function makeDue(ids: string[]) {
@@ -39,7 +64,7 @@ async function family(opts: { timeZone?: string; channel?: 'sms' | 'email' } = {
   await policyWithoutQuietHours(ctx.deps, clinic.programme.id);
   const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
   const body = enrolmentBody(clinic);
-  body.contacts[0] = { ...body.contacts[0], timeZone: opts.timeZone ?? 'America/Denver', mobile: `+44 7700 9${String(Math.floor(Math.random() * 1e5)).padStart(5, '0')}`,
+  body.contacts[0] = { ...body.contacts[0], timeZone: opts.timeZone ?? 'America/Denver', mobile: testMobile(),
     email: `parent-${Math.random().toString(36).slice(2, 8)}@test.example`, consentEmail: true, preferredChannel: opts.channel ?? 'sms' };
   const infant = (await post(coord, '/api/infants', body).expect(201)).body;
   return { clinic, coord, infant, contact: body.contacts[0] };
@@ -50,7 +75,7 @@ async function family(opts: { timeZone?: string; channel?: 'sms' | 'email' } = {
 describe('reminders on real PostgreSQL, Redis and both fakes', () => {
   it('when a visit is booked, then one reminder row per reminder is written at the right moments and each goes out exactly once', async () => {
     const { clinic, coord, infant, contact } = await family({ timeZone: 'America/Denver' });
-    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id)).expect(201)).body;
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
     const rows = await rowsOf(visit.id);
     expect(rows.map((r) => r.template)).toEqual(['visit-day-before', 'visit-morning']);
     // The moments follow the family's own clock (Denver) and the policy times: 17:00 the day before, 08:00 on the day.
@@ -62,7 +87,7 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     await makeDue(rows.map((r) => r.id));
     const done = await settled(rows.map((r) => r.id));
     expect(done.map((r) => r.status)).toEqual(['sent', 'sent']);
-    const inbox = msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''));
+    const inbox = await smsTo(contact.mobile!);
     expect(inbox).toHaveLength(2);
     expect(inbox.map((m) => m.body).join('\n')).toContain('home visit tomorrow');
     expect(inbox.map((m) => m.body).join('\n')).toContain('home visit is today at 10:30');
@@ -74,15 +99,15 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     await reconcileReminders(ctx.deps.repos, msg.queue, msg.jobOptions);
     expect(await msg.delivery.deliver(rows[0].id, { finalAttempt: false })).toBe('already-done');
     await new Promise((r) => setTimeout(r, 300));
-    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(2);
+    expect((await smsTo(contact.mobile!))).toHaveLength(2);
   });
 
   it("when a second contact lives in another time zone, then their reminders follow their own clock and date", async () => {
     const { clinic, coord, infant, contact } = await family({ timeZone: 'Europe/London' });
     const abroad = { ...contact, name: 'Grandparent Abroad', relation: 'Grandmother', mobile: '+64 21 555 0101', email: 'abroad@test.example', timeZone: 'Pacific/Auckland' };
     await coord.put(`/api/infants/${infant.id}/contacts`).set('X-CSRF-Token', coord.csrf).send({ contacts: [contact, abroad] }).expect(200);
-    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id, { time: '14:30' }))).body;
-    const rows = await ctx.deps.ds.query(`SELECT r.template, r.send_at, c.time_zone FROM reminders r JOIN family_contacts c ON c.id = r.contact_id WHERE r.visit_id = $1 ORDER BY r.send_at`, [visit.id]);
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id, { time: '14:30' }));
+    const rows = await ctx.deps.ds.query(`SELECT r.template, r.send_at, c.time_zone FROM reminders r JOIN family_contacts c ON c.id = r.contact_id WHERE r.visit_id = $1 AND r.template NOT IN ${NOTES} ORDER BY r.send_at`, [visit.id]);
     const rules = { dayBeforeAt: '17:00', morningOfAt: '08:00', quietStart: '00:00', quietEnd: '00:00' };
     const startsAt = new Date(visit.startsAt);
     for (const tz of ['Europe/London', 'Pacific/Auckland']) {
@@ -95,7 +120,7 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
 
   it('when a visit is moved, then its pending reminders are cancelled, the family is told at once and new reminders are planned', async () => {
     const { clinic, coord, infant, contact } = await family({ channel: 'email', timeZone: 'Europe/London' });
-    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
     const before = await rowsOf(visit.id);
     const moved = (await coord.patch(`/api/visits/${visit.id}`).set('X-CSRF-Token', coord.csrf).send({ rowVersion: visit.rowVersion, date: future(6), time: '14:15' }).expect(200)).body;
     const after = await rowsOf(visit.id);
@@ -105,7 +130,7 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     // The note was due now, so the API put it on the queue itself.
     const [sent] = await settled([note.id]);
     expect(sent.status).toBe('sent');
-    const mails = msg.mail.messages().filter((m) => m.envelope.to.includes(contact.email!));
+    const mails = await mailTo(contact.email!);
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toContain(`New time for Test's home visit`);
     expect(mails[0].text).toContain(`${moved.time}`);
@@ -117,23 +142,38 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     expect(last.filter((r) => r.status === 'scheduled' && r.template.startsWith('visit-day') )).toHaveLength(0);
     const cancelNote = last.find((r) => r.template === 'visit-cancelled')!;
     await settled([cancelNote.id]);
-    expect(msg.mail.messages().filter((m) => m.envelope.to.includes(contact.email!)).map((m) => m.subject).at(-1)).toMatch(/is cancelled/);
+    expect((await mailTo(contact.email!)).map((m) => m.subject).at(-1)).toMatch(/is cancelled/);
+  });
+
+  it('when the family switched from e-mail to text after a reminder was planned, then it goes by text to the number they gave, chosen at send time', async () => {
+    const { clinic, coord, infant, contact } = await family({ channel: 'email', timeZone: 'Europe/London' });
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
+    const [first] = await rowsOf(visit.id);
+    // Planned while e-mail was preferred: the log shows e-mail for now.
+    expect(first).toMatchObject({ channel: 'email', to_address: contact.email });
+    const newMobile = testMobile();
+    await ctx.deps.ds.query(`UPDATE family_contacts SET preferred_channel = 'sms', consent_sms = true, mobile = $2 WHERE infant_id = $1`, [infant.id, newMobile]);
+    await makeDue([first.id]);
+    const [done] = await settled([first.id]);
+    expect(done).toMatchObject({ status: 'sent', channel: 'sms', to_address: newMobile });
+    expect((await smsTo(newMobile)).map((m) => m.body).join()).toContain('home visit');
+    expect(await mailTo(contact.email!)).toHaveLength(0);
   });
 
   it('when the SMS provider answers 5xx twice, then the message is retried with backoff and sent once on the third attempt', async () => {
     const { clinic, coord, infant, contact } = await family();
-    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
     const [first] = await rowsOf(visit.id);
     await fetch(`http://127.0.0.1:${msg.sms.port}/fail`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ mode: '5xx', count: 2 }) });
     await makeDue([first.id]);
     const [done] = await settled([first.id]);
     expect(done).toMatchObject({ status: 'sent', attempts: 3 });
-    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(1);
+    expect((await smsTo(contact.mobile!))).toHaveLength(1);
   });
 
   it('when the SMS provider never answers, then the attempt counts as unknown, the provider is asked, and the message is sent once', async () => {
     const { clinic, coord, infant, contact } = await family();
-    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
     const [first] = await rowsOf(visit.id);
     await fetch(`http://127.0.0.1:${msg.sms.port}/fail`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ mode: 'timeout', count: 1 }) });
     await makeDue([first.id]);
@@ -148,12 +188,12 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
       return r.status === 'sent' && r;
     }, 20_000, 500);
     expect(done.attempts).toBeGreaterThanOrEqual(2);
-    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(1);
+    expect((await smsTo(contact.mobile!))).toHaveLength(1);
   });
 
   it('when the SMS provider answers 4xx, then the message fails after one attempt and every coordinator gets an e-mail alert', async () => {
     const { clinic, coord, infant } = await family();
-    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
     const [first] = await rowsOf(visit.id);
     await fetch(`http://127.0.0.1:${msg.sms.port}/fail`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ mode: '4xx', count: 1 }) });
     await makeDue([first.id]);
@@ -182,7 +222,7 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
 
   it('when an earlier attempt reached the provider but the worker died before writing "sent", then the next attempt finds it and does not send again', async () => {
     const { clinic, coord, infant, contact } = await family();
-    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
     const [first] = await rowsOf(visit.id);
     await ctx.deps.ds.query(`UPDATE reminders SET send_at = now() WHERE id = $1`, [first.id]);
     // What a crash leaves behind: the provider has the message, the ledger says "sending" since a minute ago.
@@ -191,28 +231,28 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
     await ctx.deps.ds.query(`UPDATE reminders SET status = 'scheduled', provider_id = NULL WHERE id = $1`, [first.id]);
     await ctx.deps.ds.query(`UPDATE deliveries SET state = 'sending', started_at = now() - interval '1 minute' WHERE reminder_id = $1`, [first.id]);
     expect(await msg.delivery.deliver(first.id, { finalAttempt: false })).toBe('recovered');
-    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(1);
+    expect((await smsTo(contact.mobile!))).toHaveLength(1);
   });
 
   it('when the family turned reminders off or has no consent, then the reminder is skipped with the reason, and nothing is sent', async () => {
     const { clinic, coord, infant, contact } = await family();
     await ctx.deps.ds.query(`UPDATE family_contacts SET reminders_enabled = false WHERE infant_id = $1`, [infant.id]);
-    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
     const rows = await rowsOf(visit.id);
     expect(rows.map((r) => [r.status, r.reason])).toEqual([['skipped', 'opted-out'], ['skipped', 'opted-out']]);
     // Consent withdrawn after booking: decided again at send time.
     await ctx.deps.ds.query(`UPDATE family_contacts SET reminders_enabled = true, consent_sms = false, consent_email = false WHERE infant_id = $1`, [infant.id]);
-    const other = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id, { date: future(8) }))).body;
+    const other = await book(coord, infant.id, visitBody(clinic.people.nurse.id, { date: future(8) }));
     const pending = await rowsOf(other.id);
     expect(pending.map((r) => r.reason)).toEqual(['no-consent', 'no-consent']);
-    expect(msg.sms.messages().filter((m) => m.to === contact.mobile!.replace(/ /g, ''))).toHaveLength(0);
+    expect((await smsTo(contact.mobile!))).toHaveLength(0);
   });
 
   it("when the coordinator edits the family's contacts, then a person who stays keeps their reminder switch and their pending reminders", async () => {
     const { clinic, coord, infant, contact } = await family();
-    const visit = (await post(coord, `/api/infants/${infant.id}/visits`, visitBody(clinic.people.nurse.id))).body;
+    const visit = await book(coord, infant.id, visitBody(clinic.people.nurse.id));
     await ctx.deps.ds.query(`UPDATE family_contacts SET reminders_enabled = false WHERE infant_id = $1`, [infant.id]);
-    const second = { ...contact, name: 'Parent Two', relation: 'Father', mobile: '+44 7700 955555', email: 'two@test.example' };
+    const second = { ...contact, name: 'Parent Two', relation: 'Father', mobile: '+44 7700 900955', email: 'two@test.example' };
     await coord.put(`/api/infants/${infant.id}/contacts`).set('X-CSRF-Token', coord.csrf).send({ contacts: [contact, second] }).expect(200);
     const rows: Array<{ id: string; name: string; reminders_enabled: boolean }> = await ctx.deps.ds.query(`SELECT id, name, reminders_enabled FROM family_contacts WHERE infant_id = $1 ORDER BY position`, [infant.id]);
     expect(rows.map((r) => [r.name, r.reminders_enabled])).toEqual([[contact.name, false], ['Parent Two', true]]);

@@ -36,7 +36,8 @@ export function useUrlView<S extends ViewSchema>(schema: S, adjust: (view: z.inf
   const [params, setParams] = useSearchParams();
   const query = useMemo(() => adjust(readUrlView(schema, params)), [params, schema, adjust]);
   const update = useCallback(
-    (patch: Partial<z.infer<S>>) => setParams(writeUrlView(schema, { ...query, ...patch })),
+    // `replace`: a change made while typing (a search box) replaces the history entry instead of adding one per pause.
+    (patch: Partial<z.infer<S>>, opts: { replace?: boolean } = {}) => setParams(writeUrlView(schema, { ...query, ...patch }), { replace: opts.replace }),
     [query, schema, setParams],
   );
   return { query, update };

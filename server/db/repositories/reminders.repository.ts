@@ -132,7 +132,8 @@ export function createRemindersRepository(ds: DataSource) {
       ds.query(`SELECT id, send_at FROM reminders WHERE status = 'scheduled' AND send_at <= now() + ($1 || ' milliseconds')::interval ORDER BY send_at LIMIT $2`, [String(lookAheadMs), limit]),
 
     /** The message log: messages about babies the caller may read, plus the caller programme's staff messages. */
-    async list(query: ListMessagesQuery, programmeId: string, infantAcl: SqlFilter) {
+    /** `qPhone`: the search text read as a phone number (E.164), when it is one, so '07700 900123' finds '+447700900123'. */
+    async list(query: ListMessagesQuery, programmeId: string, infantAcl: SqlFilter, qPhone: string | null = null) {
       const named: Record<string, unknown> = { ...infantAcl.params, programmeId, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
       const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR EXISTS (SELECT 1 FROM infants i WHERE i.id = r.infant_id AND ${infantAcl.sql}))`];
       for (const key of ['status', 'channel', 'template', 'infantId'] as const) {
@@ -140,6 +141,13 @@ export function createRemindersRepository(ds: DataSource) {
           named[key] = query[key];
           where.push(`r.${key === 'infantId' ? 'infant_id' : key} = :${key}`);
         }
+      }
+      if (query.q) {
+        // Matched as plain text: LIKE's own wildcards in what was typed are escaped.
+        named.q = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+        const phone = qPhone ? ` OR r.to_address = :qPhone` : '';
+        if (qPhone) named.qPhone = qPhone;
+        where.push(`((inf.given_name || ' ' || inf.family_name) ILIKE :q OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
       }
       const [sql, params] = ds.driver.escapeQueryWithParameters(
         `SELECT r.*, inf.given_name || ' ' || inf.family_name AS infant_name, count(*) OVER () AS total
@@ -150,7 +158,7 @@ export function createRemindersRepository(ds: DataSource) {
       const rows: Array<ReminderRow & { infant_name: string | null; total: string }> = await ds.query(sql, params);
       if (rows.length || query.page === 1) return { rows, total: rows.length ? Number(rows[0].total) : 0 };
       // A page past the end still reports the real total so the table can step back.
-      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT count(*)::int AS n FROM reminders r WHERE ${where.join(' AND ')}`, named);
+      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT count(*)::int AS n FROM reminders r LEFT JOIN infants inf ON inf.id = r.infant_id WHERE ${where.join(' AND ')}`, named);
       return { rows, total: (await ds.query(countSql, countParams))[0].n as number };
     },
   };

@@ -2,6 +2,7 @@ import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { ListUsersQuery } from '../../../shared/schemas/users';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { UserEntity } from '../entities/user.entity';
+import { DEFAULT_COUNTRY } from '../../../shared/phone/phone';
 
 const SORT_COLUMNS: Record<string, string> = { name: 'u.name', email: 'u.email', role: 'u.role', createdAt: 'u.created_at' };
 export const USER_ACL_COLUMNS = { programmeId: 'u.programme_id', id: 'u.id' };
@@ -9,6 +10,7 @@ export const USER_ACL_COLUMNS = { programmeId: 'u.programme_id', id: 'u.id' };
 export interface UserWithProgramme extends UserEntity {
   programmeName: string;
   programmeTimeZone: string;
+  programmeCountry: string;
 }
 
 export function createUsersRepository(ds: DataSource) {
@@ -24,10 +26,12 @@ export function createUsersRepository(ds: DataSource) {
         .innerJoin('programmes', 'p', 'p.id = u.programme_id')
         .addSelect('p.name', 'programme_name')
         .addSelect('p.time_zone', 'programme_time_zone')
+        .addSelect(`(SELECT pp.settings->>'country' FROM programme_policies pp WHERE pp.programme_id = p.id ORDER BY pp.version DESC LIMIT 1)`, 'programme_country')
         .where('u.id = :id', { id })
         .getRawAndEntities();
       const user = row.entities[0];
-      return user ? Object.assign(user, { programmeName: row.raw[0].programme_name as string, programmeTimeZone: row.raw[0].programme_time_zone as string }) : null;
+      return user ? Object.assign(user, { programmeName: row.raw[0].programme_name as string, programmeTimeZone: row.raw[0].programme_time_zone as string,
+        programmeCountry: (row.raw[0].programme_country as string | null) ?? DEFAULT_COUNTRY }) : null;
     },
 
     findOneWhere: (id: string, acl: SqlFilter, m?: EntityManager) =>

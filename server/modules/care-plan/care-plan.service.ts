@@ -7,6 +7,7 @@ import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
 import { ForbiddenError, NotFoundError } from '../../lib/errors';
 import { todayIn } from '../../lib/dates';
+import { formatPhone } from '../../../shared/phone/phone';
 import { renderCarePlanPdf, type CarePlanData } from './care-plan.pdf';
 
 /** ASCII letters, digits and dashes only, so no name can break out of the Content-Disposition header. */
@@ -61,7 +62,8 @@ export function createCarePlanService(repos: AppRepos) {
           meanMin: infant.diagnoses.includes('pulmonary_hypertension') ? targets.pulmonaryHypertensionMeanMin : targets.overnightMeanMin,
           lowAtOrBelow: targets.spotLowMax,
         },
-        phones: policy.settings.contacts.phones,
+        // In the national form of the programme's country, as families there write numbers.
+        phones: policy.settings.contacts.phones.map((p) => ({ ...p, number: formatPhone(p.number, policy.settings.country) })),
         emergencyNumber: policy.settings.contacts.emergencyNumber,
         family: contacts.map((c) => ({ name: c.name, relation: c.relation })),
         journey: journey && {

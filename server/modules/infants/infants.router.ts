@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { idParamsSchema } from '../../../shared/schemas/common';
-import { enrolInfantSchema, listInfantsQuerySchema, replaceContactsSchema, updateInfantSchema, type ListInfantsQuery } from '../../../shared/schemas/infants';
+import { enrolInfantSchemaFor, listInfantsQuerySchema, replaceContactsSchemaFor, updateInfantSchema, type ListInfantsQuery } from '../../../shared/schemas/infants';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCan, assertCanAny, currentUser } from '../../lib/http';
@@ -18,7 +18,7 @@ export function infantsRouter(service: InfantsService, prescriptions: Prescripti
     res.json(await service.list(req.ability, currentUser(req), req.query as unknown as ListInfantsQuery, today(req)));
   });
 
-  r.post('/', validate({ body: enrolInfantSchema }), async (req, res) => {
+  r.post('/', validate((req) => ({ body: enrolInfantSchemaFor(currentUser(req).programmeCountry) })), async (req, res) => {
     const actor = actorOf(req);
     assertCan(req, 'create', 'Infant', { programmeId: actor.programmeId });
     const out = await service.enrol(req.ability, actor, req.body, today(req));
@@ -35,7 +35,7 @@ export function infantsRouter(service: InfantsService, prescriptions: Prescripti
     res.json(await service.update(req.ability, actorOf(req), String(req.params.id), req.body, today(req)));
   });
 
-  r.put('/:id/contacts', validate({ params: idParamsSchema, body: replaceContactsSchema }), async (req, res) => {
+  r.put('/:id/contacts', validate((req) => ({ params: idParamsSchema, body: replaceContactsSchemaFor(currentUser(req).programmeCountry) })), async (req, res) => {
     assertCanAny(req, 'update', 'Infant');
     res.json(await service.replaceContacts(req.ability, actorOf(req), String(req.params.id), req.body.contacts, today(req)));
   });

@@ -11,7 +11,7 @@ export function messagesRouter(service: MessagesService) {
   router.use(requireUser);
   router.get('/', validate({ query: listMessagesQuerySchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Message');
-    res.json(await service.list(req.ability, currentUser(req).programmeId, req.query as unknown as ListMessagesQuery));
+    res.json(await service.list(req.ability, currentUser(req).programmeId, req.query as unknown as ListMessagesQuery, currentUser(req).programmeCountry));
   });
   router.post('/:id/retry', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'update', 'Message');

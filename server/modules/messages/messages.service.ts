@@ -2,6 +2,7 @@ import type { DataSource } from 'typeorm';
 import { subject } from '@casl/ability';
 import type { AppAbility } from '../../../shared/auth/ability';
 import { SKIP_REASONS, type ListMessagesQuery, type Message, type MessagesPage, type SkipReason } from '../../../shared/schemas/messages';
+import { DEFAULT_COUNTRY, isCountryCode, readPhone } from '../../../shared/phone/phone';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { ReminderRow } from '../../db/repositories/reminders.repository';
@@ -23,8 +24,9 @@ function toDto(r: ReminderRow & { infant_name?: string | null }): Message {
 
 export function createMessagesService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
   return {
-    async list(ability: AppAbility, programmeId: string, query: ListMessagesQuery): Promise<MessagesPage> {
-      const { rows, total } = await repos.reminders.list(query, programmeId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS));
+    async list(ability: AppAbility, programmeId: string, query: ListMessagesQuery, country: string = DEFAULT_COUNTRY): Promise<MessagesPage> {
+      const phone = query.q && isCountryCode(country) ? readPhone(query.q, country, 'any') : null;
+      const { rows, total } = await repos.reminders.list(query, programmeId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), phone?.ok ? phone.e164 : null);
       return { items: rows.map(toDto), total };
     },
 

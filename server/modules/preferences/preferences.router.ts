@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import { updatePreferencesSchema } from '../../../shared/schemas/preferences';
+import { updatePreferencesSchemaFor } from '../../../shared/schemas/preferences';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
-import { actorOf, assertCanAny } from '../../lib/http';
+import { actorOf, assertCanAny, currentUser } from '../../lib/http';
 import type { PreferencesService } from './preferences.service';
 
 export function preferencesRouter(service: PreferencesService) {
@@ -12,7 +12,7 @@ export function preferencesRouter(service: PreferencesService) {
     assertCanAny(req, 'read', 'Preferences');
     res.json({ preferences: await service.get(actorOf(req).id) });
   });
-  router.put('/', validate({ body: updatePreferencesSchema }), async (req, res) => {
+  router.put('/', validate((req) => ({ body: updatePreferencesSchemaFor(currentUser(req).programmeCountry) })), async (req, res) => {
     assertCanAny(req, 'update', 'Preferences');
     res.json({ preferences: await service.update(actorOf(req), req.body) });
   });

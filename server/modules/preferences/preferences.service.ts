@@ -8,10 +8,10 @@ import type { Actor } from '../../lib/http';
 
 const EDITABLE = ['mobile', 'email', 'preferredChannel', 'consentSms', 'consentEmail', 'language', 'remindersEnabled'] as const;
 
-const toDto = (c: FamilyContactEntity): Preferences => ({
+const toDto = (c: FamilyContactEntity, country: string): Preferences => ({
   contactId: c.id, name: c.name, relation: c.relation, mobile: c.mobile, email: c.email, preferredChannel: c.preferredChannel,
   consentSms: c.consentSms, consentEmail: c.consentEmail, language: c.language, remindersEnabled: c.remindersEnabled, timeZone: c.timeZone,
-  rowVersion: c.rowVersion,
+  rowVersion: c.rowVersion, country,
 });
 
 /**
@@ -26,7 +26,7 @@ export function createPreferencesService(ds: DataSource, repos: AppRepos) {
     async get(userId: string): Promise<Preferences> {
       const [first] = await mine(userId);
       if (!first) throw new NotFoundError('There is no family contact record for this account.');
-      return toDto(first);
+      return toDto(first, (await repos.policies.current(first.programmeId)).settings.country);
     },
 
     async update(actor: Actor, input: UpdatePreferencesInput): Promise<Preferences> {
@@ -47,7 +47,14 @@ export function createPreferencesService(ds: DataSource, repos: AppRepos) {
             details: { contactId: c.id, changed, remindersEnabled: input.remindersEnabled, consentSms: input.consentSms, consentEmail: input.consentEmail, preferredChannel: input.preferredChannel, language: input.language },
           }, m);
         }
-        return toDto(rows[0]);
+        // The family's own number, now read (E.164): a flag raised for an unreadable old one is settled for each
+        // baby whose contacts are all readable now.
+        await m.query(
+          `UPDATE infants i SET flags = array_remove(i.flags, 'number_unreadable')
+            WHERE i.id = ANY($1::uuid[]) AND 'number_unreadable' = ANY(i.flags)
+              AND NOT EXISTS (SELECT 1 FROM family_contacts c WHERE c.infant_id = i.id AND c.mobile IS NOT NULL AND c.mobile !~ '^\\+[1-9][0-9]{6,14}$')`,
+          [rows.map((c) => c.infantId)]);
+        return toDto(rows[0], (await repos.policies.current(rows[0].programmeId, m)).settings.country);
       });
     },
   };

@@ -3,6 +3,7 @@ import { PRESCRIPTION_REASON_LABELS, type PrescriptionReason } from '../../../sh
 import { CHECK_KIND_LABELS, type CheckKind } from '../../../shared/schemas/schedule';
 import { MESSAGE_TEMPLATE_LABELS, type MessageTemplate } from '../../../shared/schemas/messages';
 import type { PolicySettings } from '../../../shared/schemas/policy';
+import { formatPhone } from '../../../shared/phone/phone';
 import type { ReminderRow } from '../../db/repositories/reminders.repository';
 
 const KIND_LABELS: Record<string, Record<string, string>> = {
@@ -38,10 +39,12 @@ export async function messageView(ctx: ContentContext, m: EntityManager): Promis
   const { reminder: r, language } = ctx;
   const d = r.data as Record<string, string | boolean | number>;
   const common = {
-    recipientName: r.recipient_name, programmeName: ctx.programmeName, programmePhone: ctx.settings.contacts.phones[0]?.number ?? null,
+    recipientName: r.recipient_name, programmeName: ctx.programmeName, programmePhone: ctx.settings.contacts.phones[0] ? formatPhone(ctx.settings.contacts.phones[0].number, ctx.settings.country) : null,
   };
   const lang = language.split('-')[0];
   switch (r.template as MessageTemplate) {
+    case 'visit-booked':
+    case 'visit-today':
     case 'visit-day-before':
     case 'visit-morning':
     case 'visit-moved':

@@ -1,7 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import { addDays } from '../../../shared/clinical/dates';
 import { chooseChannel } from '../../../shared/reminders/recipient';
-import { changeNoteAt, instantAtOrAfter, journeyReminderAt, localParts, outsideQuietHours, planVisitReminders } from '../../../shared/reminders/timing';
+import { changeNoteAt, instantAtOrAfter, journeyReminderAt, localParts, outsideQuietHours, planBookingNote, planVisitReminders } from '../../../shared/reminders/timing';
 import type { MessageTemplate } from '../../../shared/schemas/messages';
 import type { PolicySettings } from '../../../shared/schemas/policy';
 import type { FamilyContactEntity } from '../../db/entities/family-contact.entity';
@@ -45,8 +45,12 @@ export function createReminderPlanner(repos: AppRepos) {
   }
 
   return {
-    /** The family's day-before and morning reminders for a booked (or moved) visit, one set per contact. */
-    async visitBooked(v: VisitFacts, settings: PolicySettings, m: EntityManager, now = new Date()) {
+    /**
+     * The family's day-before and morning reminders for a booked (or moved) visit, one set per contact; with
+     * `confirm` (a new booking) also the note that it was booked — "today at …" for a visit on the day itself, which
+     * then stands in for that morning's reminder. A move needs none: its own note gives the new time.
+     */
+    async visitBooked(v: VisitFacts, settings: PolicySettings, m: EntityManager, now = new Date(), opts: { confirm?: boolean } = {}) {
       const contacts = await repos.contacts.listForInfant(v.infantId, m);
       const data = await visitData(v, m);
       const rows: NewReminder[] = [];
@@ -54,7 +58,18 @@ export function createReminderPlanner(repos: AppRepos) {
         // Each contact's own wall clock decides when "the day before" and "the morning" are.
         // The visit's date and time on this contact's clock (a relative abroad may be a day ahead or behind).
         const local = c.timeZone === v.timeZone ? { date: v.localDate, time: v.localTime } : localParts(v.startsAt, c.timeZone);
-        for (const p of planVisitReminders({ ...local, timeZone: c.timeZone, startsAt: v.startsAt }, settings.reminders, now)) {
+        const timing = { ...local, timeZone: c.timeZone, startsAt: v.startsAt };
+        const note = opts.confirm ? planBookingNote(timing, settings.reminders, now) : null;
+        if (note) {
+          const row = familyRow(c, note.template, 'change-note', {
+            programmeId: v.programmeId, infantId: v.infantId, visitId: v.id, data, sendAt: note.sendAt, notAfter: note.notAfter,
+            dedupeKey: `visit-${v.id}-v${v.rowVersion}-${note.template}-${c.id}`,
+          });
+          rows.push(note.skip && row.status !== 'skipped' ? { ...row, status: 'skipped', reason: note.skip } : row);
+        }
+        const todayNoteGoes = note?.template === 'visit-today' && !note.skip;
+        for (const p of planVisitReminders(timing, settings.reminders, now)) {
+          if (todayNoteGoes && p.template === 'visit-morning') continue;
           const base = { programmeId: v.programmeId, infantId: v.infantId, visitId: v.id, data, sendAt: p.sendAt, notAfter: p.notAfter,
             dedupeKey: `visit-${v.id}-v${v.rowVersion}-${p.template}-${c.id}` };
           const row = familyRow(c, p.template, 'reminder', base);

@@ -22,6 +22,7 @@ export const toSessionUser = (u: UserWithProgramme): SessionUser => ({
   programmeId: u.programmeId,
   programmeName: u.programmeName,
   programmeTimeZone: u.programmeTimeZone,
+  programmeCountry: u.programmeCountry,
 });
 
 interface Deps {

@@ -11,6 +11,7 @@ import type { AppRepos } from '../../deps';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import type { JobProducer } from '../../jobs/producer';
+import { systemClock, type Clock } from '../../lib/clock';
 import { createReminderPlanner, type VisitFacts } from '../reminders/reminders.planner';
 
 const fields = (i: InfantEntity) => ({ programmeId: i.programmeId, infantId: i.id, nurseId: i.nurseId } as Record<string, unknown>);
@@ -39,7 +40,7 @@ const facts = (v: VisitEntity): VisitFacts => ({
   timeZone: v.timeZone, staffId: v.staffId, purpose: v.purpose, rowVersion: v.rowVersion,
 });
 
-export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
+export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobProducer, clock: Clock = systemClock) {
   const planner = createReminderPlanner(repos);
 
   async function toDto(rows: VisitEntity[]): Promise<Visit[]> {
@@ -68,14 +69,15 @@ export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobPr
       await checkStaff(repos, input.staffId, infant.programmeId);
       const timeZone = await familyTimeZone(repos, infant, actor.timeZone);
       const startsAt = instantOrError(input.date, input.time, timeZone);
-      if (startsAt.getTime() < Date.now() - 3_600_000) throw new ValidationError({ date: ['That time has already passed'] });
+      const now = clock.now();
+      if (startsAt.getTime() < now.getTime() - 3_600_000) throw new ValidationError({ date: ['That time has already passed'] });
       const visit = await ds.transaction(async (m) => {
         const v = await repos.visits.insert({
           programmeId: infant.programmeId, infantId: infant.id, kind: input.kind, startsAt, localDate: input.date, localTime: input.time, timeZone,
           durationMinutes: input.durationMinutes, staffId: input.staffId, purpose: input.purpose, status: 'booked', rowVersion: 1, createdBy: actor.id,
         }, m);
         await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'visit.booked', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { visitId: v.id, date: input.date, time: input.time, kind: input.kind } }, m);
-        const reminders = await planner.visitBooked(facts(v), (await repos.policies.current(infant.programmeId, m)).settings, m);
+        const reminders = await planner.visitBooked(facts(v), (await repos.policies.current(infant.programmeId, m)).settings, m, now, { confirm: true });
         return { v, reminders };
       });
       await jobs.enqueueReminders(visit.reminders);
@@ -101,9 +103,10 @@ export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobPr
         const settings = (await repos.policies.current(infant.programmeId, m)).settings;
         // A new time cancels the old reminders, tells the family and plans new ones; a new purpose or person only
         // re-plans the reminders, which carry both.
+        const now = clock.now();
         const reminders = whenChanged
-          ? await planner.visitChanged(facts(visit), 'visit-moved', settings, m)
-          : (await repos.reminders.cancelForVisit(visit.id, m), await planner.visitBooked(facts(visit), settings, m));
+          ? await planner.visitChanged(facts(visit), 'visit-moved', settings, m, now)
+          : (await repos.reminders.cancelForVisit(visit.id, m), await planner.visitBooked(facts(visit), settings, m, now));
         return { visit, reminders };
       });
       await jobs.enqueueReminders(saved.reminders);
@@ -116,7 +119,7 @@ export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobPr
         Object.assign(visit, { status: 'cancelled', cancelReason: reason, rowVersion: visit.rowVersion + 1 });
         await repos.visits.save(visit, m);
         await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'visit.cancelled', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { visitId: visit.id, date: visit.localDate, time: visit.localTime, reason } }, m);
-        const reminders = await planner.visitChanged(facts(visit), 'visit-cancelled', (await repos.policies.current(infant.programmeId, m)).settings, m);
+        const reminders = await planner.visitChanged(facts(visit), 'visit-cancelled', (await repos.policies.current(infant.programmeId, m)).settings, m, clock.now());
         return { visit, reminders };
       });
       await jobs.enqueueReminders(saved.reminders);
@@ -126,7 +129,7 @@ export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobPr
     async list(ability: AppAbility, infantId: string) {
       const infant = await repos.infants.findVisible(infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS));
       if (!infant || !ability.can('read', subject('Visit', fields(infant)))) throw new NotFoundError('No such baby in your records.');
-      return { items: await toDto(await repos.visits.forInfant(infantId, new Date(Date.now() - 28 * 86_400_000))) };
+      return { items: await toDto(await repos.visits.forInfant(infantId, new Date(clock.now().getTime() - 28 * 86_400_000))) };
     },
   };
 }

@@ -52,6 +52,7 @@ export function sessionUser(role: Role): SessionUser {
     programmeId: PROGRAMME_ID,
     programmeName: "Larkmoor Children's Home Oxygen Service",
     programmeTimeZone: 'Europe/London',
+    programmeCountry: 'GB',
   };
 }
 const ROLE_INDEX: Record<Role, number> = { admin: 1, coordinator: 2, nurse: 3, consultant: 4, family: 5 };

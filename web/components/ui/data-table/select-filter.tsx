@@ -12,12 +12,13 @@ export function SelectFilter<T extends string>({ label, value, options, labels, 
   // Only a listed value passes, so the empty choice (or anything else) clears the filter.
   const pick = (raw: string) => options.find((option) => option === raw);
   return (
-    <label className="flex flex-col gap-1 font-semibold">
+    <label className="flex max-w-full min-w-0 flex-col gap-1 font-semibold">
       {label}
       <select
         value={value ?? ''}
         onChange={(event) => onChange(pick(event.target.value))}
-        className="min-h-11 rounded-lg border border-surface-300 bg-surface-0 px-3 font-normal"
+        // A long option (the message statuses) must not push the page wider than a phone.
+        className="min-h-11 max-w-full rounded-lg border border-surface-300 bg-surface-0 px-3 font-normal"
       >
         <option value="">{anyLabel}</option>
         {options.map((option) => (

@@ -1,6 +1,8 @@
+import { usePhoneText } from '../../../lib/phone-text';
+
 /**
  * A dialler link: only digits and a leading + go into the address, and an international number drops the "(0)"
- * written for callers at home. The number itself is shown as the programme wrote it.
+ * written for callers at home. The number is shown in the national form of the programme's country.
  */
 export function telHref(number: string): string {
   const trimmed = number.trim();
@@ -16,11 +18,12 @@ interface PhoneLinkProps {
   tone?: 'brand' | 'danger';
 }
 
-export function PhoneLink({ number, callWho, tone = 'brand' }: PhoneLinkProps) {
+export function PhoneLink({ number: stored, callWho, tone = 'brand' }: PhoneLinkProps) {
+  const number = usePhoneText()(stored);
   const colours = tone === 'danger' ? 'bg-danger-600 text-white hover:bg-danger-800' : 'bg-brand-600 text-white hover:bg-brand-700';
   return (
     <a
-      href={telHref(number)}
+      href={telHref(stored)}
       aria-label={`${callWho} ${number}`}
       className={`inline-flex min-h-13 max-w-full items-center justify-center gap-2 rounded-xl px-3 text-[clamp(1.0625rem,5.2vw,1.5rem)] font-bold tabular-nums sm:px-5 ${colours}`}
     >

@@ -1,7 +1,8 @@
 import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { replaceContactsSchema, type InfantDetail } from '../../../../shared/schemas/infants';
+import { replaceContactsSchemaFor, type InfantDetail } from '../../../../shared/schemas/infants';
+import { DEFAULT_COUNTRY, formatPhone, isCountryCode, type CountryCode } from '../../../../shared/phone/phone';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { FormActions } from '../../../components/ui/form-actions';
 import { errorMessage, isApiError } from '../../../lib/api-error';
@@ -9,11 +10,12 @@ import { useSignedInUser } from '../../../lib/signed-in-user';
 import { useReplaceContacts } from '../api/update-infant';
 import { ContactFields } from './contact-fields';
 
-type ContactsValues = z.input<typeof replaceContactsSchema>;
+type ContactsSchema = ReturnType<typeof replaceContactsSchemaFor>;
+type ContactsValues = z.input<ContactsSchema>;
 
-function toValues(infant: InfantDetail): ContactsValues {
+function toValues(infant: InfantDetail, country: CountryCode): ContactsValues {
   return {
-    contacts: infant.contacts.map(({ id: _id, mobile, email, ...rest }) => ({ ...rest, mobile: mobile ?? '', email: email ?? '' })),
+    contacts: infant.contacts.map(({ id: _id, mobile, email, ...rest }) => ({ ...rest, mobile: mobile ? formatPhone(mobile, country) : '', email: email ?? '' })),
   };
 }
 
@@ -21,9 +23,10 @@ function toValues(infant: InfantDetail): ContactsValues {
 export function ContactsEditor({ infant, onDone }: { infant: InfantDetail; onDone: () => void }) {
   const user = useSignedInUser();
   const save = useReplaceContacts(infant.id);
-  const form = useForm<ContactsValues, unknown, z.output<typeof replaceContactsSchema>>({
-    resolver: zodResolver(replaceContactsSchema),
-    defaultValues: toValues(infant),
+  const country = isCountryCode(user.programmeCountry) ? user.programmeCountry : DEFAULT_COUNTRY;
+  const form = useForm<ContactsValues, unknown, z.output<ContactsSchema>>({
+    resolver: zodResolver(replaceContactsSchemaFor(country)),
+    defaultValues: toValues(infant, country),
     mode: 'onTouched',
   });
 

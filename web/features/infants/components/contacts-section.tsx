@@ -4,6 +4,7 @@ import type { InfantDetail } from '../../../../shared/schemas/infants';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
+import { usePhoneText } from '../../../lib/phone-text';
 import { ContactsEditor } from './contacts-editor';
 
 type Contact = InfantDetail['contacts'][number];
@@ -14,6 +15,7 @@ function consentWords(contact: Contact): string {
 }
 
 function ContactItem({ contact }: { contact: Contact }) {
+  const phoneText = usePhoneText();
   return (
     <li className="flex flex-col gap-1 rounded-xl border border-surface-200 p-3">
       <p className="font-bold text-ink-900">
@@ -21,7 +23,7 @@ function ContactItem({ contact }: { contact: Contact }) {
       </p>
       <dl className="grid grid-cols-1 gap-x-4 gap-y-0.5 text-sm sm:grid-cols-[10rem_minmax(0,1fr)]">
         <dt className="text-ink-500">Mobile</dt>
-        <dd className="break-all text-ink-900">{contact.mobile ?? '—'}</dd>
+        <dd className="break-all text-ink-900">{contact.mobile ? phoneText(contact.mobile) : '—'}</dd>
         <dt className="text-ink-500">E-mail</dt>
         <dd className="break-all text-ink-900">{contact.email ?? '—'}</dd>
         <dt className="text-ink-500">Prefers</dt>

@@ -1,8 +1,8 @@
 import type { DefaultValues } from 'react-hook-form';
 import type { z } from 'zod';
-import type { enrolInfantSchema } from '../../../../shared/schemas/infants';
+import type { enrolInfantSchemaFor } from '../../../../shared/schemas/infants';
 
-export type EnrolValues = z.input<typeof enrolInfantSchema>;
+export type EnrolValues = z.input<ReturnType<typeof enrolInfantSchemaFor>>;
 export type ContactValues = EnrolValues['contacts'][number];
 
 export const ENROL_STEPS = [

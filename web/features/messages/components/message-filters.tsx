@@ -1,3 +1,4 @@
+import { useCallback } from 'react';
 import {
   CHANNELS,
   MESSAGE_STATUSES,
@@ -8,15 +9,18 @@ import {
 import { Button } from '../../../components/ui/button';
 import { SelectFilter } from '../../../components/ui/data-table/select-filter';
 import { CHANNEL_LABELS, MESSAGE_STATUS_LABELS } from './message-format';
+import { MessageSearch } from './message-search';
 
 interface MessageFiltersProps {
   query: ListMessagesQuery;
-  update: (patch: Partial<ListMessagesQuery>) => void;
+  update: (patch: Partial<ListMessagesQuery>, opts?: { replace?: boolean }) => void;
 }
 
 export function MessageFilters({ query, update }: MessageFiltersProps) {
+  const onSearch = useCallback((q: string | undefined, typing: boolean) => update({ q, page: 1 }, { replace: typing }), [update]);
   return (
     <div className="flex flex-col gap-3">
+      <MessageSearch value={query.q} onSearch={onSearch} />
       <div className="flex flex-wrap items-end gap-3">
         <SelectFilter label="Status" value={query.status} options={MESSAGE_STATUSES} labels={MESSAGE_STATUS_LABELS}
           anyLabel="Any status" onChange={(status) => update({ status, page: 1 })} />

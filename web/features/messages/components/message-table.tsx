@@ -16,7 +16,7 @@ export function MessageTable() {
   const messages = useMessages(query);
   const table = useServerTable({ columns: messageColumns, result: messages.data, view: query, update, sort: messageSort });
 
-  const filtered = Boolean(query.status || query.channel || query.template || query.infantId);
+  const filtered = Boolean(query.status || query.channel || query.template || query.infantId || query.q);
   return (
     <div className="flex flex-col gap-4">
       <MessageFilters query={query} update={update} />
@@ -27,10 +27,10 @@ export function MessageTable() {
       ) : (
         <>
           <p className="text-sm text-ink-500 md:hidden">Swipe the table sideways to see every column.</p>
-          <TableFrame table={table} caption={`Messages, ${messages.data.total} in all`} minWidth="min-w-[72rem]"
+          <TableFrame table={table} caption={`Messages, ${messages.data.total} in all`} minWidth="min-w-[50rem]"
             busy={messages.isPlaceholderData} compact />
           {messages.data.items.length === 0 && (
-            <EmptyState message={filtered ? 'No message matches these filters.' : 'No messages yet: reminders show here as soon as they are planned.'} />
+            <EmptyState message={filtered ? 'No message matches this search and these filters.' : 'No messages yet: reminders show here as soon as they are planned.'} />
           )}
           <Pager table={table} total={messages.data.total} noun={{ one: 'message', other: 'messages' }} />
         </>

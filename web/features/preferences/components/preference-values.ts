@@ -1,8 +1,9 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { FieldErrors, Resolver } from 'react-hook-form';
+import { formatPhone, isCountryCode } from '../../../../shared/phone/phone';
 import {
   MESSAGE_LANGUAGES,
-  updatePreferencesSchema,
+  updatePreferencesSchemaFor,
   type Preferences,
   type UpdatePreferencesInput,
 } from '../../../../shared/schemas/preferences';
@@ -25,7 +26,7 @@ export const CHANNEL_WORDS = { sms: 'Text message', email: 'E-mail' } as const;
 export function toFormValues(preferences: Preferences): PreferencesFormValues {
   return {
     rowVersion: preferences.rowVersion,
-    mobile: preferences.mobile ?? '',
+    mobile: preferences.mobile ? formatPhone(preferences.mobile, isCountryCode(preferences.country) ? preferences.country : 'GB') : '',
     email: preferences.email ?? '',
     preferredChannel: preferences.preferredChannel,
     consentSms: preferences.consentSms,
@@ -38,10 +39,12 @@ export function toFormValues(preferences: Preferences): PreferencesFormValues {
 /** An emptied box means "I have none", which the contract spells null. */
 const blankToNull = (text: string) => (text.trim() === '' ? null : text);
 
-const shared = zodResolver(updatePreferencesSchema);
-
-/** Validates with the server's own schema, so "text messages need a mobile number" is caught before sending. */
-export const preferencesResolver: Resolver<PreferencesFormValues, unknown, UpdatePreferencesInput> = async (values, context, options) => {
+/**
+ * Validates with the server's own schema for the programme's country, so "text messages need a mobile number" and
+ * "this number cannot receive texts" are caught before sending.
+ */
+export const preferencesResolver = (country: string): Resolver<PreferencesFormValues, unknown, UpdatePreferencesInput> => async (values, context, options) => {
+  const shared = zodResolver(updatePreferencesSchemaFor(country));
   const candidate = { ...values, mobile: blankToNull(values.mobile), email: blankToNull(values.email) };
   const result = await shared(candidate, context, options as never);
   if (Object.keys(result.errors).length === 0) return { values: result.values as UpdatePreferencesInput, errors: {} };

@@ -24,7 +24,7 @@ export function PreferencesForm({ preferences, onSaved }: { preferences: Prefere
   const update = useUpdatePreferences(onSaved);
   const [conflict, setConflict] = useState(false);
   const form = useForm<PreferencesFormValues, unknown, UpdatePreferencesInput>({
-    resolver: preferencesResolver,
+    resolver: preferencesResolver(preferences.country),
     defaultValues: toFormValues(preferences),
   });
   const { register, formState: { errors, submitCount }, setError } = form;

@@ -1,3 +1,4 @@
+import { DEFAULT_COUNTRY, formatPhone, isCountryCode } from '../../../../shared/phone/phone';
 import type { Preferences } from '../../../../shared/schemas/preferences';
 import { CHANNEL_WORDS, languageLabel } from './preference-values';
 import { REMINDERS_OFF_WORDS } from './reminders-switch';
@@ -13,7 +14,7 @@ function agreedText({ consentSms, consentEmail }: Preferences): string {
 export function PreferencesSummary({ preferences }: { preferences: Preferences }) {
   const rows: [string, string][] = [
     ['Visit reminders', preferences.remindersEnabled ? 'On' : `Off. ${REMINDERS_OFF_WORDS}`],
-    ['Mobile number', preferences.mobile ?? 'Not given'],
+    ['Mobile number', preferences.mobile ? formatPhone(preferences.mobile, isCountryCode(preferences.country) ? preferences.country : DEFAULT_COUNTRY) : 'Not given'],
     ['E-mail address', preferences.email ?? 'Not given'],
     ['Best way to reach you', CHANNEL_WORDS[preferences.preferredChannel]],
     ['You agree to get', agreedText(preferences)],
