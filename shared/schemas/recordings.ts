@@ -14,6 +14,7 @@ export const RECORDING_STATUS_LABELS: Record<RecordingStatus, string> = {
 /** Error codes an upload can answer with, beyond the common ones (validation_failed, not_found, forbidden…). */
 export const RECORDING_UPLOAD_ERRORS = [
   'not_multipart', 'no_file', 'bad_form', 'too_large', 'empty_file', 'not_csv', 'malformed_csv', 'wrong_columns', 'unreadable_rows', 'too_short', 'too_long',
+  'date_order_unclear', 'clock_change',
 ] as const;
 export type RecordingUploadError = (typeof RECORDING_UPLOAD_ERRORS)[number];
 
@@ -26,7 +27,7 @@ export const recordingUploadFieldsSchema = z
     spo2Column: columnName.optional(),
     pulseColumn: columnName.optional(),
     statusColumn: columnName.optional(),
-    timeFormat: z.enum(RECORDING_TIME_FORMATS, { error: 'Choose iso, seconds or auto' }).default('auto'),
+    timeFormat: z.enum(RECORDING_TIME_FORMATS, { error: 'Choose iso, seconds, local or auto' }).default('auto'),
   })
   .superRefine((f, ctx) => {
     const chosen = (['timestampColumn', 'spo2Column', 'pulseColumn', 'statusColumn'] as const).filter((k) => f[k] !== undefined);
