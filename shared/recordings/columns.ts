@@ -32,7 +32,7 @@ const ROLES: ColumnRole[] = ['timestamp', 'spo2', 'pulse', 'status'];
 const DATE_TIME_ROLES: AnyRole[] = ['date', 'time', 'spo2', 'pulse', 'status'];
 const key = (name: string) => name.trim().toLowerCase();
 // The header list goes back to the web for a mapping step; a hostile header must not make the answer huge.
-const shownHeaders = (header: readonly string[]) => header.slice(0, 50).map((h) => (h.length > 60 ? `${h.slice(0, 60)}…` : h));
+export const shownHeaders = (header: readonly string[]) => header.slice(0, 50).map((h) => (h.length > 60 ? `${h.slice(0, 60)}…` : h));
 
 export const hasMapping = (m?: ColumnMapping) =>
   !!m && [m.timestampColumn, m.dateColumn, m.timeColumn, m.spo2Column, m.pulseColumn, m.statusColumn].some((v) => v !== undefined);

@@ -1,5 +1,5 @@
 import { DEFAULT_ARTEFACT_RULES, medianSamplePeriodSec, orderSamples, type OximetrySample } from '../clinical/oximetry-samples';
-import { resolveColumns, type ColumnMapping, type ResolvedColumns } from './columns';
+import { resolveColumns, shownHeaders, type ColumnMapping, type ResolvedColumns } from './columns';
 import { sniffLayout } from './csv-layout';
 import { createCsvTokenizer, type CsvTokenizer } from './csv-tokenizer';
 import { RECORDING_LIMITS, type RecordingTimeFormat } from './limits';
@@ -28,7 +28,7 @@ export interface ParsedRecording {
   durationSec: number;
   dataRows: number;
   skippedRows: number;
-  /** The row of column names as found (at most 50, each cut to 60 characters): the key a mapping is kept under. */
+  /** The row of column names as a refusal lists them (columns.ts): the key a mapping used for it is kept under. */
   header: string[];
 }
 
@@ -84,7 +84,7 @@ export function createRecordingParser(options: RecordingParseOptions = {}) {
       const resolved = resolveColumns(fields, options.columns);
       if (resolved.ok) {
         columns = resolved.columns;
-        header = fields.slice(0, 50).map((h) => h.trim().slice(0, 60));
+        header = shownHeaders(fields);
         if (columns.timestamp === null) format = 'local';
         return null;
       }
