@@ -129,10 +129,8 @@ export function createRecordingParser(options: RecordingParseOptions = {}) {
 
   function localTimes(): RecordingProblem | null {
     const outcome = localRowsToInstants(local, { dateOrder: options.dateOrder, timeZone: options.timeZone ?? 'UTC' });
-    if (!outcome.ok) {
-      const details = outcome.code === 'date_order_unclear' ? { found: header } : undefined;
-      return { code: outcome.code, message: outcome.message, line: outcome.line, ...(details && { details }) };
-    }
+    // The headers go back too: both are settled in the matching step (a date order, the clock's time zone).
+    if (!outcome.ok) return { code: outcome.code, message: outcome.message, line: outcome.line, details: { found: header } };
     unreadable += outcome.bad.length;
     badLines.push(...outcome.bad.slice(0, MAX_LISTED_LINES));
     badLines.sort((a, b) => a.line - b.line);

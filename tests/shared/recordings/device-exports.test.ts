@@ -47,7 +47,7 @@ describe('device exports with local date and time columns', () => {
     const text = deviceExport({ startUtc: '2026-10-24T21:00:00Z', hours: 8, periodSec: 60, clockZone: 'Etc/GMT-1', preamble: DEVICE_PREAMBLE });
     const p = problem(parseRecordingCsv(text, london));
     // 22:00 → 01:00 is 180 rows after the header on line 5.
-    expect(p).toMatchObject({ code: 'clock_change', line: 186 });
+    expect(p).toMatchObject({ code: 'clock_change', line: 186, details: { found: ['Date', 'Time', 'SpO2', 'Pulse'] } });
     expect(p.message).toBe(
       'Line 186: 25/10/2026 01:00:00 happens twice on this night in Europe/London (the clocks went back an hour), and the file does not show which of the two it is. ' +
         'If the oximeter’s clock does not change for summer time, choose the time zone it keeps (for example UTC) and upload again.',
