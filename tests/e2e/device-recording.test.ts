@@ -3,6 +3,7 @@ import type { Page } from 'playwright-core';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { axeReport, seriousViolations } from '../helpers/a11y';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 import { DEVICE_PREAMBLE, deviceExport, type DeviceNight } from '../fixtures/recordings/device-export';
 
@@ -54,8 +55,10 @@ describe('an oximeter’s own export across a clock change', () => {
     await alert.getByText(/^Line 1086: 25\/10\/2026 01:00:00 happens twice on this night in Europe\/London \(the clocks went back an hour\)/).waitFor();
     expect(await alert.textContent()).toContain('choose the time zone it keeps (for example UTC) and upload again');
     await screenshot(page, 'device-upload-clock-went-back');
+    expect(axeReport(await seriousViolations(page))).toBe('');
     await page.setViewportSize({ width: 390, height: 844 });
     await screenshot(page, 'device-upload-clock-went-back-phone');
+    expect(axeReport(await seriousViolations(page))).toBe('');
     await page.setViewportSize({ width: 1366, height: 860 });
 
     // 2. A device that followed the change writes the hour twice; the order of rows places each pass: 9 hours.
