@@ -11,6 +11,7 @@ import { createSitesRepository } from './db/repositories/sites.repository';
 import { createPoliciesRepository } from './db/repositories/policies.repository';
 import { createInfantsRepository } from './db/repositories/infants.repository';
 import { createContactsRepository } from './db/repositories/contacts.repository';
+import { createColumnMappingsRepository } from './db/repositories/column-mappings.repository';
 import { createPrescriptionsRepository } from './db/repositories/prescriptions.repository';
 import { createJobProducer, type JobProducer } from './jobs/producer';
 import { createChecksRepository } from './db/repositories/checks.repository';
@@ -55,6 +56,7 @@ export function createRepos(ds: DataSource) {
     readings: createReadingsRepository(ds),
     visits: createVisitsRepository(ds),
     recordings: createRecordingsRepository(ds),
+    columnMappings: createColumnMappingsRepository(ds),
     journeys: createJourneysRepository(ds),
     reminders: createRemindersRepository(ds),
     accountTokens: createAccountTokensRepository(ds),

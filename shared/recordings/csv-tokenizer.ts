@@ -1,5 +1,6 @@
 /**
- * A strict, incremental CSV reader (RFC 4180 quoting, comma-separated, LF, CRLF or CR line ends).
+ * A strict, incremental CSV reader (RFC 4180 quoting, comma-, semicolon- or tab-separated, LF, CRLF or CR line
+ * ends).
  *
  * Why our own and not csv-parse: shared/ also runs in the browser, and csv-parse needs Node's Buffer; and a
  * 43,200-row overnight file must parse well inside docs/service-targets.md P4 (csv-parse alone took ~100 ms for one night,
@@ -24,7 +25,14 @@ export interface CsvTokenizer {
   finish(): CsvProblem | null;
 }
 
-const COMMA = 44;
+export interface CsvTokenizerOptions {
+  /** The field separator (csv-layout.ts finds it); a comma unless told. */
+  separator?: ',' | ';' | '\t';
+  /** The file line the text starts on, when lines before it were skipped. */
+  firstLine?: number;
+}
+
+const SEPARATOR_WORDS = { ',': 'a comma', ';': 'a semicolon', '\t': 'a tab' } as const;
 const QUOTE = 34;
 const LF = 10;
 const CR = 13;
@@ -40,11 +48,13 @@ const enum State {
   AfterCr,
 }
 
-export function createCsvTokenizer(onRecord: CsvRecordHandler): CsvTokenizer {
+export function createCsvTokenizer(onRecord: CsvRecordHandler, options: CsvTokenizerOptions = {}): CsvTokenizer {
+  const separator = options.separator ?? ',';
+  const SEP = separator.charCodeAt(0);
   let state: State = State.FieldStart;
-  let line = 1;
-  let recordLine = 1;
-  let quoteLine = 1;
+  let line = options.firstLine ?? 1;
+  let recordLine = line;
+  let quoteLine = line;
   let fields: string[] = [];
   let field = '';
   let fieldQuoted = false;
@@ -114,7 +124,7 @@ export function createCsvTokenizer(onRecord: CsvRecordHandler): CsvTokenizer {
           i += 1;
           continue;
         }
-        if (c !== COMMA && c !== LF && c !== CR) return fail(line, `Line ${line}: only a comma or a line end may follow a closing quote.`);
+        if (c !== SEP && c !== LF && c !== CR) return fail(line, `Line ${line}: only ${SEPARATOR_WORDS[separator]} or a line end may follow a closing quote.`);
         state = State.Unquoted;
       } else if (state === State.AfterCr) {
         state = State.FieldStart;
@@ -123,7 +133,7 @@ export function createCsvTokenizer(onRecord: CsvRecordHandler): CsvTokenizer {
           continue;
         }
       }
-      if (c === COMMA) {
+      if (c === SEP) {
         fields.push(field);
         field = '';
         fieldQuoted = false;
@@ -146,7 +156,7 @@ export function createCsvTokenizer(onRecord: CsvRecordHandler): CsvTokenizer {
         // Stryker disable next-line EqualityOperator: `<=` reads NaN past the end, `>=` scans a character a pass: same value
         for (; j < n; j += 1) {
           const d = chunk.charCodeAt(j);
-          if (d === COMMA || d === LF || d === CR || d === QUOTE) break;
+          if (d === SEP || d === LF || d === CR || d === QUOTE) break;
         }
         field += chunk.slice(i, j);
         state = State.Unquoted;

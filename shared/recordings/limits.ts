@@ -10,5 +10,6 @@ export const RECORDING_LIMITS = Object.freeze({
   unreadableRowShare: 0.01,
 });
 
-export const RECORDING_TIME_FORMATS = ['iso', 'seconds', 'auto'] as const;
+/** `local`: a date and clock time in the device's time zone, without an offset. */
+export const RECORDING_TIME_FORMATS = ['iso', 'seconds', 'local', 'auto'] as const;
 export type RecordingTimeFormat = (typeof RECORDING_TIME_FORMATS)[number];

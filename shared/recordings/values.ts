@@ -10,8 +10,10 @@ export const MAX_VALUE_STEPS = 0xfffd;
 
 export type Cell<T> = { ok: true; value: T } | { ok: false; reason: string };
 
-const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)$/;
-const SECONDS = /^\+?(?:\d+(?:\.\d*)?|\.\d+)$/;
+// A decimal point or a decimal comma (exports with `;` between values write 97,5).
+const DECIMAL = /^[+-]?(?:\d+(?:[.,]\d*)?|[.,]\d+)$/;
+const SECONDS = /^\+?(?:\d+(?:[.,]\d*)?|[.,]\d+)$/;
+const asNumber = (text: string) => Number(text.replace(',', '.'));
 const ISO_WITHOUT_OFFSET = /^\d{4}-\d{2}-\d{2}[Tt ]\d{2}:\d{2}(?::\d{2}(?:[.,]\d+)?)?$/;
 const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
@@ -98,7 +100,7 @@ export function parseIsoMs(raw: string): Cell<number> {
 export function parseSecondsMs(raw: string): Cell<number> {
   const text = raw.trim();
   if (!SECONDS.test(text)) return { ok: false, reason: `time "${shown(text)}" is not a number of seconds` };
-  const value = Math.round(Number(text) * 1000);
+  const value = Math.round(asNumber(text) * 1000);
   if (!Number.isSafeInteger(value)) return { ok: false, reason: `time "${shown(text)}" is too large` };
   return { ok: true, value };
 }
@@ -113,7 +115,7 @@ export function parseValue(raw: string, column: string): Cell<number | null> {
   const text = raw.trim();
   if (text === '') return { ok: true, value: null };
   if (!DECIMAL.test(text)) return { ok: false, reason: `${column} "${shown(text)}" is not a number` };
-  const steps = Math.round(Number(text) * VALUE_STEPS_PER_UNIT);
+  const steps = Math.round(asNumber(text) * VALUE_STEPS_PER_UNIT);
   if (!(steps >= 0 && steps <= MAX_VALUE_STEPS)) return { ok: true, value: Number.NaN };
   // "+ 0" turns a "-0" cell into 0, so the value equals what the store gives back.
   return { ok: true, value: steps / VALUE_STEPS_PER_UNIT + 0 };

@@ -8,6 +8,7 @@ import { Journeys1765152000000 } from './1765152000000-Journeys';
 import { StudyJudgement1765238400000 } from './1765238400000-StudyJudgement';
 import { MessageOutcomeUnknown1765324800000 } from './1765324800000-MessageOutcomeUnknown';
 import { AccountSetupAndReadingVersions1765411200000 } from './1765411200000-AccountSetupAndReadingVersions';
+import { RecordingColumnMappings1765497600000 } from './1765497600000-RecordingColumnMappings';
 import { PhoneNumbersE1641765584000000 } from './1765584000000-PhoneNumbersE164';
 import { OverviewIndexes1765670400000 } from './1765670400000-OverviewIndexes';
 import { ListIndexes1765929600000 } from './1765929600000-ListIndexes';
@@ -15,6 +16,7 @@ import { ListIndexes1765929600000 } from './1765929600000-ListIndexes';
 export const MIGRATIONS = [
   Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000, Visits1764979200000, Reminders1765065600000,
   Journeys1765152000000, StudyJudgement1765238400000, MessageOutcomeUnknown1765324800000, AccountSetupAndReadingVersions1765411200000,
+  RecordingColumnMappings1765497600000,
   PhoneNumbersE1641765584000000,
   OverviewIndexes1765670400000,
   ListIndexes1765929600000,

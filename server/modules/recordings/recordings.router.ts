@@ -1,7 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { idParamsSchema } from '../../../shared/schemas/common';
-import { listRecordingsQuerySchema, recordingUploadFieldsSchema } from '../../../shared/schemas/recordings';
+import { listRecordingsQuerySchema, recordingUploadFieldsSchema, savedMappingQuerySchema } from '../../../shared/schemas/recordings';
 import { RECORDING_LIMITS } from '../../../shared/recordings/limits';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
@@ -13,7 +13,7 @@ import { uploadErrorFrom, UploadRejectedError } from './upload-errors';
 // parsed and checked whole before anything is written, and only the compact samples are kept.
 const upload = multer({
   storage: multer.memoryStorage(),
-  limits: { fileSize: RECORDING_LIMITS.maxFileBytes, files: 1, fields: 8, parts: 9, fieldNameSize: 100, fieldSize: 1024, headerPairs: 50 },
+  limits: { fileSize: RECORDING_LIMITS.maxFileBytes, files: 1, fields: 12, parts: 13, fieldNameSize: 100, fieldSize: 1024, headerPairs: 50 },
 }).single('file');
 
 const receiveFile: RequestHandler = (req, res, next) => {
@@ -39,6 +39,13 @@ export function infantRecordingsRouter(service: RecordingsService): Router {
   r.post('/:id/recordings', requireUser, validate({ params: idParamsSchema }), mayUpload, receiveFile, validate({ body: recordingUploadFieldsSchema }), async (req, res) => {
     const out = await service.upload(req.ability, actorOf(req), String(req.params.id), req.file!, req.body);
     res.status(out.created ? 202 : 200).json({ id: out.id });
+  });
+
+  // The headers as the wrong_columns answer listed them, one per line.
+  r.get('/:id/recordings/saved-mapping', requireUser, validate({ params: idParamsSchema, query: savedMappingQuerySchema }), async (req, res) => {
+    assertCanAny(req, 'create', 'Recording');
+    const { headers } = req.query as unknown as { headers: string };
+    res.json(await service.savedMapping(req.ability, String(req.params.id), headers.split('\n')));
   });
 
   r.get('/:id/recordings', requireUser, validate({ params: idParamsSchema, query: listRecordingsQuerySchema }), async (req, res) => {

@@ -11,7 +11,7 @@ import type { JobProducer } from '../../jobs/producer';
 import { NotFoundError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { toRecordingDto, toTraceDto } from './recordings.mapper';
-import { storeUpload, type UploadedFile } from './upload';
+import { infantForUpload, storeUpload, type UploadedFile } from './upload';
 
 export function createRecordingsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
   const acl = (ability: AppAbility) => accessibleWhere(ability, 'read', 'Recording', RECORDING_ACL_COLUMNS);
@@ -30,6 +30,12 @@ export function createRecordingsService(ds: DataSource, repos: AppRepos, jobs: J
     },
 
     get: async (ability: AppAbility, id: string) => toRecordingDto(await visible(ability, id)),
+
+    /** Only someone who may upload for this baby sees the programme's saved mappings. */
+    async savedMapping(ability: AppAbility, infantId: string, headers: string[]) {
+      const infant = await infantForUpload(repos, ability, infantId);
+      return { mapping: await repos.columnMappings.find(infant.programmeId, headers) };
+    },
 
     async trace(ability: AppAbility, id: string) {
       const recording = await visible(ability, id);

@@ -69,3 +69,34 @@ describe('finding the recording columns', () => {
     expect(resolveColumns(['x'.repeat(60)]).ok || (resolveColumns(['x'.repeat(60)]) as { found: string[] }).found[0]).toBe('x'.repeat(60));
   });
 });
+
+describe('finding a date column and a time column', () => {
+  it('when both are named, then the timestamp is null and each value has its own column', () => {
+    expect(resolveColumns(['Datum', 'Uhrzeit', 'SpO2', 'Puls'], { dateColumn: 'datum', timeColumn: 'UHRZEIT', spo2Column: 'SpO2', pulseColumn: 'Puls' })).toEqual({
+      ok: true, columns: { timestamp: null, date: 0, time: 1, spo2: 2, pulse: 3, status: null },
+    });
+  });
+
+  it('when a date and time mapping is given, then an own "timestamp" column is not needed and not used', () => {
+    expect(resolveColumns(['timestamp', 'Date', 'Time', 'spo2', 'status'], { dateColumn: 'Date', timeColumn: 'Time' })).toEqual({
+      ok: true, columns: { timestamp: null, date: 1, time: 2, spo2: 3, pulse: null, status: 4 },
+    });
+  });
+
+  it('when one of the pair is left out, then the other is missing by its field name', () => {
+    expect(resolveColumns(['Date', 'SpO2'], { dateColumn: 'Date', spo2Column: 'SpO2' })).toMatchObject({ ok: false, missing: ['timeColumn'] });
+    expect(resolveColumns(['Time', 'SpO2'], { timeColumn: 'Time', spo2Column: 'SpO2' })).toMatchObject({ ok: false, missing: ['dateColumn'] });
+  });
+
+  it('when the date column is also chosen as the time, then the file is refused rather than read twice', () => {
+    const outcome = resolveColumns(['Date', 'SpO2'], { dateColumn: 'Date', timeColumn: 'date', spo2Column: 'SpO2' });
+    expect(outcome).toMatchObject({ ok: false, missing: [] });
+    if (!outcome.ok) expect(outcome.message).toBe('The columns cannot be read: one column is chosen for two different values. Columns found: "Date", "SpO2".');
+  });
+
+  it('when only a date or time column is given, then it counts as a mapping', () => {
+    expect(hasMapping({ dateColumn: 'Date' })).toBe(true);
+    expect(hasMapping({ timeColumn: 'Time' })).toBe(true);
+    expect(hasMapping({ timestampColumn: 'Stamp' })).toBe(true);
+  });
+});

@@ -148,3 +148,33 @@ describe('CSV reader: line numbers inside quoted values', () => {
   });
 });
 
+
+describe('CSV reader: other separators and a later first line', () => {
+  const read = (text: string, options: Parameters<typeof createCsvTokenizer>[1]) => {
+    const records: Array<[string[], number]> = [];
+    const tokenizer = createCsvTokenizer((fields, line) => {
+      records.push([fields, line]);
+    }, options);
+    const problem = tokenizer.push(text) ?? tokenizer.finish();
+    return { records, problem };
+  };
+
+  it('when the separator is a semicolon or a tab, then commas stay inside values and lines count from the first line given', () => {
+    expect(read('a;b\n"1;2";97,5\n', { separator: ';', firstLine: 5 }).records).toEqual([[['a', 'b'], 5], [['1;2', '97,5'], 6]]);
+    expect(read('a\tb\n1,5\t2\n', { separator: '\t' }).records).toEqual([[['a', 'b'], 1], [['1,5', '2'], 2]]);
+  });
+
+  it('when text follows a closing quote, then the message names the separator in use and the file line', () => {
+    expect(read('a;b\n"x"y;1\n', { separator: ';', firstLine: 3 }).problem).toEqual({ line: 4, message: 'Line 4: only a semicolon or a line end may follow a closing quote.' });
+    expect(read('a\tb\n"x"y\t1\n', { separator: '\t' }).problem).toEqual({ line: 2, message: 'Line 2: only a tab or a line end may follow a closing quote.' });
+    expect(read('a,b\n"x"y,1\n', {}).problem).toEqual({ line: 2, message: 'Line 2: only a comma or a line end may follow a closing quote.' });
+  });
+
+  it('when a row is short after skipped lines, then the file line is named', () => {
+    expect(read('a;b\n1\n', { separator: ';', firstLine: 4 }).problem).toEqual({ line: 5, message: 'Line 5 has 1 values but the header has 2.' });
+  });
+
+  it('when a quoted value is never closed after skipped lines, then the line where it opened is named', () => {
+    expect(read('a;b\n"1;2\n', { separator: ';', firstLine: 3 }).problem).toEqual({ line: 4, message: 'Line 4: a quoted value is never closed.' });
+  });
+});

@@ -53,8 +53,8 @@ describe('recording files: our own format', () => {
 });
 
 describe('recording files: refusals', () => {
-  it('when a timestamp has no offset, then the reason says so and names the line', () => {
-    const p = problem(parseRecordingCsv(rows(60, (i) => `2026-11-20T21:00:${String(i).padStart(2, '0')},97,140`)));
+  it('when "iso" is chosen and a timestamp has no offset, then the reason says so and names the line', () => {
+    const p = problem(parseRecordingCsv(rows(60, (i) => `2026-11-20T21:00:${String(i).padStart(2, '0')},97,140`), { timeFormat: 'iso' }));
     expect(p).toMatchObject({ code: 'unreadable_rows', line: 2 });
     expect(p.message).toMatch(/60 of 60 rows could not be read.*line 2: timestamp "2026-11-20T21:00:00" has no time-zone offset/);
   });

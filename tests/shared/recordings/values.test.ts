@@ -174,7 +174,13 @@ describe('reading SpO2 and pulse cells', () => {
 
   it('when a cell is not a number, then the reason names the column and the cell', () => {
     expect(parseValue('ninety', 'SpO2')).toEqual({ ok: false, reason: 'SpO2 "ninety" is not a number' });
-    expect(parseValue('97,5', 'pulse')).toEqual({ ok: false, reason: 'pulse "97,5" is not a number' });
+    expect(parseValue('9,7,5', 'pulse')).toEqual({ ok: false, reason: 'pulse "9,7,5" is not a number' });
+  });
+
+  it('when a value uses a decimal comma, as exports separated by semicolons do, then it reads as the decimal point would', () => {
+    expect(parseValue('97,5', 'SpO2')).toEqual({ ok: true, value: 97.5 });
+    expect(parseValue(',5', 'SpO2')).toEqual({ ok: true, value: 0.5 });
+    expect(parseSecondsMs('1,25')).toEqual({ ok: true, value: 1250 });
   });
 });
 

@@ -47,7 +47,7 @@ export function Component() {
       <PageHeader title={`Upload an overnight recording: ${baby.name}`} intro={`Corrected age ${baby.correctedAge}`} actions={<BackToRecordLink infantId={baby.id} />} />
       <div className="max-w-2xl">
         <Card>
-          <RecordingUpload infantId={baby.id} onUploaded={onUploaded} />
+          <RecordingUpload infantId={baby.id} familyTimeZone={baby.contacts[0]?.timeZone ?? user.programmeTimeZone} onUploaded={onUploaded} />
         </Card>
       </div>
     </>

@@ -6,4 +6,5 @@ export const recordingKeys = {
   details: () => [...recordingKeys.all, 'detail'] as const,
   detail: (id: string) => [...recordingKeys.details(), id] as const,
   trace: (id: string) => [...recordingKeys.detail(id), 'trace'] as const,
+  savedMapping: (infantId: string, found: readonly string[]) => [...recordingKeys.all, 'saved-mapping', infantId, [...found]] as const,
 };

@@ -1,41 +1,51 @@
-import { useForm } from 'react-hook-form';
+import { useRef, useState } from 'react';
+import { useForm, type Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { recordingUploadFieldsSchema, type RecordingUploadFields } from '../../../../shared/schemas/recordings';
+import { recordingUploadFieldsSchema, type RecordingUploadFields, type SavedMapping } from '../../../../shared/schemas/recordings';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/field';
+import { Choice, ChoiceGroup } from '../../infants/components/choice-fields';
 import { guessColumns } from './column-guess';
+import { blankIsNone, readable } from './column-labels';
+import { ClockFields, type TimeLayout } from './column-time-fields';
 
 // The shared contract lets a role fall back to our own header name; here the file has none of ours, so the time
-// and SpO2 columns must be chosen.
-const mappingSchema = recordingUploadFieldsSchema.superRefine((fields, ctx) => {
+// (one column, or a date and a time column) and SpO2 must be chosen.
+const oneColumn = recordingUploadFieldsSchema.superRefine((fields, ctx) => {
   if (!fields.timestampColumn) ctx.addIssue({ code: 'custom', path: ['timestampColumn'], message: 'Choose the column with the time' });
   if (!fields.spo2Column) ctx.addIssue({ code: 'custom', path: ['spo2Column'], message: 'Choose the column with SpO2' });
 });
-
-const TIME_FORMATS = [
-  { value: 'auto', label: 'Work it out from the file' },
-  { value: 'iso', label: 'Date and time with offset (2026-11-20T21:00:00Z)' },
-  { value: 'seconds', label: 'Seconds from the start (0, 1, 2…)' },
-] as const;
-
-// The shared rule names the other field by its key ("…already chosen for timestampColumn"); say it as the label.
-const LABELS: Record<string, string> = { timestampColumn: 'Time', spo2Column: 'SpO2', pulseColumn: 'Pulse', statusColumn: 'Device status' };
-const readable = (message?: string) => message?.replace(/\b(timestampColumn|spo2Column|pulseColumn|statusColumn)\b/g, (key) => LABELS[key]);
-
-// An unchosen select sends nothing, so the server applies its own rule for that value.
-const blankIsNone = { setValueAs: (value: string) => value || undefined };
+const twoColumns = recordingUploadFieldsSchema.superRefine((fields, ctx) => {
+  if (!fields.dateColumn && !fields.timeColumn) {
+    ctx.addIssue({ code: 'custom', path: ['dateColumn'], message: 'Choose the column with the date' });
+    ctx.addIssue({ code: 'custom', path: ['timeColumn'], message: 'Choose the column with the time' });
+  }
+  if (!fields.spo2Column) ctx.addIssue({ code: 'custom', path: ['spo2Column'], message: 'Choose the column with SpO2' });
+});
 
 interface ColumnMappingProps {
   found: readonly string[];
+  /** The mapping used last time for a file with these column names, chosen again unless changed. */
+  saved: SavedMapping;
+  /** Where local clock times are read when no zone is chosen. */
+  familyTimeZone: string;
   busy: boolean;
   onSubmit: (fields: RecordingUploadFields) => void;
 }
 
-export function ColumnMapping({ found, busy, onSubmit }: ColumnMappingProps) {
-  const { register, handleSubmit, formState: { errors } } = useForm({
-    resolver: zodResolver(mappingSchema),
-    defaultValues: { ...guessColumns(found), timeFormat: 'auto' as const },
-  });
+export function ColumnMapping({ found, saved, familyTimeZone, busy, onSubmit }: ColumnMappingProps) {
+  const start = saved ?? { ...guessColumns(found), timeFormat: 'auto' as const };
+  const [layout, setLayout] = useState<TimeLayout>(start.dateColumn !== undefined ? 'two' : 'one');
+  const current = useRef(layout);
+  current.current = layout;
+  // Read at every check: only the fields on show are validated and sent.
+  const resolver: Resolver<RecordingUploadFields> = (values, context, options) => {
+    const { timestampColumn, dateColumn, timeColumn, ...rest } = values;
+    const shown = current.current === 'two' ? { ...rest, dateColumn, timeColumn, timeFormat: 'auto' as const } : { ...rest, timestampColumn };
+    return zodResolver(current.current === 'two' ? twoColumns : oneColumn)(shown, context, options as never) as never;
+  };
+  const form = useForm<RecordingUploadFields>({ resolver, defaultValues: { timeFormat: 'auto', ...start } });
+  const { register, handleSubmit, formState: { errors } } = form;
   const options = (none: string) => (
     <>
       <option value="">{none}</option>
@@ -51,12 +61,15 @@ export function ColumnMapping({ found, busy, onSubmit }: ColumnMappingProps) {
         <p className="text-ink-700">
           This file’s columns have other names. Choose which column holds each value; the same file is then sent again.
         </p>
+        {saved && <p className="mt-1 font-semibold text-ink-900">Chosen as for the last file with these columns. Check them before uploading.</p>}
         <p className="mt-1 text-sm text-ink-500">Columns in the file: {found.join(', ') || 'none'}</p>
       </div>
+      <ChoiceGroup legend="Where the time is" inline>
+        <Choice name="time-layout" label="One column" checked={layout === 'one'} onChange={() => setLayout('one')} />
+        <Choice name="time-layout" label="A date column and a time column" checked={layout === 'two'} onChange={() => setLayout('two')} />
+      </ChoiceGroup>
+      <ClockFields layout={layout} form={form} options={options} familyTimeZone={familyTimeZone} />
       <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField label="Time" error={readable(errors.timestampColumn?.message)} {...register('timestampColumn', blankIsNone)}>
-          {options('Choose a column')}
-        </SelectField>
         <SelectField label="SpO2 (%)" error={readable(errors.spo2Column?.message)} {...register('spo2Column', blankIsNone)}>
           {options('Choose a column')}
         </SelectField>
@@ -68,11 +81,6 @@ export function ColumnMapping({ found, busy, onSubmit }: ColumnMappingProps) {
           {options('Not in this file')}
         </SelectField>
       </div>
-      <SelectField label="How the time is written" error={errors.timeFormat?.message} {...register('timeFormat')}>
-        {TIME_FORMATS.map((format) => (
-          <option key={format.value} value={format.value}>{format.label}</option>
-        ))}
-      </SelectField>
       <div>
         <Button type="submit" size="lg" disabled={busy} className="w-full sm:w-auto">
           {busy ? 'Uploading…' : 'Upload with these columns'}

@@ -4,12 +4,15 @@ import type { RecordingUploadFields } from '../../../../shared/schemas/recording
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { detailMessages, isApiError } from '../../../lib/api-error';
+import { useSavedMapping } from '../api/get-saved-mapping';
 import { useUploadRecording } from '../api/upload-recording';
 import { ColumnMapping } from './column-mapping';
 import { fileSizeText, MAX_FILE_MB, uploadProblem, type UploadProblem } from './upload-messages';
 
 interface RecordingUploadProps {
   infantId: string;
+  /** Local clock times in a device file are read in this zone unless another is chosen. */
+  familyTimeZone: string;
   onUploaded: (recordingId: string) => void;
 }
 
@@ -18,7 +21,8 @@ function OurFormat() {
     <p className="text-sm text-ink-700">
       Our format: a CSV file whose first row is <code className="rounded bg-surface-100 px-1">timestamp,spo2,pulse</code>{' '}
       (optionally <code className="rounded bg-surface-100 px-1">status</code>), times as a date-time with offset or seconds from
-      the start. Other exports work too: you match their columns after choosing the file.
+      the start. Oximeter exports work too (separate date and time columns, semicolons, decimal commas, text lines above
+      the table): you match their columns after choosing the file.
     </p>
   );
 }
@@ -33,11 +37,15 @@ function ProblemAlert({ problem }: { problem: UploadProblem }) {
 }
 
 /** Choose a night's CSV export and send it; a file with other column names gets a matching step, not a dead end. */
-export function RecordingUpload({ infantId, onUploaded }: RecordingUploadProps) {
+// Answers settled by choosing in the matching step: other column names, dates that read two ways, the clock's zone.
+const OPENS_MAPPING = new Set(['wrong_columns', 'date_order_unclear', 'clock_change']);
+
+export function RecordingUpload({ infantId, familyTimeZone, onUploaded }: RecordingUploadProps) {
   const inputId = useId();
   const upload = useUploadRecording(infantId);
   const [file, setFile] = useState<File | null>(null);
   const [found, setFound] = useState<string[] | null>(null);
+  const saved = useSavedMapping(infantId, found);
   const [localProblem, setLocalProblem] = useState<UploadProblem | null>(null);
   // A second tap can land before the button re-renders as disabled; one file must be sent once.
   const sending = useRef(false);
@@ -63,7 +71,11 @@ export function RecordingUpload({ infantId, onUploaded }: RecordingUploadProps) 
       {
         onSuccess: (result) => onUploaded(result.id),
         onError: (error) => {
-          if (isApiError(error) && error.code === 'wrong_columns') setFound(detailMessages(error.details?.found));
+          if (isApiError(error) && OPENS_MAPPING.has(error.code) && error.details?.found) {
+            const headers = detailMessages(error.details.found);
+            // The same headers keep the form and the choices already made.
+            setFound((before) => (before?.join('\u0000') === headers.join('\u0000') ? before : headers));
+          }
         },
         onSettled: () => {
           sending.current = false;
@@ -95,8 +107,10 @@ export function RecordingUpload({ infantId, onUploaded }: RecordingUploadProps) 
         <OurFormat />
       </div>
       {problem && <ProblemAlert problem={problem} />}
-      {found ? (
-        <ColumnMapping key={found.join('\u0000')} found={found} busy={busy} onSubmit={send} />
+      {found && saved.isPending ? (
+        <p className="text-ink-700">Looking for the columns used last time…</p>
+      ) : found ? (
+        <ColumnMapping key={found.join('\u0000')} found={found} saved={saved.data ?? null} familyTimeZone={familyTimeZone} busy={busy} onSubmit={send} />
       ) : (
         <div>
           <Button size="lg" onClick={() => send()} disabled={busy} className="w-full sm:w-auto">

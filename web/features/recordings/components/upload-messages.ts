@@ -17,6 +17,8 @@ const TITLES: Record<string, string> = {
   unreadable_rows: 'Too many rows in this file could not be read.',
   too_short: `This recording is too short to analyse (fewer than ${RECORDING_LIMITS.minSamples} readings).`,
   too_long: `This file spans more than ${RECORDING_LIMITS.maxDurationHours} hours. Upload one night at a time.`,
+  date_order_unclear: 'Choose the date order: the dates in this file could be read day first or month first.',
+  clock_change: 'A time in this file falls on the clock change and cannot be placed.',
   no_file: 'Choose a recording file first.',
   not_multipart: 'The upload did not arrive as a file. Try again.',
   bad_form: 'The upload arrived incomplete. Try again.',
@@ -28,7 +30,7 @@ const TITLES: Record<string, string> = {
 };
 
 // Codes whose server message names the exact place in the file, which is worth showing as well.
-const WITH_DETAIL = new Set(['malformed_csv', 'unreadable_rows', 'too_short', 'too_long', 'bad_form']);
+const WITH_DETAIL = new Set(['malformed_csv', 'unreadable_rows', 'too_short', 'too_long', 'bad_form', 'date_order_unclear', 'clock_change']);
 
 export function uploadProblem(error: unknown): UploadProblem {
   if (!isApiError(error)) return { title: 'The upload failed. Try again in a moment.' };
