@@ -21,7 +21,7 @@ const tiers = [
 const may = (from, to) => ({ from: { element: { type: from } }, allow: { to: { element: { types: { anyOf: to } } } } });
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'reports/**', 'artifacts/**', '.stryker-tmp/**', 'coverage/**'] },
+  { ignores: ['dist/**', 'node_modules/**', '.data/**', '.tmp/**', 'reports/**', 'artifacts/**', '.stryker-tmp/**', 'coverage/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

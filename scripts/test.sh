@@ -31,6 +31,8 @@ export REDIS_URL="redis://127.0.0.1:$REDIS_TEST_PORT"
 
 log "Type-checking"
 npx tsc --noEmit -p tsconfig.json
+log "Linting (eslint.config.js: typescript-eslint, React hooks, jsx-a11y, TanStack Query, tier boundaries)"
+npx eslint --max-warnings=0 .
 log "Building the web app and compiling the API and worker (dist/)"
 npx vite build --logLevel warn
 node --import tsx scripts/build/server.ts

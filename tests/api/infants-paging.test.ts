@@ -28,9 +28,12 @@ async function addBabies(c: Awaited<ReturnType<typeof makeClinic>>, count: numbe
   );
 }
 
-async function walk(agent: Agent, query: string): Promise<{ ids: string[]; pages: number; lastBody: any }> {
+interface PageBody { items: Array<{ id: string }>; total: number; totalIsEstimate?: boolean; nextCursor: string | null; prevCursor: string | null }
+interface PlanNode { 'Node Type': string; 'Actual Rows': number; 'Index Name'?: string; 'Rows Removed by Filter'?: number; Plans?: PlanNode[] }
+
+async function walk(agent: Agent, query: string): Promise<{ ids: string[]; pages: number; lastBody: PageBody }> {
   const ids: string[] = [];
-  let body = (await agent.get(`/api/infants?${query}`).expect(200)).body;
+  let body: PageBody = (await agent.get(`/api/infants?${query}`).expect(200)).body;
   let pages = 1;
   ids.push(...body.items.map((i: { id: string }) => i.id));
   while (body.nextCursor) {
@@ -134,13 +137,13 @@ describe('a large programme', () => {
          AND (i.home_pressure_mmhg, i.id) > (CAST($2 AS numeric), CAST($3 AS uuid)) ORDER BY i.home_pressure_mmhg ASC, i.id ASC LIMIT 26`,
       [programmeId, rows.at(-1)!.k_pressure, rows.at(-1)!.id],
     );
-    const nodes: Array<{ 'Node Type': string; 'Actual Rows': number; 'Index Name'?: string }> = [];
-    const visit = (n: any) => { nodes.push(n); (n.Plans ?? []).forEach(visit); };
+    const nodes: PlanNode[] = [];
+    const visit = (n: PlanNode) => { nodes.push(n); (n.Plans ?? []).forEach(visit); };
     visit(plan[0].Plan);
     expect(nodes.map((n) => n['Node Type'])).not.toContain('Sort');
     // Either pressure index may be chosen (with the status as an index condition or a filter); both read a few
     // pages' worth of entries at most, not the programme's ${BIG}.
-    const scan = nodes.find((n) => n['Index Name']) as { 'Index Name': string; 'Actual Rows': number; 'Rows Removed by Filter'?: number } | undefined;
+    const scan = nodes.find((n) => n['Index Name']);
     expect(scan?.['Index Name']).toMatch(/^infants_p_(status_)?pressure_idx$/);
     expect(scan!['Actual Rows'] + (scan!['Rows Removed by Filter'] ?? 0)).toBeLessThanOrEqual(26 * 8);
   });

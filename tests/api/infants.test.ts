@@ -67,12 +67,12 @@ describe('POST /api/infants', () => {
   it('when fields are wrong, then 400 names each field and nothing is stored', async () => {
     const clinic = await makeClinic(ctx.deps);
     const coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
-    const body = enrolmentBody(clinic) as unknown as Record<string, any>;
+    const body = enrolmentBody(clinic);
     body.baby.weightKg = 0;
     body.baby.gestation.days = 9;
     body.home.location = { elevationM: 9000 };
-    body.contacts[0].preferredChannel = 'email';
-    body.contacts[0].email = undefined;
+    body.contacts[0]!.preferredChannel = 'email';
+    body.contacts[0]!.email = undefined;
     const res = await coord.post('/api/infants').set('X-CSRF-Token', coord.csrf).send(body).expect(400);
     expect(Object.keys(res.body.error.details).sort()).toEqual(['baby.gestation.days', 'baby.weightKg', 'contacts.0.email', 'home.location.elevationM']);
     const [{ n }] = await ctx.deps.ds.query(`SELECT count(*)::int n FROM infants WHERE programme_id = $1`, [clinic.programme.id]);

@@ -1,6 +1,5 @@
 import { Writable } from 'node:stream';
 import type { Express } from 'express';
-import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
 import { createLogger } from '../../server/lib/logger';

@@ -1,6 +1,6 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { apiError, json, makeUser, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
+import { apiError, json, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
 import { renderApp } from './support/render-app';
 
 function stubWithCreate(create: (request: FakeRequest) => Response | Promise<Response>) {

@@ -1,3 +1,4 @@
+import type { EnrolInfantInput } from '../../shared/schemas/infants';
 import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { convertPrescription } from '../../shared/clinical/conversion';
@@ -206,7 +207,7 @@ describe('Enrol a baby', { timeout: 20_000 }, () => {
     await user.dblClick(screen.getByRole('button', { name: 'Enrol baby' }));
     await waitFor(() => expect(screen.getByRole('button', { name: 'Saving…' })).toBeDisabled());
     expect(posts).toHaveLength(1);
-    const body = posts[0].body as Record<string, any>;
+    const body = posts[0].body as EnrolInfantInput;
     expect(body.enrolKey).toMatch(/^[0-9a-f-]{36}$/);
     expect(body.baby).toMatchObject({ givenName: 'Juniper', weightKg: 2.4, gestation: { weeks: 27, days: 3 }, diagnoses: ['chronic_lung_disease'] });
     expect(body.hospital).toEqual({ siteId: SITE.id, flowLpm: 0.5, source: 'cylinder', o2Percent: 100 });
@@ -252,6 +253,6 @@ describe('Enrol a baby', { timeout: 20_000 }, () => {
     expect(screen.queryByText(/2025-0/)).toBeNull();
     await user.click(screen.getByRole('button', { name: 'Enrol baby' }));
     await waitFor(() => expect(posts).toHaveLength(1));
-    expect((posts[0].body as Record<string, any>).contacts[0]).toMatchObject({ language: 'cy', timeZone: 'Europe/Dublin' });
+    expect((posts[0].body as EnrolInfantInput).contacts[0]).toMatchObject({ language: 'cy', timeZone: 'Europe/Dublin' });
   });
 });

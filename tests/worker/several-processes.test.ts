@@ -60,11 +60,14 @@ const kill9 = async (p: ChildProcess) => {
   await gone;
 };
 
+/** What the few answers read here hold. */
+interface ApiBody { id?: string; csrfToken?: string; user?: { email?: string } | null; [key: string]: unknown }
+
 /** A minimal browser: keeps cookies (by name, for any of our loopback ports) and the form token. */
 class Client {
   cookies = new Map<string, string>();
   csrf = '';
-  async call(port: number, method: string, path: string, body?: unknown | FormData): Promise<{ status: number; body: any }> {
+  async call(port: number, method: string, path: string, body?: unknown | FormData): Promise<{ status: number; body: ApiBody }> {
     const headers: Record<string, string> = { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') };
     if (method !== 'GET') headers['x-csrf-token'] = this.csrf;
     if (body !== undefined && !(body instanceof FormData)) headers['content-type'] = 'application/json';
@@ -123,7 +126,7 @@ describe('two API processes and two workers on one PostgreSQL and one Redis', ()
     expect(me.body.user?.email).toBe(clinic.people.coordinator.email);
     const enrolled = await coord.call(b!.port, 'POST', '/api/infants', enrolmentBody(clinic));
     expect(enrolled.status).toBe(201);
-    infantId = enrolled.body.id;
+    infantId = enrolled.body.id!;
   });
 
   it('when wrong passwords alternate between the two APIs, then the sign-in limit counts them together', async () => {

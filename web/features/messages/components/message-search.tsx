@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState, type FormEvent } from 'react';
+import { useEffect, useState, type FormEvent } from 'react';
 import { Button } from '../../../components/ui/button';
 
 /** How long typing must pause before the log is searched. */
@@ -17,26 +17,22 @@ interface MessageSearchProps {
  */
 export function MessageSearch({ value, onSearch }: MessageSearchProps) {
   const [text, setText] = useState(value ?? '');
-  const lastSent = useRef(value ?? '');
-  // Back and forward change the URL: the box follows it.
-  useEffect(() => {
-    lastSent.current = value ?? '';
-    setText((typed) => (typed.trim() === (value ?? '') ? typed : value ?? ''));
-  }, [value]);
+  // The search in the URL: ours once the pause is over, or another after Back and Forward, which the box follows.
+  const [inUrl, setInUrl] = useState(value ?? '');
+  if ((value ?? '') !== inUrl) {
+    setInUrl(value ?? '');
+    if (text.trim() !== (value ?? '')) setText(value ?? '');
+  }
   useEffect(() => {
     const q = text.trim();
-    if (q === lastSent.current) return;
-    const timer = setTimeout(() => {
-      lastSent.current = q;
-      onSearch(q || undefined, true);
-    }, SEARCH_PAUSE_MS);
+    if (q === inUrl) return;
+    const timer = setTimeout(() => onSearch(q || undefined, true), SEARCH_PAUSE_MS);
     return () => clearTimeout(timer);
-  }, [text, onSearch]);
+  }, [text, inUrl, onSearch]);
 
   const onSubmit = (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     const q = text.trim();
-    lastSent.current = q;
     onSearch(q || undefined, false);
   };
   return (

@@ -9,21 +9,22 @@ export const REMINDERS_ON_WORDS = 'We will remind you the day before each visit 
 export function RemindersSwitch() {
   const labelId = useId();
   const { control } = useFormContext<PreferencesFormValues>();
-  const { field } = useController({ control, name: 'remindersEnabled' });
-  const on = field.value;
+  const {
+    field: { value: on, onChange, onBlur, ref },
+  } = useController({ control, name: 'remindersEnabled' });
   return (
     <section className={`flex flex-col gap-3 rounded-2xl border-2 p-5 ${on ? 'border-brand-600 bg-brand-50' : 'border-surface-300 bg-surface-50'}`}>
       <div className="flex flex-wrap items-center justify-between gap-4">
         <h2 id={labelId} className="text-2xl font-bold text-ink-900">Visit reminders</h2>
         <button
-          ref={field.ref}
+          ref={ref}
           type="button"
           role="switch"
           aria-checked={on}
           aria-labelledby={labelId}
           aria-describedby={`${labelId}-words`}
-          onClick={() => field.onChange(!on)}
-          onBlur={field.onBlur}
+          onClick={() => onChange(!on)}
+          onBlur={onBlur}
           className="inline-flex min-h-13 items-center gap-3 rounded-full border-2 border-ink-700 bg-surface-0 py-1 pr-5 pl-1 text-xl font-bold text-ink-900"
         >
           <span aria-hidden="true" className={`flex h-10 w-18 items-center rounded-full p-1 ${on ? 'justify-end bg-brand-600' : 'justify-start bg-surface-300'}`}>

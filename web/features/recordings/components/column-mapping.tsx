@@ -1,4 +1,4 @@
-import { useRef, useState } from 'react';
+import { useState } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { recordingUploadFieldsSchema, type RecordingUploadFields, type SavedMapping } from '../../../../shared/schemas/recordings';
@@ -36,13 +36,12 @@ interface ColumnMappingProps {
 export function ColumnMapping({ found, saved, familyTimeZone, busy, onSubmit }: ColumnMappingProps) {
   const start = saved ?? { ...guessColumns(found), timeFormat: 'auto' as const };
   const [layout, setLayout] = useState<TimeLayout>(start.dateColumn !== undefined ? 'two' : 'one');
-  const current = useRef(layout);
-  current.current = layout;
-  // Read at every check: only the fields on show are validated and sent.
+  // useForm takes its options afresh on every render, so the resolver always sees the layout on show: only the
+  // fields on show are validated and sent.
   const resolver: Resolver<RecordingUploadFields> = (values, context, options) => {
     const { timestampColumn, dateColumn, timeColumn, ...rest } = values;
-    const shown = current.current === 'two' ? { ...rest, dateColumn, timeColumn, timeFormat: 'auto' as const } : { ...rest, timestampColumn };
-    return zodResolver(current.current === 'two' ? twoColumns : oneColumn)(shown, context, options as never) as never;
+    const shown = layout === 'two' ? { ...rest, dateColumn, timeColumn, timeFormat: 'auto' as const } : { ...rest, timestampColumn };
+    return zodResolver(layout === 'two' ? twoColumns : oneColumn)(shown, context, options as never) as never;
   };
   const form = useForm<RecordingUploadFields>({ resolver, defaultValues: { timeFormat: 'auto', ...start } });
   const { register, handleSubmit, formState: { errors } } = form;
