@@ -17,13 +17,15 @@ const rows: InfantSummary[] = [
   },
 ];
 
-function stubCaseload(role: Role, items = rows, total = 60) {
+function stubCaseload(role: Role, items = rows, total = 60, extra: { totalIsEstimate?: boolean } = {}) {
   const listCalls: URLSearchParams[] = [];
   stubApi({
     'GET /api/session': sessionHandler(role),
     'GET /api/infants': ({ url }) => {
       listCalls.push(url.searchParams);
-      return json(200, { items, total });
+      // Cursors name the page they sit beside, so a test can see which one was sent.
+      const page = Number(url.searchParams.get('page') ?? 1);
+      return json(200, { items, total, ...extra, nextCursor: `after-${page}`, prevCursor: page > 1 ? `before-${page}` : null });
     },
   });
   return listCalls;
@@ -62,7 +64,7 @@ describe('Caseload', () => {
     await waitFor(() => expect(currentUrl(router)).toBe('/caseload?sort=-elevation'));
 
     await user.click(screen.getByRole('button', { name: 'Next page' }));
-    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?page=2&sort=-elevation'));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?page=2&sort=-elevation&cursor=after-1'));
 
     await user.selectOptions(screen.getByLabelText('Status'), INFANT_STATUS_LABELS.awaiting_signoff);
     await waitFor(() => expect(currentUrl(router)).toBe('/caseload?sort=-elevation&status=awaiting_signoff'));
@@ -73,9 +75,37 @@ describe('Caseload', () => {
     );
     await waitFor(() => expect(listCalls.at(-1)?.get('q')).toBe('ash'));
     expect(Object.fromEntries(listCalls.at(-1)!)).toEqual({
-      page: '1', pageSize: '25', sort: '-elevation', status: 'awaiting_signoff', flag: 'growth_drift', q: 'ash',
+      page: '1', pageSize: '25', sort: '-elevation', status: 'awaiting_signoff', flag: 'growth_drift', q: 'ash', direction: 'next',
     });
     expect(screen.queryByLabelText('Only mine')).not.toBeInTheDocument();
+  });
+
+  it('when pages are turned, then each asks for the rows beside the last page, and back to page 1 is the plain first page', async () => {
+    const listCalls = stubCaseload('coordinator');
+    const { user, router } = renderApp('/caseload');
+    await screen.findByRole('table');
+    expect(screen.getByRole('button', { name: 'Previous page' })).toBeDisabled();
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?page=2&cursor=after-1'));
+    await user.click(await screen.findByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?page=3&cursor=after-2'));
+    await waitFor(() => expect(screen.getByText('Page 3 of 3 · 60 babies')).toBeInTheDocument());
+    await user.click(screen.getByRole('button', { name: 'Previous page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?page=2&cursor=before-3&direction=prev'));
+    await waitFor(() => expect(listCalls.at(-1)?.get('direction')).toBe('prev'));
+    await user.click(await screen.findByRole('button', { name: 'Previous page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload'));
+    // A new sort starts from the first page: a cursor belongs to the order it was made in.
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?page=2&cursor=after-1'));
+    await user.click(screen.getByRole('button', { name: /^Home elevation/ }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/caseload?sort=elevation'));
+  });
+
+  it('when the programme is very large, then the total is given as "about"', async () => {
+    stubCaseload('coordinator', rows, 203_117, { totalIsEstimate: true });
+    renderApp('/caseload');
+    expect(await screen.findByText('Page 1 of about 8,125 · about 203,117 babies')).toBeInTheDocument();
   });
 
   it('when a consultant ticks "Only mine", then scope=mine is in the URL and the request', async () => {

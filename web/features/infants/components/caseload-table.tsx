@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import type { ListInfantsQuery } from '../../../../shared/schemas/infants';
 import { Alert } from '../../../components/ui/alert';
-import { Pager } from '../../../components/ui/data-table/pager';
+import { CursorPager } from '../../../components/ui/data-table/cursor-pager';
 import { TableFrame } from '../../../components/ui/data-table/table-frame';
 import { useServerTable } from '../../../components/ui/data-table/use-server-table';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -37,6 +37,19 @@ export function CaseloadTable({ query, update, emptyMessage }: CaseloadTableProp
   if (infants.isError) return <Alert>{infants.error.message}</Alert>;
 
   const filtered = Boolean(query.q || query.status || query.flag || query.scope);
+  const pager = (
+    <CursorPager
+      page={query.page}
+      pageSize={query.pageSize}
+      total={infants.data.total}
+      estimate={infants.data.totalIsEstimate}
+      nextCursor={infants.data.nextCursor}
+      prevCursor={infants.data.prevCursor}
+      noun={{ one: 'baby', other: 'babies' }}
+      onPage={(to) => update(to)}
+      onPageSize={(pageSize) => update({ pageSize })}
+    />
+  );
   if (infants.data.items.length === 0) {
     return <EmptyState message={filtered ? 'No baby matches these filters.' : emptyMessage} />;
   }
@@ -45,7 +58,7 @@ export function CaseloadTable({ query, update, emptyMessage }: CaseloadTableProp
       <div className="flex flex-col gap-4">
         <CaseloadSortChoice query={query} update={update} />
         <CaseloadCards items={infants.data.items} showNurse={user.role !== 'nurse'} busy={infants.isPlaceholderData} />
-        <Pager table={table} total={infants.data.total} noun={{ one: 'baby', other: 'babies' }} />
+        {pager}
       </div>
     );
   }
@@ -53,14 +66,14 @@ export function CaseloadTable({ query, update, emptyMessage }: CaseloadTableProp
     <div className="flex flex-col gap-4">
       <TableFrame
         table={table}
-        caption={`Babies in the caseload, ${infants.data.total} in all`}
+        caption={`Babies in the caseload, ${infants.data.totalIsEstimate ? 'about ' : ''}${infants.data.total} in all`}
         minWidth="min-w-[56rem]"
         busy={infants.isPlaceholderData}
         compact
         // The name column stays put while the rest scrolls sideways on a phone.
         stickyFirstColumn
       />
-      <Pager table={table} total={infants.data.total} noun={{ one: 'baby', other: 'babies' }} />
+      {pager}
     </div>
   );
 }
