@@ -46,6 +46,27 @@ export function createReminderContentRepository(ds: DataSource) {
     activeConsultants: (programmeId: string, m: EntityManager): Promise<Array<{ id: string; name: string; email: string }>> =>
       q(m).query(`SELECT id, name, email FROM users WHERE programme_id = $1 AND role = 'consultant' AND NOT disabled`, [programmeId]),
 
+    /** The programme's coordinators who can still sign in, in a stable order: the recipients of failure alerts. */
+    activeCoordinators: (programmeId: string, m: EntityManager): Promise<Array<{ id: string; name: string; email: string }>> =>
+      q(m).query(`SELECT id, name, email FROM users WHERE programme_id = $1 AND role = 'coordinator' AND NOT disabled ORDER BY id`, [programmeId]),
+
+    /** Every programme with its time zone: the morning digests are planned per programme. */
+    programmeZones: (): Promise<Array<{ id: string; time_zone: string }>> => ds.query(`SELECT id, time_zone FROM programmes`),
+
+    /**
+     * Who gets a morning digest: every active nurse, and each active consultant only when something (a proposed
+     * setting or a journey check) has waited since `waitingSince` or earlier.
+     */
+    digestRecipients: (programmeId: string, waitingSince: Date): Promise<Array<{ id: string; name: string; email: string; role: 'nurse' | 'consultant' }>> =>
+      ds.query(
+        `SELECT u.id, u.name, u.email, u.role FROM users u
+          WHERE u.programme_id = $1 AND NOT u.disabled
+            AND (u.role = 'nurse' OR (u.role = 'consultant' AND (
+              EXISTS (SELECT 1 FROM prescriptions rx WHERE rx.programme_id = $1 AND rx.status = 'proposed' AND COALESCE(rx.computed_at, rx.created_at) <= $2)
+              OR EXISTS (SELECT 1 FROM journeys j WHERE j.programme_id = $1 AND j.status = 'waiting' AND j.created_at <= $2))))`,
+        [programmeId, waitingSince],
+      ),
+
     /** A nurse's checks due by `today` (or overdue) for the babies in their care: the first 100, oldest due first. */
     nurseDigestChecks: (nurseId: string | null, programmeId: string, today: string, m: EntityManager): Promise<Array<{ kind: CheckKind; due_date: string; status: string; given_name: string; family_name: string; home_address: string }>> =>
       q(m).query(
