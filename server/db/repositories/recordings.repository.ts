@@ -9,6 +9,11 @@ export const RECORDING_ACL_COLUMNS = { programmeId: 'r.programme_id', infantId: 
 
 export type RecordingWithUploader = RecordingEntity & { uploaderName: string | null };
 
+/** The latest analysed study's figures, as stored (numeric columns may arrive as text). */
+export interface StudyRow {
+  id: string; recorded_at: Date; valid_minutes: number; mean_spo2: number | null; pct_below_90: number | null; odi3: number | null; odi4: number | null;
+}
+
 export function createRecordingsRepository(ds: DataSource) {
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(RecordingEntity);
   const samplesRepo = (m?: EntityManager) => (m ?? ds.manager).getRepository(RecordingSamplesEntity);
@@ -26,6 +31,14 @@ export function createRecordingsRepository(ds: DataSource) {
   };
 
   return {
+    /** The baby's latest analysed recording (by when it was recorded, else uploaded), as the step-down rules read it. */
+    latestDoneStudy: async (infantId: string, m: EntityManager): Promise<StudyRow | undefined> =>
+      ((await m.query(
+        `SELECT id, coalesce(started_at, uploaded_at) AS recorded_at, valid_minutes, mean_spo2, pct_below_90, odi3, odi4
+           FROM recordings WHERE infant_id = $1 AND status = 'done' ORDER BY coalesce(started_at, uploaded_at) DESC LIMIT 1`,
+        [infantId],
+      )) as StudyRow[])[0],
+
     findVisible: async (id: string, acl: SqlFilter) =>
       withUploader(await visible(acl).andWhere('r.id = :id', { id }).getRawAndEntities<{ r_id: string; uploader_name: string | null }>())[0] ?? null,
 
