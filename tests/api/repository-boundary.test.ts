@@ -19,9 +19,6 @@ const ALLOWED: Record<string, string> = {
   'worker/processors/analyse-recording.processor.ts': 'not moved yet',
   'server/modules/recordings/analyse.ts': 'not moved yet',
   'server/modules/sms-inbound/sms-inbound.router.ts': 'not moved yet',
-  'server/modules/preferences/preferences.service.ts': 'not moved yet',
-  'server/modules/messages/messages.service.ts': 'not moved yet',
-  'server/modules/infants/update.ts': 'not moved yet',
 };
 
 /** A raw query on a DataSource / EntityManager (`ds.query(`, `m.query<…>(`) or a query builder. */

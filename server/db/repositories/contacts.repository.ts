@@ -5,6 +5,17 @@ import { FamilyContactEntity } from '../entities/family-contact.entity';
 export function createContactsRepository(ds: DataSource) {
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(FamilyContactEntity);
   return {
+    /** The contact rows of a family member's account (one per baby), in the family's order. */
+    listForUser: (userId: string, m?: EntityManager) =>
+      repo(m).find({ where: { userId }, order: { position: 'ASC', createdAt: 'ASC' } }),
+
+    /** The same rows, locked for update until the caller's transaction ends. */
+    lockForUser: (userId: string, m: EntityManager) =>
+      repo(m).createQueryBuilder('c').setLock('pessimistic_write')
+        .where('c.user_id = :userId', { userId }).orderBy('c.position', 'ASC').addOrderBy('c.created_at', 'ASC').getMany(),
+
+    saveEntity: (c: FamilyContactEntity, m: EntityManager) => repo(m).save(c),
+
     listForInfant: (infantId: string, m?: EntityManager) => repo(m).find({ where: { infantId }, order: { position: 'ASC' } }),
 
     /**
