@@ -13,12 +13,6 @@ const SCANNED = ['server/modules', 'server/jobs', 'worker'];
 const ALLOWED: Record<string, string> = {
   // The readiness probe's `SELECT 1` checks the connection itself; there is no data to put behind a repository.
   'server/modules/health/health.router.ts': 'readiness ping',
-  // Not moved yet (issue #14): session pruning deletes from the session store's own table.
-  'worker/processors/prune-sessions.processor.ts': 'not moved yet',
-  // Not moved yet (issue #14).
-  'worker/processors/analyse-recording.processor.ts': 'not moved yet',
-  'server/modules/recordings/analyse.ts': 'not moved yet',
-  'server/modules/sms-inbound/sms-inbound.router.ts': 'not moved yet',
 };
 
 /** A raw query on a DataSource / EntityManager (`ds.query(`, `m.query<…>(`) or a query builder. */
