@@ -19,6 +19,7 @@ import { createReadingsRepository } from './db/repositories/readings.repository'
 import { createVisitsRepository } from './db/repositories/visits.repository';
 import { createRecordingsRepository } from './db/repositories/recordings.repository';
 import { createRemindersRepository } from './db/repositories/reminders.repository';
+import { createReminderContentRepository } from './db/repositories/reminder-content.repository';
 import { createJourneysRepository } from './db/repositories/journeys.repository';
 import { createAccountTokensRepository } from './db/repositories/account-tokens.repository';
 import { createOverviewRepository } from './db/repositories/overview.repository';
@@ -59,6 +60,7 @@ export function createRepos(ds: DataSource) {
     columnMappings: createColumnMappingsRepository(ds),
     journeys: createJourneysRepository(ds),
     reminders: createRemindersRepository(ds),
+    reminderContent: createReminderContentRepository(ds),
     accountTokens: createAccountTokensRepository(ds),
     overview: createOverviewRepository(ds),
   };

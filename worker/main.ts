@@ -62,7 +62,7 @@ await reconcileReminders(repos, messagesQueue, reminderJobs);
 const maintenance = new Worker(
   QUEUES.maintenance,
   async (job) => {
-    if (job.name === JOBS.pruneSessions.name) return pruneSessions(ds);
+    if (job.name === JOBS.pruneSessions.name) return pruneSessions(repos);
     if (job.name === JOBS.markOverdue.name) return { replanned: await replan(repos, {}), overdue: await repos.checks.markOverdue() };
     if (job.name === JOBS.reconcileReminders.name) return { enqueued: await reconcileReminders(repos, messagesQueue, reminderJobs) };
     if (job.name === JOBS.reanalyseRecordings.name) return reanalyseOutdated(ds, repos);

@@ -4,6 +4,7 @@ import { MESSAGE_TEMPLATES, type Channel, type MessageTemplate } from '../../sha
 import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '../../shared/schemas/policy';
 import { messageView } from '../../server/modules/reminders/message-content';
 import { hasTemplate, renderMessage, templateLanguage } from '../../server/notifications/render';
+import type { ReminderContentRepository } from '../../server/db/repositories/reminder-content.repository';
 import { reminderRow } from '../helpers/reminders';
 
 // Fictional demo values (Larkmoor scenario).
@@ -13,6 +14,7 @@ const settings: PolicySettings = { ...DEFAULT_POLICY_SETTINGS, contacts: { phone
 const FAMILY: MessageTemplate[] = ['visit-booked', 'visit-today', 'visit-day-before', 'visit-morning', 'visit-moved', 'visit-cancelled', 'journey-day-before'];
 const STAFF: MessageTemplate[] = ['nurse-digest', 'consultant-digest', 'delivery-failed'];
 const noDb = undefined as unknown as EntityManager;
+const noRepo = undefined as unknown as ReminderContentRepository;
 
 const visitData = (over: Record<string, unknown> = {}) => ({
   babyName: 'Ava', kind: 'home_visit', startsAt: '2026-12-03T10:00:00.000Z', date: '2026-12-03', time: '10:00', timeZone: 'Europe/London',
@@ -40,7 +42,7 @@ async function viewFor(template: MessageTemplate, language = 'en', over: Record<
   }
   const data = template === 'journey-day-before' ? journeyData : template === 'delivery-failed' ? failedData : visitData();
   const row = reminderRow(template, { ...data, ...over }, template === 'delivery-failed' ? { contact_id: null, user_id: '00000000-0000-4000-8000-000000000001', recipient_name: 'Coordinator Vale' } : {});
-  return (await messageView({ reminder: row, language, programmeName: PROGRAMME, settings, now: new Date('2026-12-02T17:00:00Z') }, noDb))!;
+  return (await messageView({ reminder: row, language, programmeName: PROGRAMME, settings, now: new Date('2026-12-02T17:00:00Z') }, noRepo, noDb))!;
 }
 
 const channelsOf = (t: MessageTemplate): Channel[] => (FAMILY.includes(t) ? ['sms', 'email'] : ['email']);

@@ -35,11 +35,8 @@ export async function reconcileRecordings(repos: AppRepos, jobs: JobProducer, qu
  * newest summary is shown; each old summary stays in recording_analyses with its version. A batch per run.
  */
 export async function reanalyseOutdated(ds: DataSource, repos: AppRepos, batch = 200) {
-  const rows: Array<{ id: string }> = await ds.query(
-    `SELECT r.id FROM recordings r WHERE r.status = 'done' AND r.analysis_version IS DISTINCT FROM $1
-       AND EXISTS (SELECT 1 FROM recording_samples s WHERE s.recording_id = r.id) ORDER BY r.uploaded_at LIMIT $2`,
-    [OXIMETRY_ANALYSIS_VERSION, batch],
-  );
+  const rows = await repos.recordings.outdatedAnalysisIds(OXIMETRY_ANALYSIS_VERSION, batch);
+
   let done = 0;
   const failed: string[] = [];
   for (const { id } of rows) {

@@ -16,6 +16,14 @@ export interface DayRow {
 export function createChecksRepository(ds: DataSource) {
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(CheckEntity);
   return {
+    /** Writes a check's note (why it stays open) without touching anything else. */
+    setNote: (id: string, note: string, m: EntityManager): Promise<unknown> =>
+      m.query(`UPDATE checks SET note = $2, updated_at = now() WHERE id = $1`, [id, note]),
+
+    /** Whether some check was already completed by this reference (e.g. `recording:<id>`), so it is not used twice. */
+    isDoneRefUsed: async (doneRef: string, m: EntityManager): Promise<boolean> =>
+      (await m.query(`SELECT 1 FROM checks WHERE done_ref = $1`, [doneRef])).length > 0,
+
     /** Planning inputs for a page of babies in one statement (no per-baby queries). */
     planStates: (where: { programmeId?: string; infantIds?: string[] }, afterId: string, limit: number): Promise<PlanStateRow[]> =>
       ds.query(

@@ -5,6 +5,32 @@ import { FamilyContactEntity } from '../entities/family-contact.entity';
 export function createContactsRepository(ds: DataSource) {
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(FamilyContactEntity);
   return {
+    /**
+     * A STOP reply: every contact with this mobile (compared digits and + only) that still had SMS consent loses it.
+     * Returns the contacts changed.
+     */
+    stopSmsForNumber: (from: string, m: EntityManager): Promise<Array<{ id: string; infant_id: string; programme_id: string }>> =>
+      // Wrapped in a SELECT: TypeORM answers a bare UPDATE … RETURNING with [rows, rowCount], not the rows.
+      m.query(
+        `WITH stopped AS (
+           UPDATE family_contacts SET consent_sms = false, row_version = row_version + 1, updated_at = now()
+            WHERE mobile IS NOT NULL AND regexp_replace(mobile, '[^0-9+]', '', 'g') = $1 AND consent_sms
+            RETURNING id, infant_id, programme_id)
+         SELECT id, infant_id, programme_id FROM stopped`,
+        [from],
+      ),
+
+    /** The contact rows of a family member's account (one per baby), in the family's order. */
+    listForUser: (userId: string, m?: EntityManager) =>
+      repo(m).find({ where: { userId }, order: { position: 'ASC', createdAt: 'ASC' } }),
+
+    /** The same rows, locked for update until the caller's transaction ends. */
+    lockForUser: (userId: string, m: EntityManager) =>
+      repo(m).createQueryBuilder('c').setLock('pessimistic_write')
+        .where('c.user_id = :userId', { userId }).orderBy('c.position', 'ASC').addOrderBy('c.created_at', 'ASC').getMany(),
+
+    saveEntity: (c: FamilyContactEntity, m: EntityManager) => repo(m).save(c),
+
     listForInfant: (infantId: string, m?: EntityManager) => repo(m).find({ where: { infantId }, order: { position: 'ASC' } }),
 
     /**

@@ -65,6 +65,22 @@ function withPeople<T extends object>(qb: SelectQueryBuilder<T>) {
 export function createInfantsRepository(ds: DataSource) {
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(InfantEntity);
   return {
+    /** The baby's given and family name as one text, or undefined when there is no such baby. */
+    fullName: async (id: string): Promise<{ name: string } | undefined> =>
+      (await ds.query(`SELECT given_name || ' ' || family_name AS name FROM infants WHERE id = $1`, [id]))[0],
+
+    /** Drops the 'number_unreadable' flag from a baby whose numbers were all just saved in a readable form. */
+    clearUnreadableNumberFlag: (id: string, m: EntityManager): Promise<unknown> =>
+      m.query(`UPDATE infants SET flags = array_remove(flags, 'number_unreadable') WHERE id = $1 AND 'number_unreadable' = ANY(flags)`, [id]),
+
+    /** Drops the 'number_unreadable' flag from each of these babies whose contacts' mobiles are now all in E.164 form. */
+    clearUnreadableNumberFlagWhereAllReadable: (ids: string[], m: EntityManager): Promise<unknown> =>
+      m.query(
+        `UPDATE infants i SET flags = array_remove(i.flags, 'number_unreadable')
+          WHERE i.id = ANY($1::uuid[]) AND 'number_unreadable' = ANY(i.flags)
+            AND NOT EXISTS (SELECT 1 FROM family_contacts c WHERE c.infant_id = i.id AND c.mobile IS NOT NULL AND c.mobile !~ '^\\+[1-9][0-9]{6,14}$')`,
+        [ids]),
+
     /**
      * One page in the sort's order: the first, the one after a row (next), the one before a row (previous), or at
      * an offset (a page number typed in). Reads one row more than the page to know whether more follow.

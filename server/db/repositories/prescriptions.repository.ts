@@ -17,6 +17,10 @@ export function createPrescriptionsRepository(ds: DataSource) {
   const visible = (acl: SqlFilter, m?: EntityManager) =>
     repo(m).createQueryBuilder('rx').innerJoin('infants', 'i', 'i.id = rx.infant_id').where(acl.sql, acl.params);
   return {
+    /** The newest superseded setting with oxygen (flow above 0): where a step back up returns to. */
+    lastSupersededWithFlow: async (infantId: string, m: EntityManager): Promise<{ approved_flow_lpm: string; periods: PrescriptionEntity['periods'] } | null> =>
+      (await m.query(`SELECT approved_flow_lpm, periods FROM prescriptions WHERE infant_id = $1 AND status = 'superseded' AND approved_flow_lpm > 0 ORDER BY version DESC LIMIT 1`, [infantId]))[0] ?? null,
+
     listForInfant: (infantId: string, acl: SqlFilter) =>
       visible(acl).andWhere('rx.infant_id = :infantId', { infantId }).orderBy('rx.version', 'DESC').getMany(),
     findVisible: (id: string, acl: SqlFilter) => visible(acl).andWhere('rx.id = :id', { id }).getOne(),

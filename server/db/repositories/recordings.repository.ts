@@ -9,6 +9,11 @@ export const RECORDING_ACL_COLUMNS = { programmeId: 'r.programme_id', infantId: 
 
 export type RecordingWithUploader = RecordingEntity & { uploaderName: string | null };
 
+/** The latest analysed study's figures, as stored (numeric columns may arrive as text). */
+export interface StudyRow {
+  id: string; recorded_at: Date; valid_minutes: number; mean_spo2: number | null; pct_below_90: number | null; odi3: number | null; odi4: number | null;
+}
+
 export function createRecordingsRepository(ds: DataSource) {
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(RecordingEntity);
   const samplesRepo = (m?: EntityManager) => (m ?? ds.manager).getRepository(RecordingSamplesEntity);
@@ -26,6 +31,32 @@ export function createRecordingsRepository(ds: DataSource) {
   };
 
   return {
+    /** What re-analysis needs to know first: whose it is, its state and which rules analysed it. */
+    analysisState: async (id: string): Promise<{ programme_id: string; status: string; analysis_version: string | null } | undefined> =>
+      (await ds.query(`SELECT programme_id, status, analysis_version FROM recordings WHERE id = $1`, [id]))[0],
+
+    /** Keeps each analysis in recording_analyses with its rules' version, so an earlier summary stays readable. */
+    insertAnalysis: (a: { recordingId: string; version: string; summary: unknown; events: unknown; analysedAt: Date }, m: EntityManager): Promise<unknown> =>
+      m.query(`INSERT INTO recording_analyses (recording_id, analysis_version, summary, events, analysed_at) VALUES ($1, $2, $3, $4, $5)`, [
+        a.recordingId, a.version, JSON.stringify(a.summary), JSON.stringify(a.events), a.analysedAt,
+      ]),
+
+    /** Analysed recordings (with samples kept) whose analysis came from other rules than `version`, oldest upload first. */
+    outdatedAnalysisIds: (version: string, limit: number): Promise<Array<{ id: string }>> =>
+      ds.query(
+        `SELECT r.id FROM recordings r WHERE r.status = 'done' AND r.analysis_version IS DISTINCT FROM $1
+           AND EXISTS (SELECT 1 FROM recording_samples s WHERE s.recording_id = r.id) ORDER BY r.uploaded_at LIMIT $2`,
+        [version, limit],
+      ),
+
+    /** The baby's latest analysed recording (by when it was recorded, else uploaded), as the step-down rules read it. */
+    latestDoneStudy: async (infantId: string, m: EntityManager): Promise<StudyRow | undefined> =>
+      ((await m.query(
+        `SELECT id, coalesce(started_at, uploaded_at) AS recorded_at, valid_minutes, mean_spo2, pct_below_90, odi3, odi4
+           FROM recordings WHERE infant_id = $1 AND status = 'done' ORDER BY coalesce(started_at, uploaded_at) DESC LIMIT 1`,
+        [infantId],
+      )) as StudyRow[])[0],
+
     findVisible: async (id: string, acl: SqlFilter) =>
       withUploader(await visible(acl).andWhere('r.id = :id', { id }).getRawAndEntities<{ r_id: string; uploader_name: string | null }>())[0] ?? null,
 

@@ -67,6 +67,14 @@ const SORTS: Record<ListMessagesQuery['sort'], string> = {
 export function createRemindersRepository(ds: DataSource) {
   const q = (m?: EntityManager) => m ?? ds.manager;
   return {
+    /** A coordinator sends a failed (or unknown) message again: its ledger row allows a new attempt. */
+    markDeliveryRetrying: (reminderId: string, m: EntityManager): Promise<unknown> =>
+      q(m).query(`UPDATE deliveries SET state = 'retrying' WHERE reminder_id = $1`, [reminderId]),
+
+    /** A coordinator confirmed with the family that a message of unknown outcome arrived: its ledger row is settled as sent. */
+    markDeliveryArrived: (reminderId: string, m: EntityManager): Promise<unknown> =>
+      q(m).query(`UPDATE deliveries SET state = 'sent', finished_at = now() WHERE reminder_id = $1`, [reminderId]),
+
     /** Inserts many in one statement; a row whose dedupe key exists already is left as it is. Returns the new rows' ids and send times. */
     async insertMany(rows: NewReminder[], m: EntityManager): Promise<Array<{ id: string; send_at: Date; status: string }>> {
       if (rows.length === 0) return [];

@@ -64,6 +64,13 @@ export function createUsersRepository(ds: DataSource) {
     /** Ends every session of a user but the one given (after they change their own password). */
     endOtherSessions: (userId: string, keepSid: string, m?: EntityManager) =>
       (m ?? ds.manager).query(`DELETE FROM session WHERE (sess::jsonb -> 'passport') ->> 'user' = $1 AND sid <> $2`, [userId, keepSid]),
+
+    /** Removes expired sign-in sessions; returns how many went. */
+    async pruneExpiredSessions(): Promise<number> {
+      // TypeORM answers a DELETE with [rows, rowCount].
+      const result = await ds.query(`DELETE FROM session WHERE expire < now()`);
+      return Array.isArray(result) ? Number(result[1] ?? 0) : 0;
+    },
   };
 }
 export type UsersRepository = ReturnType<typeof createUsersRepository>;

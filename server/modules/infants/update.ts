@@ -105,7 +105,7 @@ export async function replaceContacts(ds: DataSource, repos: AppRepos, ability: 
     await repos.contacts.replace(id, infant.programmeId, contacts, m);
     await repos.contacts.linkFamilyAccounts(id, infant.programmeId, m);
     // Every number just saved was read (E.164), so an old unreadable one is gone.
-    await m.query(`UPDATE infants SET flags = array_remove(flags, 'number_unreadable') WHERE id = $1 AND 'number_unreadable' = ANY(flags)`, [id]);
+    await repos.infants.clearUnreadableNumberFlag(id, m);
     await repos.audit.append({
       programmeId: infant.programmeId, actorId: actor.id, action: 'infant.contacts_changed', entityType: 'infant', entityId: id, ip: actor.ip,
       details: { before: before.map((c) => ({ name: c.name, relation: c.relation, preferredChannel: c.preferredChannel, consentSms: c.consentSms, consentEmail: c.consentEmail })), after: contacts.map((c) => ({ name: c.name, relation: c.relation, preferredChannel: c.preferredChannel, consentSms: c.consentSms, consentEmail: c.consentEmail })) },

@@ -38,13 +38,13 @@ export function createMessagesService(ds: DataSource, repos: AppRepos, jobs: Job
         if (!ability.can('update', subject('Message', { programmeId: r.programme_id } as Record<string, unknown>))) throw new ForbiddenError('You cannot send messages again.');
         // 'unknown': a coordinator has checked that an uncertain e-mail did not arrive and chooses to send it again.
         if (r.status !== 'failed' && r.status !== 'unknown') throw new ConflictError(`Only a failed message, or one whose outcome is unknown, can be sent again (this one is ${r.status}).`);
-        await m.query(`UPDATE deliveries SET state = 'retrying' WHERE reminder_id = $1`, [id]);
+        await repos.reminders.markDeliveryRetrying(id, m);
         await repos.reminders.update(id, { status: 'scheduled', send_at: new Date(), reason: null }, m);
         await repos.audit.append({ programmeId: r.programme_id, actorId: actor.id, action: 'message.retried', entityType: r.infant_id ? 'infant' : 'message', entityId: r.infant_id ?? r.id, ip: actor.ip, details: { messageId: r.id, template: r.template } }, m);
         return (await repos.reminders.findById(id, m))!;
       });
       await jobs.enqueueReminders([row]);
-      const [named] = row.infant_id ? await ds.query(`SELECT given_name || ' ' || family_name AS name FROM infants WHERE id = $1`, [row.infant_id]) : [];
+      const named = row.infant_id ? await repos.infants.fullName(row.infant_id) : undefined;
       return toDto({ ...row, infant_name: named?.name ?? null });
     },
 
@@ -58,12 +58,12 @@ export function createMessagesService(ds: DataSource, repos: AppRepos, jobs: Job
         if (!r || !ability.can('read', subject('Message', { programmeId: r.programme_id } as Record<string, unknown>))) throw new NotFoundError('No such message in your programme.');
         if (!ability.can('update', subject('Message', { programmeId: r.programme_id } as Record<string, unknown>))) throw new ForbiddenError('You cannot settle messages.');
         if (r.status !== 'unknown') throw new ConflictError(`Only a message whose outcome is unknown can be marked as arrived (this one is ${r.status}).`);
-        await m.query(`UPDATE deliveries SET state = 'sent', finished_at = now() WHERE reminder_id = $1`, [id]);
+        await repos.reminders.markDeliveryArrived(id, m);
         await repos.reminders.update(id, { status: 'sent', reason: null, sent_at: new Date() }, m);
         await repos.audit.append({ programmeId: r.programme_id, actorId: actor.id, action: 'message.confirmed-arrived', entityType: r.infant_id ? 'infant' : 'message', entityId: r.infant_id ?? r.id, ip: actor.ip, details: { messageId: r.id, template: r.template } }, m);
         return (await repos.reminders.findById(id, m))!;
       });
-      const [named] = row.infant_id ? await ds.query(`SELECT given_name || ' ' || family_name AS name FROM infants WHERE id = $1`, [row.infant_id]) : [];
+      const named = row.infant_id ? await repos.infants.fullName(row.infant_id) : undefined;
       return toDto({ ...row, infant_name: named?.name ?? null });
     },
   };

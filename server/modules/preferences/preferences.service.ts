@@ -1,7 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { Preferences, UpdatePreferencesInput } from '../../../shared/schemas/preferences';
 import type { FamilyContactEntity } from '../../db/entities/family-contact.entity';
-import { FamilyContactEntity as ContactEntity } from '../../db/entities/family-contact.entity';
 import type { AppRepos } from '../../deps';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
@@ -19,8 +18,7 @@ const toDto = (c: FamilyContactEntity, country: string): Preferences => ({
  * applies to all of them, so the programme never holds two versions of the same person's wishes.
  */
 export function createPreferencesService(ds: DataSource, repos: AppRepos) {
-  const mine = (userId: string, m = ds.manager) =>
-    m.getRepository(ContactEntity).find({ where: { userId }, order: { position: 'ASC', createdAt: 'ASC' } });
+  const mine = (userId: string) => repos.contacts.listForUser(userId);
 
   return {
     async get(userId: string): Promise<Preferences> {
@@ -31,8 +29,7 @@ export function createPreferencesService(ds: DataSource, repos: AppRepos) {
 
     async update(actor: Actor, input: UpdatePreferencesInput): Promise<Preferences> {
       return ds.transaction(async (m) => {
-        const rows = await m.getRepository(ContactEntity).createQueryBuilder('c').setLock('pessimistic_write')
-          .where('c.user_id = :userId', { userId: actor.id }).orderBy('c.position', 'ASC').addOrderBy('c.created_at', 'ASC').getMany();
+        const rows = await repos.contacts.lockForUser(actor.id, m);
         if (rows.length === 0) throw new NotFoundError('There is no family contact record for this account.');
         if (rows[0].rowVersion !== input.rowVersion) throw new ConflictError('Your details were changed elsewhere meanwhile. Reload and try again.');
         const before = Object.fromEntries(EDITABLE.map((k) => [k, rows[0][k]]));
@@ -40,7 +37,7 @@ export function createPreferencesService(ds: DataSource, repos: AppRepos) {
         const changed = EDITABLE.filter((k) => before[k] !== after[k]);
         for (const c of rows) {
           Object.assign(c, after, { rowVersion: c.rowVersion + 1 });
-          await m.getRepository(ContactEntity).save(c);
+          await repos.contacts.saveEntity(c, m);
           await repos.audit.append({
             programmeId: c.programmeId, actorId: actor.id, action: 'contact.preferences_changed', entityType: 'infant', entityId: c.infantId, ip: actor.ip,
             // Which fields changed and the switches' new values; addresses themselves are not copied into the audit trail.
@@ -49,11 +46,7 @@ export function createPreferencesService(ds: DataSource, repos: AppRepos) {
         }
         // The family's own number, now read (E.164): a flag raised for an unreadable old one is settled for each
         // baby whose contacts are all readable now.
-        await m.query(
-          `UPDATE infants i SET flags = array_remove(i.flags, 'number_unreadable')
-            WHERE i.id = ANY($1::uuid[]) AND 'number_unreadable' = ANY(i.flags)
-              AND NOT EXISTS (SELECT 1 FROM family_contacts c WHERE c.infant_id = i.id AND c.mobile IS NOT NULL AND c.mobile !~ '^\\+[1-9][0-9]{6,14}$')`,
-          [rows.map((c) => c.infantId)]);
+        await repos.infants.clearUnreadableNumberFlagWhereAllReadable(rows.map((c) => c.infantId), m);
         return toDto(rows[0], (await repos.policies.current(rows[0].programmeId, m)).settings.country);
       });
     },

@@ -50,7 +50,7 @@ async function summarise(repos: AppRepos, recordingId: string, programmeId: stri
  * decided on the evidence of their time, which the audit trail keeps.
  */
 export async function reanalyseRecording(ds: DataSource, repos: AppRepos, recordingId: string): Promise<AnalyseOutcome> {
-  const [row] = await ds.query(`SELECT programme_id, status, analysis_version FROM recordings WHERE id = $1`, [recordingId]);
+  const row = await repos.recordings.analysisState(recordingId);
   if (!row) return 'missing';
   if (row.status !== 'done' || row.analysis_version === OXIMETRY_ANALYSIS_VERSION) return 'skipped';
   return storeSummary(ds, repos, recordingId, await summarise(repos, recordingId, row.programme_id), 'done');
@@ -70,13 +70,13 @@ async function storeSummary(ds: DataSource, repos: AppRepos, recordingId: string
       failureReason: null, analysedAt: now, statusAt: now,
     });
     await repos.recordings.save(r, m);
-    await m.query(`INSERT INTO recording_analyses (recording_id, analysis_version, summary, events, analysed_at) VALUES ($1, $2, $3, $4, $5)`, [
-      r.id, s.version, JSON.stringify({
+    await repos.recordings.insertAnalysis({
+      recordingId: r.id, version: s.version, summary: {
         validMinutes: s.validMinutes, meanSpo2: s.meanSpo2, medianSpo2: s.medianSpo2, minSpo2: s.minSpo2, pctBelow90: s.percentTimeBelow90,
         pctBelow92: s.percentTimeBelow92, pctBelow93: s.percentTimeBelow93, odi3: s.odi3PerHour, odi4: s.odi4PerHour, meanPulse: s.meanPulse,
         judged: s.judged, minEventSeconds: s.minEventSeconds, minValidMinutes: s.minValidMinutes,
-      }), JSON.stringify(s.odi3Events), now,
-    ]);
+      }, events: s.odi3Events, analysedAt: now,
+    }, m);
     await repos.audit.append(
       {
         programmeId: r.programmeId, actorId: null, action: from === 'done' ? 'recording.reanalysed' : 'recording.analysed', entityType: 'infant', entityId: r.infantId,

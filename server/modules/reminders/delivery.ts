@@ -62,7 +62,7 @@ export function createDelivery(deps: DeliveryDeps) {
   /** Where and how this message goes now: consent, opt-out and addresses are read at send time, not at booking. */
   async function resolveRecipient(r: ReminderRow, m: EntityManager): Promise<{ channel: Channel; address: string; name: string; language: string; timeZone: string } | { skip: string }> {
     if (r.contact_id) {
-      const [c] = await m.query(`SELECT * FROM family_contacts WHERE id = $1`, [r.contact_id]);
+      const c = await repos.reminderContent.familyContact(r.contact_id, m);
       if (!c) return { skip: 'no-longer-needed' };
       const choice = chooseChannel(
         { preferredChannel: c.preferred_channel, consentSms: c.consent_sms, consentEmail: c.consent_email, mobile: c.mobile, email: c.email, remindersEnabled: c.reminders_enabled },
@@ -72,7 +72,7 @@ export function createDelivery(deps: DeliveryDeps) {
       return { ...choice, name: c.name, language: c.language, timeZone: c.time_zone };
     }
     if (r.user_id) {
-      const [u] = await m.query(`SELECT name, email, disabled FROM users WHERE id = $1`, [r.user_id]);
+      const u = await repos.reminderContent.staffRecipient(r.user_id, m);
       if (!u || u.disabled) return { skip: 'no-longer-needed' };
       return { channel: 'email', address: u.email, name: u.name, language: 'en', timeZone: r.time_zone };
     }
@@ -110,8 +110,8 @@ export function createDelivery(deps: DeliveryDeps) {
         await repos.reminders.update(id, { send_at: later }, m);
         return 'held-quiet-hours';
       }
-      const [programme] = await m.query(`SELECT name FROM programmes WHERE id = $1`, [r.programme_id]);
-      const view = await messageView({ reminder: { ...r, recipient_name: to.name }, language: to.language, programmeName: programme.name, settings, now }, m);
+      const programme = await repos.reminderContent.programmeName(r.programme_id, m);
+      const view = await messageView({ reminder: { ...r, recipient_name: to.name }, language: to.language, programmeName: programme.name, settings, now }, repos.reminderContent, m);
       if (!view) return skip('nothing-to-send');
       const message = renderMessage(r.template, to.channel, to.language, view);
 
@@ -150,7 +150,7 @@ export function createDelivery(deps: DeliveryDeps) {
         await repos.reminders.update(c.reminder.id, { status: 'unknown', reason: 'outcome-unknown', last_error: error }, m);
       }
       if (!c.reminder.contact_id) return [];
-      const [infant] = c.reminder.infant_id ? await m.query(`SELECT given_name FROM infants WHERE id = $1`, [c.reminder.infant_id]) : [];
+      const infant = c.reminder.infant_id ? await repos.reminderContent.infantGivenName(c.reminder.infant_id, m) : undefined;
       return addToFailureAlerts(repos, m, c.reminder, {
         reminderId: c.reminder.id, outcome, familyName: c.reminder.recipient_name, babyName: infant?.given_name ?? '', template: c.reminder.template,
         channel: c.channel, address: c.address, error, at: now.toISOString(),

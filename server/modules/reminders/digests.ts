@@ -12,7 +12,7 @@ export const DIGEST_LAST_USEFUL_TIME = '12:00';
  * repeat run, or a second worker, a no-op. Whether a digest has anything in it is decided when it is sent.
  */
 export async function planDigests(ds: DataSource, repos: AppRepos, now = new Date()): Promise<Array<{ id: string; send_at: Date; status: string }>> {
-  const programmes: Array<{ id: string; time_zone: string }> = await ds.query(`SELECT id, time_zone FROM programmes`);
+  const programmes = await repos.reminderContent.programmeZones();
   const created: Array<{ id: string; send_at: Date; status: string }> = [];
   for (const p of programmes) {
     const { date, time } = localParts(now, p.time_zone);
@@ -21,14 +21,7 @@ export async function planDigests(ds: DataSource, repos: AppRepos, now = new Dat
     const sendAt = outsideQuietHours(instantAtOrAfter(date, settings.reminders.staffDigestAt, p.time_zone), p.time_zone, settings.reminders);
     const notAfter = instantAtOrAfter(date, DIGEST_LAST_USEFUL_TIME, p.time_zone);
     const waitingSince = new Date(now.getTime() - settings.reminders.signOffWaitingHours * 3_600_000);
-    const people: Array<{ id: string; name: string; email: string; role: 'nurse' | 'consultant' }> = await ds.query(
-      `SELECT u.id, u.name, u.email, u.role FROM users u
-        WHERE u.programme_id = $1 AND NOT u.disabled
-          AND (u.role = 'nurse' OR (u.role = 'consultant' AND (
-            EXISTS (SELECT 1 FROM prescriptions rx WHERE rx.programme_id = $1 AND rx.status = 'proposed' AND COALESCE(rx.computed_at, rx.created_at) <= $2)
-            OR EXISTS (SELECT 1 FROM journeys j WHERE j.programme_id = $1 AND j.status = 'waiting' AND j.created_at <= $2))))`,
-      [p.id, waitingSince],
-    );
+    const people = await repos.reminderContent.digestRecipients(p.id, waitingSince);
     const rows: NewReminder[] = people.map((u) => ({
       programmeId: p.id, template: u.role === 'nurse' ? 'nurse-digest' : 'consultant-digest', userId: u.id, recipientName: u.name,
       channel: 'email', toAddress: u.email, timeZone: p.time_zone, data: { date }, sendAt, notAfter,

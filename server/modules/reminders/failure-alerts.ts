@@ -29,16 +29,15 @@ export function alertPeriod(now: Date, minutes: number, ahead = 0): { index: num
  * period's alert instead, so nothing is lost and nothing is listed twice. Returns the alert rows to enqueue.
  */
 export async function addToFailureAlerts(
-  repos: Pick<AppRepos, 'reminders'>,
+  repos: Pick<AppRepos, 'reminders' | 'reminderContent'>,
   m: EntityManager,
   r: { programme_id: string; infant_id: string | null },
   item: FailureItem,
   settings: PolicySettings,
   now: Date,
 ): Promise<Array<{ id: string; send_at: Date }>> {
-  const coordinators: Array<{ id: string; name: string; email: string }> = await m.query(
-    `SELECT id, name, email FROM users WHERE programme_id = $1 AND role = 'coordinator' AND NOT disabled ORDER BY id`, [r.programme_id]);
-  const [programme] = await m.query(`SELECT time_zone FROM programmes WHERE id = $1`, [r.programme_id]);
+  const coordinators = await repos.reminderContent.activeCoordinators(r.programme_id, m);
+  const programme = await repos.reminderContent.programmeTimeZone(r.programme_id, m);
   const rows: Array<{ id: string; send_at: Date }> = [];
   for (const u of coordinators) {
     for (let ahead = 0; ahead < 3; ahead += 1) {

@@ -1,9 +1,10 @@
 import type { EntityManager } from 'typeorm';
 import { PRESCRIPTION_REASON_LABELS, type PrescriptionReason } from '../../../shared/schemas/prescriptions';
-import { CHECK_KIND_LABELS, type CheckKind } from '../../../shared/schemas/schedule';
+import { CHECK_KIND_LABELS } from '../../../shared/schemas/schedule';
 import { MESSAGE_TEMPLATE_LABELS, type MessageTemplate } from '../../../shared/schemas/messages';
 import type { PolicySettings } from '../../../shared/schemas/policy';
 import { formatPhone } from '../../../shared/phone/phone';
+import type { ReminderContentRepository } from '../../db/repositories/reminder-content.repository';
 import type { ReminderRow } from '../../db/repositories/reminders.repository';
 
 const KIND_LABELS: Record<string, Record<string, string>> = {
@@ -35,7 +36,7 @@ export interface ContentContext {
  * The values a template is filled with, read when the message goes (a digest lists what is due at that moment).
  * Null means there is nothing to say any more, and the message is skipped.
  */
-export async function messageView(ctx: ContentContext, m: EntityManager): Promise<Record<string, unknown> | null> {
+export async function messageView(ctx: ContentContext, content: ReminderContentRepository, m: EntityManager): Promise<Record<string, unknown> | null> {
   const { reminder: r, language } = ctx;
   const d = r.data as Record<string, string | boolean | number>;
   const common = {
@@ -69,19 +70,8 @@ export async function messageView(ctx: ContentContext, m: EntityManager): Promis
     }
     case 'nurse-digest': {
       const today = String(d.date);
-      const checks: Array<{ kind: CheckKind; due_date: string; status: string; given_name: string; family_name: string; home_address: string }> = await m.query(
-        `SELECT c.kind, to_char(c.due_date, 'YYYY-MM-DD') AS due_date, c.status, i.given_name, i.family_name, i.home_address
-           FROM checks c JOIN infants i ON i.id = c.infant_id
-          WHERE i.nurse_id = $1 AND i.programme_id = $2 AND c.status IN ('planned','overdue') AND c.due_date <= $3
-          ORDER BY c.due_date, i.family_name LIMIT 100`,
-        [r.user_id, r.programme_id, today],
-      );
-      const visits: Array<{ local_time: string; kind: string; purpose: string; given_name: string; family_name: string; home_address: string }> = await m.query(
-        `SELECT v.local_time, v.kind, v.purpose, i.given_name, i.family_name, i.home_address
-           FROM visits v JOIN infants i ON i.id = v.infant_id
-          WHERE v.staff_id = $1 AND v.programme_id = $2 AND v.status = 'booked' AND v.local_date = $3 ORDER BY v.starts_at LIMIT 50`,
-        [r.user_id, r.programme_id, today],
-      );
+      const checks = await content.nurseDigestChecks(r.user_id, r.programme_id, today, m);
+      const visits = await content.nurseDigestVisits(r.user_id, r.programme_id, today, m);
       if (checks.length === 0 && visits.length === 0) return null;
       return {
         ...common, dateText: plainDateText(today, 'en'), checkCount: checks.length, visitCount: visits.length,
@@ -95,17 +85,7 @@ export async function messageView(ctx: ContentContext, m: EntityManager): Promis
     case 'consultant-digest': {
       const hours = ctx.settings.reminders.signOffWaitingHours;
       // Proposed settings and journey checks alike wait for a consultant's decision.
-      const items: Array<{ given_name: string; family_name: string; reason: string | null; proposed_flow_lpm: string | null; destination: string | null; since: Date }> = await m.query(
-        `SELECT i.given_name, i.family_name, p.reason, p.proposed_flow_lpm, NULL AS destination, COALESCE(p.computed_at, p.created_at) AS since
-           FROM prescriptions p JOIN infants i ON i.id = p.infant_id
-          WHERE p.programme_id = $1 AND p.status = 'proposed' AND COALESCE(p.computed_at, p.created_at) <= $2
-         UNION ALL
-         SELECT i.given_name, i.family_name, NULL, NULL, j.destination_name, j.created_at
-           FROM journeys j JOIN infants i ON i.id = j.infant_id
-          WHERE j.programme_id = $1 AND j.status = 'waiting' AND j.created_at <= $2
-          ORDER BY since LIMIT 100`,
-        [r.programme_id, new Date(ctx.now.getTime() - hours * 3_600_000)],
-      );
+      const items = await content.consultantDigestItems(r.programme_id, new Date(ctx.now.getTime() - hours * 3_600_000), m);
       if (items.length === 0) return null;
       return {
         ...common, count: items.length, waitingHours: hours,

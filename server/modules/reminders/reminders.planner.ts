@@ -36,8 +36,8 @@ function familyRow(c: FamilyContactEntity, template: MessageTemplate, kind: 'rem
  */
 export function createReminderPlanner(repos: AppRepos) {
   async function visitData(v: VisitFacts, m: EntityManager) {
-    const [infant] = await m.query(`SELECT given_name FROM infants WHERE id = $1`, [v.infantId]);
-    const [staff] = await m.query(`SELECT name FROM users WHERE id = $1`, [v.staffId]);
+    const infant = await repos.reminderContent.infantGivenName(v.infantId, m);
+    const staff = await repos.reminderContent.staffName(v.staffId, m);
     return {
       babyName: infant?.given_name ?? '', kind: v.kind, startsAt: v.startsAt.toISOString(), date: v.localDate, time: v.localTime,
       timeZone: v.timeZone, staffName: staff?.name ?? '', purpose: v.purpose,
@@ -101,10 +101,9 @@ export function createReminderPlanner(repos: AppRepos) {
      * digest morning after the waiting time has passed. What the digest lists is read when it is sent.
      */
     async proposalWaiting(programmeId: string, createdAt: Date, settings: PolicySettings, m: EntityManager) {
-      const [programme] = await m.query(`SELECT time_zone FROM programmes WHERE id = $1`, [programmeId]);
+      const programme = await repos.reminderContent.programmeTimeZone(programmeId, m);
       const tz: string = programme.time_zone;
-      const consultants: Array<{ id: string; name: string; email: string }> = await m.query(
-        `SELECT id, name, email FROM users WHERE programme_id = $1 AND role = 'consultant' AND NOT disabled`, [programmeId]);
+      const consultants = await repos.reminderContent.activeConsultants(programmeId, m);
       const waitedBy = new Date(createdAt.getTime() + settings.reminders.signOffWaitingHours * 3_600_000);
       const local = localParts(waitedBy, tz);
       let day = local.date;

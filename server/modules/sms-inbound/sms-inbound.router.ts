@@ -38,15 +38,7 @@ export function smsInboundRouter(opts: { ds: DataSource; repos: AppRepos; logger
     if (STOP_WORDS.has(word)) {
       const from = smsNumber(parsed.data.From);
       await opts.ds.transaction(async (m) => {
-        // Wrapped in a SELECT: TypeORM answers a bare UPDATE … RETURNING with [rows, rowCount], not the rows.
-        const rows: Array<{ id: string; infant_id: string; programme_id: string }> = await m.query(
-          `WITH stopped AS (
-             UPDATE family_contacts SET consent_sms = false, row_version = row_version + 1, updated_at = now()
-              WHERE mobile IS NOT NULL AND regexp_replace(mobile, '[^0-9+]', '', 'g') = $1 AND consent_sms
-              RETURNING id, infant_id, programme_id)
-           SELECT id, infant_id, programme_id FROM stopped`,
-          [from],
-        );
+        const rows = await opts.repos.contacts.stopSmsForNumber(from, m);
         for (const c of rows) {
           await opts.repos.audit.append({
             programmeId: c.programme_id, actorId: null, action: 'contact.sms_stopped', entityType: 'infant', entityId: c.infant_id,

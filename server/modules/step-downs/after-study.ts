@@ -17,10 +17,8 @@ export async function afterStudy(ds: DataSource, repos: AppRepos, recordingId: s
       // Too short to judge: the planned study stays open and says a repeat is needed (the nurse's day shows it).
       const hours = hoursOneDecimal(r.minValidMinutes ?? DEFAULT_MIN_VALID_MINUTES);
       const when = (r.startedAt ?? r.uploadedAt).toISOString().slice(0, 10);
-      await m.query(`UPDATE checks SET note = $2, updated_at = now() WHERE id = $1`, [
-        open.id, `Repeat needed: the recording of ${when} had less than ${hours} hours of valid time, too short to judge.`,
-      ]);
-    } else if (open && !(await m.query(`SELECT 1 FROM checks WHERE done_ref = $1`, [`recording:${r.id}`])).length) {
+      await repos.checks.setNote(open.id, `Repeat needed: the recording of ${when} had less than ${hours} hours of valid time, too short to judge.`, m);
+    } else if (open && !(await repos.checks.isDoneRefUsed(`recording:${r.id}`, m))) {
       await repos.checks.complete(open, r.uploadedBy, `recording:${r.id}`, m);
     }
     return r;

@@ -8,9 +8,6 @@ import type { AppRepos } from '../../deps';
 
 const READINGS_SHOWN = 10;
 
-interface StudyRow {
-  id: string; recorded_at: Date; valid_minutes: number; mean_spo2: number | null; pct_below_90: number | null; odi3: number | null; odi4: number | null;
-}
 
 /**
  * Everything the step-down rules look at, read in one place so the nurse's form, the server's check and the
@@ -19,11 +16,7 @@ interface StudyRow {
 export async function gatherStepDownEvidence(
   repos: AppRepos, infant: InfantEntity, active: PrescriptionEntity | null, policy: PolicySettings, now: Date, m: EntityManager,
 ): Promise<{ checks: RuleCheck[]; evidence: Omit<StepDownEvidence, 'checks' | 'requestedBy' | 'reason' | 'overrideReason' | 'kind' | 'label'> }> {
-  const [study] = (await m.query(
-    `SELECT id, coalesce(started_at, uploaded_at) AS recorded_at, valid_minutes, mean_spo2, pct_below_90, odi3, odi4
-       FROM recordings WHERE infant_id = $1 AND status = 'done' ORDER BY coalesce(started_at, uploaded_at) DESC LIMIT 1`,
-    [infant.id],
-  )) as StudyRow[];
+  const study = await repos.recordings.latestDoneStudy(infant.id, m);
   const since = new Date(now.getTime() - Math.max(policy.stepDown.readingsWithinDays, 14) * 86_400_000);
   const readings = (await repos.readings.between(infant.id, since, now)).sort((a, b) => b.takenAt.getTime() - a.takenAt.getTime());
   const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));

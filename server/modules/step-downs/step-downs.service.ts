@@ -133,9 +133,9 @@ export function createStepDownsService(ds: DataSource, repos: AppRepos) {
           return openStepProposal(repos, infant, active, { reason: 'leave_programme', flowLpm: 0, periods: null, evidence: { ...evidence, observedDays: Math.floor(observedDays) } }, null, m);
         }
         if (!target.met && active.reason === 'step_down') {
-          const previous = await m.query(`SELECT approved_flow_lpm, periods FROM prescriptions WHERE infant_id = $1 AND status = 'superseded' AND approved_flow_lpm > 0 ORDER BY version DESC LIMIT 1`, [infantId]);
-          if (!previous.length) return null;
-          return openStepProposal(repos, infant, active, { reason: 'step_up', flowLpm: Number(previous[0].approved_flow_lpm), periods: previous[0].periods, evidence }, null, m);
+          const previous = await repos.prescriptions.lastSupersededWithFlow(infantId, m);
+          if (!previous) return null;
+          return openStepProposal(repos, infant, active, { reason: 'step_up', flowLpm: Number(previous.approved_flow_lpm), periods: previous.periods, evidence }, null, m);
         }
         const daysOnSetting = (study.recordedAt.getTime() - active.decidedAt.getTime()) / 86_400_000;
         if (!target.met || (active.approvedFlowLpm ?? 0) <= 0 || daysOnSetting < policy.settings.stepDown.minDaysBetweenStepDowns - 2) return null;
