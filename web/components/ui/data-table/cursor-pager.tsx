@@ -1,6 +1,5 @@
 import { Button } from '../button';
-
-const PAGE_SIZES = [10, 25, 50, 100];
+import { PageSizeSelect } from './page-size-select';
 
 interface CursorPagerProps {
   page: number;
@@ -23,23 +22,13 @@ interface CursorPagerProps {
 export function CursorPager({ page, pageSize, total, estimate, nextCursor, prevCursor, noun, onPage, onPageSize }: CursorPagerProps) {
   const pages = Math.max(1, Math.ceil(total / pageSize));
   const about = estimate ? 'about ' : '';
-  const sizes = PAGE_SIZES.includes(pageSize) ? PAGE_SIZES : [...PAGE_SIZES, pageSize].sort((a, b) => a - b);
   return (
     <nav aria-label="Pages" className="flex flex-wrap items-center justify-between gap-3">
       <p className="text-ink-700">
         Page {page} of {about}{pages.toLocaleString('en-GB')} · {about}{total.toLocaleString('en-GB')} {total === 1 && !estimate ? noun.one : noun.other}
       </p>
       <div className="flex flex-wrap items-center gap-2">
-        <label className="flex items-center gap-2 text-sm text-ink-700">
-          Rows per page
-          <select value={pageSize} onChange={(event) => onPageSize(Number(event.target.value))} className="min-h-9 rounded-lg border border-surface-300 bg-surface-0 px-2">
-            {sizes.map((size) => (
-              <option key={size} value={size}>
-                {size}
-              </option>
-            ))}
-          </select>
-        </label>
+        <PageSizeSelect value={pageSize} onChange={onPageSize} />
         <Button
           variant="secondary"
           size="sm"

@@ -1,3 +1,4 @@
+import { Fact } from '../../../components/ui/fact';
 import { Link } from 'react-router-dom';
 import { INFANT_STATUS_LABELS, type InfantSummary, type ListInfantsQuery } from '../../../../shared/schemas/infants';
 import { Badge } from '../../../components/ui/badge';
@@ -23,15 +24,6 @@ export function CaseloadSortChoice({ query, update }: { query: ListInfantsQuery;
         {SORT_CHOICES.map(([value, label]) => <option key={value} value={value}>{label}</option>)}
       </select>
     </label>
-  );
-}
-
-function Fact({ label, children }: { label: string; children: React.ReactNode }) {
-  return (
-    <div className="flex flex-col">
-      <dt className="text-sm text-ink-700">{label}</dt>
-      <dd className="font-semibold text-ink-900">{children}</dd>
-    </div>
   );
 }
 

@@ -1,3 +1,4 @@
+import { Fact } from '../../../components/ui/fact';
 import { PageHeading } from '../../../components/ui/page-heading';
 import { INFANT_STATUS_LABELS, type InfantDetail } from '../../../../shared/schemas/infants';
 import { settingText } from '../../../components/clinical/setting-text';
@@ -5,15 +6,6 @@ import { Badge } from '../../../components/ui/badge';
 import { STATUS_TONES } from './caseload-columns';
 import { FlagList } from './flag-badge';
 import { formatDate, homePlaceText } from './record-format';
-
-function Fact({ label, children }: { label: string; children: React.ReactNode }) {
-  return (
-    <div className="flex flex-col">
-      <dt className="text-sm text-ink-500">{label}</dt>
-      <dd className="font-semibold text-ink-900">{children}</dd>
-    </div>
-  );
-}
 
 export function InfantHeader({ infant }: { infant: InfantDetail }) {
   const setting = infant.activeSetting;
