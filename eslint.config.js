@@ -45,7 +45,8 @@ export default tseslint.config(
     plugins: { boundaries },
     settings: {
       'boundaries/elements': tiers,
-      'import/resolver': { node: { extensions: ['.ts', '.tsx', '.js', '.mjs'] } },
+      // @shared/* (tsconfig.json paths) and relative imports both resolve to the tier they point at.
+      'import/resolver': { typescript: { project: './tsconfig.json' }, node: { extensions: ['.ts', '.tsx', '.js', '.mjs'] } },
     },
     rules: {
       'boundaries/dependencies': ['error', {

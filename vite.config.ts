@@ -20,6 +20,7 @@ export default defineConfig({
   root,
   publicDir: 'web/public',
   plugins: [react(), tailwindcss()],
+  resolve: { tsconfigPaths: true },
   server: {
     port: 5173,
     strictPort: true,

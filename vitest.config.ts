@@ -6,6 +6,7 @@ export default defineConfig({
   test: {
     projects: [
       {
+        resolve: { tsconfigPaths: true },
         test: {
           name: 'shared',
           environment: 'node',
@@ -15,6 +16,7 @@ export default defineConfig({
         },
       },
       {
+        resolve: { tsconfigPaths: true },
         test: {
           name: 'api',
           environment: 'node',
@@ -27,6 +29,7 @@ export default defineConfig({
       },
       {
         plugins: [react()],
+        resolve: { tsconfigPaths: true },
         test: {
           name: 'web',
           environment: 'jsdom',
@@ -35,6 +38,7 @@ export default defineConfig({
         },
       },
       {
+        resolve: { tsconfigPaths: true },
         test: {
           name: 'e2e',
           environment: 'node',

@@ -3,6 +3,8 @@ import { defineConfig } from 'vitest/config';
 // The `shared` project of vitest.config.ts alone (keep the two in step), for `npm run mutate` (stryker.config.json):
 // pure code, no database, browser or jsdom.
 export default defineConfig({
+  // @shared/* from tsconfig.json, resolved in the sandbox Stryker copies the project into (so mutants are what runs).
+  resolve: { tsconfigPaths: true },
   test: {
     name: 'shared',
     environment: 'node',

@@ -1,7 +1,7 @@
 // Speed of the pure clinical core (docs/service-targets.md P4: analysis of 24 h at 1 Hz in well under 1 s of CPU).
 // Prints figures only; never fails on a number.
-import { summariseOximetry } from '../shared/clinical/oximetry';
-import { convertPrescription } from '../shared/clinical/conversion';
+import { summariseOximetry } from '@shared/clinical/oximetry';
+import { convertPrescription } from '@shared/clinical/conversion';
 import { buildNoisyTrace } from '../tests/shared/clinical/helpers/synthetic-oximetry';
 
 function median(values: number[]) {

@@ -4,9 +4,9 @@
 import { createHash } from 'node:crypto';
 import pg from 'pg';
 import { parse as csvParseSync } from 'csv-parse/sync';
-import { summariseOximetry } from '../shared/clinical/oximetry';
-import { parseRecordingCsv } from '../shared/recordings/recording-parser';
-import { decodeSamples, encodeSamples, type EncodedSamples } from '../shared/recordings/sample-codec';
+import { summariseOximetry } from '@shared/clinical/oximetry';
+import { parseRecordingCsv } from '@shared/recordings/recording-parser';
+import { decodeSamples, encodeSamples, type EncodedSamples } from '@shared/recordings/sample-codec';
 import { buildNoisyTrace } from '../tests/shared/clinical/helpers/synthetic-oximetry';
 
 const DATABASE_URL = process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/nestflow';

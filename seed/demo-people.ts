@@ -1,4 +1,4 @@
-import type { Role } from '../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 
 // Fictional programmes and people of the demo scenario (see the product brief). Demo only.
 export const DEMO_PASSWORD = 'nestflow-demo';

@@ -1,4 +1,4 @@
-import { ROLE_LABELS } from '../shared/auth/roles';
+import { ROLE_LABELS } from '@shared/auth/roles';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people';
 
 console.log(`  Demo sign-ins (demo data only), password for all: ${DEMO_PASSWORD}`);

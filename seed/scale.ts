@@ -1,6 +1,6 @@
 import type { AppDeps } from '../server/deps';
 import { hashPassword } from '../server/auth/passwords';
-import { DEFAULT_POLICY_SETTINGS } from '../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
 
 // `npm run seed -- --scale N`: a fictional data set for the scale benchmarks, loaded with bulk SQL (generate_series),
 // deterministic (ids and values derive from the row number). Several programmes: one of N babies, one of N/10 and

@@ -1,6 +1,6 @@
-import { defineAbilityFor } from '../shared/auth/ability';
-import { addDays } from '../shared/clinical/dates';
-import type { EnrolInfantInput } from '../shared/schemas/infants';
+import { defineAbilityFor } from '@shared/auth/ability';
+import { addDays } from '@shared/clinical/dates';
+import type { EnrolInfantInput } from '@shared/schemas/infants';
 import type { AppDeps } from '../server/deps';
 import { todayIn } from '../server/lib/dates';
 import type { Actor } from '../server/lib/http';

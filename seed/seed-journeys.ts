@@ -1,6 +1,6 @@
-import { defineAbilityFor, type AbilityUser } from '../shared/auth/ability';
-import { addDays } from '../shared/clinical/dates';
-import { localParts } from '../shared/reminders/timing';
+import { defineAbilityFor, type AbilityUser } from '@shared/auth/ability';
+import { addDays } from '@shared/clinical/dates';
+import { localParts } from '@shared/reminders/timing';
 import type { AppDeps } from '../server/deps';
 import { createJourneysService } from '../server/modules/journeys/journeys.service';
 

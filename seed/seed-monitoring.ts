@@ -1,4 +1,4 @@
-import { defineAbilityFor } from '../shared/auth/ability';
+import { defineAbilityFor } from '@shared/auth/ability';
 import type { AppDeps } from '../server/deps';
 import { createReadingsService } from '../server/modules/readings/readings.service';
 import { storeUpload } from '../server/modules/recordings/upload';

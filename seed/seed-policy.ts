@@ -1,4 +1,4 @@
-import { DEFAULT_POLICY_SETTINGS } from '../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
 import type { AppDeps } from '../server/deps';
 
 /**

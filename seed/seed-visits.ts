@@ -1,6 +1,6 @@
-import { defineAbilityFor } from '../shared/auth/ability';
-import { addDays } from '../shared/clinical/dates';
-import { localParts } from '../shared/reminders/timing';
+import { defineAbilityFor } from '@shared/auth/ability';
+import { addDays } from '@shared/clinical/dates';
+import { localParts } from '@shared/reminders/timing';
 import type { AppDeps } from '../server/deps';
 import { createVisitsService } from '../server/modules/visits/visits.service';
 

@@ -1,5 +1,5 @@
-import { defineAbilityFor } from '../shared/auth/ability';
-import { addDays } from '../shared/clinical/dates';
+import { defineAbilityFor } from '@shared/auth/ability';
+import { addDays } from '@shared/clinical/dates';
 import type { AppDeps } from '../server/deps';
 import { todayIn } from '../server/lib/dates';
 import { createJourneysService } from '../server/modules/journeys/journeys.service';

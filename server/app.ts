@@ -3,7 +3,7 @@ import helmet from 'helmet';
 import path from 'node:path';
 import fs from 'node:fs';
 import compression from 'compression';
-import { defineAbilityFor } from '../shared/auth/ability';
+import { defineAbilityFor } from '@shared/auth/ability';
 import type { AppDeps } from './deps';
 import { createPassport } from './auth/passport';
 import { createCsrf } from './auth/csrf';

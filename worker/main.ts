@@ -7,7 +7,7 @@ import { createJobProducer } from '../server/jobs/producer';
 import { Redis } from 'ioredis';
 import { createLogger, logEvery } from '../server/lib/logger';
 import { beat, HEARTBEAT_EVERY_MS, stopBeating, workerId } from '../server/lib/heartbeat';
-import { JOBS, QUEUES } from '../shared/jobs/catalogue';
+import { JOBS, QUEUES } from '@shared/jobs/catalogue';
 import { redisConnection } from './queues';
 import { pruneSessions } from './processors/prune-sessions.processor';
 import { convertPrescriptionProcessor } from './processors/convert-prescription.processor';

@@ -1,5 +1,5 @@
 import type { Queue } from 'bullmq';
-import { JOBS } from '../shared/jobs/catalogue';
+import { JOBS } from '@shared/jobs/catalogue';
 
 // upsertJobScheduler is idempotent: any number of worker processes starting leaves one schedule each.
 export async function upsertSchedules(maintenance: Queue, opts: { reconcileRemindersMs: number } = { reconcileRemindersMs: 30_000 }): Promise<void> {

@@ -1,6 +1,6 @@
 // A stand-in for a busy worker on the same machine: analyses a 24-hour, 1 Hz overnight trace again and again until
 // it is killed, reporting how many it finished. Used by bench/scale.bench.ts for "p99 while a recording is analysed".
-import { summariseOximetry } from '../../shared/clinical/oximetry';
+import { summariseOximetry } from '@shared/clinical/oximetry';
 import { buildNoisyTrace } from '../../tests/shared/clinical/helpers/synthetic-oximetry';
 
 const day = buildNoisyTrace(86_400);

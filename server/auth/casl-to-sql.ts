@@ -1,5 +1,5 @@
 import { rulesToAST } from '@casl/ability/extra';
-import type { AppAbility, Action, SubjectName } from '../../shared/auth/ability';
+import type { AppAbility, Action, SubjectName } from '@shared/auth/ability';
 
 export interface SqlFilter {
   sql: string;

@@ -1,5 +1,5 @@
 import { Queue, type JobsOptions } from 'bullmq';
-import { JOBS, QUEUES, conversionJobId, planDedupId, recordingJobId, replanJobId, type JobKey, type JobPayload } from '../../shared/jobs/catalogue';
+import { JOBS, QUEUES, conversionJobId, planDedupId, recordingJobId, replanJobId, type JobKey, type JobPayload } from '@shared/jobs/catalogue';
 import { logEvery, type Logger } from '../lib/logger';
 import { redisOptionsFromUrl } from '../lib/redis-url';
 import { addReminderJobs, type ReminderJobOptions } from './reminder-jobs';

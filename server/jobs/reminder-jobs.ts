@@ -1,5 +1,5 @@
 import type { Queue } from 'bullmq';
-import { JOBS, reminderJobId } from '../../shared/jobs/catalogue';
+import { JOBS, reminderJobId } from '@shared/jobs/catalogue';
 
 export interface ReminderJobOptions {
   attempts: number;

@@ -1,6 +1,6 @@
 import type { Request } from 'express';
 import { subject } from '@casl/ability';
-import type { Action, SubjectName } from '../../shared/auth/ability';
+import type { Action, SubjectName } from '@shared/auth/ability';
 import { ForbiddenError, UnauthenticatedError } from './errors';
 
 export function currentUser(req: Request): Express.User {

@@ -1,7 +1,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import Mustache from 'mustache';
-import type { Channel, MessageTemplate } from '../../shared/schemas/messages';
+import type { Channel, MessageTemplate } from '@shared/schemas/messages';
 
 const DIR = fileURLToPath(new URL('./templates/', import.meta.url));
 const cache = new Map<string, string | null>();

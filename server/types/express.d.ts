@@ -1,5 +1,5 @@
-import type { AppAbility } from '../../shared/auth/ability';
-import type { SessionUser } from '../../shared/schemas/session';
+import type { AppAbility } from '@shared/auth/ability';
+import type { SessionUser } from '@shared/schemas/session';
 
 declare global {
   namespace Express {

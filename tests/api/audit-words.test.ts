@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { auditWords } from '../../shared/audit/audit-words';
+import { auditWords } from '@shared/audit/audit-words';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent, type Agent } from '../helpers/agents';
 import { makeUser } from '../helpers/factories';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { defineAbilityFor } from '../../shared/auth/ability';
+import { defineAbilityFor } from '@shared/auth/ability';
 import { accessibleWhere } from '../../server/auth/casl-to-sql';
 
 const P = '11111111-1111-4111-8111-111111111111';

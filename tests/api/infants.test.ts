@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import type { Role } from '../../shared/auth/roles';
-import { isaPressureMmHg } from '../../shared/clinical/pressure';
+import type { Role } from '@shared/auth/roles';
+import { isaPressureMmHg } from '@shared/clinical/pressure';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent } from '../helpers/agents';
 import { enrolmentBody, makeClinic, runPendingConversions } from '../helpers/infants';

@@ -4,7 +4,7 @@ import { anonymousAgent, signedInAgent } from '../helpers/agents';
 import { makeUser } from '../helpers/factories';
 import { enrolmentBody, makeClinic } from '../helpers/infants';
 import { approvedBaby, post } from '../helpers/approved-baby';
-import { journeyListSchema, journeyResponseSchema } from '../../shared/schemas/journeys';
+import { journeyListSchema, journeyResponseSchema } from '@shared/schemas/journeys';
 
 let ctx: TestContext;
 beforeAll(async () => {

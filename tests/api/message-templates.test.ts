@@ -1,7 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import { describe, expect, it } from 'vitest';
-import { MESSAGE_TEMPLATES, type Channel, type MessageTemplate } from '../../shared/schemas/messages';
-import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '../../shared/schemas/policy';
+import { MESSAGE_TEMPLATES, type Channel, type MessageTemplate } from '@shared/schemas/messages';
+import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '@shared/schemas/policy';
 import { messageView } from '../../server/modules/reminders/message-content';
 import { hasTemplate, renderMessage, templateLanguage } from '../../server/notifications/render';
 import type { ReminderContentRepository } from '../../server/db/repositories/reminder-content.repository';

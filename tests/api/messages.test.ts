@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { localToInstant } from '../../shared/schedule/local-time';
+import { localToInstant } from '@shared/schedule/local-time';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { anonymousAgent, signedInAgent, type Agent } from '../helpers/agents';
 import { enrolmentBody, makeClinic } from '../helpers/infants';

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { adminOverviewSchema, consultantOverviewSchema, coordinatorOverviewSchema } from '../../shared/schemas/overview';
+import { adminOverviewSchema, consultantOverviewSchema, coordinatorOverviewSchema } from '@shared/schemas/overview';
 import { fixedClock } from '../../server/lib/clock';
 import { anonymousAgent, signedInAgent } from '../helpers/agents';
 import { post } from '../helpers/approved-baby';

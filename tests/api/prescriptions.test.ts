@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Role } from '../../shared/auth/roles';
-import { convertPrescription } from '../../shared/clinical/conversion';
+import type { Role } from '@shared/auth/roles';
+import { convertPrescription } from '@shared/clinical/conversion';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent } from '../helpers/agents';
 import { makeUser } from '../helpers/factories';

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import type { Role } from '../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { anonymousAgent, signedInAgent } from '../helpers/agents';
 import { makeUser } from '../helpers/factories';

@@ -1,10 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createHash } from 'node:crypto';
 import { Queue } from 'bullmq';
-import { summariseOximetry, OXIMETRY_ANALYSIS_VERSION, type OximetrySummary } from '../../shared/clinical/oximetry';
-import { JOBS, QUEUES, recordingJobId } from '../../shared/jobs/catalogue';
-import { decodeSamples } from '../../shared/recordings/sample-codec';
-import { recordingSchema, recordingTraceSchema } from '../../shared/schemas/recordings';
+import { summariseOximetry, OXIMETRY_ANALYSIS_VERSION, type OximetrySummary } from '@shared/clinical/oximetry';
+import { JOBS, QUEUES, recordingJobId } from '@shared/jobs/catalogue';
+import { decodeSamples } from '@shared/recordings/sample-codec';
+import { recordingSchema, recordingTraceSchema } from '@shared/schemas/recordings';
 import { analyseRecording } from '../../server/modules/recordings/analyse';
 import { redisConnection } from '../../worker/queues';
 import { createTestContext, type TestContext } from '../helpers/test-app';

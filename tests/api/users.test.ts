@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import type { Role } from '../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { makeProgrammeWithStaff, makeUser } from '../helpers/factories';
 import { signedInAgent } from '../helpers/agents';

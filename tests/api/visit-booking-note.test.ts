@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { localToInstant } from '../../shared/schedule/local-time';
+import { localToInstant } from '@shared/schedule/local-time';
 import type { Clock } from '../../server/lib/clock';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent, type Agent } from '../helpers/agents';

@@ -4,13 +4,13 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { cylinderTime } from '../../shared/clinical/cylinder-time';
-import { addDays } from '../../shared/clinical/dates';
+import { cylinderTime } from '@shared/clinical/cylinder-time';
+import { addDays } from '@shared/clinical/dates';
 import {
   OXYGEN_SAFETY_POINTS, WARNING_SIGNS, emergencyCallText, flowInWords, flowText, periodLines,
-} from '../../shared/family/care-text';
-import { JOURNEY_PERIODS } from '../../shared/schemas/journeys';
-import { homeFlowsOf } from '../../shared/clinical/journey-plan';
+} from '@shared/family/care-text';
+import { JOURNEY_PERIODS } from '@shared/schemas/journeys';
+import { homeFlowsOf } from '@shared/clinical/journey-plan';
 import { axeReport as report, seriousViolations as seriousOn } from '../helpers/a11y';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { addDays } from '../../shared/clinical/dates';
-import { localParts } from '../../shared/reminders/timing';
+import { addDays } from '@shared/clinical/dates';
+import { localParts } from '@shared/reminders/timing';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import type { Role } from '../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 import type { AppDeps } from '../../server/deps';
 import { hashPassword } from '../../server/auth/passwords';
 

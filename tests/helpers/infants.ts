@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import type { EnrolInfantInput } from '../../shared/schemas/infants';
+import type { EnrolInfantInput } from '@shared/schemas/infants';
 import type { AppDeps } from '../../server/deps';
 import { computeProposal } from '../../server/modules/prescriptions/compute-proposal';
 import { makeProgrammeWithStaff } from './factories';

@@ -1,8 +1,8 @@
 import { Queue, Worker } from 'bullmq';
 import { startFakeMail, type FakeMail } from '../../fakes/mail/app';
 import { startFakeSms, type FakeSms } from '../../fakes/sms/app';
-import { QUEUES, reminderJobId } from '../../shared/jobs/catalogue';
-import type { PolicySettings } from '../../shared/schemas/policy';
+import { QUEUES, reminderJobId } from '@shared/jobs/catalogue';
+import type { PolicySettings } from '@shared/schemas/policy';
 import type { AppDeps } from '../../server/deps';
 import { addReminderJobs } from '../../server/jobs/reminder-jobs';
 import { createDelivery, type Delivery } from '../../server/modules/reminders/delivery';

@@ -1,5 +1,5 @@
 import { Queue, QueueEvents, Worker, type Processor } from 'bullmq';
-import { QUEUES } from '../../shared/jobs/catalogue';
+import { QUEUES } from '@shared/jobs/catalogue';
 import { redisConnection } from '../../worker/queues';
 import type { TestContext } from './test-app';
 

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import type { MessageStatus, MessageTemplate } from '../../shared/schemas/messages';
+import type { MessageStatus, MessageTemplate } from '@shared/schemas/messages';
 import type { AppDeps } from '../../server/deps';
 import type { ReminderRow } from '../../server/db/repositories/reminders.repository';
 import { createDelivery } from '../../server/modules/reminders/delivery';

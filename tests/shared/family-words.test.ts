@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { hoursText, journeyCautions, periodLines, spo2TargetText } from '../../shared/family/care-text';
-import { dateInWords, dateTimeInWords, timeInWords } from '../../shared/dates/date-words';
+import { hoursText, journeyCautions, periodLines, spo2TargetText } from '@shared/family/care-text';
+import { dateInWords, dateTimeInWords, timeInWords } from '@shared/dates/date-words';
 
 describe('family words', () => {
   it('when hours are written, then one is singular, others plural, never "hour(s)"', () => {

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { plainText } from '../../shared/schemas/common';
-import { createUserSchema, listUsersQuerySchema } from '../../shared/schemas/users';
-import { createReadingSchema } from '../../shared/schemas/readings';
-import { bookVisitSchema } from '../../shared/schemas/visits';
-import { signInSchema } from '../../shared/schemas/session';
+import { plainText } from '@shared/schemas/common';
+import { createUserSchema, listUsersQuerySchema } from '@shared/schemas/users';
+import { createReadingSchema } from '@shared/schemas/readings';
+import { bookVisitSchema } from '@shared/schemas/visits';
+import { signInSchema } from '@shared/schemas/session';
 
 describe('plainText: the one text contract', () => {
   const line = plainText();

@@ -1,7 +1,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
-import type { Role } from '../../shared/auth/roles';
-import { INFANT_FLAG_LABELS, INFANT_STATUS_LABELS, type InfantSummary } from '../../shared/schemas/infants';
+import type { Role } from '@shared/auth/roles';
+import { INFANT_FLAG_LABELS, INFANT_STATUS_LABELS, type InfantSummary } from '@shared/schemas/infants';
 import { json, sessionHandler, stubApi } from './support/fake-api';
 import { currentUrl, renderApp } from './support/render-app';
 

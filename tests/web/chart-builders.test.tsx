@@ -1,7 +1,7 @@
 import { render, screen } from '@testing-library/react';
 import type uPlot from 'uplot';
 import { describe, expect, it, vi } from 'vitest';
-import type { RecordingTrace } from '../../shared/schemas/recordings';
+import type { RecordingTrace } from '@shared/schemas/recordings';
 import { ReadingsChart } from '../../web/features/charts/components/readings-chart';
 import { PulseTraceChart, pulseRange } from '../../web/features/charts/components/pulse-trace-chart';
 import { Spo2TraceChart } from '../../web/features/charts/components/spo2-trace-chart';

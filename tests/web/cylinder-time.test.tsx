@@ -1,8 +1,8 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { InfantDetail, InfantSummary } from '../../shared/schemas/infants';
-import { DEFAULT_POLICY_SETTINGS, type CylinderType } from '../../shared/schemas/policy';
-import type { Prescription } from '../../shared/schemas/prescriptions';
+import type { InfantDetail, InfantSummary } from '@shared/schemas/infants';
+import { DEFAULT_POLICY_SETTINGS, type CylinderType } from '@shared/schemas/policy';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import { json, PROGRAMME_ID, sessionHandler, stubApi } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

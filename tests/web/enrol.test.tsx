@@ -1,8 +1,8 @@
-import type { EnrolInfantInput } from '../../shared/schemas/infants';
+import type { EnrolInfantInput } from '@shared/schemas/infants';
 import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { convertPrescription } from '../../shared/clinical/conversion';
-import { DEFAULT_POLICY_SETTINGS } from '../../shared/schemas/policy';
+import { convertPrescription } from '@shared/clinical/conversion';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
 import { apiError, json, makeUser, PROGRAMME_ID, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
 import { currentUrl, renderApp } from './support/render-app';
 

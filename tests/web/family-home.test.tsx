@@ -1,10 +1,10 @@
 import { screen, within } from '@testing-library/react';
 import axe from 'axe-core';
 import { describe, expect, it } from 'vitest';
-import { OXYGEN_SAFETY_POINTS, WARNING_SIGNS } from '../../shared/family/care-text';
-import type { InfantDetail, InfantSummary } from '../../shared/schemas/infants';
-import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '../../shared/schemas/policy';
-import type { Prescription } from '../../shared/schemas/prescriptions';
+import { OXYGEN_SAFETY_POINTS, WARNING_SIGNS } from '@shared/family/care-text';
+import type { InfantDetail, InfantSummary } from '@shared/schemas/infants';
+import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '@shared/schemas/policy';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import { json, PROGRAMME_ID, sessionHandler, stubApi } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

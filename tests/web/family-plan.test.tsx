@@ -1,8 +1,8 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { convertPrescription } from '../../shared/clinical/conversion';
-import type { InfantSummary } from '../../shared/schemas/infants';
-import type { Prescription } from '../../shared/schemas/prescriptions';
+import { convertPrescription } from '@shared/clinical/conversion';
+import type { InfantSummary } from '@shared/schemas/infants';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import { json, sessionHandler, stubApi } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

@@ -1,7 +1,7 @@
 import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { InfantSummary } from '../../shared/schemas/infants';
-import type { Preferences } from '../../shared/schemas/preferences';
+import type { InfantSummary } from '@shared/schemas/infants';
+import type { Preferences } from '@shared/schemas/preferences';
 import { apiError, json, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
 import { currentUrl, renderApp } from './support/render-app';
 

@@ -1,9 +1,9 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { Role } from '../../shared/auth/roles';
-import { convertPrescription } from '../../shared/clinical/conversion';
-import type { InfantDetail } from '../../shared/schemas/infants';
-import type { Prescription } from '../../shared/schemas/prescriptions';
+import type { Role } from '@shared/auth/roles';
+import { convertPrescription } from '@shared/clinical/conversion';
+import type { InfantDetail } from '@shared/schemas/infants';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import { apiError, json, makeUser, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

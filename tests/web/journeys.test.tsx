@@ -1,10 +1,10 @@
 import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { addDays } from '../../shared/clinical/dates';
-import { homeFlowsOf, journeyPlanForFamily, planJourney } from '../../shared/clinical/journey-plan';
-import type { InfantSummary } from '../../shared/schemas/infants';
-import type { Journey } from '../../shared/schemas/journeys';
-import { DEFAULT_POLICY_SETTINGS, type CylinderType } from '../../shared/schemas/policy';
+import { addDays } from '@shared/clinical/dates';
+import { homeFlowsOf, journeyPlanForFamily, planJourney } from '@shared/clinical/journey-plan';
+import type { InfantSummary } from '@shared/schemas/infants';
+import type { Journey } from '@shared/schemas/journeys';
+import { DEFAULT_POLICY_SETTINGS, type CylinderType } from '@shared/schemas/policy';
 import { todayIn } from '../../web/features/journeys/components/journey-words';
 import { apiError, json, PROGRAMME_ID, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
 import { currentUrl, renderApp } from './support/render-app';

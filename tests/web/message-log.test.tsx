@@ -1,6 +1,6 @@
 import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { SKIP_REASONS, type Message } from '../../shared/schemas/messages';
+import { SKIP_REASONS, type Message } from '@shared/schemas/messages';
 import { apiError, json, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
 import { currentUrl, renderApp } from './support/render-app';
 

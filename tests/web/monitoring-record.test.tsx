@@ -1,12 +1,12 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
-import type { Role } from '../../shared/auth/roles';
-import type { InfantDetail } from '../../shared/schemas/infants';
-import { DEFAULT_POLICY_SETTINGS } from '../../shared/schemas/policy';
-import type { Prescription } from '../../shared/schemas/prescriptions';
-import type { Reading } from '../../shared/schemas/readings';
-import type { Recording } from '../../shared/schemas/recordings';
-import type { Check } from '../../shared/schemas/schedule';
+import type { Role } from '@shared/auth/roles';
+import type { InfantDetail } from '@shared/schemas/infants';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
+import type { Prescription } from '@shared/schemas/prescriptions';
+import type { Reading } from '@shared/schemas/readings';
+import type { Recording } from '@shared/schemas/recordings';
+import type { Check } from '@shared/schemas/schedule';
 import { apiError, json, PROGRAMME_ID, sessionHandler, sessionUser, stubApi, type FakeRequest } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

@@ -1,6 +1,6 @@
 import { configure, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { DayItem, DayVisit } from '../../shared/schemas/schedule';
+import type { DayItem, DayVisit } from '@shared/schemas/schedule';
 import { json, sessionHandler, stubApi } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

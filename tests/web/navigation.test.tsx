@@ -1,6 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { Role } from '../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 import { json, sessionHandler, stubApi } from './support/fake-api';
 import { currentUrl, renderApp } from './support/render-app';
 

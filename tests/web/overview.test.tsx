@@ -1,7 +1,7 @@
 import { configure, screen, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
-import type { AdminOverview, ConsultantOverview, CoordinatorOverview, MonthCount } from '../../shared/schemas/overview';
-import { INFANT_STATUSES } from '../../shared/schemas/infants';
+import type { AdminOverview, ConsultantOverview, CoordinatorOverview, MonthCount } from '@shared/schemas/overview';
+import { INFANT_STATUSES } from '@shared/schemas/infants';
 import { buildMonthBars, monthTick } from '../../web/features/charts/components/month-bars';
 import type { UplotChartProps } from '../../web/features/charts/components/uplot-chart';
 import { onOxygenSummary } from '../../web/features/overview/components/on-oxygen-card';

@@ -1,6 +1,6 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { User } from '../../shared/schemas/users';
+import type { User } from '@shared/schemas/users';
 import { apiError, json, makeUser, sessionHandler, sessionUser, stubApi, type FakeRequest } from './support/fake-api';
 import { currentUrl, renderApp } from './support/render-app';
 

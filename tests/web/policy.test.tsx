@@ -1,6 +1,6 @@
 import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_POLICY_SETTINGS, type Policy } from '../../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS, type Policy } from '@shared/schemas/policy';
 import { apiError, json, PROGRAMME_ID, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

@@ -1,7 +1,7 @@
 import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { Reading } from '../../shared/schemas/readings';
-import type { DayItem } from '../../shared/schemas/schedule';
+import type { Reading } from '@shared/schemas/readings';
+import type { DayItem } from '@shared/schemas/schedule';
 import { apiError, json, sessionHandler, sessionUser, stubApi, type FakeRequest } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

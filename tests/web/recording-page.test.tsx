@@ -1,8 +1,8 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
-import { DEFAULT_POLICY_SETTINGS } from '../../shared/schemas/policy';
-import type { InfantDetail } from '../../shared/schemas/infants';
-import type { Recording, RecordingTrace } from '../../shared/schemas/recordings';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
+import type { InfantDetail } from '@shared/schemas/infants';
+import type { Recording, RecordingTrace } from '@shared/schemas/recordings';
 import { apiError, json, PROGRAMME_ID, sessionHandler, sessionUser, stubApi } from './support/fake-api';
 import { renderApp } from './support/render-app';
 import { getToasts, showToast } from '../../web/components/ui/toast-store';

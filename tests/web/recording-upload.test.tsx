@@ -1,7 +1,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
-import type { InfantDetail } from '../../shared/schemas/infants';
-import type { Recording } from '../../shared/schemas/recordings';
+import type { InfantDetail } from '@shared/schemas/infants';
+import type { Recording } from '@shared/schemas/recordings';
 import { apiError, json, sessionHandler, sessionUser, stubApi, type FakeRequest } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

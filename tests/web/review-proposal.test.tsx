@@ -1,10 +1,10 @@
 import { configure, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { convertPrescription } from '../../shared/clinical/conversion';
-import { DEFAULT_FLOWMETER_STEPS_LPM } from '../../shared/clinical/flowmeter';
-import type { InfantDetail } from '../../shared/schemas/infants';
-import { DEFAULT_POLICY_SETTINGS } from '../../shared/schemas/policy';
-import type { Prescription } from '../../shared/schemas/prescriptions';
+import { convertPrescription } from '@shared/clinical/conversion';
+import { DEFAULT_FLOWMETER_STEPS_LPM } from '@shared/clinical/flowmeter';
+import type { InfantDetail } from '@shared/schemas/infants';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import { apiError, json, PROGRAMME_ID, sessionHandler, stubApi, type FakeRequest } from './support/fake-api';
 import { currentUrl, renderApp } from './support/render-app';
 

@@ -1,6 +1,6 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { QueueItem } from '../../shared/schemas/prescriptions';
+import type { QueueItem } from '@shared/schemas/prescriptions';
 import { json, sessionHandler, stubApi } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

@@ -1,7 +1,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import type { InfantSummary } from '../../shared/schemas/infants';
-import type { Visit } from '../../shared/schemas/visits';
+import type { InfantSummary } from '@shared/schemas/infants';
+import type { Visit } from '@shared/schemas/visits';
 import { json, sessionHandler, stubApi } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

@@ -1,8 +1,8 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it, vi } from 'vitest';
-import type { Role } from '../../shared/auth/roles';
-import type { InfantDetail } from '../../shared/schemas/infants';
-import type { Visit } from '../../shared/schemas/visits';
+import type { Role } from '@shared/auth/roles';
+import type { InfantDetail } from '@shared/schemas/infants';
+import type { Visit } from '@shared/schemas/visits';
 import { apiError, json, makeUser, sessionHandler, sessionUser, stubApi, type FakeRequest } from './support/fake-api';
 import { renderApp } from './support/render-app';
 

@@ -1,7 +1,7 @@
 import { render, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { convertPrescription } from '../../shared/clinical/conversion';
-import type { WorkingLine } from '../../shared/clinical/working';
+import { convertPrescription } from '@shared/clinical/conversion';
+import type { WorkingLine } from '@shared/clinical/working';
 import { Cautions } from '../../web/components/clinical/cautions';
 import { WorkingTable } from '../../web/components/clinical/working-table';
 

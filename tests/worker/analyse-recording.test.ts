@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Queue, QueueEvents } from 'bullmq';
-import { JOBS, recordingJobId } from '../../shared/jobs/catalogue';
+import { JOBS, recordingJobId } from '@shared/jobs/catalogue';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { startClinicalQueue, type ClinicalQueue } from '../helpers/queues';
 import { signedInAgent } from '../helpers/agents';
@@ -8,7 +8,7 @@ import { makeClinic } from '../helpers/infants';
 import { analyseRecordingProcessor, reconcileRecordings } from '../../worker/processors/analyse-recording.processor';
 import { analyseRecording } from '../../server/modules/recordings/analyse';
 import { storeUpload } from '../../server/modules/recordings/upload';
-import { defineAbilityFor } from '../../shared/auth/ability';
+import { defineAbilityFor } from '@shared/auth/ability';
 import { csvFromSamples, steadySamples } from '../fixtures/recordings/build-csv';
 import { enrolledBaby, uploadRecording } from '../fixtures/recordings/upload';
 

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Queue, QueueEvents } from 'bullmq';
-import { JOBS, conversionJobId } from '../../shared/jobs/catalogue';
+import { JOBS, conversionJobId } from '@shared/jobs/catalogue';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { startClinicalQueue, type ClinicalQueue } from '../helpers/queues';
 import { enrolmentBody, makeClinic } from '../helpers/infants';

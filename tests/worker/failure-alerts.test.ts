@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addReminderJobs } from '../../server/jobs/reminder-jobs';
 import { addToFailureAlerts, alertPeriod, type FailureItem } from '../../server/modules/reminders/failure-alerts';
-import { DEFAULT_POLICY_SETTINGS } from '../../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent } from '../helpers/agents';
 import { makeUser } from '../helpers/factories';

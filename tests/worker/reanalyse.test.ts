@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { OXIMETRY_ANALYSIS_VERSION } from '../../shared/clinical/oximetry';
+import { OXIMETRY_ANALYSIS_VERSION } from '@shared/clinical/oximetry';
 import { analyseRecording } from '../../server/modules/recordings/analyse';
 import { reanalyseOutdated } from '../../worker/processors/analyse-recording.processor';
 import { createTestContext, type TestContext } from '../helpers/test-app';

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { localParts, planVisitReminders } from '../../shared/reminders/timing';
+import { localParts, planVisitReminders } from '@shared/reminders/timing';
 import { reconcileReminders } from '../../server/modules/reminders/reconcile';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent, type Agent } from '../helpers/agents';
@@ -262,7 +262,7 @@ describe('reminders on real PostgreSQL, Redis and both fakes', () => {
 
   it('when the consultant approves a journey, then the family is reminded the day before departure with the flow there and the cylinders', async () => {
     const { approvedBaby } = await import('../helpers/approved-baby');
-    const { journeyReminderAt } = await import('../../shared/reminders/timing');
+    const { journeyReminderAt } = await import('@shared/reminders/timing');
     const { clinic, infant, family: familyAgent, consultant } = await approvedBaby(ctx.deps, ctx.app);
     await policyWithoutQuietHours(ctx.deps, clinic.programme.id);
     const departOn = future(3);

@@ -1,6 +1,6 @@
 import { Queue } from 'bullmq';
 import { afterAll, describe, expect, it } from 'vitest';
-import { QUEUES } from '../../shared/jobs/catalogue';
+import { QUEUES } from '@shared/jobs/catalogue';
 import { redisConnection } from '../../worker/queues';
 import { upsertSchedules } from '../../worker/schedules';
 

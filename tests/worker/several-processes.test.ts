@@ -4,7 +4,7 @@ import { createServer } from 'node:net';
 import { Queue } from 'bullmq';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startFakeSms, type FakeSms, type FakeSmsMessage } from '../../fakes/sms/app';
-import { QUEUES } from '../../shared/jobs/catalogue';
+import { QUEUES } from '@shared/jobs/catalogue';
 import { redisConnection } from '../../worker/queues';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { TEST_PASSWORD } from '../helpers/factories';

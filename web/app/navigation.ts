@@ -1,5 +1,5 @@
-import type { AppAbility } from '../../shared/auth/ability';
-import { isStaffRole, type Role } from '../../shared/auth/roles';
+import type { AppAbility } from '@shared/auth/ability';
+import { isStaffRole, type Role } from '@shared/auth/roles';
 
 export type NavIcon = 'home' | 'people' | 'settings' | 'list' | 'add' | 'day' | 'check' | 'plan';
 

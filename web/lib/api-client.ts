@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { errorBodySchema } from '../../shared/schemas/common';
+import { errorBodySchema } from '@shared/schemas/common';
 import { ApiError } from './api-error';
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';

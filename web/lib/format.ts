@@ -1,4 +1,4 @@
-import { dateInWords, dateTimeInWords, dayInWords } from '../../shared/dates/date-words';
+import { dateInWords, dateTimeInWords, dayInWords } from '@shared/dates/date-words';
 
 /** The web's one date style (see shared/dates/date-words.ts): "3 Dec 2026, 21:05" in the reader's own zone. */
 export function formatDateTime(iso: string | null, empty = 'Never'): string {

@@ -1,4 +1,4 @@
-import { DEFAULT_COUNTRY, formatPhone, isCountryCode } from '../../shared/phone/phone';
+import { DEFAULT_COUNTRY, formatPhone, isCountryCode } from '@shared/phone/phone';
 import { useSignedInUser } from './signed-in-user';
 
 /** Shows a stored (E.164) number the way people here write it: national for the programme's country. */

@@ -1,5 +1,5 @@
 import { queryOptions } from '@tanstack/react-query';
-import { policySchema, type Policy } from '../../shared/schemas/policy';
+import { policySchema, type Policy } from '@shared/schemas/policy';
 import { api } from './api-client';
 
 // Numbers to call and the cylinder list change rarely; ten minutes keeps pages from asking again on every visit.

@@ -1,5 +1,5 @@
 import { createContext, use, type ReactNode } from 'react';
-import type { SessionUser } from '../../shared/schemas/session';
+import type { SessionUser } from '@shared/schemas/session';
 
 const SignedInUserContext = createContext<SessionUser | null>(null);
 

@@ -1,10 +1,10 @@
 import { UnrecoverableError, type Job } from 'bullmq';
 import type { DataSource } from 'typeorm';
-import { JOBS } from '../../shared/jobs/catalogue';
+import { JOBS } from '@shared/jobs/catalogue';
 import type { AppRepos } from '../../server/deps';
 import type { JobProducer } from '../../server/jobs/producer';
 import { analyseRecording, reanalyseRecording } from '../../server/modules/recordings/analyse';
-import { OXIMETRY_ANALYSIS_VERSION } from '../../shared/clinical/oximetry';
+import { OXIMETRY_ANALYSIS_VERSION } from '@shared/clinical/oximetry';
 import { afterStudy } from '../../server/modules/step-downs/after-study';
 
 /** Payload carries only the id; samples are reloaded from PostgreSQL, so retries and duplicates are harmless. */

@@ -1,6 +1,6 @@
 import { UnrecoverableError, type Job } from 'bullmq';
 import type { DataSource } from 'typeorm';
-import { JOBS } from '../../shared/jobs/catalogue';
+import { JOBS } from '@shared/jobs/catalogue';
 import type { AppRepos } from '../../server/deps';
 import { computeProposal } from '../../server/modules/prescriptions/compute-proposal';
 

@@ -1,5 +1,5 @@
 import { UnrecoverableError, type Job } from 'bullmq';
-import { JOBS } from '../../shared/jobs/catalogue';
+import { JOBS } from '@shared/jobs/catalogue';
 import type { Delivery } from '../../server/modules/reminders/delivery';
 
 /** One message: the delivery service decides (send, skip, hold, settle an uncertain attempt); throwing means retry. */

@@ -1,5 +1,5 @@
 import { UnrecoverableError, type Job } from 'bullmq';
-import { JOBS } from '../../shared/jobs/catalogue';
+import { JOBS } from '@shared/jobs/catalogue';
 import type { AppRepos } from '../../server/deps';
 import { replan } from '../../server/modules/schedule/planning';
 

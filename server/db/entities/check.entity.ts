@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
-import type { CheckKind, CheckStatus } from '../../../shared/schemas/schedule';
+import type { CheckKind, CheckStatus } from '@shared/schemas/schedule';
 
 /** A planned oximetry check or review; plan_key makes re-planning an upsert, never a duplicate. */
 @Entity({ name: 'checks' })

@@ -1,6 +1,6 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
-import type { PressureSource } from '../../../shared/clinical/pressure';
-import type { InfantFlag, InfantStatus } from '../../../shared/schemas/infants';
+import type { PressureSource } from '@shared/clinical/pressure';
+import type { InfantFlag, InfantStatus } from '@shared/schemas/infants';
 import { numeric } from './transformers';
 
 @Entity({ name: 'infants' })

@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
-import type { JourneyMode, JourneyPlan, JourneyStatus } from '../../../shared/schemas/journeys';
+import type { JourneyMode, JourneyPlan, JourneyStatus } from '@shared/schemas/journeys';
 
 /**
  * A journey check: the request as the family or coordinator made it, and the plan computed from the approved

@@ -1,6 +1,6 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
-import type { PrescriptionConversion } from '../../../shared/clinical/conversion-types';
-import type { PrescriptionReason, PrescriptionStatus } from '../../../shared/schemas/prescriptions';
+import type { PrescriptionConversion } from '@shared/clinical/conversion-types';
+import type { PrescriptionReason, PrescriptionStatus } from '@shared/schemas/prescriptions';
 import { numeric } from './transformers';
 
 /** One version of a baby's home setting: computed by the worker, a proposal until a consultant decides. */

@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
-import type { PolicySettings } from '../../../shared/schemas/policy';
+import type { PolicySettings } from '@shared/schemas/policy';
 
 @Entity({ name: 'programme_policies' })
 export class ProgrammePolicyEntity {

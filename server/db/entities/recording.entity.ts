@@ -1,6 +1,6 @@
 import { Column, Entity, PrimaryGeneratedColumn } from 'typeorm';
-import type { DesaturationEvent } from '../../../shared/clinical/oximetry-events';
-import type { RecordingStatus } from '../../../shared/schemas/recordings';
+import type { DesaturationEvent } from '@shared/clinical/oximetry-events';
+import type { RecordingStatus } from '@shared/schemas/recordings';
 
 /**
  * One uploaded overnight recording and, once analysed, its summary. The samples live apart in

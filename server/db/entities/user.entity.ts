@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
-import type { Role } from '../../../shared/auth/roles';
+import type { Role } from '@shared/auth/roles';
 
 @Entity({ name: 'users' })
 @Index('users_programme_role_idx', ['programmeId', 'role'])

@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
-import type { VisitKind, VisitStatus } from '../../../shared/schemas/visits';
+import type { VisitKind, VisitStatus } from '@shared/schemas/visits';
 
 /** A booked home visit or clinic review; the local date and time are kept as the family was told them. */
 @Entity({ name: 'visits' })

@@ -1,5 +1,5 @@
 import type { MigrationInterface, QueryRunner } from 'typeorm';
-import { DEFAULT_COUNTRY, isCountryCode, readPhone } from '../../../shared/phone/phone';
+import { DEFAULT_COUNTRY, isCountryCode, readPhone } from '@shared/phone/phone';
 
 // Family mobiles were stored as typed ('07700 900111'). Each is rewritten in E.164, read in its programme's country
 // (the policy's `country`, or the default for policies older than it). A number that cannot be read as a mobile is

@@ -1,5 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import type { PlannedCheck } from '../../../shared/schedule/plan-checks';
+import type { PlannedCheck } from '@shared/schedule/plan-checks';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { CheckEntity } from '../entities/check.entity';
 

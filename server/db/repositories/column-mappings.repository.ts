@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
-import type { SavedMapping } from '../../../shared/schemas/recordings';
+import type { SavedMapping } from '@shared/schemas/recordings';
 
 /** Column names compared as the reader compares them: ignoring case and surrounding spaces, in file order. */
 export const headerKey = (headers: readonly string[]) =>

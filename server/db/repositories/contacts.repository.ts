@@ -1,5 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import type { ContactInput } from '../../../shared/schemas/infants';
+import type { ContactInput } from '@shared/schemas/infants';
 import { FamilyContactEntity } from '../entities/family-contact.entity';
 
 export function createContactsRepository(ds: DataSource) {

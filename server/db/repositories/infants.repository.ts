@@ -1,5 +1,5 @@
 import type { DataSource, EntityManager, SelectQueryBuilder } from 'typeorm';
-import type { ListInfantsQuery } from '../../../shared/schemas/infants';
+import type { ListInfantsQuery } from '@shared/schemas/infants';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { InfantEntity } from '../entities/infant.entity';
 

@@ -1,5 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import { DEFAULT_POLICY_SETTINGS, withPolicyDefaults, type Policy, type PolicySettings } from '../../../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS, withPolicyDefaults, type Policy, type PolicySettings } from '@shared/schemas/policy';
 import { ProgrammePolicyEntity } from '../entities/programme-policy.entity';
 
 export function createPoliciesRepository(ds: DataSource) {

@@ -1,6 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { SqlFilter } from '../../auth/casl-to-sql';
-import type { EncodedSamples } from '../../../shared/recordings/sample-codec';
+import type { EncodedSamples } from '@shared/recordings/sample-codec';
 import { RecordingEntity } from '../entities/recording.entity';
 import { RecordingSamplesEntity } from '../entities/recording-samples.entity';
 

@@ -1,6 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import type { CheckKind } from '../../../shared/schemas/schedule';
-import type { Channel } from '../../../shared/schemas/messages';
+import type { CheckKind } from '@shared/schemas/schedule';
+import type { Channel } from '@shared/schemas/messages';
 
 /** The family_contacts columns a message is addressed by. */
 export interface FamilyContactRow {

@@ -1,5 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import type { Channel, ListMessagesQuery, MessageStatus, MessageTemplate } from '../../../shared/schemas/messages';
+import type { Channel, ListMessagesQuery, MessageStatus, MessageTemplate } from '@shared/schemas/messages';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 
 export interface ReminderRow {

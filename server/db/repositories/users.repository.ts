@@ -1,8 +1,8 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
-import type { ListUsersQuery } from '../../../shared/schemas/users';
+import type { ListUsersQuery } from '@shared/schemas/users';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { UserEntity } from '../entities/user.entity';
-import { DEFAULT_COUNTRY } from '../../../shared/phone/phone';
+import { DEFAULT_COUNTRY } from '@shared/phone/phone';
 
 const SORT_COLUMNS: Record<string, string> = { name: 'u.name', email: 'u.email', role: 'u.role', createdAt: 'u.created_at' };
 export const USER_ACL_COLUMNS = { programmeId: 'u.programme_id', id: 'u.id' };

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { changePasswordSchema, setPasswordSchema, setupLinkCheckSchema } from '../../../shared/schemas/accounts';
+import { changePasswordSchema, setPasswordSchema, setupLinkCheckSchema } from '@shared/schemas/accounts';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, currentUser } from '../../lib/http';

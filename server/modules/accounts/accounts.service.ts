@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { ChangePasswordInput, SetPasswordInput, SetupLinkInfo } from '../../../shared/schemas/accounts';
+import type { ChangePasswordInput, SetPasswordInput, SetupLinkInfo } from '@shared/schemas/accounts';
 import { hashPassword, verifyPassword } from '../../auth/passwords';
 import { passwordProblems } from '../../auth/password-policy';
 import { hashSetupToken } from '../../auth/setup-tokens';

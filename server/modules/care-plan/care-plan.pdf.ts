@@ -1,9 +1,9 @@
 import {
   CARE_PLAN_CAUTIONS, OXYGEN_SAFETY_POINTS, WARNING_SIGNS, WARNING_SIGNS_INTRO, emergencyCallText, flowInWords, flowText, hoursText,
   periodLines, spo2TargetText,
-} from '../../../shared/family/care-text';
-import { dateInWords } from '../../../shared/dates/date-words';
-import { JOURNEY_MODE_LABELS, type JourneyCylinderPlan, type JourneyMode, type JourneyPeriod } from '../../../shared/schemas/journeys';
+} from '@shared/family/care-text';
+import { dateInWords } from '@shared/dates/date-words';
+import { JOURNEY_MODE_LABELS, type JourneyCylinderPlan, type JourneyMode, type JourneyPeriod } from '@shared/schemas/journeys';
 import { ALERT, openTaggedDocument, type PlanWriter } from './care-plan-writer';
 
 export interface CarePlanData {

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { idParamsSchema } from '../../../shared/schemas/common';
+import { idParamsSchema } from '@shared/schemas/common';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { assertCanAny } from '../../lib/http';

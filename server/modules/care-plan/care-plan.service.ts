@@ -1,13 +1,13 @@
 import { subject } from '@casl/ability';
-import type { AppAbility } from '../../../shared/auth/ability';
-import { homeFlowsOf } from '../../../shared/clinical/journey-plan';
-import { JOURNEY_PERIODS } from '../../../shared/schemas/journeys';
+import type { AppAbility } from '@shared/auth/ability';
+import { homeFlowsOf } from '@shared/clinical/journey-plan';
+import { JOURNEY_PERIODS } from '@shared/schemas/journeys';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
 import { ForbiddenError, NotFoundError } from '../../lib/errors';
 import { todayIn } from '../../lib/dates';
-import { formatPhone } from '../../../shared/phone/phone';
+import { formatPhone } from '@shared/phone/phone';
 import { renderCarePlanPdf, type CarePlanData } from './care-plan.pdf';
 
 /** ASCII letters, digits and dashes only, so no name can break out of the Content-Disposition header. */

@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import { convertPrescription } from '../../../shared/clinical/conversion';
-import { conversionPreviewBodySchema, type ConversionPreviewBody } from '../../../shared/schemas/conversions';
+import { convertPrescription } from '@shared/clinical/conversion';
+import { conversionPreviewBodySchema, type ConversionPreviewBody } from '@shared/schemas/conversions';
 import type { PoliciesRepository } from '../../db/repositories/policies.repository';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';

@@ -3,7 +3,7 @@ import type { DataSource } from 'typeorm';
 import type { Redis } from 'ioredis';
 import { systemClock, type Clock } from '../../lib/clock';
 import { readBeats } from '../../lib/heartbeat';
-import type { Health } from '../../../shared/schemas/health';
+import type { Health } from '@shared/schemas/health';
 
 const withTimeout = <T>(p: Promise<T>, ms: number) =>
   Promise.race([p, new Promise<never>((_, reject) => setTimeout(() => reject(new Error('timeout')), ms).unref())]);

@@ -1,11 +1,11 @@
-import { weightWarnings } from '../../../shared/clinical/weight-check';
+import { weightWarnings } from '@shared/clinical/weight-check';
 import type { DataSource, EntityManager } from 'typeorm';
-import { resolvePressure } from '../../../shared/clinical/pressure';
-import { addDays } from '../../../shared/clinical/dates';
-import { TERM_DAYS } from '../../../shared/clinical/ages';
-import type { EnrolInfantInput } from '../../../shared/schemas/infants';
-import type { PolicySettings } from '../../../shared/schemas/policy';
-import type { PressureSource } from '../../../shared/clinical/pressure';
+import { resolvePressure } from '@shared/clinical/pressure';
+import { addDays } from '@shared/clinical/dates';
+import { TERM_DAYS } from '@shared/clinical/ages';
+import type { EnrolInfantInput } from '@shared/schemas/infants';
+import type { PolicySettings } from '@shared/schemas/policy';
+import type { PressureSource } from '@shared/clinical/pressure';
 import type { AppRepos } from '../../deps';
 import { NeedsConfirmationError, ValidationError, type FieldErrors } from '../../lib/errors';
 import type { Actor } from '../../lib/http';

@@ -1,5 +1,5 @@
-import { agesAt, formatCorrectedAge, formatWeeksPlusDays } from '../../../shared/clinical/ages';
-import type { InfantDetail, InfantSummary, InfantStatus, InfantFlag } from '../../../shared/schemas/infants';
+import { agesAt, formatCorrectedAge, formatWeeksPlusDays } from '@shared/clinical/ages';
+import type { InfantDetail, InfantSummary, InfantStatus, InfantFlag } from '@shared/schemas/infants';
 import type { FamilyContactEntity } from '../../db/entities/family-contact.entity';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { PrescriptionEntity } from '../../db/entities/prescription.entity';

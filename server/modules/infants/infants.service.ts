@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
-import type { AppAbility } from '../../../shared/auth/ability';
-import type { ContactInput, EnrolInfantInput, ListInfantsQuery, UpdateInfantInput } from '../../../shared/schemas/infants';
+import type { AppAbility } from '@shared/auth/ability';
+import type { ContactInput, EnrolInfantInput, ListInfantsQuery, UpdateInfantInput } from '@shared/schemas/infants';
 import { accessibleWhere, type SqlFilter } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS, SORT_KEYS, sortValues, type InfantListRow } from '../../db/repositories/infants.repository';
 import { decodeCursor, encodeCursor } from '../../lib/cursor';

@@ -1,9 +1,9 @@
-import { weightWarnings } from '../../../shared/clinical/weight-check';
+import { weightWarnings } from '@shared/clinical/weight-check';
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
-import { growthDrift } from '../../../shared/clinical/growth';
-import type { AppAbility } from '../../../shared/auth/ability';
-import type { ContactInput, UpdateInfantInput } from '../../../shared/schemas/infants';
+import { growthDrift } from '@shared/clinical/growth';
+import type { AppAbility } from '@shared/auth/ability';
+import type { ContactInput, UpdateInfantInput } from '@shared/schemas/infants';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { AppRepos } from '../../deps';
 import { ConflictError, NeedsConfirmationError, NotFoundError, ValidationError } from '../../lib/errors';

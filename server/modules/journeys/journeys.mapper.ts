@@ -1,5 +1,5 @@
-import { journeyPlanForFamily } from '../../../shared/clinical/journey-plan';
-import type { Journey } from '../../../shared/schemas/journeys';
+import { journeyPlanForFamily } from '@shared/clinical/journey-plan';
+import type { Journey } from '@shared/schemas/journeys';
 import type { JourneyEntity } from '../../db/entities/journey.entity';
 
 export type Audience = 'staff' | 'family';

@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
-import { idParamsSchema } from '../../../shared/schemas/common';
-import { createJourneySchema, journeyDecisionSchema } from '../../../shared/schemas/journeys';
+import { idParamsSchema } from '@shared/schemas/common';
+import { createJourneySchema, journeyDecisionSchema } from '@shared/schemas/journeys';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { ForbiddenError } from '../../lib/errors';

@@ -1,9 +1,9 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
-import type { AppAbility } from '../../../shared/auth/ability';
-import { AIRCRAFT_CABIN_MAX_ALTITUDE_FT } from '../../../shared/clinical/journey';
-import { planJourney } from '../../../shared/clinical/journey-plan';
-import { journeyDateErrors, type CreateJourneyInput, type Journey, type JourneyDecisionInput } from '../../../shared/schemas/journeys';
+import type { AppAbility } from '@shared/auth/ability';
+import { AIRCRAFT_CABIN_MAX_ALTITUDE_FT } from '@shared/clinical/journey';
+import { planJourney } from '@shared/clinical/journey-plan';
+import { journeyDateErrors, type CreateJourneyInput, type Journey, type JourneyDecisionInput } from '@shared/schemas/journeys';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { JourneyEntity } from '../../db/entities/journey.entity';
@@ -16,7 +16,7 @@ import { todayIn } from '../../lib/dates';
 import { toJourneyDto, type Audience } from './journeys.mapper';
 import { journeyPlanInputFor } from './plan-input';
 import { createReminderPlanner } from '../reminders/reminders.planner';
-import { PERIOD_LABELS, flowText } from '../../../shared/family/care-text';
+import { PERIOD_LABELS, flowText } from '@shared/family/care-text';
 
 const fields = (i: { programmeId: string; id: string; nurseId: string | null }) => ({ programmeId: i.programmeId, infantId: i.id, nurseId: i.nurseId } as Record<string, unknown>);
 

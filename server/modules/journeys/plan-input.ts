@@ -1,6 +1,6 @@
-import { homeFlowsOf, type JourneyPlanInput } from '../../../shared/clinical/journey-plan';
-import type { CreateJourneyInput } from '../../../shared/schemas/journeys';
-import type { PolicySettings } from '../../../shared/schemas/policy';
+import { homeFlowsOf, type JourneyPlanInput } from '@shared/clinical/journey-plan';
+import type { CreateJourneyInput } from '@shared/schemas/journeys';
+import type { PolicySettings } from '@shared/schemas/policy';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { PrescriptionEntity } from '../../db/entities/prescription.entity';
 

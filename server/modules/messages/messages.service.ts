@@ -1,8 +1,8 @@
 import type { DataSource } from 'typeorm';
 import { subject } from '@casl/ability';
-import type { AppAbility } from '../../../shared/auth/ability';
-import { SKIP_REASONS, type ListMessagesQuery, type Message, type MessagesPage, type SkipReason } from '../../../shared/schemas/messages';
-import { DEFAULT_COUNTRY, isCountryCode, readPhone } from '../../../shared/phone/phone';
+import type { AppAbility } from '@shared/auth/ability';
+import { SKIP_REASONS, type ListMessagesQuery, type Message, type MessagesPage, type SkipReason } from '@shared/schemas/messages';
+import { DEFAULT_COUNTRY, isCountryCode, readPhone } from '@shared/phone/phone';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { ReminderRow } from '../../db/repositories/reminders.repository';

@@ -1,10 +1,10 @@
-import type { AppAbility } from '../../../shared/auth/ability';
-import { ROLES } from '../../../shared/auth/roles';
-import { INFANT_STATUSES } from '../../../shared/schemas/infants';
+import type { AppAbility } from '@shared/auth/ability';
+import { ROLES } from '@shared/auth/roles';
+import { INFANT_STATUSES } from '@shared/schemas/infants';
 import {
   JOURNEYS_LISTED, ON_OXYGEN_MONTHS, type AdminOverview, type ConsultantOverview, type CoordinatorOverview, type MonthCount,
-} from '../../../shared/schemas/overview';
-import { unmetInEvidence } from '../../../shared/schedule/step-down-rules';
+} from '@shared/schemas/overview';
+import { unmetInEvidence } from '@shared/schedule/step-down-rules';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { JOURNEY_ACL_COLUMNS } from '../../db/repositories/journeys.repository';

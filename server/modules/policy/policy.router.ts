@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { updatePolicySchema } from '../../../shared/schemas/policy';
+import { updatePolicySchema } from '@shared/schemas/policy';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCan, currentUser } from '../../lib/http';

@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { UpdatePolicyInput } from '../../../shared/schemas/policy';
+import type { UpdatePolicyInput } from '@shared/schemas/policy';
 import type { AppRepos } from '../../deps';
 import type { JobProducer } from '../../jobs/producer';
 import { ConflictError } from '../../lib/errors';

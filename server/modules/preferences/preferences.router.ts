@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { updatePreferencesSchemaFor } from '../../../shared/schemas/preferences';
+import { updatePreferencesSchemaFor } from '@shared/schemas/preferences';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny, currentUser } from '../../lib/http';

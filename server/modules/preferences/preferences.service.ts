@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { Preferences, UpdatePreferencesInput } from '../../../shared/schemas/preferences';
+import type { Preferences, UpdatePreferencesInput } from '@shared/schemas/preferences';
 import type { FamilyContactEntity } from '../../db/entities/family-contact.entity';
 import type { AppRepos } from '../../deps';
 import { ConflictError, NotFoundError } from '../../lib/errors';

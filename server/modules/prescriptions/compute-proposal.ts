@@ -1,7 +1,7 @@
 import type { DataSource } from 'typeorm';
-import { convertPrescription } from '../../../shared/clinical/conversion';
-import type { PrescriptionConversionInput } from '../../../shared/clinical/conversion-types';
-import type { InfantFlag } from '../../../shared/schemas/infants';
+import { convertPrescription } from '@shared/clinical/conversion';
+import type { PrescriptionConversionInput } from '@shared/clinical/conversion-types';
+import type { InfantFlag } from '@shared/schemas/infants';
 import type { AppRepos } from '../../deps';
 import { createReminderPlanner } from '../reminders/reminders.planner';
 

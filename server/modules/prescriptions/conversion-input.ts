@@ -1,5 +1,5 @@
-import type { PrescriptionConversionInput } from '../../../shared/clinical/conversion-types';
-import type { PolicySettings } from '../../../shared/schemas/policy';
+import type { PrescriptionConversionInput } from '@shared/clinical/conversion-types';
+import type { PolicySettings } from '@shared/schemas/policy';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 
 /**

@@ -1,10 +1,10 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
-import { effectiveFio2 } from '../../../shared/clinical/cannula';
-import { FLOW_TOLERANCE_LPM } from '../../../shared/clinical/flowmeter';
-import type { AppAbility } from '../../../shared/auth/ability';
-import type { DecisionInput } from '../../../shared/schemas/prescriptions';
-import { unmetInEvidence } from '../../../shared/schedule/step-down-rules';
+import { effectiveFio2 } from '@shared/clinical/cannula';
+import { FLOW_TOLERANCE_LPM } from '@shared/clinical/flowmeter';
+import type { AppAbility } from '@shared/auth/ability';
+import type { DecisionInput } from '@shared/schemas/prescriptions';
+import { unmetInEvidence } from '@shared/schedule/step-down-rules';
 import type { PrescriptionEntity } from '../../db/entities/prescription.entity';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { AppRepos } from '../../deps';

@@ -1,4 +1,4 @@
-import type { Prescription } from '../../../shared/schemas/prescriptions';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import type { PrescriptionEntity } from '../../db/entities/prescription.entity';
 
 export function toPrescriptionDto(rx: PrescriptionEntity, names: Map<string, string>): Prescription {

@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import { idParamsSchema } from '../../../shared/schemas/common';
-import { decisionSchema } from '../../../shared/schemas/prescriptions';
+import { idParamsSchema } from '@shared/schemas/common';
+import { decisionSchema } from '@shared/schemas/prescriptions';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny, currentUser } from '../../lib/http';

@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
-import type { AppAbility } from '../../../shared/auth/ability';
-import type { DecisionInput, QueueItem } from '../../../shared/schemas/prescriptions';
+import type { AppAbility } from '@shared/auth/ability';
+import type { DecisionInput, QueueItem } from '@shared/schemas/prescriptions';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { PRESCRIPTION_ACL_COLUMNS } from '../../db/repositories/prescriptions.repository';
@@ -11,7 +11,7 @@ import type { Actor } from '../../lib/http';
 import { todayIn } from '../../lib/dates';
 import { correctedAgeText } from '../infants/infants.mapper';
 import { decidePrescription } from './decide';
-import { unmetInEvidence } from '../../../shared/schedule/step-down-rules';
+import { unmetInEvidence } from '@shared/schedule/step-down-rules';
 import { forFamily, toPrescriptionDto } from './prescriptions.mapper';
 
 export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {

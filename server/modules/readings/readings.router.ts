@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import { idParamsSchema } from '../../../shared/schemas/common';
-import { createReadingSchema, readingsQuerySchema, updateReadingSchema } from '../../../shared/schemas/readings';
+import { idParamsSchema } from '@shared/schemas/common';
+import { createReadingSchema, readingsQuerySchema, updateReadingSchema } from '@shared/schemas/readings';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny, currentUser } from '../../lib/http';

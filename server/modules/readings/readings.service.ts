@@ -1,8 +1,8 @@
-import { weightWarnings } from '../../../shared/clinical/weight-check';
+import { weightWarnings } from '@shared/clinical/weight-check';
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
-import type { AppAbility } from '../../../shared/auth/ability';
-import type { CreateReadingInput, Reading, UpdateReadingInput } from '../../../shared/schemas/readings';
+import type { AppAbility } from '@shared/auth/ability';
+import type { CreateReadingInput, Reading, UpdateReadingInput } from '@shared/schemas/readings';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { ReadingEntity } from '../../db/entities/reading.entity';
@@ -12,7 +12,7 @@ import type { JobProducer } from '../../jobs/producer';
 import { ConflictError, ForbiddenError, NeedsConfirmationError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { applyNewWeight } from '../infants/update';
-import { localDate } from '../../../shared/schedule/plan-checks';
+import { localDate } from '@shared/schedule/plan-checks';
 
 const FUTURE_SLACK_MS = 5 * 60_000;
 

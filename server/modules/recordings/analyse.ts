@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
-import { OXIMETRY_ANALYSIS_VERSION, summariseOximetry, type OximetrySummary } from '../../../shared/clinical/oximetry';
-import { decodeSamples, SAMPLE_LAYOUT_VERSION } from '../../../shared/recordings/sample-codec';
+import { OXIMETRY_ANALYSIS_VERSION, summariseOximetry, type OximetrySummary } from '@shared/clinical/oximetry';
+import { decodeSamples, SAMPLE_LAYOUT_VERSION } from '@shared/recordings/sample-codec';
 import type { AppRepos } from '../../deps';
 
 export type AnalyseOutcome = 'done' | 'skipped' | 'missing' | 'failed';

@@ -1,4 +1,4 @@
-import { createRecordingParser, type ParsedRecording, type RecordingParseOptions } from '../../../shared/recordings/recording-parser';
+import { createRecordingParser, type ParsedRecording, type RecordingParseOptions } from '@shared/recordings/recording-parser';
 import { problemError, UploadRejectedError } from './upload-errors';
 
 // About 1 MB of text per step: a 20 MB file never holds the event loop for long (docs/service-targets.md P5).

@@ -1,8 +1,8 @@
-import { DEFAULT_MIN_VALID_MINUTES } from '../../../shared/clinical/oximetry';
-import { DEFAULT_MIN_EVENT_SECONDS } from '../../../shared/clinical/oximetry-events';
-import type { DesaturationEvent } from '../../../shared/clinical/oximetry-events';
-import type { Recording, RecordingTrace } from '../../../shared/schemas/recordings';
-import { TRACE_THRESHOLD_SPO2, type TracePoint } from '../../../shared/recordings/trace';
+import { DEFAULT_MIN_VALID_MINUTES } from '@shared/clinical/oximetry';
+import { DEFAULT_MIN_EVENT_SECONDS } from '@shared/clinical/oximetry-events';
+import type { DesaturationEvent } from '@shared/clinical/oximetry-events';
+import type { Recording, RecordingTrace } from '@shared/schemas/recordings';
+import { TRACE_THRESHOLD_SPO2, type TracePoint } from '@shared/recordings/trace';
 import type { RecordingWithUploader } from '../../db/repositories/recordings.repository';
 
 export function toRecordingDto(r: RecordingWithUploader): Recording {

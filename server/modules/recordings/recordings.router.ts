@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
-import { idParamsSchema } from '../../../shared/schemas/common';
-import { listRecordingsQuerySchema, recordingUploadFieldsSchema, savedMappingQuerySchema } from '../../../shared/schemas/recordings';
-import { RECORDING_LIMITS } from '../../../shared/recordings/limits';
+import { idParamsSchema } from '@shared/schemas/common';
+import { listRecordingsQuerySchema, recordingUploadFieldsSchema, savedMappingQuerySchema } from '@shared/schemas/recordings';
+import { RECORDING_LIMITS } from '@shared/recordings/limits';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny } from '../../lib/http';

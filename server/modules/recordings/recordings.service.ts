@@ -1,8 +1,8 @@
 import type { DataSource } from 'typeorm';
-import type { AppAbility } from '../../../shared/auth/ability';
-import type { RecordingUploadFields } from '../../../shared/schemas/recordings';
-import { decodeSamples } from '../../../shared/recordings/sample-codec';
-import { decimateTrace } from '../../../shared/recordings/trace';
+import type { AppAbility } from '@shared/auth/ability';
+import type { RecordingUploadFields } from '@shared/schemas/recordings';
+import { decodeSamples } from '@shared/recordings/sample-codec';
+import { decimateTrace } from '@shared/recordings/trace';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { RECORDING_ACL_COLUMNS } from '../../db/repositories/recordings.repository';

@@ -1,7 +1,7 @@
 import { MulterError } from 'multer';
-import type { RecordingProblem } from '../../../shared/recordings/recording-parser';
-import { RECORDING_LIMITS } from '../../../shared/recordings/limits';
-import type { RecordingUploadError } from '../../../shared/schemas/recordings';
+import type { RecordingProblem } from '@shared/recordings/recording-parser';
+import { RECORDING_LIMITS } from '@shared/recordings/limits';
+import type { RecordingUploadError } from '@shared/schemas/recordings';
 import { AppError, type FieldErrors } from '../../lib/errors';
 
 /** A refused upload: its code tells the web which step to offer (pick another file, map the columns…). */

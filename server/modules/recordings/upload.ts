@@ -1,10 +1,10 @@
 import { createHash } from 'node:crypto';
 import type { DataSource } from 'typeorm';
 import { subject } from '@casl/ability';
-import type { AppAbility } from '../../../shared/auth/ability';
-import type { RecordingUploadFields } from '../../../shared/schemas/recordings';
-import { hasMapping } from '../../../shared/recordings/columns';
-import { encodeSamples, SAMPLE_LAYOUT_VERSION } from '../../../shared/recordings/sample-codec';
+import type { AppAbility } from '@shared/auth/ability';
+import type { RecordingUploadFields } from '@shared/schemas/recordings';
+import { hasMapping } from '@shared/recordings/columns';
+import { encodeSamples, SAMPLE_LAYOUT_VERSION } from '@shared/recordings/sample-codec';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';

@@ -1,7 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import { chooseChannel } from '../../../shared/reminders/recipient';
-import { inQuietHours, outsideQuietHours } from '../../../shared/reminders/timing';
-import type { Channel, MessageTemplate } from '../../../shared/schemas/messages';
+import { chooseChannel } from '@shared/reminders/recipient';
+import { inQuietHours, outsideQuietHours } from '@shared/reminders/timing';
+import type { Channel, MessageTemplate } from '@shared/schemas/messages';
 import type { ReminderRow } from '../../db/repositories/reminders.repository';
 import type { AppRepos } from '../../deps';
 import type { Logger } from '../../lib/logger';

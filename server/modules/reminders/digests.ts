@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { instantAtOrAfter, localParts, outsideQuietHours } from '../../../shared/reminders/timing';
+import { instantAtOrAfter, localParts, outsideQuietHours } from '@shared/reminders/timing';
 import type { AppRepos } from '../../deps';
 import type { NewReminder } from '../../db/repositories/reminders.repository';
 

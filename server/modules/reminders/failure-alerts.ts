@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
-import type { Channel, MessageTemplate } from '../../../shared/schemas/messages';
-import type { PolicySettings } from '../../../shared/schemas/policy';
+import type { Channel, MessageTemplate } from '@shared/schemas/messages';
+import type { PolicySettings } from '@shared/schemas/policy';
 import type { AppRepos } from '../../deps';
 
 /** One family message a coordinator must look at: it failed, or whether it went is unknown. */

@@ -1,9 +1,9 @@
 import type { EntityManager } from 'typeorm';
-import { PRESCRIPTION_REASON_LABELS, type PrescriptionReason } from '../../../shared/schemas/prescriptions';
-import { CHECK_KIND_LABELS } from '../../../shared/schemas/schedule';
-import { MESSAGE_TEMPLATE_LABELS, type MessageTemplate } from '../../../shared/schemas/messages';
-import type { PolicySettings } from '../../../shared/schemas/policy';
-import { formatPhone } from '../../../shared/phone/phone';
+import { PRESCRIPTION_REASON_LABELS, type PrescriptionReason } from '@shared/schemas/prescriptions';
+import { CHECK_KIND_LABELS } from '@shared/schemas/schedule';
+import { MESSAGE_TEMPLATE_LABELS, type MessageTemplate } from '@shared/schemas/messages';
+import type { PolicySettings } from '@shared/schemas/policy';
+import { formatPhone } from '@shared/phone/phone';
 import type { ReminderContentRepository } from '../../db/repositories/reminder-content.repository';
 import type { ReminderRow } from '../../db/repositories/reminders.repository';
 

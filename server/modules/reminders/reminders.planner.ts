@@ -1,9 +1,9 @@
 import type { EntityManager } from 'typeorm';
-import { addDays } from '../../../shared/clinical/dates';
-import { chooseChannel } from '../../../shared/reminders/recipient';
-import { changeNoteAt, instantAtOrAfter, journeyReminderAt, localParts, outsideQuietHours, planBookingNote, planVisitReminders } from '../../../shared/reminders/timing';
-import type { MessageTemplate } from '../../../shared/schemas/messages';
-import type { PolicySettings } from '../../../shared/schemas/policy';
+import { addDays } from '@shared/clinical/dates';
+import { chooseChannel } from '@shared/reminders/recipient';
+import { changeNoteAt, instantAtOrAfter, journeyReminderAt, localParts, outsideQuietHours, planBookingNote, planVisitReminders } from '@shared/reminders/timing';
+import type { MessageTemplate } from '@shared/schemas/messages';
+import type { PolicySettings } from '@shared/schemas/policy';
 import type { FamilyContactEntity } from '../../db/entities/family-contact.entity';
 import type { NewReminder } from '../../db/repositories/reminders.repository';
 import type { AppRepos } from '../../deps';

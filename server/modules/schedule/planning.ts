@@ -1,5 +1,5 @@
-import { planChecks, type PlanState } from '../../../shared/schedule/plan-checks';
-import type { PolicySettings } from '../../../shared/schemas/policy';
+import { planChecks, type PlanState } from '@shared/schedule/plan-checks';
+import type { PolicySettings } from '@shared/schemas/policy';
 import type { PlanStateRow } from '../../db/repositories/checks.repository';
 import type { AppRepos } from '../../deps';
 

@@ -1,12 +1,12 @@
-import type { AppAbility } from '../../../shared/auth/ability';
-import type { Check, DayItem, MyDay } from '../../../shared/schemas/schedule';
+import type { AppAbility } from '@shared/auth/ability';
+import type { Check, DayItem, MyDay } from '@shared/schemas/schedule';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import type { CheckEntity } from '../../db/entities/check.entity';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
 import { NotFoundError } from '../../lib/errors';
 import { correctedAgeText } from '../infants/infants.mapper';
-import { addDays } from '../../../shared/clinical/dates';
+import { addDays } from '@shared/clinical/dates';
 
 const toCheck = (c: CheckEntity): Check => ({
   id: c.id, infantId: c.infantId, kind: c.kind, planKey: c.planKey, dueAt: c.dueAt.toISOString(), dueDate: c.dueDate, status: c.status,

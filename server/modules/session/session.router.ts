@@ -1,6 +1,6 @@
 import { Router, type Request, type Response, type NextFunction } from 'express';
 import type { CsrfSync } from 'csrf-sync';
-import { signInSchema, type SessionUser } from '../../../shared/schemas/session';
+import { signInSchema, type SessionUser } from '@shared/schemas/session';
 import { validate } from '../../middleware/validate';
 import type { AppPassport } from '../../auth/passport';
 import { SESSION_COOKIE } from '../../auth/session-middleware';

@@ -1,4 +1,4 @@
-import type { SessionUser } from '../../../shared/schemas/session';
+import type { SessionUser } from '@shared/schemas/session';
 import { burnVerifyTime, verifyPassword } from '../../auth/passwords';
 import { SignInBlockedError, type SignInLimiter } from '../../auth/sign-in-limiter';
 import type { AuditRepository } from '../../db/repositories/audit.repository';

@@ -4,7 +4,7 @@ import type { DataSource } from 'typeorm';
 import { z } from 'zod';
 import type { AppRepos } from '../../deps';
 import type { Logger } from '../../lib/logger';
-import { smsNumber } from '../../../shared/reminders/recipient';
+import { smsNumber } from '@shared/reminders/recipient';
 
 // Replies that mean "no more texts" on SMS networks (common practice).
 const STOP_WORDS = new Set(['STOP', 'STOPALL', 'UNSUBSCRIBE', 'CANCEL', 'END', 'QUIT']);

@@ -1,5 +1,5 @@
-import { hoursOneDecimal } from '../../../shared/clinical/units';
-import { DEFAULT_MIN_VALID_MINUTES } from '../../../shared/clinical/oximetry';
+import { hoursOneDecimal } from '@shared/clinical/units';
+import { DEFAULT_MIN_VALID_MINUTES } from '@shared/clinical/oximetry';
 import type { DataSource } from 'typeorm';
 import type { AppRepos } from '../../deps';
 import { createStepDownsService } from './step-downs.service';

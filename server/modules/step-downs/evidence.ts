@@ -1,7 +1,7 @@
 import type { EntityManager } from 'typeorm';
-import { checkStepDownRules, type RuleCheck } from '../../../shared/schedule/step-down-rules';
-import type { PolicySettings } from '../../../shared/schemas/policy';
-import type { StepDownEvidence } from '../../../shared/schemas/step-downs';
+import { checkStepDownRules, type RuleCheck } from '@shared/schedule/step-down-rules';
+import type { PolicySettings } from '@shared/schemas/policy';
+import type { StepDownEvidence } from '@shared/schemas/step-downs';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { PrescriptionEntity } from '../../db/entities/prescription.entity';
 import type { AppRepos } from '../../deps';

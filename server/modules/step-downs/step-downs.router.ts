@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import { idParamsSchema } from '../../../shared/schemas/common';
-import { stepDownRequestSchema } from '../../../shared/schemas/step-downs';
+import { idParamsSchema } from '@shared/schemas/common';
+import { stepDownRequestSchema } from '@shared/schemas/step-downs';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny } from '../../lib/http';

@@ -1,8 +1,8 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
-import { nextStepDown, meetsOvernightTarget, type StudyResult } from '../../../shared/schedule/step-down';
-import type { AppAbility } from '../../../shared/auth/ability';
-import type { PrescriptionReason } from '../../../shared/schemas/prescriptions';
+import { nextStepDown, meetsOvernightTarget, type StudyResult } from '@shared/schedule/step-down';
+import type { AppAbility } from '@shared/auth/ability';
+import type { PrescriptionReason } from '@shared/schemas/prescriptions';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { PrescriptionEntity } from '../../db/entities/prescription.entity';
@@ -10,8 +10,8 @@ import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
 import { createReminderPlanner } from '../reminders/reminders.planner';
 import { ConflictError, ForbiddenError, NotFoundError, PolicyNotMetError } from '../../lib/errors';
-import { unmetRules } from '../../../shared/schedule/step-down-rules';
-import type { StepDownEvidence, StepDownPreview, StepDownRequestInput } from '../../../shared/schemas/step-downs';
+import { unmetRules } from '@shared/schedule/step-down-rules';
+import type { StepDownEvidence, StepDownPreview, StepDownRequestInput } from '@shared/schemas/step-downs';
 import { gatherStepDownEvidence } from './evidence';
 import type { Actor } from '../../lib/http';
 

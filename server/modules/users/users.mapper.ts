@@ -1,4 +1,4 @@
-import type { User } from '../../../shared/schemas/users';
+import type { User } from '@shared/schemas/users';
 import type { UserEntity } from '../../db/entities/user.entity';
 
 export const toUserDto = (u: UserEntity): User => ({

@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import { idParamsSchema } from '../../../shared/schemas/common';
-import { createUserSchema, listUsersQuerySchema, type ListUsersQuery } from '../../../shared/schemas/users';
+import { idParamsSchema } from '@shared/schemas/common';
+import { createUserSchema, listUsersQuerySchema, type ListUsersQuery } from '@shared/schemas/users';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCan, assertCanAny } from '../../lib/http';

@@ -1,6 +1,6 @@
-import type { CreateUserInput, ListUsersQuery, User, UsersPage } from '../../../shared/schemas/users';
-import type { InvitationResponse } from '../../../shared/schemas/accounts';
-import type { AppAbility } from '../../../shared/auth/ability';
+import type { CreateUserInput, ListUsersQuery, User, UsersPage } from '@shared/schemas/users';
+import type { InvitationResponse } from '@shared/schemas/accounts';
+import type { AppAbility } from '@shared/auth/ability';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { USER_ACL_COLUMNS } from '../../db/repositories/users.repository';
 import { ConflictError, NotFoundError } from '../../lib/errors';

@@ -1,8 +1,8 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
-import type { AppAbility } from '../../../shared/auth/ability';
-import { localToInstant } from '../../../shared/schedule/local-time';
-import type { BookVisitInput, MoveVisitInput, Visit } from '../../../shared/schemas/visits';
+import type { AppAbility } from '@shared/auth/ability';
+import { localToInstant } from '@shared/schedule/local-time';
+import type { BookVisitInput, MoveVisitInput, Visit } from '@shared/schemas/visits';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { VisitEntity } from '../../db/entities/visit.entity';

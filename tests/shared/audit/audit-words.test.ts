@@ -1,8 +1,8 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { AUDIT_ACTIONS } from '../../../shared/audit/audit-actions';
-import { auditWords } from '../../../shared/audit/audit-words';
+import { AUDIT_ACTIONS } from '@shared/audit/audit-actions';
+import { auditWords } from '@shared/audit/audit-words';
 
 const ROOT = join(__dirname, '..', '..', '..');
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { subject } from '@casl/ability';
-import { defineAbilityFor, type Action, type SubjectName } from '../../../shared/auth/ability';
-import type { Role } from '../../../shared/auth/roles';
+import { defineAbilityFor, type Action, type SubjectName } from '@shared/auth/ability';
+import type { Role } from '@shared/auth/roles';
 
 const P = '11111111-1111-4111-8111-111111111111';
 const OTHER = '22222222-2222-4222-8222-222222222222';

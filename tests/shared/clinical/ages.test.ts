@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { agesAt, formatCorrectedAge, formatWeeksPlusDays } from '../../../shared/clinical/ages';
-import { completedMonthsBetween, daysBetween } from '../../../shared/clinical/dates';
+import { agesAt, formatCorrectedAge, formatWeeksPlusDays } from '@shared/clinical/ages';
+import { completedMonthsBetween, daysBetween } from '@shared/clinical/dates';
 
 describe('ages (AAP 2004 terminology)', () => {
   it('when born at 28+0 wk and 10 wk old, then PMA is 38+0 wk and corrected age is −2 wk', () => {

@@ -5,7 +5,7 @@ import {
   effectiveFio2,
   flowForEffectiveFio2,
   stopRopTableFactorPercent,
-} from '../../../shared/clinical/cannula';
+} from '@shared/clinical/cannula';
 
 // STOP-ROP Table 1 (docs/clinical-sources.md §3.1) [C "STOP-ROP Effective FiO2 Conversion Tables for Infants on Nasal
 // Cannula"]. Rows are flows as the exact fractions the sheet means (the printed 0.03 is 1/32); columns are kg.

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { convertPrescription } from '../../../shared/clinical/conversion';
-import { DEFAULT_FLOWMETER_STEPS_LPM } from '../../../shared/clinical/flowmeter';
+import { convertPrescription } from '@shared/clinical/conversion';
+import { DEFAULT_FLOWMETER_STEPS_LPM } from '@shared/clinical/flowmeter';
 
 // Steps to 15 L/min and a matching cannula limit, so only the physics (target above source) can make a case infeasible.
 const EXTRA_STEPS_LPM = Array.from({ length: 52 }, (_, i) => (2250 + 250 * i) / 1000);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { convertPrescription } from '../../../shared/clinical/conversion';
-import { CONVERSION_WARNING_CODES, infeasibleReason, type ConversionWarning } from '../../../shared/clinical/conversion-warnings';
-import type { PrescriptionConversionInput } from '../../../shared/clinical/conversion-types';
+import { convertPrescription } from '@shared/clinical/conversion';
+import { CONVERSION_WARNING_CODES, infeasibleReason, type ConversionWarning } from '@shared/clinical/conversion-warnings';
+import type { PrescriptionConversionInput } from '@shared/clinical/conversion-types';
 
 // Each warning at its limit: the last value that stays quiet beside the first that warns, and the words a
 // consultant reads (docs/product-rules.md: show the cautions wherever a setting is shown; a warning with no words is no warning).

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { convertPrescription } from '../../../shared/clinical/conversion';
-import type { PrescriptionConversionInput } from '../../../shared/clinical/conversion-types';
-import { DEFAULT_FLOWMETER_STEPS_LPM } from '../../../shared/clinical/flowmeter';
+import { convertPrescription } from '@shared/clinical/conversion';
+import type { PrescriptionConversionInput } from '@shared/clinical/conversion-types';
+import { DEFAULT_FLOWMETER_STEPS_LPM } from '@shared/clinical/flowmeter';
 
 const base: PrescriptionConversionInput = {
   weightKg: 3,

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { convertPrescription } from '../../../shared/clinical/conversion';
-import type { WorkingLine } from '../../../shared/clinical/working';
+import { convertPrescription } from '@shared/clinical/conversion';
+import type { WorkingLine } from '@shared/clinical/working';
 
 const valueOf = (working: WorkingLine[], key: string) => {
   const line = working.find((entry) => entry.key === key);

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { convertPrescription } from '../../../shared/clinical/conversion';
-import type { PrescriptionConversionInput } from '../../../shared/clinical/conversion-types';
-import { DEFAULT_FLOWMETER_STEPS_LPM } from '../../../shared/clinical/flowmeter';
-import { westPressureMmHg } from '../../../shared/clinical/pressure';
+import { convertPrescription } from '@shared/clinical/conversion';
+import type { PrescriptionConversionInput } from '@shared/clinical/conversion-types';
+import { DEFAULT_FLOWMETER_STEPS_LPM } from '@shared/clinical/flowmeter';
+import { westPressureMmHg } from '@shared/clinical/pressure';
 
 const codes = (input: PrescriptionConversionInput) => convertPrescription(input).warnings.map((w) => w.code);
 

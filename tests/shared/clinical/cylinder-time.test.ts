@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { cylinderTime, fullCylinderMinutes, hoursAndMinutesText, type CylinderSpec } from '../../../shared/clinical/cylinder-time';
-import { DEFAULT_POLICY_SETTINGS } from '../../../shared/schemas/policy';
+import { cylinderTime, fullCylinderMinutes, hoursAndMinutesText, type CylinderSpec } from '@shared/clinical/cylinder-time';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
 
 // The Virginia "Oxygen Cylinder Guidance" sheet gives factors of 0.28 L/psi (E) and 0.16 L/psi (D) with a 200 psi
 // safe residual (docs/clinical-sources.md §7 [C]). A programme lists contents and full pressure, so each factor is

@@ -6,7 +6,7 @@ import {
   cylinderMinutesFromPsi,
   cylinderRemainingFraction,
   cylindersForJourney,
-} from '../../../shared/clinical/cylinders';
+} from '@shared/clinical/cylinders';
 
 const { D, E } = US_CYLINDER_FACTORS_L_PER_PSI;
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { DEFAULT_FLOWMETER_STEPS_LPM, roundUpToStepLpm } from '../../../shared/clinical/flowmeter';
+import { DEFAULT_FLOWMETER_STEPS_LPM, roundUpToStepLpm } from '@shared/clinical/flowmeter';
 
 describe('programme flowmeter steps', () => {
   it('when built, then they run 0.025..1 L/min by 0.025 and 1.25..2 L/min by 0.25, with no float drift', () => {

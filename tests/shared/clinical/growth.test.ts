@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { growthDrift } from '../../../shared/clinical/growth';
+import { growthDrift } from '@shared/clinical/growth';
 
 describe('growth drift', () => {
   it('when 1.5 kg grows to 3 kg on 0.25 L/min of 100%, then effective FiO2 falls from 0.3417 to 0.2758', () => {

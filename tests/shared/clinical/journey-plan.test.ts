@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { homeFlowsOf, journeyDestination, journeyPlanForFamily, planJourney, type JourneyPlanInput } from '../../../shared/clinical/journey-plan';
-import { journeyPlanSchema } from '../../../shared/schemas/journeys';
-import { DEFAULT_POLICY_SETTINGS, type CylinderType } from '../../../shared/schemas/policy';
+import { homeFlowsOf, journeyDestination, journeyPlanForFamily, planJourney, type JourneyPlanInput } from '@shared/clinical/journey-plan';
+import { journeyPlanSchema } from '@shared/schemas/journeys';
+import { DEFAULT_POLICY_SETTINGS, type CylinderType } from '@shared/schemas/policy';
 
 // An E-size cylinder by the Virginia sheet's factor (0.28 L/psi, 200 psi residual; docs/clinical-sources.md §7 [C]),
 // listed as 560 L at 2000 psi so contents ÷ full pressure = 0.28.

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { convertPrescription } from '../../../shared/clinical/conversion';
+import { convertPrescription } from '@shared/clinical/conversion';
 import {
   AIRCRAFT_CABIN_MAX_ALTITUDE_FT,
   AIRCRAFT_CABIN_MAX_ALTITUDE_M,
   convertForJourney,
   destinationPressureSource,
-} from '../../../shared/clinical/journey';
-import { equivalentFio2 } from '../../../shared/clinical/oxygen';
+} from '@shared/clinical/journey';
+import { equivalentFio2 } from '@shared/clinical/oxygen';
 
 describe('journeys', () => {
   it('when no cabin altitude is given, then the 8,000 ft (2438.4 m) regulatory maximum is assumed', () => {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { summariseOximetry } from '../../../shared/clinical/oximetry';
-import { detectDesaturations, DEFAULT_DESATURATION_RULES } from '../../../shared/clinical/oximetry-events';
-import type { OximetrySample } from '../../../shared/clinical/oximetry-samples';
+import { summariseOximetry } from '@shared/clinical/oximetry';
+import { detectDesaturations, DEFAULT_DESATURATION_RULES } from '@shared/clinical/oximetry-events';
+import type { OximetrySample } from '@shared/clinical/oximetry-samples';
 
 // The event definition is pinned in shared/clinical/oximetry-events.ts. Sources: ODI3/ODI4 as falls of ≥ 3 / ≥ 4
 // points from baseline per hour (Evans 2018; Urschitz 2003, docs/clinical-sources.md §5.1); 10 s minimum duration is the

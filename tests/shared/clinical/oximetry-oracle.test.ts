@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { summariseOximetry } from '../../../shared/clinical/oximetry';
-import { DEFAULT_ARTEFACT_RULES, type ArtefactRules, type OximetrySample } from '../../../shared/clinical/oximetry-samples';
+import { summariseOximetry } from '@shared/clinical/oximetry';
+import { DEFAULT_ARTEFACT_RULES, type ArtefactRules, type OximetrySample } from '@shared/clinical/oximetry-samples';
 
 /*
  * The summary figures against a reference written the slow, obvious way: one sample at a time, straight from the

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { summariseOximetry, summariseOximetryChunks } from '../../../shared/clinical/oximetry';
-import type { OximetrySample } from '../../../shared/clinical/oximetry-samples';
+import { summariseOximetry, summariseOximetryChunks } from '@shared/clinical/oximetry';
+import type { OximetrySample } from '@shared/clinical/oximetry-samples';
 import { buildTrace } from './helpers/synthetic-oximetry';
 
 // Traces of up to 20 minutes with the odd artefact, long enough for 120 s baselines and real events.

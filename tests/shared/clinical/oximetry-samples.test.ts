@@ -6,7 +6,7 @@ import {
   orderSamples,
   type ArtefactRules,
   type OximetrySample,
-} from '../../../shared/clinical/oximetry-samples';
+} from '@shared/clinical/oximetry-samples';
 
 const at = (tSec: number, spo2: number | null, pulse: number | null = 140, flagged?: boolean): OximetrySample => ({
   tSec,

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { OXIMETRY_ANALYSIS_VERSION, summariseOximetry } from '../../../shared/clinical/oximetry';
-import { isValidSample, type OximetrySample } from '../../../shared/clinical/oximetry-samples';
+import { OXIMETRY_ANALYSIS_VERSION, summariseOximetry } from '@shared/clinical/oximetry';
+import { isValidSample, type OximetrySample } from '@shared/clinical/oximetry-samples';
 import { SECTION_5_3_DIPS, buildTrace } from './helpers/synthetic-oximetry';
 
 describe('oximetry summary: §5.3 synthetic trace', () => {

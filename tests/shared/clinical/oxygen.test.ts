@@ -6,9 +6,9 @@ import {
   alveolarPo2SimplifiedMmHg,
   equivalentFio2,
   inspiredPo2MmHg,
-} from '../../../shared/clinical/oxygen';
-import { isaPressureMmHg, isaPressurePaAtGeopotentialM, resolvePressure } from '../../../shared/clinical/pressure';
-import { paToMmHg } from '../../../shared/clinical/units';
+} from '@shared/clinical/oxygen';
+import { isaPressureMmHg, isaPressurePaAtGeopotentialM, resolvePressure } from '@shared/clinical/pressure';
+import { paToMmHg } from '@shared/clinical/units';
 
 describe('inspired PO2', () => {
   it('when breathing air (0.2093) at sea level, then PIO2 is 149.2 mmHg', () => {

@@ -7,8 +7,8 @@ import {
   isaPressurePaAtGeopotentialM,
   resolvePressure,
   westPressureMmHg,
-} from '../../../shared/clinical/pressure';
-import { mmHgToPa, paToMmHg } from '../../../shared/clinical/units';
+} from '@shared/clinical/pressure';
+import { mmHgToPa, paToMmHg } from '@shared/clinical/units';
 
 // docs/clinical-sources.md §1.2. tablePa: U.S. Standard Atmosphere 1976 tabulated pressures by geometric altitude
 // [C a]; geometricMmHg and geopotentialPa: computed from the USSA-1976 troposphere formula [X]; westMmHg: computed

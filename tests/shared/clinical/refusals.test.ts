@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { agesAt, formatCorrectedAge, splitWeeksDays } from '../../../shared/clinical/ages';
-import { cannulaFactor, effectiveFio2, flowForEffectiveFio2 } from '../../../shared/clinical/cannula';
-import { cylinderMinutesFromBar, cylinderMinutesFromPsi, cylinderRemainingFraction, cylindersForJourney } from '../../../shared/clinical/cylinders';
-import { parseIsoDate } from '../../../shared/clinical/dates';
-import { assertValidSteps, roundUpToStepLpm } from '../../../shared/clinical/flowmeter';
-import { equivalentFio2, inspiredPo2MmHg } from '../../../shared/clinical/oxygen';
-import { isaPressureMmHg, isaPressurePaAtGeopotentialM, resolvePressure } from '../../../shared/clinical/pressure';
-import { WorkingSheet } from '../../../shared/clinical/working';
+import { agesAt, formatCorrectedAge, splitWeeksDays } from '@shared/clinical/ages';
+import { cannulaFactor, effectiveFio2, flowForEffectiveFio2 } from '@shared/clinical/cannula';
+import { cylinderMinutesFromBar, cylinderMinutesFromPsi, cylinderRemainingFraction, cylindersForJourney } from '@shared/clinical/cylinders';
+import { parseIsoDate } from '@shared/clinical/dates';
+import { assertValidSteps, roundUpToStepLpm } from '@shared/clinical/flowmeter';
+import { equivalentFio2, inspiredPo2MmHg } from '@shared/clinical/oxygen';
+import { isaPressureMmHg, isaPressurePaAtGeopotentialM, resolvePressure } from '@shared/clinical/pressure';
+import { WorkingSheet } from '@shared/clinical/working';
 
 // Product rule: bad input gets a clear error naming what is wrong, never a plausible-looking number. Each refusal
 // below is checked at its boundary (the last accepted value beside the first refused one) and by its message.

@@ -11,7 +11,7 @@ import {
   mmHgToPa,
   mmHgToPsi,
   paToMmHg,
-} from '../../../shared/clinical/units';
+} from '@shared/clinical/units';
 
 describe('pressure and length units', () => {
   it('when converting 1 mmHg, then it is 133.3224 Pa and 1 kPa is 7.50062 mmHg', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { weightWarnings } from '../../../shared/clinical/weight-check';
+import { weightWarnings } from '@shared/clinical/weight-check';
 
 // Thresholds: confirm under 1.0 kg and for a change of more than 20 % within 14 days (common practice).
 describe('weight plausibility', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { formatPhone, isE164, readPhone } from '../../../shared/phone/phone';
-import { updatePreferencesSchemaFor } from '../../../shared/schemas/preferences';
-import { updatePolicySchema, DEFAULT_POLICY_SETTINGS } from '../../../shared/schemas/policy';
+import { formatPhone, isE164, readPhone } from '@shared/phone/phone';
+import { updatePreferencesSchemaFor } from '@shared/schemas/preferences';
+import { updatePolicySchema, DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
 
 // Number plans: ITU-T E.164 for the stored form; the UK plan (Ofcom) for 07 mobiles, 01/02 landlines and 0800
 // freephone; Ofcom keeps 07700 900xxx and 01632 960xxx for drama, so they are nobody's number (from memory).

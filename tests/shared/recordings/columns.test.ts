@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { hasMapping, resolveColumns } from '../../../shared/recordings/columns';
+import { hasMapping, resolveColumns } from '@shared/recordings/columns';
 
 // The column rules of DEVELOPERS.md "Overnight recording files": our headers in any order and case; a mapping for
 // other exports, where pulse may be absent. A column read as the wrong value (pulse as SpO2) would corrupt a night.

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { countFields, SAMPLE_LINES, SEPARATORS, sniffLayout } from '../../../shared/recordings/csv-layout';
+import { countFields, SAMPLE_LINES, SEPARATORS, sniffLayout } from '@shared/recordings/csv-layout';
 
 const table = (separator: string, rows: number, decimal = '.') =>
   [`Date${separator}Time${separator}SpO2${separator}Pulse`, ...Array.from({ length: rows }, (_, i) => `24/11/2026${separator}21:00:${String(i % 60).padStart(2, '0')}${separator}97${decimal}5${separator}142${decimal}0`)].join('\n');

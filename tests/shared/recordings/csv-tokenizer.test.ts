@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { parse as csvParse } from 'csv-parse/sync';
-import { createCsvTokenizer, type CsvProblem } from '../../../shared/recordings/csv-tokenizer';
+import { createCsvTokenizer, type CsvProblem } from '@shared/recordings/csv-tokenizer';
 
 function tokenize(chunks: string[]) {
   const records: Array<{ fields: string[]; line: number }> = [];

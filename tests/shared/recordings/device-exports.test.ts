@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createRecordingParser, parseRecordingCsv, type RecordingParseResult } from '../../../shared/recordings/recording-parser';
+import { createRecordingParser, parseRecordingCsv, type RecordingParseResult } from '@shared/recordings/recording-parser';
 import { DEVICE_PREAMBLE, deviceExport } from '../../fixtures/recordings/device-export';
 
 const ok = (r: RecordingParseResult) => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DATE_ORDER_WORDS, DATE_ORDERS, readClockTime, readDateParts, settleDateOrder, splitDateTime, toCalendarDate } from '../../../shared/recordings/local-dates';
+import { DATE_ORDER_WORDS, DATE_ORDERS, readClockTime, readDateParts, settleDateOrder, splitDateTime, toCalendarDate } from '@shared/recordings/local-dates';
 
 const shown = (i: number) => `row ${i}`;
 const dates = (...written: string[]) => written.map((w) => readDateParts(w)!);

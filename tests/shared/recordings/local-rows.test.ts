@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { addLocalRow, createLocalRows, localRowsToInstants } from '../../../shared/recordings/local-rows';
+import { addLocalRow, createLocalRows, localRowsToInstants } from '@shared/recordings/local-rows';
 
 describe('rows with a local date and time', () => {
   it('when cells carry spaces, then they are read and written back trimmed', () => {

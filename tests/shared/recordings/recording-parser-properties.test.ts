@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import type { OximetrySample } from '../../../shared/clinical/oximetry-samples';
-import { createRecordingParser, parseRecordingCsv } from '../../../shared/recordings/recording-parser';
+import type { OximetrySample } from '@shared/clinical/oximetry-samples';
+import { createRecordingParser, parseRecordingCsv } from '@shared/recordings/recording-parser';
 import { csvFromSamples } from '../../fixtures/recordings/build-csv';
 
 // Values at the stored resolution (0.1), with the odd missing one; times at 1 ms, strictly increasing from 0.

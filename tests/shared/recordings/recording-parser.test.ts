@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseRecordingCsv, type RecordingParseResult } from '../../../shared/recordings/recording-parser';
+import { parseRecordingCsv, type RecordingParseResult } from '@shared/recordings/recording-parser';
 import { csvFromSamples, steadySamples } from '../../fixtures/recordings/build-csv';
 
 const ok = (r: RecordingParseResult) => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import type { OximetrySample } from '../../../shared/clinical/oximetry-samples';
-import { decodeSamples, encodeSamples } from '../../../shared/recordings/sample-codec';
+import type { OximetrySample } from '@shared/clinical/oximetry-samples';
+import { decodeSamples, encodeSamples } from '@shared/recordings/sample-codec';
 
 const value = fc.oneof(fc.integer({ min: 0, max: 65533 }).map((k) => k / 10), fc.constant(null), fc.constant(Number.NaN));
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { decimateTrace, TRACE_MAX_POINTS } from '../../../shared/recordings/trace';
+import { decimateTrace, TRACE_MAX_POINTS } from '@shared/recordings/trace';
 import { steadySamples } from '../../fixtures/recordings/build-csv';
 
 describe('trace for display', () => {

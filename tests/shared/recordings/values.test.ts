@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { isFlaggedStatus, looksLikeSeconds, parseIsoMs, parseSecondsMs, parseValue } from '../../../shared/recordings/values';
+import { isFlaggedStatus, looksLikeSeconds, parseIsoMs, parseSecondsMs, parseValue } from '@shared/recordings/values';
 
 // Timestamps follow RFC 3339, the internet profile of ISO 8601 (date, "T" or a space, time, fraction, then "Z" or
 // ±hh:mm); DEVELOPERS.md "Overnight recording files" lists what our reader accepts. A clock time read wrongly moves

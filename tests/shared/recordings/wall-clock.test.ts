@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createZoneClock, wallTimesToInstants } from '../../../shared/recordings/wall-clock';
+import { createZoneClock, wallTimesToInstants } from '@shared/recordings/wall-clock';
 
 // UK clock changes: the Summer Time Act 1972 as amended by the Summer Time Order 2002 (SI 2002/262), in line with
 // EU Directive 2000/84/EC — forward at 01:00 GMT on the last Sunday of March, back at 01:00 GMT on the last Sunday

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { planBookingNote } from '../../../shared/reminders/timing';
-import { localToInstant } from '../../../shared/schedule/local-time';
+import { planBookingNote } from '@shared/reminders/timing';
+import { localToInstant } from '@shared/schedule/local-time';
 
 // Quiet hours 21:00–08:00, the programme default (the product brief). London is UTC+0 in December.
 const quiet = { quietStart: '21:00', quietEnd: '08:00' };

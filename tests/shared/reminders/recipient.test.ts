@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { chooseChannel, smsNumber, type FamilyContactPrefs } from '../../../shared/reminders/recipient';
+import { chooseChannel, smsNumber, type FamilyContactPrefs } from '@shared/reminders/recipient';
 
 // Consent rules are product rules (docs/product-rules.md "Messages": consent is respected; the family may turn reminders off).
 const contact = (over: Partial<FamilyContactPrefs> = {}): FamilyContactPrefs => ({

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_POLICY_SETTINGS } from '../../../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
 import {
   changeNoteAt, inQuietHours, instantAtOrAfter, journeyReminderAt, outsideQuietHours, planVisitReminders, type ReminderRules,
-} from '../../../shared/reminders/timing';
+} from '@shared/reminders/timing';
 
 // Time-zone facts below are IANA tz database rules (2026):
 // - Europe/London: GMT (UTC+0) in winter, BST (UTC+1) in summer; forward 01:00 UTC on 29 March, back 01:00 UTC on 25 October.

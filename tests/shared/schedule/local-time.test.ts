@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { localToInstant } from '../../../shared/schedule/local-time';
+import { localToInstant } from '@shared/schedule/local-time';
 
 // UK clock changes in 2026: forward at 01:00 UTC on 29 March, back at 01:00 UTC on 25 October (common knowledge
 // of the EU/UK rule: last Sunday of March and of October).

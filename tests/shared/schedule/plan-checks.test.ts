@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { endOfLocalDay, localDate, planChecks, type PlanState } from '../../../shared/schedule/plan-checks';
-import { DEFAULT_POLICY_SETTINGS as policy } from '../../../shared/schemas/policy';
+import { endOfLocalDay, localDate, planChecks, type PlanState } from '@shared/schedule/plan-checks';
+import { DEFAULT_POLICY_SETTINGS as policy } from '@shared/schemas/policy';
 
 const TZ = 'Europe/London';
 // Fixed clock: a Wednesday in March, four days before the UK clocks go forward (29 March 2026, 01:00 UTC).

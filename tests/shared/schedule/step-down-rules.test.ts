@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkStepDownRules, unmetInEvidence, unmetRules, type StepDownFacts } from '../../../shared/schedule/step-down-rules';
-import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '../../../shared/schemas/policy';
+import { checkStepDownRules, unmetInEvidence, unmetRules, type StepDownFacts } from '@shared/schedule/step-down-rules';
+import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '@shared/schemas/policy';
 
 // Defaults and their sources are listed in shared/schedule/step-down-rules.ts: 14 days on a setting (common
 // practice), a study within 7 days (common practice) of ≥ 5 h valid time (Urschitz 2003), mean ≥ 93 % and < 5 % of

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { isJudged, meetsOvernightTarget, nextStepDown, type Setting } from '../../../shared/schedule/step-down';
-import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '../../../shared/schemas/policy';
+import { isJudged, meetsOvernightTarget, nextStepDown, type Setting } from '@shared/schedule/step-down';
+import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '@shared/schemas/policy';
 
 // The step-down ladder is the programme's own (common practice, set in policy): one flowmeter step down at a time
 // (default steps 0.025 L/min up to 1 L/min), oxygen only while asleep at or below 0.1 L/min, then off.

@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { convertPrescription } from '../../../shared/clinical/conversion';
+import { convertPrescription } from '@shared/clinical/conversion';
 import {
   conversionPreviewBodySchema,
   conversionPreviewResponseSchema,
   pressureSourceSchema,
-} from '../../../shared/schemas/conversions';
+} from '@shared/schemas/conversions';
 
 const valid = {
   weightKg: 3,

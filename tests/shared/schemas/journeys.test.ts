@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createJourneySchema, createJourneySchemaOn, journeyDateErrors, journeyDecisionSchema } from '../../../shared/schemas/journeys';
+import { createJourneySchema, createJourneySchemaOn, journeyDateErrors, journeyDecisionSchema } from '@shared/schemas/journeys';
 
 const fields = (r: { success: boolean; error?: { issues: Array<{ path: PropertyKey[] }> } }) =>
   [...new Set((r.error?.issues ?? []).map((i) => i.path.join('.') || '_'))].sort();

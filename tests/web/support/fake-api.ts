@@ -1,7 +1,7 @@
 import { vi } from 'vitest';
-import type { Role } from '../../../shared/auth/roles';
-import type { SessionUser } from '../../../shared/schemas/session';
-import type { User } from '../../../shared/schemas/users';
+import type { Role } from '@shared/auth/roles';
+import type { SessionUser } from '@shared/schemas/session';
+import type { User } from '@shared/schemas/users';
 
 export interface FakeRequest {
   url: URL;

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { ROLE_LABELS } from '../../../shared/auth/roles';
+import { ROLE_LABELS } from '@shared/auth/roles';
 import { LogoMark } from '../../components/ui/logo-mark';
 import { SignOutButton } from '../../features/session/components/sign-out-button';
 import { useSignedInUser } from '../../lib/signed-in-user';

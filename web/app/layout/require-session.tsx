@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { AbilityProvider } from '@casl/react';
 import { Navigate, Outlet, useLocation } from 'react-router-dom';
-import type { SessionUser } from '../../../shared/schemas/session';
+import type { SessionUser } from '@shared/schemas/session';
 import { FullPageSpinner } from '../../components/ui/spinner';
 import { useSession } from '../../features/session/api/get-session';
 import { abilityForSessionUser } from '../../lib/ability';

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
-import type { Journey } from '../../../shared/schemas/journeys';
+import type { Journey } from '@shared/schemas/journeys';
 import { Alert } from '../../components/ui/alert';
 import { Card } from '../../components/ui/card';
 import { FamilyPageHeader } from '../../components/ui/page-header';

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import type { Journey } from '../../../shared/schemas/journeys';
+import type { Journey } from '@shared/schemas/journeys';
 import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
 import { useInfant } from '../../features/infants/api/get-infant';

@@ -1,8 +1,8 @@
 import { useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
-import type { Reading } from '../../../shared/schemas/readings';
-import type { DayItem } from '../../../shared/schemas/schedule';
+import type { Reading } from '@shared/schemas/readings';
+import type { DayItem } from '@shared/schemas/schedule';
 import { PageHeader } from '../../components/ui/page-header';
 import { infantKeys } from '../../features/infants/api/infant-keys';
 import { useRefreshMyDay } from '../../features/my-day/api/get-my-day';

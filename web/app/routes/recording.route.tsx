@@ -1,8 +1,8 @@
 import { useEffect, useRef } from 'react';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { Link, useParams } from 'react-router-dom';
-import type { InfantDetail } from '../../../shared/schemas/infants';
-import type { Recording } from '../../../shared/schemas/recordings';
+import type { InfantDetail } from '@shared/schemas/infants';
+import type { Recording } from '@shared/schemas/recordings';
 import { Alert } from '../../components/ui/alert';
 import { Card } from '../../components/ui/card';
 import { EmptyState } from '../../components/ui/empty-state';

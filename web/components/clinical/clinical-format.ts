@@ -1,5 +1,5 @@
-import { mmHgToKPa } from '../../../shared/clinical/units';
-import type { WorkingUnit } from '../../../shared/clinical/working';
+import { mmHgToKPa } from '@shared/clinical/units';
+import type { WorkingUnit } from '@shared/clinical/working';
 
 // Display only: the numbers themselves come from shared/clinical. Flows are shown with up to 3 decimals and no
 // trailing zeros, so a 1/8 L/min step reads 0.125 and is never rounded to a neighbouring step.

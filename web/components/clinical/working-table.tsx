@@ -1,5 +1,5 @@
-import type { ConversionModel } from '../../../shared/clinical/conversion-types';
-import type { WorkingLine } from '../../../shared/clinical/working';
+import type { ConversionModel } from '@shared/clinical/conversion-types';
+import type { WorkingLine } from '@shared/clinical/working';
 import { formatWorkingValue } from './clinical-format';
 import { ScrollRegion } from '../ui/scroll-region';
 

@@ -1,4 +1,4 @@
-import type { OximetrySample } from '../../../../shared/clinical/oximetry-samples';
+import type { OximetrySample } from '@shared/clinical/oximetry-samples';
 
 export interface Dip {
   startTSec: number;

@@ -1,5 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import type { ChangePasswordInput } from '../../../../shared/schemas/accounts';
+import type { ChangePasswordInput } from '@shared/schemas/accounts';
 import { apiRequest } from '../../../lib/api-client';
 
 export function useChangePassword() {

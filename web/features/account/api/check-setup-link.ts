@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { setupLinkInfoSchema } from '../../../../shared/schemas/accounts';
+import { setupLinkInfoSchema } from '@shared/schemas/accounts';
 import { api } from '../../../lib/api-client';
 import { accountKeys } from './account-keys';
 

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { setPasswordResponseSchema, type SetPasswordInput } from '../../../../shared/schemas/accounts';
+import { setPasswordResponseSchema, type SetPasswordInput } from '@shared/schemas/accounts';
 import { api } from '../../../lib/api-client';
 import { accountKeys } from './account-keys';
 

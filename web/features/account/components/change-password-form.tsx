@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { changePasswordSchema, type ChangePasswordInput } from '../../../../shared/schemas/accounts';
+import { changePasswordSchema, type ChangePasswordInput } from '@shared/schemas/accounts';
 import { Alert } from '../../../components/ui/alert';
 import { TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';

@@ -1,4 +1,4 @@
-import { PASSWORD_MIN_LENGTH } from '../../../../shared/schemas/accounts';
+import { PASSWORD_MIN_LENGTH } from '@shared/schemas/accounts';
 
 /** The only rules there are: length, and not a well-known password (checked by the server against a list). */
 export function PasswordRules() {

@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { newPasswordSchema, type SetupLinkInfo } from '../../../../shared/schemas/accounts';
+import { newPasswordSchema, type SetupLinkInfo } from '@shared/schemas/accounts';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';

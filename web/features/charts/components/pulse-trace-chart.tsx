@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import type uPlot from 'uplot';
-import type { RecordingTrace } from '../../../../shared/schemas/recordings';
+import type { RecordingTrace } from '@shared/schemas/recordings';
 import { ChartCanvas } from './chart-canvas';
 import { clockText, elapsedText, percentAxis, timeAxis } from './chart-axes';
 import { CHART_COLOURS } from './chart-theme';

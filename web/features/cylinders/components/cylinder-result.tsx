@@ -1,6 +1,6 @@
 import { useEffect, useRef } from 'react';
-import { cylinderTime } from '../../../../shared/clinical/cylinder-time';
-import type { CylinderType } from '../../../../shared/schemas/policy';
+import { cylinderTime } from '@shared/clinical/cylinder-time';
+import type { CylinderType } from '@shared/schemas/policy';
 import { flowWords } from '../../../components/clinical/setting-text';
 import { clockAfter, durationWords } from './duration-words';
 import type { FlowGroup } from './flow-groups';

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { CylinderCheckInput } from '../../../../shared/schemas/journeys';
+import type { CylinderCheckInput } from '@shared/schemas/journeys';
 import { Cautions } from '../../../components/clinical/cautions';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';

@@ -1,4 +1,4 @@
-import type { JourneyPeriod } from '../../../../shared/schemas/journeys';
+import type { JourneyPeriod } from '@shared/schemas/journeys';
 
 export interface SettingFlows {
   flowLpm: number;

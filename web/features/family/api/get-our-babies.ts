@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { infantsPageSchema } from '../../../../shared/schemas/infants';
+import { infantsPageSchema } from '@shared/schemas/infants';
 import { api } from '../../../lib/api-client';
 import { familyKeys } from './family-keys';
 

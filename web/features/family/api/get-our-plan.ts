@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { prescriptionListSchema } from '../../../../shared/schemas/prescriptions';
+import { prescriptionListSchema } from '@shared/schemas/prescriptions';
 import { api } from '../../../lib/api-client';
 import { familyKeys } from './family-keys';
 

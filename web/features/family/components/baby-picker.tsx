@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { InfantSummary } from '../../../../shared/schemas/infants';
+import type { InfantSummary } from '@shared/schemas/infants';
 
 /** For families with more than one baby in the programme (twins): one plan at a time, chosen by name. */
 export function BabyPicker({ babies, chosenId }: { babies: readonly InfantSummary[]; chosenId: string }) {

@@ -1,4 +1,4 @@
-import { emergencyCallText, WARNING_SIGNS, WARNING_SIGNS_INTRO } from '../../../../shared/family/care-text';
+import { emergencyCallText, WARNING_SIGNS, WARNING_SIGNS_INTRO } from '@shared/family/care-text';
 import { useProgrammeContacts } from '../api/get-programme-contacts';
 import { FoldedSection } from '../../../components/ui/folded-section';
 import { PhoneLink } from './phone-link';

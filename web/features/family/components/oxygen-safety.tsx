@@ -1,4 +1,4 @@
-import { OXYGEN_SAFETY_POINTS } from '../../../../shared/family/care-text';
+import { OXYGEN_SAFETY_POINTS } from '@shared/family/care-text';
 import { FoldedSection } from '../../../components/ui/folded-section';
 
 /** Fire safety at home, in the same words as the printed care plan; the plan's own cautions carry the short form. */

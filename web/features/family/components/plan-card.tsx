@@ -1,4 +1,4 @@
-import type { Prescription } from '../../../../shared/schemas/prescriptions';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import { CarePlanLink } from '../../../components/clinical/care-plan-link';
 import { Cautions } from '../../../components/clinical/cautions';
 import { Card } from '../../../components/ui/card';

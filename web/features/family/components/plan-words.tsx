@@ -1,4 +1,4 @@
-import type { Prescription } from '../../../../shared/schemas/prescriptions';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import { flowWords, settingText } from '../../../components/clinical/setting-text';
 
 const PERIOD_WORDS = { awake: 'When awake', asleep: 'When asleep', feeding: 'When feeding' } as const;

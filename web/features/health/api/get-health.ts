@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { healthSchema } from '../../../../shared/schemas/health';
+import { healthSchema } from '@shared/schemas/health';
 import { api } from '../../../lib/api-client';
 
 export const healthKeys = {

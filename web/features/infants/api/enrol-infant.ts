@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { infantDetailSchema, type EnrolInfantInput } from '../../../../shared/schemas/infants';
+import { infantDetailSchema, type EnrolInfantInput } from '@shared/schemas/infants';
 import { api } from '../../../lib/api-client';
 import { infantKeys } from './infant-keys';
 

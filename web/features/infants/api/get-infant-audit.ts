@@ -1,9 +1,9 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { auditEventsSchema } from '../../../../shared/schemas/infants';
+import { auditEventsSchema } from '@shared/schemas/infants';
 import { api } from '../../../lib/api-client';
 import { infantKeys } from './infant-keys';
 
-export { auditEventSchema, type AuditEvent } from '../../../../shared/schemas/infants';
+export { auditEventSchema, type AuditEvent } from '@shared/schemas/infants';
 
 export const infantAuditQueryOptions = (infantId: string, versionsState: string) =>
   queryOptions({

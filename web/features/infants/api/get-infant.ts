@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { infantDetailSchema } from '../../../../shared/schemas/infants';
+import { infantDetailSchema } from '@shared/schemas/infants';
 import { api } from '../../../lib/api-client';
 import { infantKeys } from './infant-keys';
 

@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { infantsPageSchema, type ListInfantsQuery } from '../../../../shared/schemas/infants';
+import { infantsPageSchema, type ListInfantsQuery } from '@shared/schemas/infants';
 import { api } from '../../../lib/api-client';
 import { infantKeys } from './infant-keys';
 

@@ -1,8 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { policySchema, policySettingsSchema } from '../../../../shared/schemas/policy';
-import { sitesResponseSchema } from '../../../../shared/schemas/sites';
-import { usersPageSchema } from '../../../../shared/schemas/users';
+import { policySchema, policySettingsSchema } from '@shared/schemas/policy';
+import { sitesResponseSchema } from '@shared/schemas/sites';
+import { usersPageSchema } from '@shared/schemas/users';
 import { api } from '../../../lib/api-client';
 import { programmeKeys } from './infant-keys';
 

@@ -1,4 +1,4 @@
-import type { ListInfantsQuery } from '../../../../shared/schemas/infants';
+import type { ListInfantsQuery } from '@shared/schemas/infants';
 
 export const infantKeys = {
   all: ['infants'] as const,

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { infantDetailSchema, type ContactInput, type UpdateInfantInput } from '../../../../shared/schemas/infants';
+import { infantDetailSchema, type ContactInput, type UpdateInfantInput } from '@shared/schemas/infants';
 import { apiRequest } from '../../../lib/api-client';
 import { infantKeys } from './infant-keys';
 

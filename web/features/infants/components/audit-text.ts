@@ -1,4 +1,4 @@
-import { auditWords, type PeopleNames } from '../../../../shared/audit/audit-words';
+import { auditWords, type PeopleNames } from '@shared/audit/audit-words';
 import type { AuditEvent } from '../api/get-infant-audit';
 
 /** What happened, in words with what changed (the sentences live in shared/audit, one per stored action). */

@@ -1,6 +1,6 @@
 import { Fact } from '../../../components/ui/fact';
 import { Link } from 'react-router-dom';
-import { INFANT_STATUS_LABELS, type InfantSummary, type ListInfantsQuery } from '../../../../shared/schemas/infants';
+import { INFANT_STATUS_LABELS, type InfantSummary, type ListInfantsQuery } from '@shared/schemas/infants';
 import { Badge } from '../../../components/ui/badge';
 import { currentFlowText, placeText, STATUS_TONES } from './caseload-columns';
 import { FlagList } from './flag-badge';

@@ -6,7 +6,7 @@ import {
   type InfantStatus,
   type InfantSummary,
   type ListInfantsQuery,
-} from '../../../../shared/schemas/infants';
+} from '@shared/schemas/infants';
 import { formatFlow, formatMmHg } from '../../../components/clinical/clinical-format';
 import { Badge } from '../../../components/ui/badge';
 import { urlSort } from '../../../components/ui/data-table/url-sort';

@@ -6,7 +6,7 @@ import {
   INFANT_STATUSES,
   INFANT_STATUS_LABELS,
   type ListInfantsQuery,
-} from '../../../../shared/schemas/infants';
+} from '@shared/schemas/infants';
 import { SearchForm } from '../../../components/ui/data-table/search-form';
 import { SelectFilter } from '../../../components/ui/data-table/select-filter';
 

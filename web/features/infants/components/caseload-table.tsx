@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import type { ListInfantsQuery } from '../../../../shared/schemas/infants';
+import type { ListInfantsQuery } from '@shared/schemas/infants';
 import { Alert } from '../../../components/ui/alert';
 import { CursorPager } from '../../../components/ui/data-table/cursor-pager';
 import { TableFrame } from '../../../components/ui/data-table/table-frame';

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useFormContext } from 'react-hook-form';
-import { MESSAGE_LANGUAGES } from '../../../../shared/schemas/preferences';
-import { OTHER_HOME_LANGUAGES } from '../../../../shared/family/languages';
+import { MESSAGE_LANGUAGES } from '@shared/schemas/preferences';
+import { OTHER_HOME_LANGUAGES } from '@shared/family/languages';
 import { SelectField } from '../../../components/ui/field';
 import type { ContactValues } from './enrol-values';
 import { errorText } from './form-helpers';

@@ -3,7 +3,7 @@ import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { updateInfantSchema, type InfantDetail, type UpdateInfantInput } from '../../../../shared/schemas/infants';
+import { updateInfantSchema, type InfantDetail, type UpdateInfantInput } from '@shared/schemas/infants';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';

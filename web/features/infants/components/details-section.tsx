@@ -1,6 +1,6 @@
 import { useFocusWhenClosed } from '../../../components/ui/focus';
 import { useState } from 'react';
-import { DIAGNOSIS_LABELS, type InfantDetail } from '../../../../shared/schemas/infants';
+import { DIAGNOSIS_LABELS, type InfantDetail } from '@shared/schemas/infants';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { DetailsEditor } from './details-editor';

@@ -1,5 +1,5 @@
 import { useFormContext } from 'react-hook-form';
-import { DIAGNOSES, DIAGNOSIS_LABELS } from '../../../../shared/schemas/infants';
+import { DIAGNOSES, DIAGNOSIS_LABELS } from '@shared/schemas/infants';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { asNumber } from '../../../lib/form-values';
 import { Choice, ChoiceGroup } from './choice-fields';

@@ -1,5 +1,5 @@
 import { useWatch, type Control } from 'react-hook-form';
-import { DIAGNOSIS_LABELS } from '../../../../shared/schemas/infants';
+import { DIAGNOSIS_LABELS } from '@shared/schemas/infants';
 import { Button } from '../../../components/ui/button';
 import { useSites, useStaff } from '../api/get-programme-data';
 import type { EnrolValues } from './enrol-values';

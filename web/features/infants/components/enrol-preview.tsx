@@ -1,8 +1,8 @@
 import { useMemo } from 'react';
-import { infeasibleReason } from '../../../../shared/clinical/conversion-warnings';
+import { infeasibleReason } from '@shared/clinical/conversion-warnings';
 import { useWatch, type Control } from 'react-hook-form';
-import { convertPrescription } from '../../../../shared/clinical/conversion';
-import type { PrescriptionConversion } from '../../../../shared/clinical/conversion-types';
+import { convertPrescription } from '@shared/clinical/conversion';
+import type { PrescriptionConversion } from '@shared/clinical/conversion-types';
 import { formatFlow, formatFraction, formatMmHg } from '../../../components/clinical/clinical-format';
 import { WorkingTable } from '../../../components/clinical/working-table';
 import { Alert } from '../../../components/ui/alert';

@@ -4,7 +4,7 @@ import {
   INFANT_FLAG_LABELS,
   type InfantFlag,
   type InfantFlagKind,
-} from '../../../../shared/schemas/infants';
+} from '@shared/schemas/infants';
 
 const TONES: Record<InfantFlagKind, string> = {
   clinical: 'border-danger-200 bg-danger-50 text-danger-800',

@@ -1,6 +1,6 @@
 import { Fact } from '../../../components/ui/fact';
 import { PageHeading } from '../../../components/ui/page-heading';
-import { INFANT_STATUS_LABELS, type InfantDetail } from '../../../../shared/schemas/infants';
+import { INFANT_STATUS_LABELS, type InfantDetail } from '@shared/schemas/infants';
 import { settingText } from '../../../components/clinical/setting-text';
 import { Badge } from '../../../components/ui/badge';
 import { STATUS_TONES } from './caseload-columns';

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
-import { infeasibleReason } from '../../../../shared/clinical/conversion-warnings';
-import type { InfantDetail } from '../../../../shared/schemas/infants';
-import type { Prescription } from '../../../../shared/schemas/prescriptions';
+import { infeasibleReason } from '@shared/clinical/conversion-warnings';
+import type { InfantDetail } from '@shared/schemas/infants';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import { CarePlanLink } from '../../../components/clinical/care-plan-link';
 import { Cautions } from '../../../components/clinical/cautions';
 import { formatFraction } from '../../../components/clinical/clinical-format';

@@ -1,8 +1,8 @@
-import type { PrescriptionConversionInput } from '../../../../shared/clinical/conversion-types';
-import type { PressureSource } from '../../../../shared/clinical/pressure';
-import { conversionPreviewBodySchema } from '../../../../shared/schemas/conversions';
-import type { PolicySettings } from '../../../../shared/schemas/policy';
-import type { Site } from '../../../../shared/schemas/sites';
+import type { PrescriptionConversionInput } from '@shared/clinical/conversion-types';
+import type { PressureSource } from '@shared/clinical/pressure';
+import { conversionPreviewBodySchema } from '@shared/schemas/conversions';
+import type { PolicySettings } from '@shared/schemas/policy';
+import type { Site } from '@shared/schemas/sites';
 
 export interface PreviewFacts {
   weightKg?: number;

@@ -3,7 +3,7 @@ import {
   PRESCRIPTION_STATUS_LABELS,
   type Prescription,
   type PrescriptionStatus,
-} from '../../../../shared/schemas/prescriptions';
+} from '@shared/schemas/prescriptions';
 import { WorkingTable } from '../../../components/clinical/working-table';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';

@@ -1,5 +1,5 @@
 import { useCallback } from 'react';
-import { listInfantsQuerySchema, type ListInfantsQuery } from '../../../../shared/schemas/infants';
+import { listInfantsQuerySchema, type ListInfantsQuery } from '@shared/schemas/infants';
 import { useUrlView } from '../../../lib/url-view';
 
 /**

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { journeyResponseSchema, type CreateJourneyInput } from '../../../../shared/schemas/journeys';
+import { journeyResponseSchema, type CreateJourneyInput } from '@shared/schemas/journeys';
 import { api } from '../../../lib/api-client';
 import { journeyKeys } from './journey-keys';
 

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { journeyResponseSchema, journeySchema, type JourneyDecisionInput } from '../../../../shared/schemas/journeys';
+import { journeyResponseSchema, journeySchema, type JourneyDecisionInput } from '@shared/schemas/journeys';
 import { api } from '../../../lib/api-client';
 import { isApiError } from '../../../lib/api-error';
 import { journeyKeys } from './journey-keys';

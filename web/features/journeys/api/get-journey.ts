@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { journeyResponseSchema } from '../../../../shared/schemas/journeys';
+import { journeyResponseSchema } from '@shared/schemas/journeys';
 import { api } from '../../../lib/api-client';
 import { journeyKeys } from './journey-keys';
 

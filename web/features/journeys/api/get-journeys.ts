@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { journeyListSchema } from '../../../../shared/schemas/journeys';
+import { journeyListSchema } from '@shared/schemas/journeys';
 import { api } from '../../../lib/api-client';
 import { journeyKeys } from './journey-keys';
 

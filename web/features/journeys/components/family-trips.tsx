@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { Journey, JourneyPlan } from '../../../../shared/schemas/journeys';
+import type { Journey, JourneyPlan } from '@shared/schemas/journeys';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { errorMessage } from '../../../lib/api-error';

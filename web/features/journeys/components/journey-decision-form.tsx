@@ -1,7 +1,7 @@
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { journeyDecisionSchema, type Journey, type JourneyDecisionInput } from '../../../../shared/schemas/journeys';
+import { journeyDecisionSchema, type Journey, type JourneyDecisionInput } from '@shared/schemas/journeys';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextAreaField } from '../../../components/ui/field';

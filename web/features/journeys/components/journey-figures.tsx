@@ -1,7 +1,7 @@
-import type { JourneyPlan } from '../../../../shared/schemas/journeys';
+import type { JourneyPlan } from '@shared/schemas/journeys';
 import { formatFlow, formatMmHg } from '../../../components/clinical/clinical-format';
 import { Alert } from '../../../components/ui/alert';
-import { hoursAndMinutesText as durationText } from '../../../../shared/clinical/cylinder-time';
+import { hoursAndMinutesText as durationText } from '@shared/clinical/cylinder-time';
 import { PERIOD_WORDS } from './journey-words';
 import { ScrollRegion } from '../../../components/ui/scroll-region';
 

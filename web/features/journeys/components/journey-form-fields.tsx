@@ -1,5 +1,5 @@
 import { useFormContext, useWatch } from 'react-hook-form';
-import type { CreateJourneyFormValues } from '../../../../shared/schemas/journeys';
+import type { CreateJourneyFormValues } from '@shared/schemas/journeys';
 import { TextAreaField, TextField } from '../../../components/ui/field';
 import { asNumber } from '../../../lib/form-values';
 

@@ -2,7 +2,7 @@ import type { FormEvent } from 'react';
 import { useRef } from 'react';
 import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { createJourneySchemaOn, type CreateJourneyFormValues, type CreateJourneyInput, type Journey } from '../../../../shared/schemas/journeys';
+import { createJourneySchemaOn, type CreateJourneyFormValues, type CreateJourneyInput, type Journey } from '@shared/schemas/journeys';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { applyServerFieldErrors, formProblem } from '../../../lib/form-errors';

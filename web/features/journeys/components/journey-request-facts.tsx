@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { JOURNEY_STATUS_LABELS, type Journey } from '../../../../shared/schemas/journeys';
+import { JOURNEY_STATUS_LABELS, type Journey } from '@shared/schemas/journeys';
 import { Badge } from '../../../components/ui/badge';
 import { formatDateTime } from '../../../lib/format';
 import { destinationElevationWords, hoursWords, shortDayWords, wayWords } from './journey-words';

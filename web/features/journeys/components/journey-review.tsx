@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { Journey } from '../../../../shared/schemas/journeys';
+import type { Journey } from '@shared/schemas/journeys';
 import { Cautions } from '../../../components/clinical/cautions';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';

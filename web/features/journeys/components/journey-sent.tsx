@@ -1,6 +1,6 @@
 import { useFocusOnArrival } from '../../../components/ui/focus';
 import type { ReactNode } from 'react';
-import type { Journey } from '../../../../shared/schemas/journeys';
+import type { Journey } from '@shared/schemas/journeys';
 import { datesWords, wayWords } from './journey-words';
 
 /** After sending: nothing is planned until the consultant has looked at it, and the page says so. */

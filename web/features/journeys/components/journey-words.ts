@@ -1,4 +1,4 @@
-import type { Journey, JourneyPeriod } from '../../../../shared/schemas/journeys';
+import type { Journey, JourneyPeriod } from '@shared/schemas/journeys';
 
 // Journey dates are the family's calendar days; formatting them at UTC noon keeps any browser zone from moving them.
 const asUtcNoon = (date: string) => new Date(`${date}T12:00:00Z`);

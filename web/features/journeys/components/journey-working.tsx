@@ -1,4 +1,4 @@
-import type { JourneyPlan } from '../../../../shared/schemas/journeys';
+import type { JourneyPlan } from '@shared/schemas/journeys';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { WorkingTable } from '../../../components/clinical/working-table';
 

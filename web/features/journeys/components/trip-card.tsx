@@ -1,4 +1,4 @@
-import type { Journey, JourneyPlan } from '../../../../shared/schemas/journeys';
+import type { Journey, JourneyPlan } from '@shared/schemas/journeys';
 import { flowWords } from '../../../components/clinical/setting-text';
 import { datesWords, hoursWords, PERIOD_WORDS } from './journey-words';
 

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { Journey } from '../../../../shared/schemas/journeys';
+import type { Journey } from '@shared/schemas/journeys';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';

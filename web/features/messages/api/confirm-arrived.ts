@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { messageResponseSchema } from '../../../../shared/schemas/messages';
+import { messageResponseSchema } from '@shared/schemas/messages';
 import { api } from '../../../lib/api-client';
 import { messageKeys } from './message-keys';
 

@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { messagesPageSchema, type ListMessagesQuery } from '../../../../shared/schemas/messages';
+import { messagesPageSchema, type ListMessagesQuery } from '@shared/schemas/messages';
 import { api } from '../../../lib/api-client';
 import { messageKeys } from './message-keys';
 

@@ -1,4 +1,4 @@
-import type { ListMessagesQuery } from '../../../../shared/schemas/messages';
+import type { ListMessagesQuery } from '@shared/schemas/messages';
 
 export const messageKeys = {
   all: ['messages'] as const,

@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
-import { MESSAGE_SORTS, MESSAGE_TEMPLATE_LABELS, type ListMessagesQuery, type Message } from '../../../../shared/schemas/messages';
+import { MESSAGE_SORTS, MESSAGE_TEMPLATE_LABELS, type ListMessagesQuery, type Message } from '@shared/schemas/messages';
 import { urlSort } from '../../../components/ui/data-table/url-sort';
 import type { ServerTableFeatures } from '../../../components/ui/data-table/use-server-table';
 import { usePhoneText } from '../../../lib/phone-text';

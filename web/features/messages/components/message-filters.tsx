@@ -5,7 +5,7 @@ import {
   MESSAGE_TEMPLATES,
   MESSAGE_TEMPLATE_LABELS,
   type ListMessagesQuery,
-} from '../../../../shared/schemas/messages';
+} from '@shared/schemas/messages';
 import { Button } from '../../../components/ui/button';
 import { SelectFilter } from '../../../components/ui/data-table/select-filter';
 import { CHANNEL_LABELS, MESSAGE_STATUS_LABELS } from './message-format';

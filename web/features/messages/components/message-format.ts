@@ -1,4 +1,4 @@
-import { SKIP_REASONS, type Channel, type Message, type MessageStatus } from '../../../../shared/schemas/messages';
+import { SKIP_REASONS, type Channel, type Message, type MessageStatus } from '@shared/schemas/messages';
 
 export const MESSAGE_STATUS_LABELS: Record<MessageStatus, string> = {
   scheduled: 'Waiting to send',

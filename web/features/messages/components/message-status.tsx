@@ -1,4 +1,4 @@
-import type { Message, MessageStatus } from '../../../../shared/schemas/messages';
+import type { Message, MessageStatus } from '@shared/schemas/messages';
 import { Badge } from '../../../components/ui/badge';
 import { MESSAGE_STATUS_LABELS, statusDetail } from './message-format';
 

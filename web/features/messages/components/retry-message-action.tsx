@@ -1,4 +1,4 @@
-import type { Message } from '../../../../shared/schemas/messages';
+import type { Message } from '@shared/schemas/messages';
 import { Button } from '../../../components/ui/button';
 import { useConfirmArrived } from '../api/confirm-arrived';
 import { useRetryMessage } from '../api/retry-message';

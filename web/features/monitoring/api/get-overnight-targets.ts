@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { policySchema, spo2TargetsSchema, withPolicyDefaults, type PolicySettings } from '../../../../shared/schemas/policy';
+import { policySchema, spo2TargetsSchema, withPolicyDefaults, type PolicySettings } from '@shared/schemas/policy';
 import { api } from '../../../lib/api-client';
 import { monitoringKeys } from './monitoring-keys';
 

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { readingListSchema } from '../../../../shared/schemas/readings';
+import { readingListSchema } from '@shared/schemas/readings';
 import { api } from '../../../lib/api-client';
 import { monitoringKeys } from './monitoring-keys';
 

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { scheduleResponseSchema } from '../../../../shared/schemas/schedule';
+import { scheduleResponseSchema } from '@shared/schemas/schedule';
 import { api } from '../../../lib/api-client';
 import { monitoringKeys } from './monitoring-keys';
 

@@ -1,6 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
-import { prescriptionSchema, type Prescription } from '../../../../shared/schemas/prescriptions';
-import type { StepDownRequestInput } from '../../../../shared/schemas/step-downs';
+import { prescriptionSchema, type Prescription } from '@shared/schemas/prescriptions';
+import type { StepDownRequestInput } from '@shared/schemas/step-downs';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { api } from '../../../lib/api-client';
 

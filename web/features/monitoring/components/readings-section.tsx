@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { READING_STATE_LABELS, type Reading } from '../../../../shared/schemas/readings';
+import { READING_STATE_LABELS, type Reading } from '@shared/schemas/readings';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { CHECK_KIND_LABELS, type Check } from '../../../../shared/schemas/schedule';
+import { CHECK_KIND_LABELS, type Check } from '@shared/schemas/schedule';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';

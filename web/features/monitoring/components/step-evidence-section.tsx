@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { PRESCRIPTION_REASON_LABELS, PRESCRIPTION_STATUS_LABELS, type Prescription } from '../../../../shared/schemas/prescriptions';
+import { PRESCRIPTION_REASON_LABELS, PRESCRIPTION_STATUS_LABELS, type Prescription } from '@shared/schemas/prescriptions';
 import { Card } from '../../../components/ui/card';
 import { formatDateTime } from '../../../lib/format';
 import { readEvidence, STEP_REASONS, type StepEvidence } from './step-evidence';

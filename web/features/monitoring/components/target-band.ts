@@ -1,5 +1,5 @@
-import type { PolicySettings } from '../../../../shared/schemas/policy';
-import type { Reading } from '../../../../shared/schemas/readings';
+import type { PolicySettings } from '@shared/schemas/policy';
+import type { Reading } from '@shared/schemas/readings';
 
 export interface TargetBand {
   min: number;

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
-import { myDaySchema } from '../../../../shared/schemas/schedule';
+import { myDaySchema } from '@shared/schemas/schedule';
 import { api } from '../../../lib/api-client';
 import { myDayKeys } from './my-day-keys';
 

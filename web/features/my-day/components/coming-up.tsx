@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
-import type { DayItem } from '../../../../shared/schemas/schedule';
-import { CHECK_KIND_LABELS } from '../../../../shared/schemas/schedule';
+import type { DayItem } from '@shared/schemas/schedule';
+import { CHECK_KIND_LABELS } from '@shared/schemas/schedule';
 import { formatShortDay } from './day-format';
 
 /** The next seven days, read-only: lets a nurse see a follow-up study coming before it is due. */

@@ -1,4 +1,4 @@
-import type { DayItem } from '../../../../shared/schemas/schedule';
+import type { DayItem } from '@shared/schemas/schedule';
 
 // Due dates are calendar days in the programme's zone; reading them at noon UTC keeps the same day everywhere.
 const shortDay = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });

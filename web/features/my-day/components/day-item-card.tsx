@@ -1,6 +1,6 @@
 import { useId, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { CHECK_KIND_LABELS, type DayItem } from '../../../../shared/schemas/schedule';
+import { CHECK_KIND_LABELS, type DayItem } from '@shared/schemas/schedule';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Badge } from '../../../components/ui/badge';
 import { completesWithReading, doneTimeText, dueText, isOverdue } from './day-format';

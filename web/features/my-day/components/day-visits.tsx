@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
-import type { DayVisit } from '../../../../shared/schemas/schedule';
-import { VISIT_KIND_LABELS } from '../../../../shared/schemas/visits';
+import type { DayVisit } from '@shared/schemas/schedule';
+import { VISIT_KIND_LABELS } from '@shared/schemas/visits';
 import { Badge } from '../../../components/ui/badge';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { lengthText, visitCountText } from './day-format';

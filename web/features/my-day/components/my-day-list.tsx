@@ -1,5 +1,5 @@
 import { useState, type ReactNode } from 'react';
-import type { DayItem } from '../../../../shared/schemas/schedule';
+import type { DayItem } from '@shared/schemas/schedule';
 import { Alert } from '../../../components/ui/alert';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { Spinner } from '../../../components/ui/spinner';

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { overviewSchema, type Overview } from '../../../../shared/schemas/overview';
+import { overviewSchema, type Overview } from '@shared/schemas/overview';
 import { api } from '../../../lib/api-client';
 import { overviewKeys } from './overview-keys';
 

@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
-import { ROLE_LABELS } from '../../../../shared/auth/roles';
-import type { AdminOverview as Data } from '../../../../shared/schemas/overview';
+import { ROLE_LABELS } from '@shared/auth/roles';
+import type { AdminOverview as Data } from '@shared/schemas/overview';
 import { Card } from '../../../components/ui/card';
 import { useSignedInUser } from '../../../lib/signed-in-user';
 import { useOverview } from '../api/get-overview';

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { INFANT_STATUS_LABELS, type InfantStatus } from '../../../../shared/schemas/infants';
+import { INFANT_STATUS_LABELS, type InfantStatus } from '@shared/schemas/infants';
 
 /** Every status with its count, each a link to the caseload filtered by it; a zero stays listed so the list never jumps. */
 export function BabiesByStatus({ rows }: { rows: readonly { status: InfantStatus; count: number }[] }) {

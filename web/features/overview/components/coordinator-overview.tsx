@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { CoordinatorOverview as Data } from '../../../../shared/schemas/overview';
+import type { CoordinatorOverview as Data } from '@shared/schemas/overview';
 import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { useOverview } from '../api/get-overview';

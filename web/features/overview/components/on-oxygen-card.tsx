@@ -1,4 +1,4 @@
-import type { MonthCount } from '../../../../shared/schemas/overview';
+import type { MonthCount } from '@shared/schemas/overview';
 import { Card } from '../../../components/ui/card';
 import { MonthBarsChart } from '../../charts/components/month-bars-chart';
 import { monthName } from '../../charts/components/month-bars';

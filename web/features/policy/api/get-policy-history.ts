@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { policyHistorySchema, type PolicyHistory } from '../../../../shared/schemas/policy';
+import { policyHistorySchema, type PolicyHistory } from '@shared/schemas/policy';
 import { api } from '../../../lib/api-client';
 import { policyKeys } from './policy-keys';
 

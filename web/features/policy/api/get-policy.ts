@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { policySchema } from '../../../../shared/schemas/policy';
+import { policySchema } from '@shared/schemas/policy';
 import { api } from '../../../lib/api-client';
 import { policyKeys } from './policy-keys';
 

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { policySchema, type Policy, type UpdatePolicyInput } from '../../../../shared/schemas/policy';
+import { policySchema, type Policy, type UpdatePolicyInput } from '@shared/schemas/policy';
 import { apiRequest } from '../../../lib/api-client';
 import { policyKeys } from './policy-keys';
 

@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { get, useFormContext, useWatch, type FieldError } from 'react-hook-form';
-import { DEFAULT_POLICY_SETTINGS, policySettingsSchema } from '../../../../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS, policySettingsSchema } from '@shared/schemas/policy';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { describedBy, SelectField } from '../../../components/ui/field';
 import { NumberSetting } from './policy-field';

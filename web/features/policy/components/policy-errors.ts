@@ -1,4 +1,4 @@
-import { DEFAULT_POLICY_SETTINGS } from '../../../../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS } from '@shared/schemas/policy';
 import type { PolicyFormValues } from './policy-values';
 
 /** Every setting's dotted path, as the server names them in a 400's details; a list is one path. */

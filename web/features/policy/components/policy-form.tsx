@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { useQueryClient } from '@tanstack/react-query';
-import type { Policy, UpdatePolicyInput } from '../../../../shared/schemas/policy';
+import type { Policy, UpdatePolicyInput } from '@shared/schemas/policy';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { ConflictNotice } from '../../../components/ui/conflict-notice';

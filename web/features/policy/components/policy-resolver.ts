@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { FieldErrors, Resolver } from 'react-hook-form';
-import { updatePolicySchema, type UpdatePolicyInput } from '../../../../shared/schemas/policy';
+import { updatePolicySchema, type UpdatePolicyInput } from '@shared/schemas/policy';
 import { parseSteps, toCandidate, type PolicyFormValues } from './policy-values';
 
 const shared = zodResolver(updatePolicySchema);

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { useFormContext } from 'react-hook-form';
-import { DEFAULT_POLICY_SETTINGS, oximetryRulesSchema, scheduleRulesSchema, spo2TargetsSchema, stepDownRulesSchema } from '../../../../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS, oximetryRulesSchema, scheduleRulesSchema, spo2TargetsSchema, stepDownRulesSchema } from '@shared/schemas/policy';
 import { NumberSetting } from './policy-field';
 import { policySectionId } from './policy-section-nav';
 import { SOURCES } from './policy-sources';

@@ -1,4 +1,4 @@
-import type { CylinderType, Policy, PolicySettings, UpdatePolicyInput } from '../../../../shared/schemas/policy';
+import type { CylinderType, Policy, PolicySettings, UpdatePolicyInput } from '@shared/schemas/policy';
 
 /**
  * The form's own shape: the same paths as the shared schema (so server 400 details land on the right field), but the

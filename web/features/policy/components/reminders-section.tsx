@@ -1,4 +1,4 @@
-import { DEFAULT_POLICY_SETTINGS, reminderRulesSchema } from '../../../../shared/schemas/policy';
+import { DEFAULT_POLICY_SETTINGS, reminderRulesSchema } from '@shared/schemas/policy';
 import { NumberSetting } from './policy-field';
 import { TextSetting } from './policy-list-field';
 import { defaultText, Section } from './policy-sections';

@@ -1,5 +1,5 @@
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
-import { cylinderTypeSchema, DEFAULT_POLICY_SETTINGS, equipmentSupplySchema } from '../../../../shared/schemas/policy';
+import { cylinderTypeSchema, DEFAULT_POLICY_SETTINGS, equipmentSupplySchema } from '@shared/schemas/policy';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/field';
 import { NumberSetting } from './policy-field';

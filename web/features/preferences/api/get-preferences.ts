@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { preferencesResponseSchema } from '../../../../shared/schemas/preferences';
+import { preferencesResponseSchema } from '@shared/schemas/preferences';
 import { api } from '../../../lib/api-client';
 import { preferenceKeys } from './preference-keys';
 

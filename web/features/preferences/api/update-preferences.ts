@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { preferencesResponseSchema, type UpdatePreferencesInput } from '../../../../shared/schemas/preferences';
+import { preferencesResponseSchema, type UpdatePreferencesInput } from '@shared/schemas/preferences';
 import { apiRequest } from '../../../lib/api-client';
 import { preferenceKeys } from './preference-keys';
 

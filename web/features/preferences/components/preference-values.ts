@@ -1,12 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { FieldErrors, Resolver } from 'react-hook-form';
-import { formatPhone, isCountryCode } from '../../../../shared/phone/phone';
+import { formatPhone, isCountryCode } from '@shared/phone/phone';
 import {
   MESSAGE_LANGUAGES,
   updatePreferencesSchemaFor,
   type Preferences,
   type UpdatePreferencesInput,
-} from '../../../../shared/schemas/preferences';
+} from '@shared/schemas/preferences';
 
 /** The form's shape: the contract's own names (so a 400's details land on the right field), with empty boxes as ''. */
 export type PreferencesFormValues = Omit<UpdatePreferencesInput, 'mobile' | 'email'> & { mobile: string; email: string };

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { FormProvider, useForm } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
-import type { Preferences, UpdatePreferencesInput } from '../../../../shared/schemas/preferences';
+import type { Preferences, UpdatePreferencesInput } from '@shared/schemas/preferences';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { ConflictNotice } from '../../../components/ui/conflict-notice';
 import { SelectField, TextField } from '../../../components/ui/field';

@@ -1,5 +1,5 @@
-import { DEFAULT_COUNTRY, formatPhone, isCountryCode } from '../../../../shared/phone/phone';
-import type { Preferences } from '../../../../shared/schemas/preferences';
+import { DEFAULT_COUNTRY, formatPhone, isCountryCode } from '@shared/phone/phone';
+import type { Preferences } from '@shared/schemas/preferences';
 import { CHANNEL_WORDS, languageLabel } from './preference-values';
 import { REMINDERS_OFF_WORDS } from './reminders-switch';
 

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { prescriptionSchema, type DecisionInput } from '../../../../shared/schemas/prescriptions';
+import { prescriptionSchema, type DecisionInput } from '@shared/schemas/prescriptions';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { api } from '../../../lib/api-client';
 import { isApiError } from '../../../lib/api-error';

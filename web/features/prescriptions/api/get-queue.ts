@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { queueSchema } from '../../../../shared/schemas/prescriptions';
+import { queueSchema } from '@shared/schemas/prescriptions';
 import { api } from '../../../lib/api-client';
 import { prescriptionKeys } from './prescription-keys';
 

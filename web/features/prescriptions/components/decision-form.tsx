@@ -1,6 +1,6 @@
 import { useForm, useWatch, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import type { Prescription } from '../../../../shared/schemas/prescriptions';
+import type { Prescription } from '@shared/schemas/prescriptions';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Alert } from '../../../components/ui/alert';
 import { ErrorSummary } from '../../../components/ui/error-summary';

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { PRESCRIPTION_STATUS_LABELS, type Prescription } from '../../../../shared/schemas/prescriptions';
+import { PRESCRIPTION_STATUS_LABELS, type Prescription } from '@shared/schemas/prescriptions';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Badge } from '../../../components/ui/badge';
 import { Spinner } from '../../../components/ui/spinner';

@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { FLOW_TOLERANCE_LPM } from '../../../../shared/clinical/flowmeter';
-import { unmetInEvidence } from '../../../../shared/schedule/step-down-rules';
-import { decisionSchema, type DecisionInput, type Prescription } from '../../../../shared/schemas/prescriptions';
+import { FLOW_TOLERANCE_LPM } from '@shared/clinical/flowmeter';
+import { unmetInEvidence } from '@shared/schedule/step-down-rules';
+import { decisionSchema, type DecisionInput, type Prescription } from '@shared/schemas/prescriptions';
 
 export const DECISION_MODES = ['as_proposed', 'different', 'send_back'] as const;
 export type DecisionMode = (typeof DECISION_MODES)[number];

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
-import { infeasibleReason } from '../../../../shared/clinical/conversion-warnings';
-import type { InfantDetail } from '../../../../shared/schemas/infants';
-import { PRESCRIPTION_REASON_LABELS, type Prescription } from '../../../../shared/schemas/prescriptions';
+import { infeasibleReason } from '@shared/clinical/conversion-warnings';
+import type { InfantDetail } from '@shared/schemas/infants';
+import { PRESCRIPTION_REASON_LABELS, type Prescription } from '@shared/schemas/prescriptions';
 import { formatFlow, formatFraction, formatKpa, formatMmHg } from '../../../components/clinical/clinical-format';
 
 type Conversion = NonNullable<Prescription['conversion']>;

@@ -1,6 +1,6 @@
 import { InPageLink } from '../../../components/ui/in-page-link';
-import type { InfantDetail } from '../../../../shared/schemas/infants';
-import { PRESCRIPTION_REASON_LABELS, type Prescription } from '../../../../shared/schemas/prescriptions';
+import type { InfantDetail } from '@shared/schemas/infants';
+import { PRESCRIPTION_REASON_LABELS, type Prescription } from '@shared/schemas/prescriptions';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Cautions } from '../../../components/clinical/cautions';
 import { WorkingTable } from '../../../components/clinical/working-table';

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { PRESCRIPTION_REASON_LABELS, type QueueItem } from '../../../../shared/schemas/prescriptions';
+import { PRESCRIPTION_REASON_LABELS, type QueueItem } from '@shared/schemas/prescriptions';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { Badge } from '../../../components/ui/badge';
 import { homePlaceText } from './home-place';

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import type { InfantDetail } from '../../../../shared/schemas/infants';
+import type { InfantDetail } from '@shared/schemas/infants';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 import { formatDateTime } from '../../../lib/format';
 import { homePlaceText } from './home-place';

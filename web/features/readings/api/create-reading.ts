@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { readingSchema, type CreateReadingInput } from '../../../../shared/schemas/readings';
+import { readingSchema, type CreateReadingInput } from '@shared/schemas/readings';
 import { api } from '../../../lib/api-client';
 import { readingKeys } from './reading-keys';
 

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { readingSchema, type UpdateReadingInput } from '../../../../shared/schemas/readings';
+import { readingSchema, type UpdateReadingInput } from '@shared/schemas/readings';
 import { apiRequest } from '../../../lib/api-client';
 import { readingKeys } from './reading-keys';
 

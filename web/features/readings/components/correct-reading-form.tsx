@@ -3,7 +3,7 @@ import { FormProvider, useForm } from 'react-hook-form';
 import { useQueryClient } from '@tanstack/react-query';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { updateReadingSchema, type Reading, type UpdateReadingInput } from '../../../../shared/schemas/readings';
+import { updateReadingSchema, type Reading, type UpdateReadingInput } from '@shared/schemas/readings';
 import { ConflictNotice } from '../../../components/ui/conflict-notice';
 import { isApiError } from '../../../lib/api-error';
 import { readingQueryOptions } from '../api/get-reading';

@@ -1,7 +1,7 @@
 import { useId } from 'react';
 import { useFormContext } from 'react-hook-form';
 import type { z } from 'zod';
-import { READING_STATES, READING_STATE_LABELS, type createReadingSchema } from '../../../../shared/schemas/readings';
+import { READING_STATES, READING_STATE_LABELS, type createReadingSchema } from '@shared/schemas/readings';
 import { describedBy, TextField } from '../../../components/ui/field';
 import { asNumber } from '../../../lib/form-values';
 import { asOptionalText } from './reading-values';

@@ -3,7 +3,7 @@ import { useRef, useState } from 'react';
 import { FormProvider, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { createReadingSchema, type CreateReadingInput, type Reading } from '../../../../shared/schemas/readings';
+import { createReadingSchema, type CreateReadingInput, type Reading } from '@shared/schemas/readings';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';

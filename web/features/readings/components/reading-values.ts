@@ -1,4 +1,4 @@
-import { READING_STATE_LABELS, type Reading } from '../../../../shared/schemas/readings';
+import { READING_STATE_LABELS, type Reading } from '@shared/schemas/readings';
 import { formatFlow } from '../../../components/clinical/clinical-format';
 
 /** Empty notes are left out rather than stored as an empty string. */

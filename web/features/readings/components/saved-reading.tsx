@@ -1,6 +1,6 @@
 import { useFocusOnArrival } from '../../../components/ui/focus';
 import { useState } from 'react';
-import type { Reading } from '../../../../shared/schemas/readings';
+import type { Reading } from '@shared/schemas/readings';
 import { Button } from '../../../components/ui/button';
 import { Spinner } from '../../../components/ui/spinner';
 import { useSignedInUser } from '../../../lib/signed-in-user';

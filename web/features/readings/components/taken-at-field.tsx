@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useController, type Control } from 'react-hook-form';
 import type { z } from 'zod';
-import type { createReadingSchema } from '../../../../shared/schemas/readings';
+import type { createReadingSchema } from '@shared/schemas/readings';
 import { TextField } from '../../../components/ui/field';
 import { fromLocalInput, toLocalInput } from './reading-values';
 

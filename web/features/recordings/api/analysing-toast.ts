@@ -1,5 +1,5 @@
 import { useEffect } from 'react';
-import type { Recording } from '../../../../shared/schemas/recordings';
+import type { Recording } from '@shared/schemas/recordings';
 import { dismissToast, getToasts, showToast } from '../../../components/ui/toast-store';
 import { isSettled } from './get-recording';
 

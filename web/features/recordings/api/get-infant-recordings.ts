@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { recordingListSchema } from '../../../../shared/schemas/recordings';
+import { recordingListSchema } from '@shared/schemas/recordings';
 import { api } from '../../../lib/api-client';
 import { isSettled } from './get-recording';
 import { recordingKeys } from './recording-keys';

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { recordingSchema, recordingTraceSchema, type Recording } from '../../../../shared/schemas/recordings';
+import { recordingSchema, recordingTraceSchema, type Recording } from '@shared/schemas/recordings';
 import { api } from '../../../lib/api-client';
 import { recordingKeys } from './recording-keys';
 

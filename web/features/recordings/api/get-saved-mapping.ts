@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { savedMappingSchema } from '../../../../shared/schemas/recordings';
+import { savedMappingSchema } from '@shared/schemas/recordings';
 import { api } from '../../../lib/api-client';
 import { recordingKeys } from './recording-keys';
 

@@ -1,6 +1,6 @@
 import type { z } from 'zod';
-import { errorBodySchema } from '../../../../shared/schemas/common';
-import { sessionResponseSchema } from '../../../../shared/schemas/session';
+import { errorBodySchema } from '@shared/schemas/common';
+import { sessionResponseSchema } from '@shared/schemas/session';
 import { api } from '../../../lib/api-client';
 import { ApiError } from '../../../lib/api-error';
 

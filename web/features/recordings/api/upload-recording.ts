@@ -3,7 +3,7 @@ import {
   RECORDING_UPLOAD_ERRORS,
   recordingAcceptedSchema,
   type RecordingUploadFields,
-} from '../../../../shared/schemas/recordings';
+} from '@shared/schemas/recordings';
 import { postForm } from './post-form';
 import { recordingKeys } from './recording-keys';
 import { ANALYSING_TOAST } from './analysing-toast';

@@ -1,4 +1,4 @@
-import type { RecordingUploadFields } from '../../../../shared/schemas/recordings';
+import type { RecordingUploadFields } from '@shared/schemas/recordings';
 
 type ColumnField = 'timestampColumn' | 'dateColumn' | 'timeColumn' | 'spo2Column' | 'pulseColumn' | 'statusColumn';
 export type ColumnGuess = Partial<Pick<RecordingUploadFields, ColumnField>>;

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { recordingUploadFieldsSchema, type RecordingUploadFields, type SavedMapping } from '../../../../shared/schemas/recordings';
+import { recordingUploadFieldsSchema, type RecordingUploadFields, type SavedMapping } from '@shared/schemas/recordings';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/field';
 import { Choice, ChoiceGroup } from '../../infants/components/choice-fields';

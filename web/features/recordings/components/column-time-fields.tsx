@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import type { UseFormReturn } from 'react-hook-form';
-import type { RecordingUploadFields } from '../../../../shared/schemas/recordings';
+import type { RecordingUploadFields } from '@shared/schemas/recordings';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { blankIsNone, readable } from './column-labels';
 

@@ -1,4 +1,4 @@
-import type { RecordingTrace } from '../../../../shared/schemas/recordings';
+import type { RecordingTrace } from '@shared/schemas/recordings';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { secondsText } from './recording-format';
 import { ScrollRegion } from '../../../components/ui/scroll-region';

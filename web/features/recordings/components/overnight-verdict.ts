@@ -1,7 +1,7 @@
-import { hoursOneDecimal } from '../../../../shared/clinical/units';
-import type { PolicySettings } from '../../../../shared/schemas/policy';
-import type { RecordingSummary } from '../../../../shared/schemas/recordings';
-import { meetsOvernightTarget } from '../../../../shared/schedule/step-down';
+import { hoursOneDecimal } from '@shared/clinical/units';
+import type { PolicySettings } from '@shared/schemas/policy';
+import type { RecordingSummary } from '@shared/schemas/recordings';
+import { meetsOvernightTarget } from '@shared/schedule/step-down';
 
 export interface Verdict {
   met: boolean;

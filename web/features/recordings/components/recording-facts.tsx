@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import type { Recording } from '../../../../shared/schemas/recordings';
+import type { Recording } from '@shared/schemas/recordings';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { showToast } from '../../../components/ui/toast-store';

@@ -1,4 +1,4 @@
-import type { RecordingSummary } from '../../../../shared/schemas/recordings';
+import type { RecordingSummary } from '@shared/schemas/recordings';
 
 // Display only: every figure comes from the server's analysis (shared/clinical/oximetry.ts).
 const dash = '—';

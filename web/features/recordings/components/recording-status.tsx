@@ -1,4 +1,4 @@
-import { RECORDING_STATUS_LABELS, type Recording } from '../../../../shared/schemas/recordings';
+import { RECORDING_STATUS_LABELS, type Recording } from '@shared/schemas/recordings';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { Spinner } from '../../../components/ui/spinner';

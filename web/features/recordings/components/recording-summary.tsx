@@ -1,5 +1,5 @@
-import type { PolicySettings } from '../../../../shared/schemas/policy';
-import type { RecordingSummary as Summary } from '../../../../shared/schemas/recordings';
+import type { PolicySettings } from '@shared/schemas/policy';
+import type { RecordingSummary as Summary } from '@shared/schemas/recordings';
 import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { Spinner } from '../../../components/ui/spinner';

@@ -1,6 +1,6 @@
 import { useId, useRef, useState, type ChangeEvent } from 'react';
-import { RECORDING_LIMITS } from '../../../../shared/recordings/limits';
-import type { RecordingUploadFields } from '../../../../shared/schemas/recordings';
+import { RECORDING_LIMITS } from '@shared/recordings/limits';
+import type { RecordingUploadFields } from '@shared/schemas/recordings';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { detailMessages, isApiError } from '../../../lib/api-error';

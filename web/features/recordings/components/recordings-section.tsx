@@ -1,6 +1,6 @@
 import { Link, useSearchParams } from 'react-router-dom';
-import type { PolicySettings } from '../../../../shared/schemas/policy';
-import type { Recording } from '../../../../shared/schemas/recordings';
+import type { PolicySettings } from '@shared/schemas/policy';
+import type { Recording } from '@shared/schemas/recordings';
 import { Alert } from '../../../components/ui/alert';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';

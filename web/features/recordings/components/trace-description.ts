@@ -1,4 +1,4 @@
-import type { Recording, RecordingTrace } from '../../../../shared/schemas/recordings';
+import type { Recording, RecordingTrace } from '@shared/schemas/recordings';
 import { hoursMinutes, perHourText, pulseText, shareText, spo2Text } from './recording-format';
 
 /** The chart in one sentence, for its caption and for anyone who cannot see the canvas. */

@@ -1,4 +1,4 @@
-import { RECORDING_LIMITS } from '../../../../shared/recordings/limits';
+import { RECORDING_LIMITS } from '@shared/recordings/limits';
 import { isApiError } from '../../../lib/api-error';
 
 export const MAX_FILE_MB = RECORDING_LIMITS.maxFileBytes / (1024 * 1024);

@@ -1,5 +1,5 @@
 import { queryOptions } from '@tanstack/react-query';
-import { sessionResponseSchema } from '../../../../shared/schemas/session';
+import { sessionResponseSchema } from '@shared/schemas/session';
 import { api } from '../../../lib/api-client';
 
 export const sessionKeys = {

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { signInResponseSchema, type SignInInput } from '../../../../shared/schemas/session';
+import { signInResponseSchema, type SignInInput } from '@shared/schemas/session';
 import { api } from '../../../lib/api-client';
 import { sessionKeys, sessionQueryOptions } from './session-keys';
 

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { stepDownPreviewSchema } from '../../../../shared/schemas/step-downs';
+import { stepDownPreviewSchema } from '@shared/schemas/step-downs';
 import { api } from '../../../lib/api-client';
 
 export const stepDownKeys = {

@@ -1,4 +1,4 @@
-import type { RuleCheckDto } from '../../../../shared/schemas/step-downs';
+import type { RuleCheckDto } from '@shared/schemas/step-downs';
 
 const RULE_NAMES: Record<RuleCheckDto['code'], string> = {
   time_on_setting: 'Time on the current setting',

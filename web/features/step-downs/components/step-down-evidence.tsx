@@ -1,9 +1,9 @@
 import { ScrollRegion } from '../../../components/ui/scroll-region';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { INFANT_FLAG_LABELS } from '../../../../shared/schemas/infants';
-import { READING_STATE_LABELS } from '../../../../shared/schemas/readings';
-import { stepDownEvidenceSchema, type StepDownEvidence } from '../../../../shared/schemas/step-downs';
+import { INFANT_FLAG_LABELS } from '@shared/schemas/infants';
+import { READING_STATE_LABELS } from '@shared/schemas/readings';
+import { stepDownEvidenceSchema, type StepDownEvidence } from '@shared/schemas/step-downs';
 import { Card } from '../../../components/ui/card';
 import { Spinner } from '../../../components/ui/spinner';
 import { formatDateTime } from '../../../lib/format';

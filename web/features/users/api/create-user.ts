@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateUserInput } from '../../../../shared/schemas/users';
-import { invitationResponseSchema } from '../../../../shared/schemas/accounts';
+import type { CreateUserInput } from '@shared/schemas/users';
+import { invitationResponseSchema } from '@shared/schemas/accounts';
 import { api } from '../../../lib/api-client';
 import { userKeys } from './user-keys';
 

@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { usersPageSchema, type ListUsersQuery } from '../../../../shared/schemas/users';
+import { usersPageSchema, type ListUsersQuery } from '@shared/schemas/users';
 import { api } from '../../../lib/api-client';
 import { userKeys } from './user-keys';
 

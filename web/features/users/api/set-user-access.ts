@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { userResponseSchema } from '../../../../shared/schemas/users';
+import { userResponseSchema } from '@shared/schemas/users';
 import { api } from '../../../lib/api-client';
 import { userKeys } from './user-keys';
 

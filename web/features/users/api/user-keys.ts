@@ -1,4 +1,4 @@
-import type { ListUsersQuery } from '../../../../shared/schemas/users';
+import type { ListUsersQuery } from '@shared/schemas/users';
 
 export const userKeys = {
   all: ['users'] as const,

@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { ROLES, ROLE_LABELS } from '../../../../shared/auth/roles';
-import { createUserSchema, type CreateUserInput } from '../../../../shared/schemas/users';
+import { ROLES, ROLE_LABELS } from '@shared/auth/roles';
+import { createUserSchema, type CreateUserInput } from '@shared/schemas/users';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { SelectField, TextField } from '../../../components/ui/field';
 import { FormActions } from '../../../components/ui/form-actions';

@@ -1,4 +1,4 @@
-import type { InvitationResponse } from '../../../../shared/schemas/accounts';
+import type { InvitationResponse } from '@shared/schemas/accounts';
 import { Button } from '../../../components/ui/button';
 
 /** The same words whether the address was new or already had an account: the e-mail tells its owner which. */

@@ -1,6 +1,6 @@
 import { createColumnHelper } from '@tanstack/react-table';
-import { ROLE_LABELS } from '../../../../shared/auth/roles';
-import { USER_SORTS, type ListUsersQuery, type User } from '../../../../shared/schemas/users';
+import { ROLE_LABELS } from '@shared/auth/roles';
+import { USER_SORTS, type ListUsersQuery, type User } from '@shared/schemas/users';
 import { Badge } from '../../../components/ui/badge';
 import { EmailText } from '../../../components/ui/email-text';
 import { urlSort } from '../../../components/ui/data-table/url-sort';

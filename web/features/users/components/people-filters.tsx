@@ -1,4 +1,4 @@
-import { ROLES, ROLE_LABELS } from '../../../../shared/auth/roles';
+import { ROLES, ROLE_LABELS } from '@shared/auth/roles';
 import { SearchForm } from '../../../components/ui/data-table/search-form';
 import { SelectFilter } from '../../../components/ui/data-table/select-filter';
 import { usePeopleView } from '../hooks/use-people-view';

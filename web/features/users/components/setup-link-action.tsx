@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { User } from '../../../../shared/schemas/users';
+import type { User } from '@shared/schemas/users';
 import { Button } from '../../../components/ui/button';
 import { useAppAbility } from '../../../lib/ability';
 import { useSignedInUser } from '../../../lib/signed-in-user';

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { visitSchema, type Visit } from '../../../../shared/schemas/visits';
+import { visitSchema, type Visit } from '@shared/schemas/visits';
 import { api } from '../../../lib/api-client';
 import { visitKeys } from './visit-keys';
 

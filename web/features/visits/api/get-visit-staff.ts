@@ -1,5 +1,5 @@
 import { queryOptions, useQueries } from '@tanstack/react-query';
-import { usersPageSchema, type User } from '../../../../shared/schemas/users';
+import { usersPageSchema, type User } from '@shared/schemas/users';
 import { api } from '../../../lib/api-client';
 import { visitKeys, type StaffRole } from './visit-keys';
 

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { visitListSchema } from '../../../../shared/schemas/visits';
+import { visitListSchema } from '@shared/schemas/visits';
 import { api } from '../../../lib/api-client';
 import { visitKeys } from './visit-keys';
 

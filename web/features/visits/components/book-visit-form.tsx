@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { bookVisitSchema, VISIT_KIND_LABELS, VISIT_KINDS, type BookVisitInput } from '../../../../shared/schemas/visits';
+import { bookVisitSchema, VISIT_KIND_LABELS, VISIT_KINDS, type BookVisitInput } from '@shared/schemas/visits';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { CLOCK_HINT, CLOCK_INPUT } from '../../../components/ui/clock-input';
 import { SelectField, TextField } from '../../../components/ui/field';

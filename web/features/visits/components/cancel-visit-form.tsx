@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { cancelVisitSchema, type Visit } from '../../../../shared/schemas/visits';
+import { cancelVisitSchema, type Visit } from '@shared/schemas/visits';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';

@@ -1,6 +1,6 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { moveVisitSchema, type MoveVisitInput, type Visit } from '../../../../shared/schemas/visits';
+import { moveVisitSchema, type MoveVisitInput, type Visit } from '@shared/schemas/visits';
 import { Alert } from '../../../components/ui/alert';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { CLOCK_HINT, CLOCK_INPUT } from '../../../components/ui/clock-input';

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { VISIT_KIND_LABELS, type Visit } from '../../../../shared/schemas/visits';
+import { VISIT_KIND_LABELS, type Visit } from '@shared/schemas/visits';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { CancelVisitForm } from './cancel-visit-form';

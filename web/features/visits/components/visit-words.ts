@@ -1,4 +1,4 @@
-import { VISIT_KIND_LABELS, type Visit } from '../../../../shared/schemas/visits';
+import { VISIT_KIND_LABELS, type Visit } from '@shared/schemas/visits';
 
 // The date and time are the family's wall clock; formatting them in UTC keeps the browser's zone from shifting them.
 const asUtcNoon = (date: string) => new Date(`${date}T12:00:00Z`);
