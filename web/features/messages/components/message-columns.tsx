@@ -1,3 +1,4 @@
+import { EmailText } from '../../../components/ui/email-text';
 import { Link } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
 import { MESSAGE_SORTS, MESSAGE_TEMPLATE_LABELS, type ListMessagesQuery, type Message } from '@shared/schemas/messages';
@@ -48,7 +49,8 @@ function Recipient({ message }: { message: Message }) {
       <span className="text-sm text-ink-700">
         {[recipient.kind === 'family' ? 'Family' : 'Staff', how].filter(Boolean).join(' · ')}
       </span>
-      <span className="text-sm break-all text-ink-700">{address ?? 'No address'}</span>
+      {/* An e-mail address wraps only before the "@" and the domain's dots; a phone number never inside its groups. */}
+      {address && channel === 'email' ? <EmailText address={address} className="text-sm text-ink-700" /> : <span className="text-sm break-words text-ink-700">{address ?? 'No address'}</span>}
     </span>
   );
 }
