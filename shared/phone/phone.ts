@@ -1,4 +1,4 @@
-import { getCountryCallingCode, isSupportedCountry, parsePhoneNumberFromString, type CountryCode, type PhoneNumber } from 'libphonenumber-js/max';
+import { getCountries, getCountryCallingCode, isSupportedCountry, parsePhoneNumberFromString, type CountryCode, type PhoneNumber } from 'libphonenumber-js/max';
 
 /**
  * Phone numbers, read and written the same way in the browser, the API and the worker (libphonenumber-js with its
@@ -60,4 +60,12 @@ export function dialable(value: string, country: CountryCode): string {
   } catch {
     return value.replace(/[^0-9+]/g, '');
   }
+}
+
+/** Every country the number reader knows, named in English and sorted by name, with its calling code. */
+export function countryChoices(): Array<{ code: CountryCode; name: string; callingCode: string }> {
+  const names = new Intl.DisplayNames(['en-GB'], { type: 'region' });
+  return getCountries()
+    .map((code) => ({ code, name: names.of(code) ?? code, callingCode: getCountryCallingCode(code) }))
+    .sort((a, b) => a.name.localeCompare(b.name, 'en-GB'));
 }

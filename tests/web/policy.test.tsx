@@ -214,6 +214,25 @@ describe('Programme settings', { timeout: 20_000 }, () => {
     expect(await screen.findByText('Saved as version 5.')).toBeInTheDocument();
   });
 
+  it('when the country for phone numbers is changed, then it is named in words and saved as its code', async () => {
+    let saved: Policy | undefined;
+    const { puts } = stubPolicy(
+      (request) => {
+        saved = { ...policy(5), settings: (request.body as { settings: Policy['settings'] }).settings };
+        return json(200, saved);
+      },
+      () => saved ?? policy(4),
+    );
+    const { user, form } = await openSettings();
+    const country = form.getByLabelText('Country for phone numbers');
+    expect(country).toHaveValue('GB');
+    expect(within(country).getByRole('option', { name: 'United Kingdom (+44)' })).toBeInTheDocument();
+    await user.selectOptions(country, 'Ireland (+353)');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+    await waitFor(() => expect(puts).toHaveLength(1));
+    expect((puts[0].body as { settings: Policy['settings'] }).settings.country).toBe('IE');
+  });
+
   it('when a new row breaks the shared rules, then each message sits in its own row and nothing is sent', async () => {
     const { puts } = stubPolicy(() => json(500));
     const { user, form } = await openSettings();

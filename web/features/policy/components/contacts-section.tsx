@@ -1,4 +1,5 @@
-import { useFieldArray, useFormContext } from 'react-hook-form';
+import { get, useFieldArray, useFormContext, type FieldError } from 'react-hook-form';
+import { countryChoices } from '@shared/phone/phone';
 import { Button } from '../../../components/ui/button';
 import { ListError, TextSetting } from './policy-list-field';
 import { defaultText, Section } from './policy-sections';
@@ -6,6 +7,36 @@ import type { PolicyFormValues } from './policy-values';
 
 // The shared schema's own limit (programmeContactsSchema.phones.max).
 const MAX_PHONES = 8;
+// Built once: about 240 countries, named in English.
+const COUNTRIES = countryChoices();
+
+/** The country whose numbers are typed without a country code: families' and the programme's numbers are read in it. */
+function CountrySetting() {
+  const { register, formState } = useFormContext<PolicyFormValues>();
+  const error = get(formState.errors, 'settings.country') as FieldError | undefined;
+  return (
+    <div className="flex flex-col gap-1 sm:col-span-2">
+      <label htmlFor="policy-country" className="font-semibold text-ink-900">Country for phone numbers</label>
+      <p id="policy-country-hint" className="text-sm text-ink-700">
+        A number typed without its country code (such as 07700 900123) is read as a number of this country, and shown in its own form.
+      </p>
+      <select
+        id="policy-country"
+        {...register('settings.country')}
+        aria-describedby="policy-country-hint"
+        aria-invalid={error ? true : undefined}
+        className="min-h-11 max-w-full rounded-lg border border-surface-300 bg-surface-0 px-3 sm:max-w-md"
+      >
+        {COUNTRIES.map((c) => (
+          <option key={c.code} value={c.code}>
+            {c.name} (+{c.callingCode})
+          </option>
+        ))}
+      </select>
+      {error?.message && <p className="text-sm text-danger-800">{error.message}</p>}
+    </div>
+  );
+}
 
 /** The numbers a family calls, shown on the family page and the printed care plan. */
 export function ContactsSection() {
@@ -13,6 +44,7 @@ export function ContactsSection() {
   const { fields, append, remove } = useFieldArray({ control, name: 'settings.contacts.phones' });
   return (
     <Section title="Numbers for families">
+      <CountrySetting />
       <div className="flex flex-col gap-4 sm:col-span-2">
         {fields.length === 0 && <p className="text-ink-700">No numbers yet: families only see the emergency number.</p>}
         {fields.map((field, index) => (
