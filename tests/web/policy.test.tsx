@@ -30,6 +30,18 @@ function stubPolicy(put: (request: FakeRequest) => Response, current: () => Poli
   return { puts };
 }
 
+/** A server that keeps what is saved as version 5 and answers with it from then on. */
+function stubSavingPolicy() {
+  let saved: Policy | undefined;
+  return stubPolicy(
+    (request) => {
+      saved = { ...policy(5), settings: (request.body as { settings: Policy['settings'] }).settings };
+      return json(200, saved);
+    },
+    () => saved ?? policy(4),
+  );
+}
+
 async function openSettings() {
   const app = renderApp('/admin/settings');
   const form = await screen.findByRole('form', { name: 'Programme settings' });
@@ -74,14 +86,7 @@ describe('Programme settings', { timeout: 20_000 }, () => {
   });
 
   it('when saved, then the steps go as ascending numbers, the drift as a fraction, with the base version, and the new version is announced', async () => {
-    let saved: Policy | undefined;
-    const { puts } = stubPolicy(
-      (request) => {
-        saved = { ...policy(5), settings: (request.body as { settings: Policy['settings'] }).settings };
-        return json(200, saved);
-      },
-      () => saved ?? policy(4),
-    );
+    const { puts } = stubSavingPolicy();
     const { user, form } = await openSettings();
     const steps = form.getByLabelText('Flowmeter steps (L/min)');
     await user.clear(steps);
@@ -170,14 +175,7 @@ describe('Programme settings', { timeout: 20_000 }, () => {
   });
 
   it('when numbers and cylinders are added and removed, then the saved settings carry exactly those rows and the new times', async () => {
-    let saved: Policy | undefined;
-    const { puts } = stubPolicy(
-      (request) => {
-        saved = { ...policy(5), settings: (request.body as { settings: Policy['settings'] }).settings };
-        return json(200, saved);
-      },
-      () => saved ?? policy(4),
-    );
+    const { puts } = stubSavingPolicy();
     const { user, form } = await openSettings();
     const quietStart = form.getByLabelText('Quiet hours start at');
     await user.clear(quietStart);
@@ -215,14 +213,7 @@ describe('Programme settings', { timeout: 20_000 }, () => {
   });
 
   it('when the country for phone numbers is changed, then it is named in words and saved as its code', async () => {
-    let saved: Policy | undefined;
-    const { puts } = stubPolicy(
-      (request) => {
-        saved = { ...policy(5), settings: (request.body as { settings: Policy['settings'] }).settings };
-        return json(200, saved);
-      },
-      () => saved ?? policy(4),
-    );
+    const { puts } = stubSavingPolicy();
     const { user, form } = await openSettings();
     const country = form.getByLabelText('Country for phone numbers');
     expect(country).toHaveValue('GB');
