@@ -2,6 +2,7 @@ import type { DataSource, EntityManager, SelectQueryBuilder } from 'typeorm';
 import type { ListInfantsQuery } from '@shared/schemas/infants';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { InfantEntity } from '../entities/infant.entity';
+import { createRowEstimates } from './row-estimates';
 
 export const INFANT_ACL_COLUMNS = { programmeId: 'i.programme_id', nurseId: 'i.nurse_id', id: 'i.id' };
 
@@ -64,6 +65,7 @@ function withPeople<T extends object>(qb: SelectQueryBuilder<T>) {
 
 export function createInfantsRepository(ds: DataSource) {
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(InfantEntity);
+  const estimateRows = createRowEstimates(ds);
   return {
     /** The baby's given and family name as one text, or undefined when there is no such baby. */
     fullName: async (id: string): Promise<{ name: string } | undefined> =>
@@ -128,9 +130,8 @@ export function createInfantsRepository(ds: DataSource) {
       const [{ n }] = await ds.query(`SELECT count(*)::int AS n FROM (${sql}) capped`, params);
       if (n <= EXACT_TOTAL_LIMIT) return { total: n, estimate: false };
       const [unlimitedSql, unlimitedParams] = filtered(ds.createQueryBuilder().select('1').from('infants', 'i'), query, acl, extra).getQueryAndParameters();
-      const [{ 'QUERY PLAN': plan }] = await ds.query(`EXPLAIN (FORMAT JSON) ${unlimitedSql}`, unlimitedParams);
-      const rows = Number(plan?.[0]?.Plan?.['Plan Rows'] ?? 0);
-      return { total: Math.max(EXACT_TOTAL_LIMIT + 1, Math.round(rows)), estimate: true };
+      const rows = await estimateRows(unlimitedSql, unlimitedParams);
+      return { total: Math.max(EXACT_TOTAL_LIMIT + 1, rows), estimate: true };
     },
 
     findVisible: (id: string, acl: SqlFilter, m?: EntityManager) =>
