@@ -15,7 +15,7 @@ export const fhirExportFileName = (infantId: string) => `nestflow-${infantId}.fh
  * hold). Entries are addressed as urn:uuid and refer to each other that way; each resource also carries a stable
  * business identifier, so a later export can be matched with an earlier one.
  */
-export function infantBundle(input: FhirExportInput): fhir4.Bundle {
+export function infantBundle(input: FhirExportInput): fhir4.Bundle<fhir4.FhirResource> {
   const sid = identifierSystems(input.systemBase);
   const url = () => `urn:uuid:${input.newId()}`;
   const patientUrl = url();
@@ -34,7 +34,7 @@ export function infantBundle(input: FhirExportInput): fhir4.Bundle {
     ...input.readings.flatMap((r) => readingObservations(r, { subject, system: sid.reading })),
     ...input.studies.map((s) => studyObservation(s, { subject, system: sid.recording })),
   ];
-  const entries: fhir4.BundleEntry[] = [{ fullUrl: patientUrl, resource: patient }];
+  const entries: Array<fhir4.BundleEntry<fhir4.FhirResource>> = [{ fullUrl: patientUrl, resource: patient }];
   if (input.setting) {
     const fio2Url = url();
     const { order, fio2 } = oxygenOrder(input.setting, { subject, system: sid.setting, fio2Url });

@@ -28,8 +28,8 @@ const input = (over: Partial<FhirExportInput> = {}): FhirExportInput => ({
   ...over,
 });
 
-const resources = (b: fhir4.Bundle) => (b.entry ?? []).map((e) => e.resource!);
-const observations = (b: fhir4.Bundle, code: string) =>
+const resources = (b: fhir4.Bundle<fhir4.FhirResource>) => (b.entry ?? []).map((e) => e.resource!);
+const observations = (b: fhir4.Bundle<fhir4.FhirResource>, code: string) =>
   resources(b).filter((r): r is fhir4.Observation => r.resourceType === 'Observation' && r.code.coding?.[0]?.code === code);
 
 describe('infantBundle', () => {
