@@ -1,14 +1,7 @@
 import 'reflect-metadata';
 import { loadEnv } from '../server/env';
 import { closeDeps, createDeps } from '../server/deps';
-import { seedPeople } from './seed-people';
-import { seedBabies } from './seed-babies';
-import { seedMonitoring } from './seed-monitoring';
-import { seedVisits } from './seed-visits';
-import { seedJourneys } from './seed-journeys';
-import { seedPolicies } from './seed-policy';
-import { seedHistory } from './seed-history';
-import { seedWaiting } from './seed-waiting';
+import { seedDemo } from './demo';
 
 const env = loadEnv();
 if (env.NODE_ENV === 'production') {
@@ -34,15 +27,7 @@ if (scaleAt !== -1) {
   process.exit(0);
 }
 try {
-  const people = await seedPeople(deps);
-  await seedPolicies(deps);
-  const babies = (await seedBabies(deps, 'larkmoor', 40)) + (await seedBabies(deps, 'saltmarsh', 12));
-  const studies = await seedMonitoring(deps, 'larkmoor');
-  const visits = await seedVisits(deps, 'larkmoor');
-  const journeys = await seedJourneys(deps, 'larkmoor');
-  // After the others: the overview's year of history and the work waiting on the start pages.
-  const history = await seedHistory(deps, 'larkmoor');
-  const waiting = await seedWaiting(deps, 'larkmoor');
+  const { people, babies, studies, visits, journeys, history, waiting } = await seedDemo(deps);
   console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s), ${journeys} journey check(s), ${history} former baby/babies, ${waiting} waiting item(s)).`);
 } finally {
   await closeDeps(deps);

@@ -46,6 +46,8 @@ import { createJourneysService } from './modules/journeys/journeys.service';
 import { journeysRouters } from './modules/journeys/journeys.router';
 import { createCarePlanService } from './modules/care-plan/care-plan.service';
 import { carePlanRouter } from './modules/care-plan/care-plan.router';
+import { fhirRouter } from './modules/fhir/fhir.router';
+import { createFhirService } from './modules/fhir/fhir.service';
 import { overviewRouter } from './modules/overview/overview.router';
 import { createOverviewService } from './modules/overview/overview.service';
 
@@ -137,6 +139,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/recordings', recordingsRouter(recordings));
   const journeys = journeysRouters(createJourneysService(deps.ds, repos));
   api.use('/infants', journeys.infants, carePlanRouter(createCarePlanService(repos)));
+  api.use('/infants', fhirRouter(createFhirService(repos, { systemBase: env.PUBLIC_URL }), deps.clock));
   api.use('/journeys', journeys.journeys);
   api.use('/overview', overviewRouter(createOverviewService(repos), deps.clock));
   api.use(apiNotFound);

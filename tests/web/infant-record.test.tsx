@@ -1,4 +1,4 @@
-import { screen, waitFor, within } from '@testing-library/react';
+import { cleanup, screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { Role } from '@shared/auth/roles';
 import { convertPrescription } from '@shared/clinical/conversion';
@@ -200,5 +200,27 @@ describe('Infant record', () => {
         consentSms: true, consentEmail: true, language: 'en', timeZone: 'Europe/London',
       }],
     });
+  });
+});
+
+describe('Download as FHIR on the record', () => {
+  it('when staff open the record, then a download link fetches the baby’s FHIR export and saves it under the Nestflow id, not the name', async () => {
+    for (const role of ['nurse', 'coordinator', 'consultant'] as const) {
+      stubRecord(role);
+      renderApp(`/infants/${ID}`);
+      await recordOpened();
+      const link = screen.getByRole('link', { name: 'Download as FHIR' });
+      expect(link).toHaveAttribute('href', `/api/infants/${ID}/fhir`);
+      expect(link).toHaveAttribute('download', `nestflow-${ID}.fhir.json`);
+      expect(link.getAttribute('download')).not.toMatch(/Juniper|Ashdown/i);
+      cleanup();
+    }
+  });
+
+  it('when a family account reaches the record address, then no export is offered', async () => {
+    stubRecord('family');
+    renderApp(`/infants/${ID}`);
+    expect(await screen.findByRole('heading', { name: 'Not part of your work' }, { timeout: 5000 })).toBeInTheDocument();
+    expect(screen.queryByRole('link', { name: 'Download as FHIR' })).not.toBeInTheDocument();
   });
 });

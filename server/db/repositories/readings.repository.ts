@@ -10,6 +10,8 @@ export function createReadingsRepository(ds: DataSource) {
     between: (infantId: string, from: Date, to: Date) =>
       repo().createQueryBuilder('r').where('r.infant_id = :infantId', { infantId }).andWhere('r.taken_at BETWEEN :from AND :to', { from, to })
         .orderBy('r.taken_at', 'ASC').limit(2000).getMany(),
+    /** Every reading of one baby, oldest first, for an export that must not stop at a page. */
+    allForInfant: (infantId: string) => repo().find({ where: { infantId }, order: { takenAt: 'ASC', id: 'ASC' } }),
   };
 }
 export type ReadingsRepository = ReturnType<typeof createReadingsRepository>;

@@ -11,6 +11,7 @@ import { infantKeys } from '../../features/infants/api/infant-keys';
 import { AuditSection } from '../../features/infants/components/audit-section';
 import { ContactsSection } from '../../features/infants/components/contacts-section';
 import { DetailsSection } from '../../features/infants/components/details-section';
+import { FhirDownloadLink } from '../../features/infants/components/fhir-download-link';
 import { InfantHeader } from '../../features/infants/components/infant-header';
 import { PlanSection } from '../../features/infants/components/plan-section';
 import { VersionsSection } from '../../features/infants/components/versions-section';
@@ -97,6 +98,12 @@ export function Component() {
   return (
     <>
       <InfantHeader infant={infant.data} />
+      {/* Staff only, as the API: reading the overnight recordings is the staff right the export checks. */}
+      {ability.can('read', 'Recording') && (
+        <div className="-mt-3 mb-6 flex flex-wrap gap-2">
+          <FhirDownloadLink infantId={infant.data.id} />
+        </div>
+      )}
       {/* The day-to-day monitoring sits in the first column, so on a phone it comes straight after the plan. */}
       <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         <div className="flex min-w-0 flex-col gap-6">
