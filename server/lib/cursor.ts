@@ -23,3 +23,27 @@ export function decodeCursor(text: string, sort: string, keyCount: number): Curs
   if (!Array.isArray(values) || values.length !== keyCount || !values.every((v) => typeof v === 'string' && v.length <= 200)) throw bad();
   return { sort, values: values as string[], id };
 }
+
+/** Where a list request starts: after or before the cursor's row, or at the page number's offset. */
+export function positionOf(query: { cursor?: string; direction: 'next' | 'prev'; page: number; pageSize: number }, sort: string, keyCount: number) {
+  const from = query.cursor ? decodeCursor(query.cursor, sort, keyCount) : undefined;
+  if (!from) return { from, at: { offset: (query.page - 1) * query.pageSize } };
+  const values = [...from.values, from.id];
+  return { from, at: query.direction === 'prev' ? { before: values } : { after: values } };
+}
+
+/**
+ * The cursors of the pages beside one just read. `more` says whether rows follow in the reading direction; going
+ * back, that means pages before this one, and a page reached by "previous" always has one after it.
+ */
+export function pageCursors<R>(opts: {
+  query: { direction: 'next' | 'prev'; page: number }; from: Cursor | undefined; rows: R[]; more: boolean; cursorOf: (row: R) => string;
+}): { nextCursor: string | null; prevCursor: string | null } {
+  const { query, from, rows, more, cursorOf } = opts;
+  const back = query.direction === 'prev' && !!from;
+  const hasNext = back ? true : more;
+  const hasPrev = back ? more : !!from || query.page > 1;
+  const first = rows[0];
+  const last = rows.at(-1);
+  return { nextCursor: hasNext && last ? cursorOf(last) : null, prevCursor: hasPrev && first ? cursorOf(first) : null };
+}
