@@ -9,8 +9,9 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export const encodeCursor = (c: Cursor): string => Buffer.from(JSON.stringify([c.sort, c.values, c.id])).toString('base64url');
 
+const bad = () => new ValidationError({ 'query.cursor': ['This page link is out of date or damaged; go back to the first page.'] });
+
 export function decodeCursor(text: string, sort: string, keyCount: number): Cursor {
-  const bad = () => new ValidationError({ 'query.cursor': ['This page link is out of date or damaged; go back to the first page.'] });
   let parsed: unknown;
   try {
     parsed = JSON.parse(Buffer.from(text, 'base64url').toString('utf8'));
@@ -46,4 +47,19 @@ export function pageCursors<R>(opts: {
   const first = rows[0];
   const last = rows.at(-1);
   return { nextCursor: hasNext && last ? cursorOf(last) : null, prevCursor: hasPrev && first ? cursorOf(first) : null };
+}
+
+/**
+ * Reads a page whose cursor came from the client. A forged cursor value that PostgreSQL cannot read as its key's
+ * type (a date that is no date: SQLSTATE class 22, data exception) is the same 400 as a damaged cursor, not a 500;
+ * every other parameter of a list query is checked by its schema before it gets here.
+ */
+export async function readingFrom<T>(from: Cursor | undefined, read: Promise<T>): Promise<T> {
+  try {
+    return await read;
+  } catch (error) {
+    const code = (error as { code?: unknown }).code;
+    if (from && typeof code === 'string' && code.startsWith('22')) throw bad();
+    throw error;
+  }
 }

@@ -144,6 +144,9 @@ describe('message log paging by position', () => {
       expect(res.body.error.requestId).toEqual(expect.any(String));
     }
     expect((await coord.get(`/api/messages?sort=status&cursor=${p1.nextCursor}`).expect(400)).body.error.details['query.cursor']).toHaveLength(1);
+    // Well formed, but its time is no time: PostgreSQL cannot read it, and that is the caller's mistake, not a 500.
+    const forged = Buffer.from(JSON.stringify(['sendAt', ['2026-13-45 99:00:00+00'], ids(p1)[0]])).toString('base64url');
+    expect((await coord.get(`/api/messages?sort=sendAt&cursor=${forged}`).expect(400)).body.error.details['query.cursor'][0]).toMatch(/first page/);
     expect((await coord.get(`/api/messages?cursor=${p1.nextCursor}&sort=sendAt&direction=up`).expect(400)).body.error.details['query.direction']).toEqual(['Direction is next or prev']);
   });
 });

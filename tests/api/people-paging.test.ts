@@ -105,5 +105,8 @@ describe('People paging by position', () => {
       expect(res.body.error.details['query.cursor'][0]).toMatch(/first page/);
     }
     expect((await admin.get(`/api/users?sort=name&cursor=${p1.nextCursor}`).expect(400)).body.error.details['query.cursor']).toHaveLength(1);
+    // Well formed, but its date is no date: PostgreSQL cannot read it, and that is the caller's mistake, not a 500.
+    const forged = Buffer.from(JSON.stringify(['-createdAt', ['yesterday-ish'], ids(p1)[0]])).toString('base64url');
+    expect((await admin.get(`/api/users?sort=-createdAt&cursor=${forged}`).expect(400)).body.error.details['query.cursor'][0]).toMatch(/first page/);
   });
 });

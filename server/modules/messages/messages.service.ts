@@ -7,7 +7,7 @@ import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { keyValues } from '../../db/repositories/list-paging';
 import { MESSAGE_SORT_KEYS, type MessageListRow, type ReminderRow } from '../../db/repositories/reminders.repository';
-import { encodeCursor, pageCursors, positionOf } from '../../lib/cursor';
+import { encodeCursor, pageCursors, positionOf, readingFrom } from '../../lib/cursor';
 import type { AppRepos } from '../../deps';
 import type { JobProducer } from '../../jobs/producer';
 import { ConflictError, ForbiddenError, NotFoundError } from '../../lib/errors';
@@ -30,7 +30,7 @@ export function createMessagesService(ds: DataSource, repos: AppRepos, jobs: Job
       const phone = query.q && isCountryCode(country) ? readPhone(query.q, country, 'any') : null;
       const key = MESSAGE_SORT_KEYS[query.sort];
       const { from, at } = positionOf(query, query.sort, key.length - 1);
-      const { rows, more, total, estimate } = await repos.reminders.list(query, programmeId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), at, phone?.ok ? phone.e164 : null);
+      const { rows, more, total, estimate } = await readingFrom(from, repos.reminders.list(query, programmeId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), at, phone?.ok ? phone.e164 : null));
       const cursorOf = (r: MessageListRow) => {
         const values = keyValues(key, r as unknown as Record<string, unknown>);
         return encodeCursor({ sort: query.sort, values: values.slice(0, -1), id: r.id });

@@ -4,7 +4,7 @@ import type { AppAbility } from '@shared/auth/ability';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { keyValues } from '../../db/repositories/list-paging';
 import { USER_ACL_COLUMNS, USER_SORT_KEYS, type UserListRow } from '../../db/repositories/users.repository';
-import { encodeCursor, pageCursors, positionOf } from '../../lib/cursor';
+import { encodeCursor, pageCursors, positionOf, readingFrom } from '../../lib/cursor';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { listRowToUserDto, toUserDto } from './users.mapper';
@@ -41,7 +41,7 @@ export function createUsersService(deps: InvitationDeps) {
     async list(ability: AppAbility, query: ListUsersQuery): Promise<UsersPage> {
       const key = USER_SORT_KEYS[query.sort];
       const { from, at } = positionOf(query, query.sort, key.length - 1);
-      const { rows, more, total, estimate } = await users.list(query, accessibleWhere(ability, 'read', 'User', USER_ACL_COLUMNS), at);
+      const { rows, more, total, estimate } = await readingFrom(from, users.list(query, accessibleWhere(ability, 'read', 'User', USER_ACL_COLUMNS), at));
       const cursorOf = (r: UserListRow) => encodeCursor({ sort: query.sort, values: keyValues(key, r as unknown as Record<string, unknown>).slice(0, -1), id: r.id });
       return { items: rows.map(listRowToUserDto), total, totalIsEstimate: estimate, ...pageCursors({ query, from, rows, more, cursorOf }) };
     },
