@@ -1,5 +1,8 @@
 import type { DataSource } from 'typeorm';
 import { EXACT_TOTAL_LIMIT } from './infants.repository';
+import type { createRowEstimates } from './row-estimates';
+
+type RowEstimates = ReturnType<typeof createRowEstimates>;
 
 // Keyset paging shared by the message log and People (the caseload has its own, older copy in
 // infants.repository.ts). A sort is a list of key parts, each read in one direction, ending in the row's id so no
@@ -83,15 +86,13 @@ export function keysetPageSql(opts: {
 
 /**
  * How many rows match, consistent with the caseload: exact up to EXACT_TOTAL_LIMIT (counting stops there, so it
- * reads at most that many index entries), PostgreSQL's row estimate above it (shown as "about N").
- * `sql` is "SELECT 1 FROM … WHERE …" with positional parameters.
+ * reads at most that many index entries), PostgreSQL's row estimate above it (shown as "about N", remembered for a
+ * while by `estimateRows`, see row-estimates.ts). `sql` is "SELECT 1 FROM … WHERE …" with positional parameters.
  */
-export async function cappedCount(ds: DataSource, sql: string, params: unknown[]): Promise<{ total: number; estimate: boolean }> {
+export async function cappedCount(ds: DataSource, estimateRows: RowEstimates, sql: string, params: unknown[]): Promise<{ total: number; estimate: boolean }> {
   const [{ n }] = await ds.query(`SELECT count(*)::int AS n FROM (${sql} LIMIT ${EXACT_TOTAL_LIMIT + 1}) capped`, params);
   if (n <= EXACT_TOTAL_LIMIT) return { total: n, estimate: false };
-  const [{ 'QUERY PLAN': plan }] = await ds.query(`EXPLAIN (FORMAT JSON) ${sql}`, params);
-  const rows = Number(plan?.[0]?.Plan?.['Plan Rows'] ?? 0);
-  return { total: Math.max(EXACT_TOTAL_LIMIT + 1, Math.round(rows)), estimate: true };
+  return { total: Math.max(EXACT_TOTAL_LIMIT + 1, await estimateRows(sql, params)), estimate: true };
 }
 
 /** A page read with one row more than asked for: the page, and whether more rows follow in the reading direction. */

@@ -2,6 +2,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { Channel, ListMessagesQuery, MessageStatus, MessageTemplate } from '@shared/schemas/messages';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { cappedCount, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
+import { createRowEstimates } from './row-estimates';
 
 export interface ReminderRow {
   id: string;
@@ -77,6 +78,7 @@ export const MESSAGE_SORT_KEYS: Record<ListMessagesQuery['sort'], KeyPart[]> = {
 export type MessageListRow = ReminderRow & { infant_name: string | null; k_send_at: string };
 
 export function createRemindersRepository(ds: DataSource) {
+  const estimateRows = createRowEstimates(ds);
   const q = (m?: EntityManager) => m ?? ds.manager;
   return {
     /** A coordinator sends a failed (or unknown) message again: its ledger row allows a new attempt. */
@@ -180,7 +182,7 @@ export function createRemindersRepository(ds: DataSource) {
       });
       const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
       const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 ${from} WHERE ${where.join(' AND ')}`, named);
-      const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<MessageListRow[]>, cappedCount(ds, countSql, countParams)]);
+      const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<MessageListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
       return { ...cutPage(rows, query.pageSize, at), ...count };
     },
   };

@@ -4,6 +4,7 @@ import type { Role } from '@shared/auth/roles';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { UserEntity } from '../entities/user.entity';
 import { cappedCount, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
+import { createRowEstimates } from './row-estimates';
 import { DEFAULT_COUNTRY } from '@shared/phone/phone';
 
 // People's sorts, each ending in the id so no two rows tie (list-paging.ts); by role, people of one role by name.
@@ -35,6 +36,7 @@ export interface UserWithProgramme extends UserEntity {
 }
 
 export function createUsersRepository(ds: DataSource) {
+  const estimateRows = createRowEstimates(ds);
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(UserEntity);
   return {
     findByEmail: (email: string) => repo().findOne({ where: { email } }),
@@ -77,7 +79,7 @@ export function createUsersRepository(ds: DataSource) {
       });
       const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
       const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 FROM users u WHERE ${where.join(' AND ')}`, named);
-      const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<UserListRow[]>, cappedCount(ds, countSql, countParams)]);
+      const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<UserListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
       return { ...cutPage(rows, query.pageSize, at), ...count };
     },
 
