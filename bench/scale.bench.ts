@@ -84,11 +84,19 @@ async function throughput(url: string, headers: Record<string, string>): Promise
   return THROUGHPUT_REQUESTS / (ms(t) / 1000);
 }
 
-/** The cursor 20 pages into a sorted, filtered caseload: deep enough that an offset would have to skip 475 rows. */
-async function deepCursor(cookie: string, query: string): Promise<string> {
-  let body = await (await fetch(`http://127.0.0.1:${appPort}/api/infants?${query}`, { headers: { cookie } })).json();
-  for (let i = 0; i < 19; i++) body = await (await fetch(`http://127.0.0.1:${appPort}/api/infants?${query}&cursor=${body.nextCursor}`, { headers: { cookie } })).json();
-  return body.nextCursor;
+/**
+ * The cursor 20 pages into a sorted, filtered list: deep enough that an offset would have to skip 475 rows (or the
+ * last page's, for a list shorter than that at a small BENCH_SCALE).
+ */
+async function deepCursor(cookie: string, query: string, path = '/api/infants'): Promise<string> {
+  let body = await (await fetch(`http://127.0.0.1:${appPort}${path}?${query}`, { headers: { cookie } })).json();
+  let cursor: string | null = null;
+  for (let i = 0; i < 20 && body.nextCursor; i++) {
+    cursor = body.nextCursor;
+    if (i < 19) body = await (await fetch(`http://127.0.0.1:${appPort}${path}?${query}&cursor=${cursor}`, { headers: { cookie } })).json();
+  }
+  if (!cursor) throw new Error(`${path}?${query}: a single page, nothing to page through`);
+  return cursor;
 }
 
 const QUERY = 'status=on_oxygen&sort=-elevation&pageSize=25';
@@ -108,6 +116,30 @@ console.table(rows);
 const ratioFirst = perSize[large!.slug]!.first / perSize[tenth!.slug]!.first;
 const ratioDeep = perSize[large!.slug]!.deep / perSize[tenth!.slug]!.deep;
 console.log(`  ratio ${large!.babies.toLocaleString('en')} / ${tenth!.babies.toLocaleString('en')}: first page ${ratioFirst.toFixed(2)}×, page 21 ${ratioDeep.toFixed(2)}× (target ≤ 1.3×)`);
+
+// The message log and People page the same way (keyset, server/db/repositories/list-paging.ts): a quarter as many
+// messages as babies, one nurse per 40 babies.
+const OTHER_LISTS = [
+  { list: 'message log', path: '/api/messages', query: 'status=sent&sort=-sendAt&pageSize=25' },
+  { list: 'message log, by status', path: '/api/messages', query: 'sort=status&pageSize=25' },
+  { list: 'People', path: '/api/users', query: 'role=nurse&sort=name&pageSize=10' },
+];
+const otherRows: Array<Record<string, string>> = [];
+for (const { list, path, query } of OTHER_LISTS) {
+  const deepBySize: number[] = [];
+  for (const programme of [tenth!, large!]) {
+    const cookie = await signIn(`${path === '/api/users' ? 'admin' : 'coordinator'}@${programme.slug}.scale.example`);
+    const cursor = await deepCursor(cookie, query, path);
+    const first = await timeEach(`http://127.0.0.1:${appPort}${path}?${query}`, { cookie });
+    const deep = await timeEach(`http://127.0.0.1:${appPort}${path}?${query}&cursor=${cursor}`, { cookie });
+    deepBySize.push(deep.median);
+    otherRows.push({ list: `${list} (${query})`, programme: `${programme.babies.toLocaleString('en')} babies`,
+      'first page (median / p99)': `${first.median.toFixed(2)} / ${first.p99.toFixed(2)} ms`, 'page 21 by cursor (median / p99)': `${deep.median.toFixed(2)} / ${deep.p99.toFixed(2)} ms`,
+      'page 21 ratio': programme === large ? `${(deepBySize[1]! / deepBySize[0]!).toFixed(2)}×` : '' });
+  }
+}
+console.log(`\nmessage log and People, one request at a time, ${SAMPLES} samples each (ratio: largest / tenth programme)`);
+console.table(otherRows);
 
 // The bare route: the best SQL we can write for the same page — the keyset page with its joins, and the capped
 // count — straight through pg, with no sessions, ability checks or validation.
@@ -224,6 +256,7 @@ console.log('\nSQL statements per request (counted at the driver, including sess
 console.table([
   { request: 'caseload list, page 21', statements: await countStatements('GET', `/api/infants?${QUERY}&cursor=${cursor}`) },
   { request: 'caseload list, first page, name search', statements: await countStatements('GET', '/api/infants?q=Ashcombe&pageSize=25') },
+  { request: 'message log, page 21', statements: await countStatements('GET', `/api/messages?${OTHER_LISTS[0]!.query}&cursor=${await deepCursor(cookie, OTHER_LISTS[0]!.query, '/api/messages')}`) },
   { request: 'baby record', statements: await countStatements('GET', `/api/infants/${babyId}`) },
   { request: "baby's readings", statements: await countStatements('GET', `/api/infants/${babyId}/readings`) },
   { request: 'log a reading (write)', statements: await countStatements('POST', `/api/infants/${babyId}/readings`, { takenAt: '2026-11-30T10:00:00Z', spo2: 95, state: 'awake' }, session.csrfToken) },

@@ -37,3 +37,21 @@ export type ErrorBody = z.infer<typeof errorBodySchema>;
 
 export const pagedSchema = <T extends z.ZodType>(item: T) =>
   z.object({ items: z.array(item), total: z.number().int().nonnegative() });
+
+/**
+ * Paging by position (keyset): the opaque cursor of the last row of a page (next) or its first row (prev), from the
+ * previous answer. Without a cursor the page number is used.
+ */
+export const cursorQueryShape = {
+  cursor: plainText().trim().max(400).optional(),
+  direction: z.enum(['next', 'prev'], { error: 'Direction is next or prev' }).default('next'),
+};
+
+/** A page read by position: above 10,000 matching rows the total is PostgreSQL's estimate ("about N"). */
+export const cursorPagedSchema = <T extends z.ZodType>(item: T) =>
+  pagedSchema(item).extend({
+    totalIsEstimate: z.boolean().optional(),
+    /** Cursors for the pages after and before this one; null at either end. */
+    nextCursor: z.string().nullable().optional(),
+    prevCursor: z.string().nullable().optional(),
+  });

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { pageQuerySchema, pagedSchema, plainText } from './common';
+import { cursorPagedSchema, cursorQueryShape, pageQuerySchema, plainText } from './common';
 
 // Every message Nestflow sends is first a row (a "reminder") written with the change that causes it.
 export const MESSAGE_TEMPLATES = [
@@ -60,6 +60,7 @@ export const listMessagesQuerySchema = pageQuerySchema.extend({
   infantId: z.uuid({ error: 'Must be a valid id' }).optional(),
   /** Part of the baby's name, the recipient's name, or their address or number. */
   q: plainText().trim().max(100, { error: 'At most 100 characters' }).optional(),
+  ...cursorQueryShape,
 });
 export type ListMessagesQuery = z.infer<typeof listMessagesQuerySchema>;
 
@@ -80,6 +81,6 @@ export const messageSchema = z.object({
   createdAt: z.string(),
 });
 export type Message = z.infer<typeof messageSchema>;
-export const messagesPageSchema = pagedSchema(messageSchema);
+export const messagesPageSchema = cursorPagedSchema(messageSchema);
 export type MessagesPage = z.infer<typeof messagesPageSchema>;
 export const messageResponseSchema = z.object({ message: messageSchema });

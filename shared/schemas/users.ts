@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { ROLES } from '../auth/roles';
-import { pageQuerySchema, pagedSchema, plainText } from './common';
+import { cursorPagedSchema, cursorQueryShape, pageQuerySchema, plainText } from './common';
 
 export const userSchema = z.object({
   id: z.uuid(),
@@ -22,10 +22,11 @@ export const listUsersQuerySchema = pageQuerySchema.extend({
   sort: z.enum(USER_SORTS, { error: 'Unknown sort' }).default('name'),
   role: z.enum(ROLES, { error: 'Unknown role' }).optional(),
   q: plainText().trim().max(100).optional(),
+  ...cursorQueryShape,
 });
 export type ListUsersQuery = z.infer<typeof listUsersQuerySchema>;
 
-export const usersPageSchema = pagedSchema(userSchema);
+export const usersPageSchema = cursorPagedSchema(userSchema);
 export type UsersPage = z.infer<typeof usersPageSchema>;
 
 export const createUserSchema = z.strictObject({

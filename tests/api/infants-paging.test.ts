@@ -103,6 +103,9 @@ describe('caseload paging by position', () => {
       expect(res.body.error.details['query.cursor'][0]).toMatch(/first page/);
     }
     await coord.get(`/api/infants?sort=enrolled&cursor=${p1.nextCursor}`).expect(400);
+    // Well formed, but its date is no date: PostgreSQL cannot read it, and that is the caller's mistake, not a 500.
+    const forged = Buffer.from(JSON.stringify(['correctedAge', ['2026-02-31'], p1.items[0].id])).toString('base64url');
+    expect((await coord.get(`/api/infants?sort=correctedAge&cursor=${forged}`).expect(400)).body.error.details['query.cursor'][0]).toMatch(/first page/);
     expect((await coord.get(`/api/infants?sort=name&cursor=${p1.nextCursor}&direction=sideways`).expect(400)).body.error.details['query.direction']).toEqual(['Direction is next or prev']);
   });
 

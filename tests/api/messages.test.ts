@@ -81,7 +81,7 @@ describe('message log: what it lists', () => {
     const outsider = (await other.coord.get('/api/messages?pageSize=100').expect(200)).body;
     expect(outsider.total).toBe(3);
     expect(outsider.items.every((m: { infant: { id: string } }) => m.infant.id === other.infant.id)).toBe(true);
-    expect((await other.coord.get(`/api/messages?infantId=${infant.id}`).expect(200)).body).toEqual({ items: [], total: 0 });
+    expect((await other.coord.get(`/api/messages?infantId=${infant.id}`).expect(200)).body).toEqual({ items: [], total: 0, totalIsEstimate: false, nextCursor: null, prevCursor: null });
   });
 
   it('when the log is filtered by status and paged, then only matching rows come back with the full total', async () => {
@@ -93,7 +93,7 @@ describe('message log: what it lists', () => {
     const page2 = (await coord.get('/api/messages?pageSize=2&page=2&sort=sendAt').expect(200)).body;
     expect(page2.total).toBe(4);
     expect(page2.items).toHaveLength(2);
-    expect((await coord.get('/api/messages?page=9').expect(200)).body).toEqual({ items: [], total: 4 });
+    expect((await coord.get('/api/messages?page=9').expect(200)).body).toEqual({ items: [], total: 4, totalIsEstimate: false, nextCursor: null, prevCursor: null });
   });
 });
 

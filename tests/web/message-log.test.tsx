@@ -41,14 +41,18 @@ const ROWS: Message[] = [
   }),
 ];
 
-function stubLog(options: { rows?: () => Message[]; total?: number; extra?: Record<string, (request: FakeRequest) => Response> } = {}) {
+function stubLog(options: { rows?: () => Message[]; total?: number; totalIsEstimate?: boolean; extra?: Record<string, (request: FakeRequest) => Response> } = {}) {
   const listCalls: URLSearchParams[] = [];
   const fetchMock = stubApi({
     'GET /api/session': sessionHandler('admin'),
     'GET /api/messages': ({ url }) => {
       listCalls.push(url.searchParams);
       const items = options.rows ? options.rows() : ROWS;
-      return json(200, { items, total: options.total ?? items.length });
+      const total = options.total ?? items.length;
+      // Cursors name the page they sit beside, so a test can see which one was sent.
+      const page = Number(url.searchParams.get('page') ?? 1);
+      const more = page * Number(url.searchParams.get('pageSize') ?? 25) < total;
+      return json(200, { items, total, totalIsEstimate: options.totalIsEstimate ?? false, nextCursor: more ? `after-${page}` : null, prevCursor: page > 1 ? `before-${page}` : null });
     },
     ...options.extra,
   });
@@ -184,7 +188,7 @@ describe('Message log', () => {
     await user.selectOptions(screen.getByLabelText('Message type'), 'Visit moved (family)');
     await waitFor(() => expect(currentUrl(router)).toBe('/messages?status=failed&channel=email&template=visit-moved'));
     await waitFor(() => expect(Object.fromEntries(listCalls.at(-1)!)).toEqual({
-      page: '1', pageSize: '25', sort: '-sendAt', status: 'failed', channel: 'email', template: 'visit-moved',
+      page: '1', pageSize: '25', sort: '-sendAt', status: 'failed', channel: 'email', template: 'visit-moved', direction: 'next',
     }));
 
     await user.click(screen.getByRole('button', { name: /^Status/ }));
@@ -192,11 +196,56 @@ describe('Message log', () => {
     await waitFor(() => expect(listCalls.at(-1)?.get('sort')).toBe('status'));
   });
 
+  it('when pages are turned, then each asks for the rows beside the last page, back to page 1 is the plain first page, and a filter, the sort, the page size or the search starts again', async () => {
+    const { listCalls } = stubLog({ total: 60 });
+    const { user, router } = renderApp('/messages?channel=sms');
+    await screen.findByRole('table');
+    expect(screen.getByRole('button', { name: 'Previous page' })).toBeDisabled();
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?page=2&channel=sms&cursor=after-1'));
+    await waitFor(() => expect(Object.fromEntries(listCalls.at(-1)!)).toEqual({ page: '2', pageSize: '25', sort: '-sendAt', channel: 'sms', cursor: 'after-1', direction: 'next' }));
+    await user.click(await screen.findByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?page=3&channel=sms&cursor=after-2'));
+    await waitFor(() => expect(screen.getByText('Page 3 of 3 · 60 messages')).toBeInTheDocument());
+    expect(screen.getByRole('button', { name: 'Next page' })).toBeDisabled();
+    await user.click(screen.getByRole('button', { name: 'Previous page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?page=2&channel=sms&cursor=before-3&direction=prev'));
+    await waitFor(() => expect(listCalls.at(-1)?.get('direction')).toBe('prev'));
+    await user.click(await screen.findByRole('button', { name: 'Previous page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?channel=sms'));
+
+    // A cursor belongs to the list it came from: a filter, the search or a new sort starts again from page 1.
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?page=2&channel=sms&cursor=after-1'));
+    await user.selectOptions(screen.getByLabelText('Status'), 'Failed');
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?status=failed&channel=sms'));
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?page=2&status=failed&channel=sms&cursor=after-1'));
+    await user.click(screen.getByRole('button', { name: /^Send time/ }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?sort=sendAt&status=failed&channel=sms'));
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?page=2&sort=sendAt&status=failed&channel=sms&cursor=after-1'));
+    await user.selectOptions(screen.getByLabelText('Rows per page'), '50');
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?pageSize=50&sort=sendAt&status=failed&channel=sms'));
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?page=2&pageSize=50&sort=sendAt&status=failed&channel=sms&cursor=after-1'));
+    await user.type(screen.getByRole('searchbox', { name: 'Search by baby, name or number' }), 'Rosa{Enter}');
+    await waitFor(() => expect(currentUrl(router)).toBe('/messages?pageSize=50&sort=sendAt&status=failed&channel=sms&q=Rosa'));
+    await waitFor(() => expect(Object.fromEntries(listCalls.at(-1)!)).toEqual({ page: '1', pageSize: '50', sort: 'sendAt', status: 'failed', channel: 'sms', q: 'Rosa', direction: 'next' }));
+  });
+
+  it('when the log is very large, then the total is given as "about"', async () => {
+    stubLog({ total: 214_380, totalIsEstimate: true });
+    renderApp('/messages');
+    expect(await screen.findByText('Page 1 of about 8,576 · about 214,380 messages')).toBeInTheDocument();
+    expect(screen.getByRole('table', { name: 'Messages, about 214380 in all' })).toBeInTheDocument();
+  });
+
   it('when opened from a saved link about one baby, then the view is restored and the narrowing is said and can be cleared', async () => {
     const { listCalls } = stubLog();
     const { user, router } = renderApp(`/messages?pageSize=10&sort=sendAt&channel=sms&infantId=${BABY.id}`);
     await screen.findByRole('table');
-    expect(Object.fromEntries(listCalls[0])).toEqual({ page: '1', pageSize: '10', sort: 'sendAt', channel: 'sms', infantId: BABY.id });
+    expect(Object.fromEntries(listCalls[0])).toEqual({ page: '1', pageSize: '10', sort: 'sendAt', channel: 'sms', infantId: BABY.id, direction: 'next' });
     expect(screen.getByLabelText('Channel')).toHaveValue('sms');
     expect(screen.getByText('Showing messages about one baby only.')).toBeInTheDocument();
     await user.click(screen.getByRole('button', { name: 'Show every baby' }));

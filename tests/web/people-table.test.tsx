@@ -12,13 +12,17 @@ const rows: User[] = [
   makeUser({ name: 'Fern Oakley', email: 'fern@larkmoor.example', role: 'consultant', passwordSet: false }),
 ];
 
-function stubPeople(extra: Record<string, (request: FakeRequest) => Response> = {}) {
+function stubPeople(extra: Record<string, (request: FakeRequest) => Response> = {}, list: { total?: number; totalIsEstimate?: boolean } = {}) {
   const listCalls: URLSearchParams[] = [];
   const fetchMock = stubApi({
     'GET /api/session': sessionHandler('admin'),
     'GET /api/users': ({ url }) => {
       listCalls.push(url.searchParams);
-      return json(200, { items: rows, total: 60 });
+      const total = list.total ?? 60;
+      // Cursors name the page they sit beside, so a test can see which one was sent.
+      const page = Number(url.searchParams.get('page') ?? 1);
+      const more = page * Number(url.searchParams.get('pageSize') ?? 25) < total;
+      return json(200, { items: rows, total, totalIsEstimate: list.totalIsEstimate ?? false, nextCursor: more ? `after-${page}` : null, prevCursor: page > 1 ? `before-${page}` : null });
     },
     ...extra,
   });
@@ -64,10 +68,46 @@ describe('People table', () => {
     await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?sort=email'));
 
     await user.click(screen.getByRole('button', { name: 'Next page' }));
-    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?page=2&sort=email'));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?page=2&sort=email&cursor=after-1'));
     await waitFor(() => expect(listCalls.at(-1)?.get('page')).toBe('2'));
-    expect(listCalls.at(-1)?.get('sort')).toBe('email');
-    expect(listCalls.at(-1)?.get('pageSize')).toBe('25');
+    expect(Object.fromEntries(listCalls.at(-1)!)).toEqual({ page: '2', pageSize: '25', sort: 'email', cursor: 'after-1', direction: 'next' });
+  });
+
+  it('when pages are turned, then each asks for the rows beside the last page, back to page 1 is the plain first page, and a filter, search or sort starts again', async () => {
+    const { listCalls } = stubPeople();
+    const { user, router } = renderApp('/admin/people?role=nurse');
+    await screen.findByRole('table');
+    expect(screen.getByRole('button', { name: 'Previous page' })).toBeDisabled();
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?page=2&role=nurse&cursor=after-1'));
+    await user.click(await screen.findByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?page=3&role=nurse&cursor=after-2'));
+    await waitFor(() => expect(screen.getByText('Page 3 of 3 · 60 people')).toBeInTheDocument());
+    expect(screen.getByRole('button', { name: 'Next page' })).toBeDisabled();
+    await user.click(screen.getByRole('button', { name: 'Previous page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?page=2&role=nurse&cursor=before-3&direction=prev'));
+    await waitFor(() => expect(Object.fromEntries(listCalls.at(-1)!)).toEqual({ page: '2', pageSize: '25', sort: 'name', role: 'nurse', cursor: 'before-3', direction: 'prev' }));
+    await user.click(await screen.findByRole('button', { name: 'Previous page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?role=nurse'));
+
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?page=2&role=nurse&cursor=after-1'));
+    await user.type(screen.getByLabelText('Search by name or e-mail'), 'ada{Enter}');
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?role=nurse&q=ada'));
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?page=2&role=nurse&q=ada&cursor=after-1'));
+    await user.click(screen.getByRole('button', { name: /^Role/ }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?sort=role&role=nurse&q=ada'));
+    await user.click(screen.getByRole('button', { name: 'Next page' }));
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?page=2&sort=role&role=nurse&q=ada&cursor=after-1'));
+    await user.selectOptions(screen.getByLabelText('Filter by role'), 'Consultant');
+    await waitFor(() => expect(currentUrl(router)).toBe('/admin/people?sort=role&role=consultant&q=ada'));
+  });
+
+  it('when the programme has very many people, then the total is given as "about"', async () => {
+    stubPeople({}, { total: 12_480, totalIsEstimate: true });
+    renderApp('/admin/people');
+    expect(await screen.findByText('Page 1 of about 500 · about 12,480 people')).toBeInTheDocument();
   });
 
   it('when the page is opened from a saved link, then the view is restored from the URL', async () => {
@@ -75,7 +115,7 @@ describe('People table', () => {
     renderApp('/admin/people?page=2&pageSize=10&sort=-role&role=nurse&q=ada');
     await screen.findByRole('table');
     const params = listCalls[0];
-    expect(Object.fromEntries(params)).toEqual({ page: '2', pageSize: '10', sort: '-role', role: 'nurse', q: 'ada' });
+    expect(Object.fromEntries(params)).toEqual({ page: '2', pageSize: '10', sort: '-role', role: 'nurse', q: 'ada', direction: 'next' });
     expect(screen.getByLabelText('Filter by role')).toHaveValue('nurse');
     expect(screen.getByLabelText('Search by name or e-mail')).toHaveValue('ada');
     expect(screen.getByLabelText('Rows per page')).toHaveValue('10');

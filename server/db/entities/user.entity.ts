@@ -2,7 +2,7 @@ import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, Update
 import type { Role } from '@shared/auth/roles';
 
 @Entity({ name: 'users' })
-@Index('users_programme_role_idx', ['programmeId', 'role'])
+@Index('users_p_role_name_idx', ['programmeId', 'role', 'name', 'id'])
 export class UserEntity {
   @PrimaryGeneratedColumn('uuid')
   id: string;

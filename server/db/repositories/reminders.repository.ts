@@ -1,6 +1,8 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { Channel, ListMessagesQuery, MessageStatus, MessageTemplate } from '@shared/schemas/messages';
 import type { SqlFilter } from '../../auth/casl-to-sql';
+import { cappedCount, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
+import { createRowEstimates } from './row-estimates';
 
 export interface ReminderRow {
   id: string;
@@ -60,11 +62,23 @@ export interface DeliveryRow {
 
 const COLUMNS = ['programme_id', 'infant_id', 'visit_id', 'template', 'contact_id', 'user_id', 'recipient_name', 'channel', 'to_address', 'language', 'time_zone', 'data', 'dedupe_key', 'send_at', 'not_after', 'status', 'reason'];
 
-const SORTS: Record<ListMessagesQuery['sort'], string> = {
-  sendAt: 'r.send_at ASC, r.id', '-sendAt': 'r.send_at DESC, r.id', status: 'r.status ASC, r.send_at DESC', '-status': 'r.status DESC, r.send_at DESC',
+// The message log's sorts, each ending in the id so no two rows tie (list-paging.ts). By status: statuses in order,
+// newest first within one. Each is read from an index of migration MessageAndPeopleListIndexes.
+const SEND_AT: KeyPart = { expr: 'r.send_at', dir: 'ASC', cast: 'timestamptz', text: 'k_send_at', out: 'send_at' };
+const ID: KeyPart = { expr: 'r.id', dir: 'ASC', cast: 'uuid', text: 'id', out: 'id' };
+const STATUS: KeyPart = { expr: 'r.status', dir: 'ASC', cast: 'text', text: 'status', out: 'status' };
+const newest = [{ ...SEND_AT, dir: 'DESC' as const }, { ...ID, dir: 'DESC' as const }];
+export const MESSAGE_SORT_KEYS: Record<ListMessagesQuery['sort'], KeyPart[]> = {
+  sendAt: [SEND_AT, ID],
+  '-sendAt': reversed([SEND_AT, ID]),
+  status: [STATUS, ...newest],
+  '-status': [{ ...STATUS, dir: 'DESC' }, ...newest],
 };
 
+export type MessageListRow = ReminderRow & { infant_name: string | null; k_send_at: string };
+
 export function createRemindersRepository(ds: DataSource) {
+  const estimateRows = createRowEstimates(ds);
   const q = (m?: EntityManager) => m ?? ds.manager;
   return {
     /** A coordinator sends a failed (or unknown) message again: its ledger row allows a new attempt. */
@@ -139,11 +153,15 @@ export function createRemindersRepository(ds: DataSource) {
     due: (lookAheadMs: number, limit: number): Promise<Array<{ id: string; send_at: Date }>> =>
       ds.query(`SELECT id, send_at FROM reminders WHERE status = 'scheduled' AND send_at <= now() + ($1 || ' milliseconds')::interval ORDER BY send_at LIMIT $2`, [String(lookAheadMs), limit]),
 
-    /** The message log: messages about babies the caller may read, plus the caller programme's staff messages. */
-    /** `qPhone`: the search text read as a phone number (E.164), when it is one, so '07700 900123' finds '+447700900123'. */
-    async list(query: ListMessagesQuery, programmeId: string, infantAcl: SqlFilter, qPhone: string | null = null) {
-      const named: Record<string, unknown> = { ...infantAcl.params, programmeId, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
-      const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR EXISTS (SELECT 1 FROM infants i WHERE i.id = r.infant_id AND ${infantAcl.sql}))`];
+    /**
+     * The message log: messages about babies the caller may read, plus the caller programme's staff messages, one
+     * page in the sort's order from a position (list-paging.ts), and how many match. The baby's name comes from the
+     * same join that checks the caller may read the baby (no query per row).
+     * `qPhone`: the search text read as a phone number (E.164), when it is one, so '07700 900123' finds '+447700900123'.
+     */
+    async list(query: ListMessagesQuery, programmeId: string, infantAcl: SqlFilter, at: KeysetPosition, qPhone: string | null = null) {
+      const named: Record<string, unknown> = { ...infantAcl.params, programmeId };
+      const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR (${infantAcl.sql}))`];
       for (const key of ['status', 'channel', 'template', 'infantId'] as const) {
         if (query[key]) {
           named[key] = query[key];
@@ -155,19 +173,17 @@ export function createRemindersRepository(ds: DataSource) {
         named.q = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
         const phone = qPhone ? ` OR r.to_address = :qPhone` : '';
         if (qPhone) named.qPhone = qPhone;
-        where.push(`((inf.given_name || ' ' || inf.family_name) ILIKE :q OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
+        where.push(`((i.given_name || ' ' || i.family_name) ILIKE :q OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
       }
-      const [sql, params] = ds.driver.escapeQueryWithParameters(
-        `SELECT r.*, inf.given_name || ' ' || inf.family_name AS infant_name, count(*) OVER () AS total
-           FROM reminders r LEFT JOIN infants inf ON inf.id = r.infant_id
-          WHERE ${where.join(' AND ')} ORDER BY ${SORTS[query.sort]} LIMIT :limit OFFSET :offset`,
-        named,
-      );
-      const rows: Array<ReminderRow & { infant_name: string | null; total: string }> = await ds.query(sql, params);
-      if (rows.length || query.page === 1) return { rows, total: rows.length ? Number(rows[0].total) : 0 };
-      // A page past the end still reports the real total so the table can step back.
-      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT count(*)::int AS n FROM reminders r LEFT JOIN infants inf ON inf.id = r.infant_id WHERE ${where.join(' AND ')}`, named);
-      return { rows, total: (await ds.query(countSql, countParams))[0].n as number };
+      const from = `FROM reminders r LEFT JOIN infants i ON i.id = r.infant_id`;
+      const page = keysetPageSql({
+        select: `SELECT r.*, r.send_at::text AS k_send_at, i.given_name || ' ' || i.family_name AS infant_name ${from}`,
+        where, params: named, key: MESSAGE_SORT_KEYS[query.sort], at, limit: query.pageSize + 1,
+      });
+      const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
+      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 ${from} WHERE ${where.join(' AND ')}`, named);
+      const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<MessageListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
+      return { ...cutPage(rows, query.pageSize, at), ...count };
     },
   };
 }

@@ -1,10 +1,32 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
-import type { ListUsersQuery } from '@shared/schemas/users';
+import { USER_SORTS, type ListUsersQuery } from '@shared/schemas/users';
+import type { Role } from '@shared/auth/roles';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { UserEntity } from '../entities/user.entity';
+import { cappedCount, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
+import { createRowEstimates } from './row-estimates';
 import { DEFAULT_COUNTRY } from '@shared/phone/phone';
 
-const SORT_COLUMNS: Record<string, string> = { name: 'u.name', email: 'u.email', role: 'u.role', createdAt: 'u.created_at' };
+// People's sorts, each ending in the id so no two rows tie (list-paging.ts); by role, people of one role by name.
+// Each is read from an index of migration MessageAndPeopleListIndexes, alone or after a role filter.
+const part = (expr: string, cast: string, text: string): KeyPart => ({ expr, dir: 'ASC', cast, text, out: text });
+const ID = part('u.id', 'uuid', 'id');
+const NAME = part('u.name', 'text', 'name');
+const ASCENDING: Record<string, KeyPart[]> = {
+  name: [NAME, ID],
+  email: [part('u.email', 'text', 'email'), ID],
+  role: [part('u.role', 'text', 'role'), NAME, ID],
+  createdAt: [part('u.created_at', 'timestamptz', 'k_created_at'), ID],
+};
+export const USER_SORT_KEYS = Object.fromEntries(
+  USER_SORTS.map((sort) => [sort, sort.startsWith('-') ? reversed(ASCENDING[sort.slice(1)]!) : ASCENDING[sort]!]),
+) as Record<ListUsersQuery['sort'], KeyPart[]>;
+
+/** One person as the People list reads them (whether a password is set, never the hash). */
+export interface UserListRow {
+  id: string; email: string; name: string; role: Role; programme_id: string; disabled: boolean; password_set: boolean;
+  created_at: Date; last_sign_in_at: Date | null; k_created_at: string;
+}
 export const USER_ACL_COLUMNS = { programmeId: 'u.programme_id', id: 'u.id' };
 
 export interface UserWithProgramme extends UserEntity {
@@ -14,6 +36,7 @@ export interface UserWithProgramme extends UserEntity {
 }
 
 export function createUsersRepository(ds: DataSource) {
+  const estimateRows = createRowEstimates(ds);
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(UserEntity);
   return {
     findByEmail: (email: string) => repo().findOne({ where: { email } }),
@@ -37,18 +60,27 @@ export function createUsersRepository(ds: DataSource) {
     findOneWhere: (id: string, acl: SqlFilter, m?: EntityManager) =>
       repo(m).createQueryBuilder('u').where('u.id = :id', { id }).andWhere(acl.sql, acl.params).getOne(),
 
-    async list(query: ListUsersQuery, acl: SqlFilter): Promise<[UserEntity[], number]> {
-      const desc = query.sort.startsWith('-');
-      const qb = repo()
-        .createQueryBuilder('u')
-        .where(acl.sql, acl.params)
-        .orderBy(SORT_COLUMNS[query.sort.replace('-', '')], desc ? 'DESC' : 'ASC')
-        .addOrderBy('u.id', 'ASC')
-        .skip((query.page - 1) * query.pageSize)
-        .take(query.pageSize);
-      if (query.role) qb.andWhere('u.role = :role', { role: query.role });
-      if (query.q) qb.andWhere('(u.name ILIKE :q OR u.email ILIKE :q)', { q: `%${query.q.replace(/[%_\\]/g, '\\$&')}%` });
-      return qb.getManyAndCount();
+    /** One page of People in the sort's order from a position (list-paging.ts), and how many match. */
+    async list(query: ListUsersQuery, acl: SqlFilter, at: KeysetPosition) {
+      const named: Record<string, unknown> = { ...acl.params };
+      const where = [`(${acl.sql})`];
+      if (query.role) {
+        named.role = query.role;
+        where.push('u.role = :role');
+      }
+      if (query.q) {
+        named.q = `%${query.q.replace(/[%_\\]/g, '\\$&')}%`;
+        where.push('(u.name ILIKE :q OR u.email ILIKE :q)');
+      }
+      const page = keysetPageSql({
+        select: `SELECT u.id, u.email, u.name, u.role, u.programme_id, u.disabled, u.password_hash IS NOT NULL AS password_set, u.created_at,
+          u.last_sign_in_at, u.created_at::text AS k_created_at FROM users u`,
+        where, params: named, key: USER_SORT_KEYS[query.sort], at, limit: query.pageSize + 1,
+      });
+      const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
+      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 FROM users u WHERE ${where.join(' AND ')}`, named);
+      const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<UserListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
+      return { ...cutPage(rows, query.pageSize, at), ...count };
     },
 
     insert: (data: Partial<UserEntity>, m?: EntityManager) => repo(m).save(repo(m).create(data)),

@@ -3,7 +3,7 @@ import type { AppAbility } from '@shared/auth/ability';
 import type { ContactInput, EnrolInfantInput, ListInfantsQuery, UpdateInfantInput } from '@shared/schemas/infants';
 import { accessibleWhere, type SqlFilter } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS, SORT_KEYS, sortValues, type InfantListRow } from '../../db/repositories/infants.repository';
-import { decodeCursor, encodeCursor } from '../../lib/cursor';
+import { decodeCursor, encodeCursor, readingFrom } from '../../lib/cursor';
 import type { AppRepos } from '../../deps';
 import type { JobProducer } from '../../jobs/producer';
 import { ForbiddenError, NotFoundError } from '../../lib/errors';
@@ -51,10 +51,10 @@ export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobP
       const keys = SORT_KEYS[query.sort.replace('-', '')]!.cols.length;
       const from = query.cursor ? decodeCursor(query.cursor, query.sort, keys) : undefined;
       const position = !from ? { offset: (query.page - 1) * query.pageSize } : query.direction === 'prev' ? { before: from } : { after: from };
-      const [{ rows, more }, count] = await Promise.all([
+      const [{ rows, more }, count] = await readingFrom(from, Promise.all([
         repos.infants.list(query, acl(ability), extra, position),
         repos.infants.count(query, acl(ability), extra),
-      ]);
+      ]));
       const cursorOf = (r: InfantListRow | undefined) => (r ? encodeCursor({ sort: query.sort, values: sortValues(query.sort, r), id: r.id }) : null);
       // Going back, "more" means more pages before this one; a page reached by "next" always has one before it.
       const hasNext = query.direction === 'prev' && from ? true : more;

@@ -5,7 +5,9 @@ import { SKIP_REASONS, type ListMessagesQuery, type Message, type MessagesPage, 
 import { DEFAULT_COUNTRY, isCountryCode, readPhone } from '@shared/phone/phone';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
-import type { ReminderRow } from '../../db/repositories/reminders.repository';
+import { keyValues } from '../../db/repositories/list-paging';
+import { MESSAGE_SORT_KEYS, type MessageListRow, type ReminderRow } from '../../db/repositories/reminders.repository';
+import { encodeCursor, pageCursors, positionOf, readingFrom } from '../../lib/cursor';
 import type { AppRepos } from '../../deps';
 import type { JobProducer } from '../../jobs/producer';
 import { ConflictError, ForbiddenError, NotFoundError } from '../../lib/errors';
@@ -26,8 +28,14 @@ export function createMessagesService(ds: DataSource, repos: AppRepos, jobs: Job
   return {
     async list(ability: AppAbility, programmeId: string, query: ListMessagesQuery, country: string = DEFAULT_COUNTRY): Promise<MessagesPage> {
       const phone = query.q && isCountryCode(country) ? readPhone(query.q, country, 'any') : null;
-      const { rows, total } = await repos.reminders.list(query, programmeId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), phone?.ok ? phone.e164 : null);
-      return { items: rows.map(toDto), total };
+      const key = MESSAGE_SORT_KEYS[query.sort];
+      const { from, at } = positionOf(query, query.sort, key.length - 1);
+      const { rows, more, total, estimate } = await readingFrom(from, repos.reminders.list(query, programmeId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), at, phone?.ok ? phone.e164 : null));
+      const cursorOf = (r: MessageListRow) => {
+        const values = keyValues(key, r as unknown as Record<string, unknown>);
+        return encodeCursor({ sort: query.sort, values: values.slice(0, -1), id: r.id });
+      };
+      return { items: rows.map(toDto), total, totalIsEstimate: estimate, ...pageCursors({ query, from, rows, more, cursorOf }) };
     },
 
     /** A failed (or unknown-outcome) message goes again now, as a fresh attempt series; the ledger keeps what happened before. */

@@ -2,10 +2,12 @@ import type { CreateUserInput, ListUsersQuery, User, UsersPage } from '@shared/s
 import type { InvitationResponse } from '@shared/schemas/accounts';
 import type { AppAbility } from '@shared/auth/ability';
 import { accessibleWhere } from '../../auth/casl-to-sql';
-import { USER_ACL_COLUMNS } from '../../db/repositories/users.repository';
+import { keyValues } from '../../db/repositories/list-paging';
+import { USER_ACL_COLUMNS, USER_SORT_KEYS, type UserListRow } from '../../db/repositories/users.repository';
+import { encodeCursor, pageCursors, positionOf, readingFrom } from '../../lib/cursor';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
-import { toUserDto } from './users.mapper';
+import { listRowToUserDto, toUserDto } from './users.mapper';
 import { issueSetupLink, sendOrUnavailable, type InvitationDeps } from './invitations';
 
 export function createUsersService(deps: InvitationDeps) {
@@ -37,8 +39,11 @@ export function createUsersService(deps: InvitationDeps) {
 
   return {
     async list(ability: AppAbility, query: ListUsersQuery): Promise<UsersPage> {
-      const [rows, total] = await users.list(query, accessibleWhere(ability, 'read', 'User', USER_ACL_COLUMNS));
-      return { items: rows.map(toUserDto), total };
+      const key = USER_SORT_KEYS[query.sort];
+      const { from, at } = positionOf(query, query.sort, key.length - 1);
+      const { rows, more, total, estimate } = await readingFrom(from, users.list(query, accessibleWhere(ability, 'read', 'User', USER_ACL_COLUMNS), at));
+      const cursorOf = (r: UserListRow) => encodeCursor({ sort: query.sort, values: keyValues(key, r as unknown as Record<string, unknown>).slice(0, -1), id: r.id });
+      return { items: rows.map(listRowToUserDto), total, totalIsEstimate: estimate, ...pageCursors({ query, from, rows, more, cursorOf }) };
     },
 
     /**

@@ -1,5 +1,5 @@
 import { Alert } from '../../../components/ui/alert';
-import { Pager } from '../../../components/ui/data-table/pager';
+import { CursorPager } from '../../../components/ui/data-table/cursor-pager';
 import { TableFrame } from '../../../components/ui/data-table/table-frame';
 import { useServerTable } from '../../../components/ui/data-table/use-server-table';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -27,12 +27,22 @@ export function MessageTable() {
       ) : (
         <>
           <p className="text-sm text-ink-500 md:hidden">Swipe the table sideways to see every column.</p>
-          <TableFrame table={table} caption={`Messages, ${messages.data.total} in all`} minWidth="min-w-[50rem]"
+          <TableFrame table={table} caption={`Messages, ${messages.data.totalIsEstimate ? 'about ' : ''}${messages.data.total} in all`} minWidth="min-w-[50rem]"
             busy={messages.isPlaceholderData} compact />
           {messages.data.items.length === 0 && (
             <EmptyState message={filtered ? 'No message matches this search and these filters.' : 'No messages yet: reminders show here as soon as they are planned.'} />
           )}
-          <Pager table={table} total={messages.data.total} noun={{ one: 'message', other: 'messages' }} />
+          <CursorPager
+            page={query.page}
+            pageSize={query.pageSize}
+            total={messages.data.total}
+            estimate={messages.data.totalIsEstimate}
+            nextCursor={messages.data.nextCursor}
+            prevCursor={messages.data.prevCursor}
+            noun={{ one: 'message', other: 'messages' }}
+            onPage={(to) => update(to)}
+            onPageSize={(pageSize) => update({ pageSize })}
+          />
         </>
       )}
     </div>

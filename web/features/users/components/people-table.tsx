@@ -1,5 +1,5 @@
 import { Alert } from '../../../components/ui/alert';
-import { Pager } from '../../../components/ui/data-table/pager';
+import { CursorPager } from '../../../components/ui/data-table/cursor-pager';
 import { TableFrame } from '../../../components/ui/data-table/table-frame';
 import { useServerTable } from '../../../components/ui/data-table/use-server-table';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -21,14 +21,24 @@ export function PeopleTable() {
     <div className="flex flex-col gap-4">
       <TableFrame
         table={table}
-        caption={`People in the programme, ${users.data.total} in all`}
+        caption={`People in the programme, ${users.data.totalIsEstimate ? 'about ' : ''}${users.data.total} in all`}
         minWidth="min-w-[44rem]"
         busy={users.isPlaceholderData}
       />
       {users.data.items.length === 0 && (
         <EmptyState message={filtered ? 'No one matches this search.' : 'No accounts yet: add the first person above.'} />
       )}
-      <Pager table={table} total={users.data.total} noun={{ one: 'person', other: 'people' }} />
+      <CursorPager
+        page={query.page}
+        pageSize={query.pageSize}
+        total={users.data.total}
+        estimate={users.data.totalIsEstimate}
+        nextCursor={users.data.nextCursor}
+        prevCursor={users.data.prevCursor}
+        noun={{ one: 'person', other: 'people' }}
+        onPage={(to) => update(to)}
+        onPageSize={(pageSize) => update({ pageSize })}
+      />
     </div>
   );
 }
