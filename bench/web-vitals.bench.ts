@@ -79,8 +79,11 @@ async function signIn(): Promise<{ name: string; value: string }> {
     body: JSON.stringify({ email: EMAIL, password: PASSWORD }),
   });
   if (!res.ok) throw new Error(`sign-in answered ${res.status}`);
-  const [name, ...rest] = res.headers.get('set-cookie')!.split(';')[0].split('=');
-  return { name, value: rest.join('=') };
+  // The answer also clears the signed-out visitor's CSRF cookie; the session cookie is the one to keep.
+  const sid = res.headers.getSetCookie().map((c) => c.split(';')[0]).find((c) => c.startsWith('nestflow.sid='));
+  if (!sid) throw new Error('sign-in set no session cookie');
+  const at = sid.indexOf('=');
+  return { name: sid.slice(0, at), value: sid.slice(at + 1) };
 }
 
 async function measure(profile: Profile, session: { name: string; value: string }): Promise<Load> {
@@ -94,7 +97,7 @@ async function measure(profile: Profile, session: { name: string; value: string 
       requests++;
       origins.add(new URL(req.url()).origin);
     });
-    // The LCP element need not be the table, so also note when the first caseload row enters the page.
+    // The LCP element need not be the list, so also note when the first baby of the caseload enters the page.
     await context.addInitScript(ROWS_WATCH);
     if (profile.throttle) {
       const cdp = await context.newCDPSession(page);
@@ -105,7 +108,7 @@ async function measure(profile: Profile, session: { name: string; value: string 
       await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
     }
     await page.goto(`${BASE}/caseload`);
-    await page.locator('table tbody tr').first().waitFor({ timeout: 60_000 });
+    await page.locator(FIRST_BABY).first().waitFor({ timeout: 60_000 });
     if (!page.url().endsWith('/caseload')) throw new Error(`landed on ${page.url()}, not the caseload`);
     await page.waitForLoadState('networkidle');
     await page.waitForTimeout(500); // a last paint after the rows
@@ -119,8 +122,10 @@ async function measure(profile: Profile, session: { name: string; value: string 
   }
 }
 
+// A wide window shows the caseload as a table, a phone as one card per baby: either way each baby links to its record.
+const FIRST_BABY = 'main a[href^="/infants/"]';
 const ROWS_WATCH = `new MutationObserver((_, o) => {
-  if (document.querySelector('table tbody tr')) { window.__rowsAt = performance.now(); o.disconnect(); }
+  if (document.querySelector('${FIRST_BABY}')) { window.__rowsAt = performance.now(); o.disconnect(); }
 }).observe(document, { childList: true, subtree: true });`;
 
 /**
