@@ -25,9 +25,10 @@ function page(path: string, component: () => PageModule, loader?: () => LoaderMo
     // runs when a page (or another baby) is opened, and a change within the page is not held up by it.
     shouldRevalidate: ({ currentUrl, nextUrl, defaultShouldRevalidate }) =>
       defaultShouldRevalidate && currentUrl.pathname !== nextUrl.pathname,
+    // The loader first: its chunk is small, and asked for first it does not queue behind the page's chunks.
     lazy: {
-      Component: async () => (await component()).Component,
       ...(loader && { loader: async () => (await loader()).loader(queryClient) }),
+      Component: async () => (await component()).Component,
     },
   });
 }
