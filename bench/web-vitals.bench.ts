@@ -1,8 +1,8 @@
-// docs/service-targets.md P8: lab LCP and CLS of the caseload page in headless Chromium (Core Web Vitals "good": LCP ≤ 2.5 s,
-// CLS ≤ 0.1; our target ≤ 0.05), and no third-party origin at load. The real API (server/main.ts, serving the web
-// build) runs against the caseload benchmark's 20,000 babies; each load uses a fresh profile (cold cache) holding
-// the coordinator's session. Two profiles, alternated: desktop on loopback, and a phone-sized window with
-// DevTools-style throttling (150 ms RTT, 1.6 Mbit/s down, CPU 4× slower). Prints figures only.
+// docs/service-targets.md P8: lab LCP and CLS of the caseload page in headless Chromium (LCP ≤ 2.5 s, Core Web Vitals'
+// "good", on the desktop and ≤ 2.0 s on the throttled phone; CLS ≤ 0.05), and no third-party origin at load. The real
+// API (server/main.ts, serving the web build) runs against the caseload benchmark's 20,000 babies; each load uses a
+// fresh profile (cold cache) holding the coordinator's session. Two profiles, alternated: desktop on loopback, and a
+// phone-sized window with DevTools-style throttling (150 ms RTT, 1.6 Mbit/s down, CPU 4× slower). Prints figures only.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import pg from 'pg';
@@ -22,10 +22,12 @@ interface Profile {
   name: string;
   viewport: { width: number; height: number };
   throttle: boolean;
+  /** LCP target in seconds: Core Web Vitals' "good" on the desktop, P8's tighter figure on the slow phone. */
+  lcpTarget: number;
 }
 const PROFILES: Profile[] = [
-  { name: 'desktop 1280×860, loopback', viewport: { width: 1280, height: 860 }, throttle: false },
-  { name: 'phone 412×823, throttled', viewport: { width: 412, height: 823 }, throttle: true },
+  { name: 'desktop 1280×860, loopback', viewport: { width: 1280, height: 860 }, throttle: false, lcpTarget: 2.5 },
+  { name: 'phone 412×823, throttled', viewport: { width: 412, height: 823 }, throttle: true, lcpTarget: 2.0 },
 ];
 
 interface Load {
@@ -184,7 +186,7 @@ try {
   for (const [p, loads] of results) {
     const lcps = loads.map((l) => l.lcpMs);
     console.log(`  ${p.name}`);
-    console.log(`    LCP ${(median(lcps) / 1000).toFixed(2)} s (target ≤ 2.5)   runs: ${lcps.map((v) => (v / 1000).toFixed(2)).join(' ')}`);
+    console.log(`    LCP ${(median(lcps) / 1000).toFixed(2)} s (target ≤ ${p.lcpTarget})   runs: ${lcps.map((v) => (v / 1000).toFixed(2)).join(' ')}`);
     console.log(`    CLS ${median(loads.map((l) => l.cls)).toFixed(3)} (target ≤ 0.05)   runs: ${loads.map((l) => l.cls.toFixed(3)).join(' ')}; sum of all shifts max ${Math.max(...loads.map((l) => l.shiftSum)).toFixed(3)}`);
     const fcp = median(loads.map((l) => l.fcpMs)) / 1000;
     const rows = median(loads.map((l) => l.rowsMs)) / 1000;
