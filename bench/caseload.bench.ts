@@ -98,7 +98,9 @@ const { csrfToken } = await first.json();
 const signIn = await fetch(`http://127.0.0.1:${appPort}/api/session`, {
   method: 'POST', headers: { cookie, 'content-type': 'application/json', 'x-csrf-token': csrfToken }, body: JSON.stringify({ email, password: PASSWORD }),
 });
-const session = signIn.headers.get('set-cookie')!.split(';')[0];
+// The answer also clears the signed-out visitor's CSRF cookie; the session cookie is the one to keep.
+const session = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).find((c) => c.startsWith('nestflow.sid='));
+if (!signIn.ok || !session) throw new Error(`sign-in answered ${signIn.status} without a session cookie`);
 const appUrl = `http://127.0.0.1:${appPort}/api/infants?status=on_oxygen&sort=-elevation&page=3&pageSize=25`;
 
 const appRates: number[] = [];

@@ -1,8 +1,8 @@
-// docs/service-targets.md P8: lab LCP and CLS of the caseload page in headless Chromium (Core Web Vitals "good": LCP ≤ 2.5 s,
-// CLS ≤ 0.1; our target ≤ 0.05), and no third-party origin at load. The real API (server/main.ts, serving the web
-// build) runs against the caseload benchmark's 20,000 babies; each load uses a fresh profile (cold cache) holding
-// the coordinator's session. Two profiles, alternated: desktop on loopback, and a phone-sized window with
-// DevTools-style throttling (150 ms RTT, 1.6 Mbit/s down, CPU 4× slower). Prints figures only.
+// docs/service-targets.md P8: lab LCP and CLS of the caseload page in headless Chromium (LCP ≤ 2.5 s, Core Web Vitals'
+// "good", on the desktop and ≤ 2.0 s on the throttled phone; CLS ≤ 0.05), and no third-party origin at load. The real
+// API (server/main.ts, serving the web build) runs against the caseload benchmark's 20,000 babies; each load uses a
+// fresh profile (cold cache) holding the coordinator's session. Two profiles, alternated: desktop on loopback, and a
+// phone-sized window with DevTools-style throttling (150 ms RTT, 1.6 Mbit/s down, CPU 4× slower). Prints figures only.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import pg from 'pg';
@@ -22,10 +22,12 @@ interface Profile {
   name: string;
   viewport: { width: number; height: number };
   throttle: boolean;
+  /** LCP target in seconds: Core Web Vitals' "good" on the desktop, P8's tighter figure on the slow phone. */
+  lcpTarget: number;
 }
 const PROFILES: Profile[] = [
-  { name: 'desktop 1280×860, loopback', viewport: { width: 1280, height: 860 }, throttle: false },
-  { name: 'phone 412×823, throttled', viewport: { width: 412, height: 823 }, throttle: true },
+  { name: 'desktop 1280×860, loopback', viewport: { width: 1280, height: 860 }, throttle: false, lcpTarget: 2.5 },
+  { name: 'phone 412×823, throttled', viewport: { width: 412, height: 823 }, throttle: true, lcpTarget: 2.0 },
 ];
 
 interface Load {
@@ -79,8 +81,11 @@ async function signIn(): Promise<{ name: string; value: string }> {
     body: JSON.stringify({ email: EMAIL, password: PASSWORD }),
   });
   if (!res.ok) throw new Error(`sign-in answered ${res.status}`);
-  const [name, ...rest] = res.headers.get('set-cookie')!.split(';')[0].split('=');
-  return { name, value: rest.join('=') };
+  // The answer also clears the signed-out visitor's CSRF cookie; the session cookie is the one to keep.
+  const sid = res.headers.getSetCookie().map((c) => c.split(';')[0]).find((c) => c.startsWith('nestflow.sid='));
+  if (!sid) throw new Error('sign-in set no session cookie');
+  const at = sid.indexOf('=');
+  return { name: sid.slice(0, at), value: sid.slice(at + 1) };
 }
 
 async function measure(profile: Profile, session: { name: string; value: string }): Promise<Load> {
@@ -94,7 +99,7 @@ async function measure(profile: Profile, session: { name: string; value: string 
       requests++;
       origins.add(new URL(req.url()).origin);
     });
-    // The LCP element need not be the table, so also note when the first caseload row enters the page.
+    // The LCP element need not be the list, so also note when the first baby of the caseload enters the page.
     await context.addInitScript(ROWS_WATCH);
     if (profile.throttle) {
       const cdp = await context.newCDPSession(page);
@@ -105,7 +110,7 @@ async function measure(profile: Profile, session: { name: string; value: string 
       await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
     }
     await page.goto(`${BASE}/caseload`);
-    await page.locator('table tbody tr').first().waitFor({ timeout: 60_000 });
+    await page.locator(FIRST_BABY).first().waitFor({ timeout: 60_000 });
     if (!page.url().endsWith('/caseload')) throw new Error(`landed on ${page.url()}, not the caseload`);
     await page.waitForLoadState('networkidle');
     await page.waitForTimeout(500); // a last paint after the rows
@@ -119,8 +124,10 @@ async function measure(profile: Profile, session: { name: string; value: string 
   }
 }
 
+// A wide window shows the caseload as a table, a phone as one card per baby: either way each baby links to its record.
+const FIRST_BABY = 'main a[href^="/infants/"]';
 const ROWS_WATCH = `new MutationObserver((_, o) => {
-  if (document.querySelector('table tbody tr')) { window.__rowsAt = performance.now(); o.disconnect(); }
+  if (document.querySelector('${FIRST_BABY}')) { window.__rowsAt = performance.now(); o.disconnect(); }
 }).observe(document, { childList: true, subtree: true });`;
 
 /**
@@ -179,7 +186,7 @@ try {
   for (const [p, loads] of results) {
     const lcps = loads.map((l) => l.lcpMs);
     console.log(`  ${p.name}`);
-    console.log(`    LCP ${(median(lcps) / 1000).toFixed(2)} s (target ≤ 2.5)   runs: ${lcps.map((v) => (v / 1000).toFixed(2)).join(' ')}`);
+    console.log(`    LCP ${(median(lcps) / 1000).toFixed(2)} s (target ≤ ${p.lcpTarget})   runs: ${lcps.map((v) => (v / 1000).toFixed(2)).join(' ')}`);
     console.log(`    CLS ${median(loads.map((l) => l.cls)).toFixed(3)} (target ≤ 0.05)   runs: ${loads.map((l) => l.cls.toFixed(3)).join(' ')}; sum of all shifts max ${Math.max(...loads.map((l) => l.shiftSum)).toFixed(3)}`);
     const fcp = median(loads.map((l) => l.fcpMs)) / 1000;
     const rows = median(loads.map((l) => l.rowsMs)) / 1000;

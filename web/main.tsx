@@ -15,7 +15,7 @@ if (!container) throw new Error('index.html must contain #root');
 const queryClient = createAppQueryClient();
 // Who is signed in is needed by every page: ask now, in parallel with loading the first page's code.
 void queryClient.prefetchQuery(sessionQueryOptions());
-const router = createAppRouter();
+const router = createAppRouter(queryClient);
 
 createRoot(container).render(
   <StrictMode>

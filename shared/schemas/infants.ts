@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { pageQuerySchema, pagedSchema, plainText } from './common';
 import { pressureSourceSchema } from './conversions';
-import { optionalPhoneNumber, perCountry } from './phone';
 
 export const DIAGNOSES = ['chronic_lung_disease', 'pulmonary_hypertension', 'heart_disease', 'airway', 'other'] as const;
 export const DIAGNOSIS_LABELS: Record<(typeof DIAGNOSES)[number], string> = {
@@ -54,31 +53,13 @@ export const INFANT_FLAG_KINDS: Record<InfantFlag, InfantFlagKind> = {
 export const INFANT_FLAG_KIND_LABELS: Record<InfantFlagKind, string> = { clinical: 'Clinical', admin: 'To do' };
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-11-30' });
-const text = (label: string, max = 120) =>
+/** A required line of text, with an "Enter the …" message naming it. */
+export const requiredText = (label: string, max = 120) =>
   plainText().trim().min(1, { error: `Enter the ${label}` }).max(max, { error: `At most ${max} characters` });
 
-/** A family contact; the mobile is read in the programme's country and must be able to receive texts. */
-export const contactSchemaFor = perCountry((country) => z
-  .strictObject({
-    name: text('name'),
-    relation: text('relation', 60),
-    mobile: optionalPhoneNumber(country, 'mobile').optional(),
-    email: plainText().trim().toLowerCase().pipe(z.email({ error: 'Enter a valid e-mail address' })).optional().or(z.literal('').transform(() => undefined)),
-    preferredChannel: z.enum(['sms', 'email'], { error: 'Choose SMS or e-mail' }),
-    consentSms: z.boolean(),
-    consentEmail: z.boolean(),
-    language: plainText().regex(/^[a-z]{2}(-[A-Z]{2})?$/, { error: 'Use a language code such as en or cy' }).default('en'),
-    timeZone: plainText().min(1).max(60).refine((tz) => { try { new Intl.DateTimeFormat('en', { timeZone: tz }); return true; } catch { return false; } }, { error: 'Unknown time zone' }),
-  })
-  .superRefine((c, ctx) => {
-    if (c.preferredChannel === 'sms' && !c.mobile) ctx.addIssue({ code: 'custom', path: ['mobile'], message: 'SMS is preferred: enter a mobile number' });
-    if (c.preferredChannel === 'email' && !c.email) ctx.addIssue({ code: 'custom', path: ['email'], message: 'E-mail is preferred: enter an e-mail address' });
-    if (c.consentSms && !c.mobile) ctx.addIssue({ code: 'custom', path: ['mobile'], message: 'SMS consent needs a mobile number' });
-    if (c.consentEmail && !c.email) ctx.addIssue({ code: 'custom', path: ['email'], message: 'E-mail consent needs an e-mail address' });
-  }));
-export type ContactInput = z.infer<ReturnType<typeof contactSchemaFor>>;
-const contactListFor = perCountry((country) =>
-  z.array(contactSchemaFor(country)).min(1, { error: 'Add at least one family contact' }).max(4, { error: 'At most 4 contacts' }));
+// The contact and enrolment schemas read phone numbers (libphonenumber-js's metadata, the largest library in the web
+// app), so they live in ./infant-contacts: a page that only lists or shows babies does not download it.
+export type { ContactInput, EnrolInfantFormValues, EnrolInfantInput } from './infant-contacts';
 
 export const hospitalSettingSchema = z
   .strictObject({
@@ -93,7 +74,7 @@ export const hospitalSettingSchema = z
 
 export const homeSettingSchema = z
   .strictObject({
-    address: text('home address', 300),
+    address: requiredText('home address', 300),
     location: pressureSourceSchema,
     source: z.enum(['cylinder', 'concentrator'], { error: 'Choose the home oxygen source' }),
     o2Percent: z.number({ error: 'Enter the oxygen %' }).min(21, { error: 'At least 21 %' }).max(100, { error: 'At most 100 %' }),
@@ -103,8 +84,8 @@ export const homeSettingSchema = z
   });
 
 export const babySchema = z.strictObject({
-  givenName: text('given name', 80),
-  familyName: text('family name', 80),
+  givenName: requiredText('given name', 80),
+  familyName: requiredText('family name', 80),
   sex: z.enum(['female', 'male', 'unknown'], { error: 'Choose one' }),
   birthDate: isoDate,
   gestation: z.strictObject({
@@ -119,18 +100,6 @@ export const babySchema = z.strictObject({
   diagnoses: z.array(z.enum(DIAGNOSES)).max(DIAGNOSES.length).default([]),
 });
 
-export const enrolInfantSchemaFor = perCountry((country) => z.strictObject({
-  /** Made by the form once; a repeated submit with the same key returns the same baby. */
-  enrolKey: z.uuid(),
-  baby: babySchema,
-  hospital: hospitalSettingSchema,
-  home: homeSettingSchema,
-  care: z.strictObject({ nurseId: z.uuid({ error: 'Choose the home-care nurse' }), consultantId: z.uuid({ error: 'Choose the consultant' }) }),
-  contacts: contactListFor(country),
-}));
-export type EnrolInfantInput = z.infer<ReturnType<typeof enrolInfantSchemaFor>>;
-export type EnrolInfantFormValues = z.input<ReturnType<typeof enrolInfantSchemaFor>>;
-
 export const updateInfantSchema = z
   .strictObject({
     rowVersion: z.number().int().positive(),
@@ -144,7 +113,6 @@ export const updateInfantSchema = z
   .refine((v) => (v.weightKg === undefined) === (v.weightDate === undefined), { error: 'Give the weight with the date it was taken', path: ['weightDate'] });
 export type UpdateInfantInput = z.infer<typeof updateInfantSchema>;
 
-export const replaceContactsSchemaFor = perCountry((country) => z.strictObject({ contacts: contactListFor(country) }));
 
 export const INFANT_SORTS = ['name', '-name', 'correctedAge', '-correctedAge', 'elevation', '-elevation', 'status', '-status', 'enrolled', '-enrolled'] as const;
 export const listInfantsQuerySchema = pageQuerySchema.extend({

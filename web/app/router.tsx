@@ -1,3 +1,5 @@
+import type { ComponentType } from 'react';
+import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { FullPageSpinner } from '../components/ui/spinner';
 import { AppShell } from './layout/app-shell';
@@ -6,34 +8,59 @@ import { RequireAccess } from './layout/require-access';
 import { RequireSession } from './layout/require-session';
 import { RootLayout } from './layout/root-layout';
 import { RouteError } from './layout/route-error';
+import type { PageLoader } from './loaders/page-loader';
+
+type PageModule = Promise<{ Component: ComponentType }>;
+type LoaderModule = Promise<{ loader: PageLoader }>;
+
+/**
+ * One page: its component and, for the busiest pages, a loader, each its own chunk and loaded side by side by
+ * React Router (the object form of `lazy`). The loader starts the page's queries (`queryClient.ensureQueryData` with
+ * the features' query options) as soon as its small chunk arrives, while the page's larger code is still loading.
+ */
+function page(path: string, component: () => PageModule, loader?: () => LoaderModule) {
+  return (queryClient: QueryClient): RouteObject => ({
+    path,
+    // Sorting, filtering and paging change only the query string: the page's useQuery asks at once, so the loader
+    // runs when a page (or another baby) is opened, and a change within the page is not held up by it.
+    shouldRevalidate: ({ currentUrl, nextUrl, defaultShouldRevalidate }) =>
+      defaultShouldRevalidate && currentUrl.pathname !== nextUrl.pathname,
+    // The loader first: its chunk is small, and asked for first it does not queue behind the page's chunks.
+    lazy: {
+      ...(loader && { loader: async () => (await loader()).loader(queryClient) }),
+      Component: async () => (await component()).Component,
+    },
+  });
+}
 
 // Every page is its own chunk, so the first load carries only the shell and the session check.
-const rolePages: RouteObject[] = [
-  { path: 'admin', lazy: () => import('./routes/admin-home.route') },
-  { path: 'admin/people', lazy: () => import('./routes/people.route') },
-  { path: 'admin/settings', lazy: () => import('./routes/programme-settings.route') },
-  { path: 'coordinator', lazy: () => import('./routes/coordinator-home.route') },
-  { path: 'enrol', lazy: () => import('./routes/enrol.route') },
-  { path: 'caseload', lazy: () => import('./routes/caseload.route') },
-  { path: 'infants/:id', lazy: () => import('./routes/infant-record.route') },
-  { path: 'infants/:id/reading', lazy: () => import('./routes/reading.route') },
-  { path: 'infants/:id/recordings/new', lazy: () => import('./routes/recording-upload.route') },
-  { path: 'infants/:id/cylinder', lazy: () => import('./routes/infant-cylinder.route') },
-  { path: 'infants/:id/journeys/new', lazy: () => import('./routes/infant-journey.route') },
-  { path: 'journeys/:journeyId', lazy: () => import('./routes/journey-review.route') },
-  { path: 'recordings/:id', lazy: () => import('./routes/recording.route') },
-  { path: 'nurse', lazy: () => import('./routes/nurse-home.route') },
-  { path: 'consultant', lazy: () => import('./routes/consultant-home.route') },
-  { path: 'sign-off', lazy: () => import('./routes/sign-off.route') },
-  { path: 'sign-off/:prescriptionId', lazy: () => import('./routes/sign-off-review.route') },
-  { path: 'family', lazy: () => import('./routes/family-home.route') },
-  { path: 'family/cylinder', lazy: () => import('./routes/family-cylinder.route') },
-  { path: 'family/journey', lazy: () => import('./routes/family-journey.route') },
-  { path: 'family/preferences', lazy: () => import('./routes/family-preferences.route') },
-  { path: 'messages', lazy: () => import('./routes/messages.route') },
+const rolePages = [
+  page('admin', () => import('./routes/admin-home.route'), () => import('./routes/admin-home.loader')),
+  page('admin/people', () => import('./routes/people.route')),
+  page('admin/settings', () => import('./routes/programme-settings.route')),
+  page('coordinator', () => import('./routes/coordinator-home.route'), () => import('./routes/overview.loader')),
+  page('enrol', () => import('./routes/enrol.route')),
+  page('caseload', () => import('./routes/caseload.route'), () => import('./routes/caseload.loader')),
+  page('infants/:id', () => import('./routes/infant-record.route'), () => import('./routes/infant-record.loader')),
+  page('infants/:id/reading', () => import('./routes/reading.route')),
+  page('infants/:id/recordings/new', () => import('./routes/recording-upload.route')),
+  page('infants/:id/cylinder', () => import('./routes/infant-cylinder.route')),
+  page('infants/:id/journeys/new', () => import('./routes/infant-journey.route')),
+  page('journeys/:journeyId', () => import('./routes/journey-review.route')),
+  page('recordings/:id', () => import('./routes/recording.route')),
+  page('nurse', () => import('./routes/nurse-home.route'), () => import('./routes/nurse-home.loader')),
+  page('consultant', () => import('./routes/consultant-home.route'), () => import('./routes/overview.loader')),
+  page('sign-off', () => import('./routes/sign-off.route')),
+  page('sign-off/:prescriptionId', () => import('./routes/sign-off-review.route')),
+  page('family', () => import('./routes/family-home.route'), () => import('./routes/family-home.loader')),
+  page('family/cylinder', () => import('./routes/family-cylinder.route')),
+  page('family/journey', () => import('./routes/family-journey.route')),
+  page('family/preferences', () => import('./routes/family-preferences.route')),
+  page('messages', () => import('./routes/messages.route')),
 ];
 
-export const appRoutes: RouteObject[] = [
+/** The app's routes; the loaders start queries in this client, the one the page components read. */
+export const createAppRoutes = (queryClient: QueryClient): RouteObject[] => [
   {
     element: <RootLayout />,
     errorElement: <RouteError />,
@@ -52,7 +79,7 @@ export const appRoutes: RouteObject[] = [
                 errorElement: <RouteError />,
                 children: [
                   { index: true, element: <HomeRedirect /> },
-                  { element: <RequireAccess />, children: rolePages },
+                  { element: <RequireAccess />, children: rolePages.map((make) => make(queryClient)) },
                   { path: 'account/password', lazy: () => import('./routes/change-password.route') },
                   { path: '*', lazy: () => import('./routes/not-found.route') },
                 ],
@@ -65,4 +92,4 @@ export const appRoutes: RouteObject[] = [
   },
 ];
 
-export const createAppRouter = () => createBrowserRouter(appRoutes);
+export const createAppRouter = (queryClient: QueryClient) => createBrowserRouter(createAppRoutes(queryClient));

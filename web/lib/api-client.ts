@@ -1,15 +1,20 @@
 import type { z } from 'zod';
-import { errorBodySchema } from '@shared/schemas/common';
 import { ApiError } from './api-error';
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 export type QueryParams = Record<string, string | number | undefined | null>;
 
+/**
+ * A response schema, or the promise of one: the session check runs before any page's code has loaded, and passing
+ * it `import(...)` keeps zod out of the first download (the schema arrives while the request is on its way).
+ */
+export type ResponseSchema<T> = z.ZodType<T> | Promise<z.ZodType<T>>;
+
 export interface RequestOptions<T> {
   method?: Method;
   query?: QueryParams;
   body?: unknown;
-  schema?: z.ZodType<T>;
+  schema?: ResponseSchema<T>;
   signal?: AbortSignal;
   /** Sign-in answers 401 for a wrong password; that must not bounce the user back to sign-in. */
   redirectOn401?: boolean;
@@ -61,8 +66,10 @@ async function send<T>(path: string, options: RequestOptions<T>, csrfToken?: str
 
 async function toApiError(response: Response): Promise<ApiError> {
   const body: unknown = await response.json().catch(() => undefined);
-  const parsed = errorBodySchema.safeParse(body);
-  if (parsed.success) return new ApiError({ status: response.status, ...parsed.data.error });
+  // Loaded only when an answer is an error, so the first page load carries no zod.
+  const common = await import('@shared/schemas/common').catch(() => undefined);
+  const parsed = common?.errorBodySchema.safeParse(body);
+  if (parsed?.success) return new ApiError({ status: response.status, ...parsed.data.error });
   // A proxy or a crashed process can answer without our error shape.
   const message =
     response.status >= 500
@@ -72,6 +79,8 @@ async function toApiError(response: Response): Promise<ApiError> {
 }
 
 export async function apiRequest<T = void>(path: string, options: RequestOptions<T> = {}): Promise<T> {
+  // A schema still loading must not fail unobserved when the request itself fails first.
+  if (options.schema instanceof Promise) options.schema.catch(() => undefined);
   const method = options.method ?? 'GET';
   const unsafe = method !== 'GET';
   let response = await send(path, options, unsafe ? await hooks.getCsrfToken() : undefined);
@@ -88,7 +97,8 @@ export async function apiRequest<T = void>(path: string, options: RequestOptions
   }
   if (response.status === 204 || !options.schema) return undefined as T;
 
-  const parsed = options.schema.safeParse(await response.json().catch(() => undefined));
+  const body: unknown = await response.json().catch(() => undefined);
+  const parsed = (await options.schema).safeParse(body);
   if (!parsed.success) {
     throw new ApiError({ status: response.status, code: 'unexpected_response', message: 'The server sent an answer this page cannot read.' });
   }
@@ -96,7 +106,7 @@ export async function apiRequest<T = void>(path: string, options: RequestOptions
 }
 
 export const api = {
-  get: <T>(path: string, schema: z.ZodType<T>, query?: QueryParams, signal?: AbortSignal) =>
+  get: <T>(path: string, schema: ResponseSchema<T>, query?: QueryParams, signal?: AbortSignal) =>
     apiRequest<T>(path, { schema, query, signal }),
   post: <T = void>(path: string, body?: unknown, schema?: z.ZodType<T>, extra?: Pick<RequestOptions<T>, 'redirectOn401'>) =>
     apiRequest<T>(path, { method: 'POST', body, schema, ...extra }),

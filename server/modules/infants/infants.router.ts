@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { idParamsSchema } from '@shared/schemas/common';
-import { enrolInfantSchemaFor, listInfantsQuerySchema, replaceContactsSchemaFor, updateInfantSchema, type ListInfantsQuery } from '@shared/schemas/infants';
+import { enrolInfantSchemaFor, replaceContactsSchemaFor } from '@shared/schemas/infant-contacts';
+import { listInfantsQuerySchema, updateInfantSchema, type ListInfantsQuery } from '@shared/schemas/infants';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCan, assertCanAny, currentUser } from '../../lib/http';

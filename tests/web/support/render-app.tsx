@@ -2,12 +2,12 @@ import { render } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { AppProviders, createAppQueryClient } from '../../../web/app/providers';
-import { appRoutes } from '../../../web/app/router';
+import { createAppRoutes } from '../../../web/app/router';
 
 /** The real routes, providers and API client, in memory, starting at `path`. */
 export function renderApp(path: string) {
   const queryClient = createAppQueryClient({ retry: false });
-  const router = createMemoryRouter(appRoutes, { initialEntries: [path] });
+  const router = createMemoryRouter(createAppRoutes(queryClient), { initialEntries: [path] });
   const user = userEvent.setup();
   render(
     <AppProviders queryClient={queryClient}>

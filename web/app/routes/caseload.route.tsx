@@ -4,7 +4,7 @@ import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
 import { CaseloadFilters } from '../../features/infants/components/caseload-filters';
 import { CaseloadTable } from '../../features/infants/components/caseload-table';
-import { useCaseloadView } from '../../features/infants/hooks/use-caseload-view';
+import { offersMine, useCaseloadView } from '../../features/infants/hooks/use-caseload-view';
 import { useAppAbility } from '../../lib/ability';
 import { useSignedInUser } from '../../lib/signed-in-user';
 import { usePageTitle } from '../../lib/page-title';
@@ -12,8 +12,8 @@ import { usePageTitle } from '../../lib/page-title';
 export function Component() {
   const user = useSignedInUser();
   const ability = useAppAbility();
-  const offerMine = user.role === 'consultant';
-  const { query, update } = useCaseloadView({ allowScope: offerMine });
+  const offerMine = offersMine(user.role);
+  const { query, update } = useCaseloadView(user.role);
   const nurse = user.role === 'nurse';
   usePageTitle(nurse ? 'My caseload' : 'Caseload');
   return (

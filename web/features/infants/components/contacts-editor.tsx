@@ -1,7 +1,8 @@
 import { FormProvider, useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { replaceContactsSchemaFor, type InfantDetail } from '@shared/schemas/infants';
+import { replaceContactsSchemaFor } from '@shared/schemas/infant-contacts';
+import type { InfantDetail } from '@shared/schemas/infants';
 import { DEFAULT_COUNTRY, formatPhone, isCountryCode, type CountryCode } from '@shared/phone/phone';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { FormActions } from '../../../components/ui/form-actions';

@@ -2,7 +2,7 @@ import { useEffect, useRef, useState, type FormEvent } from 'react';
 import { FormProvider, useForm, type FieldErrors, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useNavigate } from 'react-router-dom';
-import { enrolInfantSchemaFor, type EnrolInfantInput } from '@shared/schemas/infants';
+import { enrolInfantSchemaFor, type EnrolInfantInput } from '@shared/schemas/infant-contacts';
 import { ErrorSummary } from '../../../components/ui/error-summary';
 import { Button } from '../../../components/ui/button';
 import { detailMessages, errorMessage, isApiError } from '../../../lib/api-error';

@@ -1,6 +1,6 @@
 import type { DefaultValues } from 'react-hook-form';
 import type { z } from 'zod';
-import type { enrolInfantSchemaFor } from '@shared/schemas/infants';
+import type { enrolInfantSchemaFor } from '@shared/schemas/infant-contacts';
 
 export type EnrolValues = z.input<ReturnType<typeof enrolInfantSchemaFor>>;
 export type ContactValues = EnrolValues['contacts'][number];

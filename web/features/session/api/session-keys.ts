@@ -1,5 +1,4 @@
 import { queryOptions } from '@tanstack/react-query';
-import { sessionResponseSchema } from '@shared/schemas/session';
 import { api } from '../../../lib/api-client';
 
 export const sessionKeys = {
@@ -10,6 +9,8 @@ export const sessionKeys = {
 export const sessionQueryOptions = () =>
   queryOptions({
     queryKey: sessionKeys.current(),
-    queryFn: ({ signal }) => api.get('/api/session', sessionResponseSchema, undefined, signal),
+    // Asked before any page's code has loaded (web/main.tsx): the schema, and zod with it, loads beside the request.
+    queryFn: ({ signal }) =>
+      api.get('/api/session', import('@shared/schemas/session').then((m) => m.sessionResponseSchema), undefined, signal),
     staleTime: 5 * 60_000,
   });
