@@ -64,6 +64,41 @@ const SORTS: Record<ListMessagesQuery['sort'], string> = {
   sendAt: 'r.send_at ASC, r.id', '-sendAt': 'r.send_at DESC, r.id', status: 'r.status ASC, r.send_at DESC', '-status': 'r.status DESC, r.send_at DESC',
 };
 
+/** The message log's filters as SQL: the caller's rights on the baby, the programme, the chosen filters and the search. */
+function logFilter(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter, qPhone: string | null) {
+  const named: Record<string, unknown> = { ...infantAcl.params, programmeId };
+  const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR EXISTS (SELECT 1 FROM infants i WHERE i.id = r.infant_id AND ${infantAcl.sql}))`];
+  for (const key of ['status', 'channel', 'template', 'infantId'] as const) {
+    if (query[key]) {
+      named[key] = query[key];
+      where.push(`r.${key === 'infantId' ? 'infant_id' : key} = :${key}`);
+    }
+  }
+  if (query.q) {
+    // Matched as plain text: LIKE's own wildcards in what was typed are escaped.
+    named.q = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    const phone = qPhone ? ` OR r.to_address = :qPhone` : '';
+    if (qPhone) named.qPhone = qPhone;
+    where.push(`((inf.given_name || ' ' || inf.family_name) ILIKE :q OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
+  }
+  return { where, named };
+}
+
+// An export walks the log by keyset in the list's order, with the id last so every row has one place. Each key is
+// read back as exact text (a timestamp keeps its microseconds) and cast back for the comparison.
+const EXPORT_KEYS: Record<ListMessagesQuery['sort'], Array<{ col: string; alias: string; cast: string; dir: 'ASC' | 'DESC' }>> = {
+  sendAt: [{ col: 'r.send_at', alias: 'k_send_at', cast: 'timestamptz', dir: 'ASC' }, { col: 'r.id', alias: 'k_id', cast: 'uuid', dir: 'ASC' }],
+  '-sendAt': [{ col: 'r.send_at', alias: 'k_send_at', cast: 'timestamptz', dir: 'DESC' }, { col: 'r.id', alias: 'k_id', cast: 'uuid', dir: 'DESC' }],
+  status: [{ col: 'r.status', alias: 'k_status', cast: 'text', dir: 'ASC' }, { col: 'r.send_at', alias: 'k_send_at', cast: 'timestamptz', dir: 'DESC' }, { col: 'r.id', alias: 'k_id', cast: 'uuid', dir: 'DESC' }],
+  '-status': [{ col: 'r.status', alias: 'k_status', cast: 'text', dir: 'DESC' }, { col: 'r.send_at', alias: 'k_send_at', cast: 'timestamptz', dir: 'DESC' }, { col: 'r.id', alias: 'k_id', cast: 'uuid', dir: 'DESC' }],
+};
+
+export type MessageExportRow = ReminderRow & { infant_name: string | null; k_send_at: string; k_status: string; k_id: string };
+
+/** A row's position in an export's order: its sort keys as exact text. */
+export const exportKeyOf = (sort: ListMessagesQuery['sort'], row: MessageExportRow): string[] =>
+  EXPORT_KEYS[sort].map((k) => String(row[k.alias as 'k_send_at' | 'k_status' | 'k_id']));
+
 export function createRemindersRepository(ds: DataSource) {
   const q = (m?: EntityManager) => m ?? ds.manager;
   return {
@@ -142,21 +177,8 @@ export function createRemindersRepository(ds: DataSource) {
     /** The message log: messages about babies the caller may read, plus the caller programme's staff messages. */
     /** `qPhone`: the search text read as a phone number (E.164), when it is one, so '07700 900123' finds '+447700900123'. */
     async list(query: ListMessagesQuery, programmeId: string, infantAcl: SqlFilter, qPhone: string | null = null) {
-      const named: Record<string, unknown> = { ...infantAcl.params, programmeId, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
-      const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR EXISTS (SELECT 1 FROM infants i WHERE i.id = r.infant_id AND ${infantAcl.sql}))`];
-      for (const key of ['status', 'channel', 'template', 'infantId'] as const) {
-        if (query[key]) {
-          named[key] = query[key];
-          where.push(`r.${key === 'infantId' ? 'infant_id' : key} = :${key}`);
-        }
-      }
-      if (query.q) {
-        // Matched as plain text: LIKE's own wildcards in what was typed are escaped.
-        named.q = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-        const phone = qPhone ? ` OR r.to_address = :qPhone` : '';
-        if (qPhone) named.qPhone = qPhone;
-        where.push(`((inf.given_name || ' ' || inf.family_name) ILIKE :q OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
-      }
+      const { where, named } = logFilter(query, programmeId, infantAcl, qPhone);
+      Object.assign(named, { limit: query.pageSize, offset: (query.page - 1) * query.pageSize });
       const [sql, params] = ds.driver.escapeQueryWithParameters(
         `SELECT r.*, inf.given_name || ' ' || inf.family_name AS infant_name, count(*) OVER () AS total
            FROM reminders r LEFT JOIN infants inf ON inf.id = r.infant_id
@@ -168,6 +190,27 @@ export function createRemindersRepository(ds: DataSource) {
       // A page past the end still reports the real total so the table can step back.
       const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT count(*)::int AS n FROM reminders r LEFT JOIN infants inf ON inf.id = r.infant_id WHERE ${where.join(' AND ')}`, named);
       return { rows, total: (await ds.query(countSql, countParams))[0].n as number };
+    },
+
+    /** One page of the log after a row's keyset position, in the sort's order (mixed directions compared key by key). */
+    async exportPage(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter, qPhone: string | null, after: string[] | undefined, limit: number): Promise<MessageExportRow[]> {
+      const { where, named } = logFilter(query, programmeId, infantAcl, qPhone);
+      const keys = EXPORT_KEYS[query.sort];
+      if (after) {
+        keys.forEach((k, n) => { named[`after_${n}`] = after[n]; });
+        const val = (n: number) => `CAST(:after_${n} AS ${keys[n]!.cast})`;
+        // (k0 beyond) OR (k0 equal AND k1 beyond) OR …, "beyond" being > for an ascending key and < for a descending one.
+        const terms = keys.map((k, n) => [...keys.slice(0, n).map((e, m) => `${e.col} = ${val(m)}`), `${k.col} ${k.dir === 'ASC' ? '>' : '<'} ${val(n)}`].join(' AND '));
+        where.push(`((${terms.join(') OR (')}))`);
+      }
+      named.limit = limit;
+      const [sql, params] = ds.driver.escapeQueryWithParameters(
+        `SELECT r.*, inf.given_name || ' ' || inf.family_name AS infant_name, r.send_at::text AS k_send_at, r.status AS k_status, r.id::text AS k_id
+           FROM reminders r LEFT JOIN infants inf ON inf.id = r.infant_id
+          WHERE ${where.join(' AND ')} ORDER BY ${keys.map((k) => `${k.col} ${k.dir}`).join(', ')} LIMIT :limit`,
+        named,
+      );
+      return ds.query(sql, params);
     },
   };
 }
