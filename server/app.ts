@@ -50,6 +50,11 @@ import { createCarePlanService } from './modules/care-plan/care-plan.service';
 import { carePlanRouter } from './modules/care-plan/care-plan.router';
 import { overviewRouter } from './modules/overview/overview.router';
 import { createOverviewService } from './modules/overview/overview.service';
+import { openapiRouter } from './openapi/openapi.router';
+import { API_ROUTES } from './openapi/api-routes';
+
+/** The version of the API description; raise it when a contract changes incompatibly. */
+const OPENAPI_VERSION = '1.0.0';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -100,6 +105,8 @@ export function createApp(deps: AppDeps): Express {
 
   const api = express.Router();
   api.use('/health', healthRouter({ ds: deps.ds, redis: deps.redis, queuePrefix: env.QUEUE_PREFIX, clock: deps.clock }));
+  // The API description holds no records, so it needs no session (server/openapi/).
+  api.use('/openapi.json', openapiRouter(() => API_ROUTES, OPENAPI_VERSION));
   // Provider callbacks carry a signature instead of a session or a CSRF token.
   api.use('/webhooks/sms', smsInboundRouter({ ds: deps.ds, repos, logger: deps.logger, authToken: env.TWILIO_AUTH_TOKEN, webhookUrl: env.INBOUND_WEBHOOK_URL }));
   api.use(express.json({ limit: '200kb' }));
