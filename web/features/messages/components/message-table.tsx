@@ -1,4 +1,7 @@
+import { listMessagesQuerySchema } from '@shared/schemas/messages';
 import { Alert } from '../../../components/ui/alert';
+import { DownloadLink } from '../../../components/ui/download-link';
+import { exportHref } from '../../../lib/export-href';
 import { Pager } from '../../../components/ui/data-table/pager';
 import { TableFrame } from '../../../components/ui/data-table/table-frame';
 import { useServerTable } from '../../../components/ui/data-table/use-server-table';
@@ -20,6 +23,9 @@ export function MessageTable() {
   return (
     <div className="flex flex-col gap-4">
       <MessageFilters query={query} update={update} />
+      <div className="flex justify-end">
+        <DownloadLink href={exportHref('/api/messages.csv', listMessagesQuerySchema, query)} />
+      </div>
       {messages.isPending ? (
         <Spinner label="Loading the messages" />
       ) : messages.isError ? (
