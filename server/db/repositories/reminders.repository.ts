@@ -201,7 +201,8 @@ export function createRemindersRepository(ds: DataSource) {
         const val = (n: number) => `CAST(:after_${n} AS ${keys[n]!.cast})`;
         // (k0 beyond) OR (k0 equal AND k1 beyond) OR …, "beyond" being > for an ascending key and < for a descending one.
         const terms = keys.map((k, n) => [...keys.slice(0, n).map((e, m) => `${e.col} = ${val(m)}`), `${k.col} ${k.dir === 'ASC' ? '>' : '<'} ${val(n)}`].join(' AND '));
-        where.push(`((${terms.join(') OR (')}))`);
+        // The first key's inclusive bound, implied by the terms, lets PostgreSQL start its index scan at the position.
+        where.push(`${keys[0]!.col} ${keys[0]!.dir === 'ASC' ? '>=' : '<='} ${val(0)}`, `((${terms.join(') OR (')}))`);
       }
       named.limit = limit;
       const [sql, params] = ds.driver.escapeQueryWithParameters(
