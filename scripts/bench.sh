@@ -9,5 +9,5 @@ npx vite build --manifest --outDir "${BENCH_WEB_DIST:-dist/web}" --emptyOutDir >
 export BENCH_WEB_BUILT=1
 for f in bench/*.bench.ts; do
   log "Running $f"
-  node --import tsx "$f"
+  node --expose-gc --import tsx "$f"
 done

@@ -25,6 +25,7 @@ import { createPolicyService } from './modules/policy/policy.service';
 import { conversionsRouter } from './modules/conversions/conversions.router';
 import { createInfantsService } from './modules/infants/infants.service';
 import { infantsRouter } from './modules/infants/infants.router';
+import { caseloadCsvRouter } from './modules/infants/caseload-csv';
 import { createPrescriptionsService } from './modules/prescriptions/prescriptions.service';
 import { prescriptionsRouter } from './modules/prescriptions/prescriptions.router';
 import { createScheduleService } from './modules/schedule/schedule.service';
@@ -36,6 +37,7 @@ import { stepDownsRouter } from './modules/step-downs/step-downs.router';
 import { createVisitsService } from './modules/visits/visits.service';
 import { smsInboundRouter } from './modules/sms-inbound/sms-inbound.router';
 import { messagesRouter } from './modules/messages/messages.router';
+import { messagesCsvRouter } from './modules/messages/messages-csv';
 import { createMessagesService } from './modules/messages/messages.service';
 import { preferencesRouter } from './modules/preferences/preferences.router';
 import { createPreferencesService } from './modules/preferences/preferences.service';
@@ -50,6 +52,11 @@ import { fhirRouter } from './modules/fhir/fhir.router';
 import { createFhirService } from './modules/fhir/fhir.service';
 import { overviewRouter } from './modules/overview/overview.router';
 import { createOverviewService } from './modules/overview/overview.service';
+import { openapiRouter } from './openapi/openapi.router';
+import { API_ROUTES } from './openapi/api-routes';
+
+/** The version of the API description; raise it when a contract changes incompatibly. */
+const OPENAPI_VERSION = '1.0.0';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -100,6 +107,8 @@ export function createApp(deps: AppDeps): Express {
 
   const api = express.Router();
   api.use('/health', healthRouter({ ds: deps.ds, redis: deps.redis, queuePrefix: env.QUEUE_PREFIX, clock: deps.clock }));
+  // The API description holds no records, so it needs no session (server/openapi/).
+  api.use('/openapi.json', openapiRouter(() => API_ROUTES, OPENAPI_VERSION));
   // Provider callbacks carry a signature instead of a session or a CSRF token.
   api.use('/webhooks/sms', smsInboundRouter({ ds: deps.ds, repos, logger: deps.logger, authToken: env.TWILIO_AUTH_TOKEN, webhookUrl: env.INBOUND_WEBHOOK_URL }));
   api.use(express.json({ limit: '200kb' }));
@@ -119,12 +128,14 @@ export function createApp(deps: AppDeps): Express {
   api.use('/me/password', myPasswordRouter(accounts));
   api.use('/users', usersRouter(createUsersService({ ds: deps.ds, repos, mail: accountMail, publicUrl: env.PUBLIC_URL, setupLinkHours: env.SETUP_LINK_HOURS, now })));
   const prescriptions = createPrescriptionsService(deps.ds, repos, deps.jobs);
+  const infants = createInfantsService(deps.ds, repos, deps.jobs);
   const schedule = scheduleRouters(createScheduleService(repos), deps.clock);
   const readings = readingsRouters(createReadingsService(deps.ds, repos, deps.jobs));
   api.use('/sites', sitesRouter(repos.sites));
   api.use('/policy', policyRouter(createPolicyService(deps.ds, repos, deps.jobs)));
   api.use('/conversions', conversionsRouter(repos.policies));
-  api.use('/infants', infantsRouter(createInfantsService(deps.ds, repos, deps.jobs), prescriptions));
+  api.use('/infants.csv', caseloadCsvRouter(infants));
+  api.use('/infants', infantsRouter(infants, prescriptions));
   api.use('/infants', schedule.infants, readings.infants, stepDownsRouter(createStepDownsService(deps.ds, repos), deps.clock));
   const visits = visitsRouters(createVisitsService(deps.ds, repos, deps.jobs, deps.clock));
   api.use('/infants', visits.infants);
@@ -132,7 +143,9 @@ export function createApp(deps: AppDeps): Express {
   api.use('/my-day', schedule.day);
   api.use('/readings', readings.readings);
   api.use('/prescriptions', prescriptionsRouter(prescriptions));
-  api.use('/messages', messagesRouter(createMessagesService(deps.ds, repos, deps.jobs)));
+  const messages = createMessagesService(deps.ds, repos, deps.jobs);
+  api.use('/messages.csv', messagesCsvRouter(messages));
+  api.use('/messages', messagesRouter(messages));
   api.use('/me/preferences', preferencesRouter(createPreferencesService(deps.ds, repos)));
   const recordings = createRecordingsService(deps.ds, repos, deps.jobs);
   api.use('/infants', infantRecordingsRouter(recordings));

@@ -11,3 +11,6 @@ export const healthSchema = z.object({
   workers: z.object({ status: z.enum(['ok', 'missing']), running: z.number().int().nonnegative(), seen: z.array(workerBeatSchema) }),
 });
 export type Health = z.infer<typeof healthSchema>;
+
+/** GET /api/health/live: the process answers. */
+export const liveSchema = z.object({ status: z.literal('ok'), uptimeSeconds: z.number().int().nonnegative() });

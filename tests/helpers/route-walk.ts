@@ -3,6 +3,8 @@ import express, { type Express } from 'express';
 export interface MountedRoute {
   method: string;
   path: string;
+  /** The route's own handlers for this method, in order (middleware given to the router's `use` is not here). */
+  handlers: unknown[];
 }
 
 /**
@@ -16,7 +18,8 @@ export function buildAndWalk(build: () => Express): { app: Express; routes: Moun
   const origUse = proto.use;
   const origRoute = proto.route;
   const mounts: Array<{ parent: unknown; path: string; child: unknown }> = [];
-  const routes: Array<{ router: unknown; path: string; route: { methods: Record<string, boolean> } }> = [];
+  type Route = { methods: Record<string, boolean>; stack: Array<{ method?: string; handle: unknown }> };
+  const routes: Array<{ router: unknown; path: string; route: Route }> = [];
   proto.use = function (this: unknown, ...args: unknown[]) {
     const path = typeof args[0] === 'string' ? args[0] : '/';
     for (const fn of args.flat()) {
@@ -25,7 +28,7 @@ export function buildAndWalk(build: () => Express): { app: Express; routes: Moun
     return origUse.apply(this, args);
   };
   proto.route = function (this: unknown, path: unknown) {
-    const route = origRoute.call(this, path) as { methods: Record<string, boolean> };
+    const route = origRoute.call(this, path) as Route;
     routes.push({ router: this, path: String(path), route });
     return route;
   };
@@ -40,7 +43,9 @@ export function buildAndWalk(build: () => Express): { app: Express; routes: Moun
   const join = (a: string, b: string) => (a + (b === '/' ? '' : b)) || '/';
   const walk = (router: unknown, prefix: string) => {
     for (const r of routes.filter((x) => x.router === router)) {
-      for (const method of Object.keys(r.route.methods).filter((m) => m !== '_all')) out.push({ method, path: join(prefix, r.path) });
+      for (const method of Object.keys(r.route.methods).filter((m) => m !== '_all')) {
+        out.push({ method, path: join(prefix, r.path), handlers: r.route.stack.filter((l) => l.method === method).map((l) => l.handle) });
+      }
     }
     for (const m of mounts.filter((x) => x.parent === router)) walk(m.child, join(prefix, m.path));
   };

@@ -182,4 +182,16 @@ describe('Caseload', () => {
       vi.unstubAllGlobals();
     }
   });
+
+  it('when filters, search and sort are set, then "Download CSV" asks for the same view without paging, and follows each change', async () => {
+    stubCaseload('coordinator');
+    const { user } = renderApp('/caseload?sort=-name&status=on_oxygen&page=2&pageSize=50&cursor=after-1');
+    await screen.findByRole('table');
+    const link = screen.getByRole('link', { name: 'Download CSV' });
+    expect(link).toHaveAttribute('href', '/api/infants.csv?sort=-name&status=on_oxygen');
+    expect(link).toHaveAttribute('download');
+    await user.selectOptions(screen.getByLabelText('Flag'), 'Clinical: Outgrowing flow');
+    await user.type(screen.getByLabelText('Search by name'), 'ash{Enter}');
+    await waitFor(() => expect(screen.getByRole('link', { name: 'Download CSV' })).toHaveAttribute('href', '/api/infants.csv?sort=-name&status=on_oxygen&q=ash&flag=growth_drift'));
+  });
 });

@@ -287,4 +287,14 @@ describe('Message log', () => {
     await user.type(box, '07700 900123{Enter}');
     await waitFor(() => expect(currentUrl(router)).toBe('/messages?q=07700+900123'));
   });
+
+  it('when filters and a search are set, then "Download CSV" asks for the same messages without paging', async () => {
+    stubLog({ total: 80 });
+    const { user } = renderApp('/messages?page=2&sort=sendAt');
+    await bodyRows();
+    expect(screen.getByRole('link', { name: 'Download CSV' })).toHaveAttribute('href', '/api/messages.csv?sort=sendAt');
+    await user.selectOptions(screen.getByLabelText('Status'), 'Failed');
+    await user.type(screen.getByRole('searchbox', { name: 'Search by baby, name or number' }), 'Juniper');
+    await waitFor(() => expect(screen.getByRole('link', { name: 'Download CSV' })).toHaveAttribute('href', '/api/messages.csv?sort=sendAt&status=failed&q=Juniper'));
+  });
 });

@@ -261,4 +261,14 @@ describe('Infant record: monitoring', () => {
     const card = await section('Step evidence');
     expect(within(card).getByText('Not met: mean SpO2 below 93 %; 5 % or more of the time below 90 %')).toBeInTheDocument();
   });
+
+  it('when readings exist, then the readings card offers every reading of this baby as a CSV download', async () => {
+    stubRecord('nurse');
+    renderApp(`/infants/${ID}`);
+    await opened();
+    const card = await section('Readings');
+    const link = await within(card).findByRole('link', { name: 'Download CSV (all readings)' });
+    expect(link).toHaveAttribute('href', `/api/infants/${ID}/readings.csv`);
+    expect(link).toHaveAttribute('download');
+  });
 });

@@ -76,6 +76,41 @@ export const MESSAGE_SORT_KEYS: Record<ListMessagesQuery['sort'], KeyPart[]> = {
 };
 
 export type MessageListRow = ReminderRow & { infant_name: string | null; k_send_at: string };
+/** The message log's filters as SQL: the caller's rights on the baby, the programme, the chosen filters and the search. */
+function logFilter(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter, qPhone: string | null) {
+  const named: Record<string, unknown> = { ...infantAcl.params, programmeId };
+  // Used with `LEFT JOIN infants i ON i.id = r.infant_id`: the join that names the baby also checks the caller may read it.
+  const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR (${infantAcl.sql}))`];
+  for (const key of ['status', 'channel', 'template', 'infantId'] as const) {
+    if (query[key]) {
+      named[key] = query[key];
+      where.push(`r.${key === 'infantId' ? 'infant_id' : key} = :${key}`);
+    }
+  }
+  if (query.q) {
+    // Matched as plain text: LIKE's own wildcards in what was typed are escaped.
+    named.q = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    const phone = qPhone ? ` OR r.to_address = :qPhone` : '';
+    if (qPhone) named.qPhone = qPhone;
+    where.push(`((i.given_name || ' ' || i.family_name) ILIKE :q OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
+  }
+  return { where, named };
+}
+
+// An export walks the log by keyset in the list's order, with the id last so every row has one place. Each key is
+// read back as exact text (a timestamp keeps its microseconds) and cast back for the comparison.
+const EXPORT_KEYS: Record<ListMessagesQuery['sort'], Array<{ col: string; alias: string; cast: string; dir: 'ASC' | 'DESC' }>> = {
+  sendAt: [{ col: 'r.send_at', alias: 'k_send_at', cast: 'timestamptz', dir: 'ASC' }, { col: 'r.id', alias: 'k_id', cast: 'uuid', dir: 'ASC' }],
+  '-sendAt': [{ col: 'r.send_at', alias: 'k_send_at', cast: 'timestamptz', dir: 'DESC' }, { col: 'r.id', alias: 'k_id', cast: 'uuid', dir: 'DESC' }],
+  status: [{ col: 'r.status', alias: 'k_status', cast: 'text', dir: 'ASC' }, { col: 'r.send_at', alias: 'k_send_at', cast: 'timestamptz', dir: 'DESC' }, { col: 'r.id', alias: 'k_id', cast: 'uuid', dir: 'DESC' }],
+  '-status': [{ col: 'r.status', alias: 'k_status', cast: 'text', dir: 'DESC' }, { col: 'r.send_at', alias: 'k_send_at', cast: 'timestamptz', dir: 'DESC' }, { col: 'r.id', alias: 'k_id', cast: 'uuid', dir: 'DESC' }],
+};
+
+export type MessageExportRow = ReminderRow & { infant_name: string | null; k_send_at: string; k_status: string; k_id: string };
+
+/** A row's position in an export's order: its sort keys as exact text. */
+export const exportKeyOf = (sort: ListMessagesQuery['sort'], row: MessageExportRow): string[] =>
+  EXPORT_KEYS[sort].map((k) => String(row[k.alias as 'k_send_at' | 'k_status' | 'k_id']));
 
 export function createRemindersRepository(ds: DataSource) {
   const estimateRows = createRowEstimates(ds);
@@ -160,21 +195,7 @@ export function createRemindersRepository(ds: DataSource) {
      * `qPhone`: the search text read as a phone number (E.164), when it is one, so '07700 900123' finds '+447700900123'.
      */
     async list(query: ListMessagesQuery, programmeId: string, infantAcl: SqlFilter, at: KeysetPosition, qPhone: string | null = null) {
-      const named: Record<string, unknown> = { ...infantAcl.params, programmeId };
-      const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR (${infantAcl.sql}))`];
-      for (const key of ['status', 'channel', 'template', 'infantId'] as const) {
-        if (query[key]) {
-          named[key] = query[key];
-          where.push(`r.${key === 'infantId' ? 'infant_id' : key} = :${key}`);
-        }
-      }
-      if (query.q) {
-        // Matched as plain text: LIKE's own wildcards in what was typed are escaped.
-        named.q = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-        const phone = qPhone ? ` OR r.to_address = :qPhone` : '';
-        if (qPhone) named.qPhone = qPhone;
-        where.push(`((i.given_name || ' ' || i.family_name) ILIKE :q OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
-      }
+      const { where, named } = logFilter(query, programmeId, infantAcl, qPhone);
       const from = `FROM reminders r LEFT JOIN infants i ON i.id = r.infant_id`;
       const page = keysetPageSql({
         select: `SELECT r.*, r.send_at::text AS k_send_at, i.given_name || ' ' || i.family_name AS infant_name ${from}`,
@@ -184,6 +205,28 @@ export function createRemindersRepository(ds: DataSource) {
       const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 ${from} WHERE ${where.join(' AND ')}`, named);
       const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<MessageListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
       return { ...cutPage(rows, query.pageSize, at), ...count };
+    },
+
+    /** One page of the log after a row's keyset position, in the sort's order (mixed directions compared key by key). */
+    async exportPage(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter, qPhone: string | null, after: string[] | undefined, limit: number): Promise<MessageExportRow[]> {
+      const { where, named } = logFilter(query, programmeId, infantAcl, qPhone);
+      const keys = EXPORT_KEYS[query.sort];
+      if (after) {
+        keys.forEach((k, n) => { named[`after_${n}`] = after[n]; });
+        const val = (n: number) => `CAST(:after_${n} AS ${keys[n]!.cast})`;
+        // (k0 beyond) OR (k0 equal AND k1 beyond) OR …, "beyond" being > for an ascending key and < for a descending one.
+        const terms = keys.map((k, n) => [...keys.slice(0, n).map((e, m) => `${e.col} = ${val(m)}`), `${k.col} ${k.dir === 'ASC' ? '>' : '<'} ${val(n)}`].join(' AND '));
+        // The first key's inclusive bound, implied by the terms, lets PostgreSQL start its index scan at the position.
+        where.push(`${keys[0]!.col} ${keys[0]!.dir === 'ASC' ? '>=' : '<='} ${val(0)}`, `((${terms.join(') OR (')}))`);
+      }
+      named.limit = limit;
+      const [sql, params] = ds.driver.escapeQueryWithParameters(
+        `SELECT r.*, i.given_name || ' ' || i.family_name AS infant_name, r.send_at::text AS k_send_at, r.status AS k_status, r.id::text AS k_id
+           FROM reminders r LEFT JOIN infants i ON i.id = r.infant_id
+          WHERE ${where.join(' AND ')} ORDER BY ${keys.map((k) => `${k.col} ${k.dir}`).join(', ')} LIMIT :limit`,
+        named,
+      );
+      return ds.query(sql, params);
     },
   };
 }

@@ -1,9 +1,10 @@
 import type { DataSource } from 'typeorm';
 import type { AppAbility } from '@shared/auth/ability';
-import type { ContactInput, EnrolInfantInput, ListInfantsQuery, UpdateInfantInput } from '@shared/schemas/infants';
+import type { ContactInput, EnrolInfantInput, InfantSummary, ListInfantsQuery, UpdateInfantInput } from '@shared/schemas/infants';
 import { accessibleWhere, type SqlFilter } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS, SORT_KEYS, sortValues, type InfantListRow } from '../../db/repositories/infants.repository';
 import { decodeCursor, encodeCursor, readingFrom } from '../../lib/cursor';
+import { EXPORT_PAGE_ROWS } from '../../lib/csv';
 import type { AppRepos } from '../../deps';
 import type { JobProducer } from '../../jobs/producer';
 import { ForbiddenError, NotFoundError } from '../../lib/errors';
@@ -22,6 +23,14 @@ function staffIdsIn(details: Record<string, unknown> | null): string[] {
   const ids = [asObject(d.before).staffId, asObject(d.after).staffId, d.staffId,
     asObject(changes.nurseId).from, asObject(changes.nurseId).to, asObject(changes.consultantId).from, asObject(changes.consultantId).to];
   return ids.filter((id): id is string => typeof id === 'string' && UUID.test(id));
+}
+
+/** "Mine" narrows to the people a baby is assigned to; a nurse's rules already allow only their caseload. */
+function scopeFilter(user: Express.User, query: Pick<ListInfantsQuery, 'scope'>): SqlFilter | undefined {
+  if (query.scope === 'programme' && user.role === 'nurse') throw new ForbiddenError('A nurse sees their own caseload.');
+  if (query.scope === 'mine' && user.role === 'consultant') return { sql: 'i.consultant_id = :me', params: { me: user.id } };
+  if (query.scope === 'mine' && user.role === 'nurse') return { sql: 'i.nurse_id = :me', params: { me: user.id } };
+  return undefined;
 }
 
 export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
@@ -43,11 +52,7 @@ export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobP
     detail,
 
     async list(ability: AppAbility, user: Express.User, query: ListInfantsQuery, today: string) {
-      let extra: SqlFilter | undefined;
-      // "Mine" narrows to the people a baby is assigned to; a nurse's rules already allow only their caseload.
-      if (query.scope === 'programme' && user.role === 'nurse') throw new ForbiddenError('A nurse sees their own caseload.');
-      if (query.scope === 'mine' && user.role === 'consultant') extra = { sql: 'i.consultant_id = :me', params: { me: user.id } };
-      if (query.scope === 'mine' && user.role === 'nurse') extra = { sql: 'i.nurse_id = :me', params: { me: user.id } };
+      const extra = scopeFilter(user, query);
       const keys = SORT_KEYS[query.sort.replace('-', '')]!.cols.length;
       const from = query.cursor ? decodeCursor(query.cursor, query.sort, keys) : undefined;
       const position = !from ? { offset: (query.page - 1) * query.pageSize } : query.direction === 'prev' ? { before: from } : { after: from };
@@ -66,6 +71,25 @@ export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobP
         nextCursor: hasNext ? cursorOf(rows.at(-1)) : null,
         prevCursor: hasPrev ? cursorOf(rows[0]) : null,
       };
+    },
+
+    /**
+     * Every baby the list's filters, search and sort match (paging ignored), read page by page from the sort's keyset
+     * so a large programme never sits in memory. The scope is checked here, before the first row is written.
+     */
+    exportRows(ability: AppAbility, user: Express.User, query: ListInfantsQuery, today: string): AsyncIterable<InfantListRow & { summary: InfantSummary }> {
+      const extra = scopeFilter(user, query);
+      const pageQuery = { ...query, pageSize: EXPORT_PAGE_ROWS };
+      return (async function* () {
+        let after: { values: string[]; id: string } | undefined;
+        for (;;) {
+          const { rows, more } = await repos.infants.list(pageQuery, acl(ability), extra, after ? { after } : {});
+          for (const r of rows) yield { ...r, summary: toSummary(r, today) };
+          if (!more || !rows.length) return;
+          const last = rows.at(-1)!;
+          after = { values: sortValues(query.sort, last), id: last.id };
+        }
+      })();
     },
 
     async enrol(ability: AppAbility, actor: Actor, input: EnrolInfantInput, today: string) {

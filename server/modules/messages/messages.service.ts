@@ -6,8 +6,9 @@ import { DEFAULT_COUNTRY, isCountryCode, readPhone } from '@shared/phone/phone';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { keyValues } from '../../db/repositories/list-paging';
-import { MESSAGE_SORT_KEYS, type MessageListRow, type ReminderRow } from '../../db/repositories/reminders.repository';
+import { exportKeyOf, MESSAGE_SORT_KEYS, type MessageListRow, type ReminderRow } from '../../db/repositories/reminders.repository';
 import { encodeCursor, pageCursors, positionOf, readingFrom } from '../../lib/cursor';
+import { EXPORT_PAGE_ROWS } from '../../lib/csv';
 import type { AppRepos } from '../../deps';
 import type { JobProducer } from '../../jobs/producer';
 import { ConflictError, ForbiddenError, NotFoundError } from '../../lib/errors';
@@ -36,6 +37,21 @@ export function createMessagesService(ds: DataSource, repos: AppRepos, jobs: Job
         return encodeCursor({ sort: query.sort, values: values.slice(0, -1), id: r.id });
       };
       return { items: rows.map(toDto), total, totalIsEstimate: estimate, ...pageCursors({ query, from, rows, more, cursorOf }) };
+    },
+
+    /** Every message the log's filters and search match (paging ignored), read a keyset page at a time in the list's order. */
+    exportRows(ability: AppAbility, programmeId: string, query: ListMessagesQuery, country: string = DEFAULT_COUNTRY): AsyncIterable<Message> {
+      const phone = query.q && isCountryCode(country) ? readPhone(query.q, country, 'any') : null;
+      const acl = accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS);
+      return (async function* () {
+        let after: string[] | undefined;
+        for (;;) {
+          const rows = await repos.reminders.exportPage(query, programmeId, acl, phone?.ok ? phone.e164 : null, after, EXPORT_PAGE_ROWS);
+          for (const r of rows) yield toDto(r);
+          if (rows.length < EXPORT_PAGE_ROWS) return;
+          after = exportKeyOf(query.sort, rows.at(-1)!);
+        }
+      })();
     },
 
     /** A failed (or unknown-outcome) message goes again now, as a fresh attempt series; the ledger keeps what happened before. */

@@ -4,7 +4,9 @@ import { createReadingSchema, readingsQuerySchema, updateReadingSchema } from '@
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny, currentUser } from '../../lib/http';
+import { sendCsv } from '../../lib/csv';
 import type { ReadingsService } from './readings.service';
+import { readingColumns } from './readings-csv';
 
 export function readingsRouters(service: ReadingsService) {
   const infants = Router();
@@ -18,6 +20,15 @@ export function readingsRouters(service: ReadingsService) {
     assertCanAny(req, 'read', 'Reading');
     const q = req.query as { from?: string; to?: string };
     res.json(await service.list(req.ability, String(req.params.id), q.from, q.to));
+  });
+
+  // All the baby's readings (or those between from and to) as a CSV download, with the list's rights.
+  infants.get('/:id/readings.csv', validate({ params: idParamsSchema, query: readingsQuerySchema }), async (req, res) => {
+    assertCanAny(req, 'read', 'Reading');
+    const q = req.query as { from?: string; to?: string };
+    const rows = await service.exportRows(req.ability, String(req.params.id), q);
+    const timeZone = currentUser(req).programmeTimeZone;
+    await sendCsv(res, `readings-${String(req.params.id)}.csv`, readingColumns(timeZone), rows);
   });
 
   const readings = Router();

@@ -12,6 +12,8 @@ import type { JobProducer } from '../../jobs/producer';
 import { ConflictError, ForbiddenError, NeedsConfirmationError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { applyNewWeight } from '../infants/update';
+import { EXPORT_PAGE_ROWS } from '../../lib/csv';
+import type { ReadingExportRow } from '../../db/repositories/readings.repository';
 import { localDate } from '@shared/schedule/plan-checks';
 
 const FUTURE_SLACK_MS = 5 * 60_000;
@@ -79,6 +81,25 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
       const since = from ? new Date(from) : new Date(until.getTime() - 90 * 86_400_000);
       const policy = await repos.policies.current(infant.programmeId);
       return { items: await toDto(await repos.readings.between(infantId, since, until), policy.settings.readingEditWindowMinutes) };
+    },
+
+    /**
+     * Every reading of the baby (or those in the window), oldest first, read a page at a time. The rights are
+     * checked before the first row: another programme's baby is a 404 like the list.
+     */
+    async exportRows(ability: AppAbility, infantId: string, window: { from?: string; to?: string }): Promise<AsyncIterable<ReadingExportRow>> {
+      const infant = await visibleInfant(ability, infantId);
+      if (!ability.can('read', subject('Reading', fields(infant)))) throw new ForbiddenError();
+      return (async function* () {
+        let after: { takenAt: string; id: string } | undefined;
+        for (;;) {
+          const rows = await repos.readings.exportPage(infant.id, window, after, EXPORT_PAGE_ROWS);
+          yield* rows;
+          if (rows.length < EXPORT_PAGE_ROWS) return;
+          const last = rows.at(-1)!;
+          after = { takenAt: last.k_taken_at, id: last.id };
+        }
+      })();
     },
 
     /** Only the person who logged a reading, within the policy's edit window; every edit is audited. */

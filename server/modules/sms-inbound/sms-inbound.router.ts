@@ -1,15 +1,13 @@
 import express, { Router } from 'express';
 import twilio from 'twilio';
 import type { DataSource } from 'typeorm';
-import { z } from 'zod';
 import type { AppRepos } from '../../deps';
 import type { Logger } from '../../lib/logger';
 import { smsNumber } from '@shared/reminders/recipient';
+import { EMPTY_TWIML, inboundSmsSchema } from '@shared/schemas/sms';
 
 // Replies that mean "no more texts" on SMS networks (common practice).
 const STOP_WORDS = new Set(['STOP', 'STOPALL', 'UNSUBSCRIBE', 'CANCEL', 'END', 'QUIT']);
-
-const inboundSchema = z.object({ From: z.string().min(3).max(40), Body: z.string().max(2000), MessageSid: z.string().max(64).optional() });
 
 /**
  * The provider's webhook for replies. It carries no session: the request is trusted only when its signature checks
@@ -29,7 +27,7 @@ export function smsInboundRouter(opts: { ds: DataSource; repos: AppRepos; logger
       res.status(403).json({ error: { code: 'forbidden', message: 'Signature does not match.' } });
       return;
     }
-    const parsed = inboundSchema.safeParse(params);
+    const parsed = inboundSmsSchema.safeParse(params);
     if (!parsed.success) {
       res.status(400).json({ error: { code: 'validation', message: 'Expected From and Body.' } });
       return;
@@ -49,7 +47,7 @@ export function smsInboundRouter(opts: { ds: DataSource; repos: AppRepos; logger
       });
     }
     // An empty reply: the provider sends nothing back on our behalf.
-    res.type('text/xml').send('<?xml version="1.0" encoding="UTF-8"?><Response></Response>');
+    res.type('text/xml').send(EMPTY_TWIML);
   });
   return router;
 }

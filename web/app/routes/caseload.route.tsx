@@ -1,6 +1,9 @@
 import { Link } from 'react-router-dom';
 import { buttonClasses } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
+import { DownloadLink } from '../../components/ui/download-link';
+import { listInfantsQuerySchema } from '@shared/schemas/infants';
+import { exportHref } from '../../lib/export-href';
 import { PageHeader } from '../../components/ui/page-header';
 import { CaseloadFilters } from '../../features/infants/components/caseload-filters';
 import { CaseloadTable } from '../../features/infants/components/caseload-table';
@@ -22,11 +25,14 @@ export function Component() {
         title={nurse ? 'My caseload' : 'Caseload'}
         intro={nurse ? 'The babies you visit, with their current plan.' : 'Babies in the programme, with their current plan.'}
         actions={
-          ability.can('create', 'Infant') ? (
-            <Link to="/enrol" className={buttonClasses()}>
-              Enrol a baby
-            </Link>
-          ) : undefined
+          <div className="flex flex-wrap gap-2">
+            <DownloadLink href={exportHref('/api/infants.csv', listInfantsQuerySchema, query)} size="md" />
+            {ability.can('create', 'Infant') && (
+              <Link to="/enrol" className={buttonClasses()}>
+                Enrol a baby
+              </Link>
+            )}
+          </div>
         }
       />
       <Card>

@@ -1,5 +1,8 @@
+import { listMessagesQuerySchema } from '@shared/schemas/messages';
 import { Alert } from '../../../components/ui/alert';
 import { CursorPager } from '../../../components/ui/data-table/cursor-pager';
+import { DownloadLink } from '../../../components/ui/download-link';
+import { exportHref } from '../../../lib/export-href';
 import { TableFrame } from '../../../components/ui/data-table/table-frame';
 import { useServerTable } from '../../../components/ui/data-table/use-server-table';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -20,6 +23,9 @@ export function MessageTable() {
   return (
     <div className="flex flex-col gap-4">
       <MessageFilters query={query} update={update} />
+      <div className="flex justify-end">
+        <DownloadLink href={exportHref('/api/messages.csv', listMessagesQuerySchema, query)} />
+      </div>
       {messages.isPending ? (
         <Spinner label="Loading the messages" />
       ) : messages.isError ? (

@@ -6,6 +6,7 @@ import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { buttonClasses } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
+import { DownloadLink } from '../../../components/ui/download-link';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { Spinner } from '../../../components/ui/spinner';
 import { useInfantReadings } from '../api/get-readings';
@@ -66,11 +67,14 @@ export function ReadingsSection({ infantId, canLog, bandMin, chart }: ReadingsSe
   const readings = useInfantReadings(infantId);
   const items = readings.data?.items ?? [];
   const latest = [...items].reverse().slice(0, SHOWN);
-  const log = canLog ? (
-    <Link to={`/infants/${infantId}/reading`} className={buttonClasses('secondary', 'sm')}>Log a reading</Link>
-  ) : undefined;
+  const actions = (
+    <div className="flex flex-wrap gap-2">
+      {items.length > 0 && <DownloadLink href={`/api/infants/${encodeURIComponent(infantId)}/readings.csv`} label="Download CSV (all readings)" />}
+      {canLog && <Link to={`/infants/${infantId}/reading`} className={buttonClasses('secondary', 'sm')}>Log a reading</Link>}
+    </div>
+  );
   return (
-    <Card title="Readings" actions={log}>
+    <Card title="Readings" actions={actions}>
       {readings.isPending && <Spinner label="Loading readings" />}
       {readings.isError && <Alert>{readings.error.message}</Alert>}
       {readings.data && items.length === 0 && <EmptyState message="No readings yet." />}
