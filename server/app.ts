@@ -48,6 +48,11 @@ import { createCarePlanService } from './modules/care-plan/care-plan.service';
 import { carePlanRouter } from './modules/care-plan/care-plan.router';
 import { overviewRouter } from './modules/overview/overview.router';
 import { createOverviewService } from './modules/overview/overview.service';
+import { readAuditMiddleware } from './modules/audit/read-audit';
+import { auditRouters } from './modules/audit/audit.router';
+import { createAuditChainService } from './modules/audit/chain.service';
+import { createReadsService } from './modules/audit/reads.service';
+import { createAuditChainMail } from './notifications/audit-chain-mail';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -111,6 +116,7 @@ export function createApp(deps: AppDeps): Express {
     req.ability = defineAbilityFor(u ? { id: u.id, role: u.role, programmeId: u.programmeId, infantIds } : null);
     next();
   });
+  api.use(readAuditMiddleware(repos.audit));
   api.use(csrf.csrfSynchronisedProtection);
   api.use('/session', sessionRouter(passport, csrf, sessions));
   api.use('/account/set-password', setupLinkRouter(accounts));
@@ -139,6 +145,9 @@ export function createApp(deps: AppDeps): Express {
   api.use('/infants', journeys.infants, carePlanRouter(createCarePlanService(repos)));
   api.use('/journeys', journeys.journeys);
   api.use('/overview', overviewRouter(createOverviewService(repos), deps.clock));
+  const audit = auditRouters(createAuditChainService(repos, logger, now, { mail: createAuditChainMail(deps.mail) }), createReadsService(repos));
+  api.use('/audit', audit.audit);
+  api.use('/infants', audit.infants);
   api.use(apiNotFound);
   app.use('/api', api);
 

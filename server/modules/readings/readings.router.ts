@@ -5,6 +5,7 @@ import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny, currentUser } from '../../lib/http';
 import type { ReadingsService } from './readings.service';
+import { auditRead } from '../audit/read-audit';
 
 export function readingsRouters(service: ReadingsService) {
   const infants = Router();
@@ -17,7 +18,9 @@ export function readingsRouters(service: ReadingsService) {
   infants.get('/:id/readings', validate({ params: idParamsSchema, query: readingsQuerySchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Reading');
     const q = req.query as { from?: string; to?: string };
-    res.json(await service.list(req.ability, String(req.params.id), q.from, q.to));
+    const list = await service.list(req.ability, String(req.params.id), q.from, q.to);
+    await auditRead(req, { action: 'infant.readings_viewed', infantId: String(req.params.id) });
+    res.json(list);
   });
 
   const readings = Router();
