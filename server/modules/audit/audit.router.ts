@@ -3,7 +3,7 @@ import { idParamsSchema } from '@shared/schemas/common';
 import { readLogQuerySchema, type ReadLogQuery } from '@shared/schemas/audit';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
-import { assertCan, assertCanAny, currentUser } from '../../lib/http';
+import { assertCan, currentUser } from '../../lib/http';
 import type { AuditChainService } from './chain.service';
 import type { ReadsService } from './reads.service';
 
