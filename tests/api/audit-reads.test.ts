@@ -123,6 +123,12 @@ describe('who looked at this baby’s record (admin)', () => {
     // The test programme is in Europe/London (GMT in March): 2 March 23:30 UTC is still 2 March.
     const days = await page(admin, `/api/infants/${infant.id}/reads?from=2026-03-02&to=2026-03-03`);
     expect(days.items.map((i) => i.at)).toEqual(['2026-03-03T08:00:00.000Z', '2026-03-03T08:00:00.000Z', '2026-03-02T23:30:00.000Z']);
+    // In summer London is on BST: 1 July 23:30 UTC is 00:30 on 2 July there, so it belongs to 2 July, not 1 July.
+    await ctx.deps.ds.query(
+      `INSERT INTO audit_events (programme_id, actor_id, kind, action, entity_type, entity_id, at) VALUES ($1, $2, 'read', 'infant.viewed', 'infant', $3, '2026-07-01T23:30:00Z')`,
+      [clinic.programme.id, clinic.people.nurse.id, infant.id]);
+    expect((await page(admin, `/api/infants/${infant.id}/reads?from=2026-07-02&to=2026-07-02`)).items.map((i) => i.at)).toEqual(['2026-07-01T23:30:00.000Z']);
+    expect((await page(admin, `/api/infants/${infant.id}/reads?from=2026-07-01&to=2026-07-01`)).items).toEqual([]);
   });
 
   it('when paged two at a time, then the pages join up with no row twice or missing, equal times included', async () => {
