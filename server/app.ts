@@ -57,6 +57,11 @@ import { API_ROUTES } from './openapi/api-routes';
 
 /** The version of the API description; raise it when a contract changes incompatibly. */
 const OPENAPI_VERSION = '1.0.0';
+import { readAuditMiddleware } from './modules/audit/read-audit';
+import { auditRouters } from './modules/audit/audit.router';
+import { createAuditChainService } from './modules/audit/chain.service';
+import { createReadsService } from './modules/audit/reads.service';
+import { createAuditChainMail } from './notifications/audit-chain-mail';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -122,6 +127,7 @@ export function createApp(deps: AppDeps): Express {
     req.ability = defineAbilityFor(u ? { id: u.id, role: u.role, programmeId: u.programmeId, infantIds } : null);
     next();
   });
+  api.use(readAuditMiddleware(repos.audit));
   api.use(csrf.csrfSynchronisedProtection);
   api.use('/session', sessionRouter(passport, csrf, sessions));
   api.use('/account/set-password', setupLinkRouter(accounts));
@@ -155,6 +161,9 @@ export function createApp(deps: AppDeps): Express {
   api.use('/infants', fhirRouter(createFhirService(repos, { systemBase: env.PUBLIC_URL }), deps.clock));
   api.use('/journeys', journeys.journeys);
   api.use('/overview', overviewRouter(createOverviewService(repos), deps.clock));
+  const audit = auditRouters(createAuditChainService(repos, logger, now, { mail: createAuditChainMail(deps.mail) }), createReadsService(repos));
+  api.use('/audit', audit.audit);
+  api.use('/infants', audit.infants);
   api.use(apiNotFound);
   app.use('/api', api);
 

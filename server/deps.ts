@@ -5,6 +5,7 @@ import type { DataSource } from 'typeorm';
 import type { Env } from './env';
 import { createDataSource } from './db/data-source';
 import { createAuditRepository } from './db/repositories/audit.repository';
+import { createAuditChainRepository } from './db/repositories/audit-chain.repository';
 import { createProgrammesRepository } from './db/repositories/programmes.repository';
 import { createUsersRepository } from './db/repositories/users.repository';
 import { createSitesRepository } from './db/repositories/sites.repository';
@@ -47,6 +48,7 @@ export function createRepos(ds: DataSource) {
   return {
     users: createUsersRepository(ds),
     audit: createAuditRepository(ds),
+    auditChain: createAuditChainRepository(ds),
     programmes: createProgrammesRepository(ds),
     sites: createSitesRepository(ds),
     policies: createPoliciesRepository(ds),

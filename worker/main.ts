@@ -24,6 +24,8 @@ import { addReminderJobs } from '../server/jobs/reminder-jobs';
 import { createMailSender } from '../server/notifications/mail-sender';
 import { createSmsSender } from '../server/notifications/sms-sender';
 import { createMailSearch } from '../server/notifications/mail-search';
+import { createAuditChainService } from '../server/modules/audit/chain.service';
+import { createAuditChainMail } from '../server/notifications/audit-chain-mail';
 
 const env = loadEnv();
 const logger = createLogger(env.LOG_LEVEL, 'worker');
@@ -59,6 +61,8 @@ await repos.checks.markOverdue();
 await planDigests(ds, repos);
 await reconcileReminders(repos, messagesQueue, reminderJobs);
 
+const auditChain = createAuditChainService(repos, logger, () => new Date(), { mail: createAuditChainMail(mail) });
+
 const maintenance = new Worker(
   QUEUES.maintenance,
   async (job) => {
@@ -67,6 +71,7 @@ const maintenance = new Worker(
     if (job.name === JOBS.reconcileReminders.name) return { enqueued: await reconcileReminders(repos, messagesQueue, reminderJobs) };
     if (job.name === JOBS.reanalyseRecordings.name) return reanalyseOutdated(ds, repos);
     if (job.name === JOBS.planDigests.name) return { planned: (await planDigests(ds, repos)).length };
+    if (job.name === JOBS.verifyAuditChain.name) return auditChain.verifyAll();
     if (job.name === JOBS.reconcileConversions.name) {
       return { conversions: await reconcileConversions(repos, jobs), recordings: await reconcileRecordings(repos, jobs) };
     }

@@ -10,5 +10,7 @@ export async function upsertSchedules(maintenance: Queue, opts: { reconcileRemin
   await maintenance.upsertJobScheduler('reconcile-reminders', { every: opts.reconcileRemindersMs }, { name: JOBS.reconcileReminders.name, data: {} });
   await maintenance.upsertJobScheduler('plan-digests', { every: 10 * 60 * 1000 }, { name: JOBS.planDigests.name, data: {} });
   await maintenance.upsertJobScheduler('reanalyse-recordings', { every: 10 * 60 * 1000 }, { name: JOBS.reanalyseRecordings.name, data: {} });
+  // Nightly, at a quiet hour: walk every audit hash chain (an admin can also check at any time).
+  await maintenance.upsertJobScheduler('verify-audit-chain', { pattern: '40 2 * * *', tz: 'UTC' }, { name: JOBS.verifyAuditChain.name, data: {} });
   await maintenance.upsertJobScheduler('reconcile-conversions', { every: 60 * 1000 }, { name: JOBS.reconcileConversions.name, data: {} });
 }

@@ -1,5 +1,6 @@
 import type { AppAbility } from '@shared/auth/ability';
 import type { SessionUser } from '@shared/schemas/session';
+import type { ReadAuditSink } from '../modules/audit/read-audit';
 
 declare global {
   namespace Express {
@@ -7,6 +8,8 @@ declare global {
     interface User extends SessionUser {}
     interface Request {
       ability: AppAbility;
+      /** Where `auditRead` writes (set for every /api request by `readAuditMiddleware`). */
+      readAudit: ReadAuditSink;
     }
   }
 }

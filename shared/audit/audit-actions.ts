@@ -3,6 +3,14 @@
  * sentence in `audit-words.ts` (the type makes a missing one a compile error; tests/shared/audit-words.test.ts
  * also reads the server's source and fails on an action missing from this list).
  */
+/** Reads of a baby's clinical record (kind 'read' in `audit_events`), written by `auditRead` (server/modules/audit/read-audit.ts). */
+export const READ_ACTIONS = [
+  'infant.viewed', 'infant.plans_viewed', 'prescription.viewed', 'infant.readings_viewed', 'infant.recordings_listed',
+  'recording.viewed', 'recording.trace_viewed', 'infant.journeys_viewed', 'journey.viewed', 'infant.care_plan_printed',
+  'infant.fhir_exported', 'infant.readings_exported', 'caseload.exported', 'messages.exported',
+] as const;
+export type ReadAction = (typeof READ_ACTIONS)[number];
+
 export const AUDIT_ACTIONS = [
   'infant.enrolled', 'infant.updated', 'infant.contacts_changed',
   'prescription.requested', 'prescription.proposed', 'prescription.approved', 'prescription.rejected',
@@ -18,7 +26,10 @@ export const AUDIT_ACTIONS = [
   'user.created', 'user.invited', 'user.invitation_resent', 'user.invite_existing_address', 'user.setup_link_sent', 'user.enabled', 'user.disabled',
   'user.password_set', 'user.password_changed', 'user.password_change_failed',
   'session.signed_in', 'session.signed_out', 'session.sign_in_failed', 'session.sign_in_blocked', 'session.owner_alerted',
+  ...READ_ACTIONS,
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 
 export const isAuditAction = (action: string): action is AuditAction => (AUDIT_ACTIONS as readonly string[]).includes(action);
+
+export const isReadAction = (action: string): action is ReadAction => (READ_ACTIONS as readonly string[]).includes(action);

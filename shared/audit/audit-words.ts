@@ -140,6 +140,20 @@ const WORDS: Record<AuditAction, Words> = {
   'session.sign_in_failed': (d) => `A sign-in was refused${str(d.reason) ? `: ${SIGN_IN_FAILURES[str(d.reason)!] ?? str(d.reason)}` : ''}`,
   'session.sign_in_blocked': (d) => `Sign-in attempts were paused after too many failures${num(d.retryAfterSeconds) !== null ? ` (for ${Math.ceil(num(d.retryAfterSeconds)! / 60)} min)` : ''}`,
   'session.owner_alerted': (d) => `E-mailed the account's owner about ${num(d.failures) ?? 'several'} failed sign-ins`,
+  'infant.viewed': () => 'Opened the baby\'s record',
+  'infant.plans_viewed': () => 'Looked at the home setting versions',
+  'prescription.viewed': (d) => `Opened ${versionWords(d)} of the home setting`,
+  'infant.readings_viewed': () => 'Looked at the spot readings',
+  'infant.recordings_listed': () => 'Looked at the list of overnight recordings',
+  'recording.viewed': () => 'Opened an overnight recording',
+  'recording.trace_viewed': () => 'Looked at the trace of an overnight recording',
+  'infant.journeys_viewed': () => 'Looked at the journey checks',
+  'journey.viewed': () => 'Opened a journey check',
+  'infant.care_plan_printed': () => 'Downloaded the printable care plan',
+  'infant.fhir_exported': () => 'Downloaded the record as FHIR',
+  'infant.readings_exported': () => 'Downloaded the spot readings as a CSV file',
+  'caseload.exported': () => 'Downloaded the caseload as a CSV file',
+  'messages.exported': () => 'Downloaded the message log as a CSV file',
 };
 
 /** One audit line in words with what changed; an action this version does not know says so rather than show a code. */

@@ -19,6 +19,9 @@ export const SUBJECTS = [
   'Journey',
   'StepDown',
   'Preferences',
+  /** Who opened a baby's record (the read trail), and the verification of the audit hash chain: admins only. */
+  'AccessLog',
+  'AuditChain',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -41,6 +44,7 @@ function adminRules({ can }: Builder, p: string) {
   can('read', 'Programme', { id: p });
   can(['read', 'create', 'update', 'disable'], 'User', { programmeId: p });
   can('read', 'AuditEvent', { programmeId: p });
+  can('read', ['AccessLog', 'AuditChain'], { programmeId: p });
   can(['read', 'update'], 'Policy', { programmeId: p });
   can(['read', 'update'], 'Message', { programmeId: p });
   can('read', STAFF_READ_ALL, { programmeId: p });

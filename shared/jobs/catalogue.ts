@@ -29,6 +29,8 @@ export const JOBS = {
   analyseRecording: { queue: QUEUES.clinical, name: 'analyse-recording', payload: z.strictObject({ recordingId: z.uuid() }) },
   /** Recordings analysed by an older version of the rules are analysed again, a batch at a time. */
   reanalyseRecordings: { queue: QUEUES.maintenance, name: 'reanalyse-recordings', payload: z.strictObject({}) },
+  /** Every audit hash chain walked end to end; a broken one is recorded, logged and e-mailed to the admins. */
+  verifyAuditChain: { queue: QUEUES.maintenance, name: 'verify-audit-chain', payload: z.strictObject({}) },
 } as const;
 
 export type JobKey = keyof typeof JOBS;

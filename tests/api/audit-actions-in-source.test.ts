@@ -25,13 +25,13 @@ const TEMPLATES: Record<string, string[]> = {
   '`journey.${j.status}`': ['journey.approved', 'journey.declined'],
 };
 
-/** Every `action:` written next to an audit entry in server/, worker/ and seed/: its string literals, and its templates. */
+/** Every `action:` written next to an audit entry (a change, or a read through `auditRead`) in server/, worker/ and seed/: its string literals, and its templates. */
 function actionsInSource() {
   const literals = new Set<string>();
   const templates = new Set<string>();
   for (const file of ['server', 'worker', 'seed'].flatMap((dir) => sourceFiles(join(ROOT, dir)))) {
     const text = readFileSync(file, 'utf8');
-    if (!text.includes('audit.append(')) continue;
+    if (!text.includes('audit.append(') && !text.includes('auditRead(')) continue;
     for (const match of text.matchAll(/\baction:\s*([^,\n]+(?:\?[^,\n]+)?)/g)) {
       const expression = match[1].trim();
       if (expression.startsWith('`')) templates.add(expression.slice(0, expression.lastIndexOf('`') + 1));

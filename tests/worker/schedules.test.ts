@@ -18,11 +18,11 @@ describe('job schedules', () => {
     await Promise.all(queues.map((q) => upsertSchedules(q, { reconcileRemindersMs: 30_000 })));
     await upsertSchedules(queues[1], { reconcileRemindersMs: 30_000 });
     const schedulers = await queues[0].getJobSchedulers();
-    expect(schedulers.map((s) => s.key).sort()).toEqual(['daily-schedule', 'plan-digests', 'prune-sessions-hourly', 'reanalyse-recordings', 'reconcile-conversions', 'reconcile-reminders']);
+    expect(schedulers.map((s) => s.key).sort()).toEqual(['daily-schedule', 'plan-digests', 'prune-sessions-hourly', 'reanalyse-recordings', 'reconcile-conversions', 'reconcile-reminders', 'verify-audit-chain']);
     const next = await queues[0].getJobs(['delayed', 'waiting', 'prioritized']);
     const perScheduler = new Map<string, number>();
     for (const job of next) perScheduler.set(String(job.repeatJobKey), (perScheduler.get(String(job.repeatJobKey)) ?? 0) + 1);
     expect([...perScheduler.values()].every((n) => n === 1)).toBe(true);
-    expect(perScheduler.size).toBe(6);
+    expect(perScheduler.size).toBe(7);
   });
 });

@@ -178,7 +178,7 @@ describe('two API processes and two workers on one PostgreSQL and one Redis', ()
       const schedulers = await maintenance.getJobSchedulers(0, -1);
       const ids = schedulers.map((s) => s.key).sort();
       figures.schedules = ids.length;
-      expect(ids).toEqual(['daily-schedule', 'plan-digests', 'prune-sessions-hourly', 'reanalyse-recordings', 'reconcile-conversions', 'reconcile-reminders']);
+      expect(ids).toEqual(['daily-schedule', 'plan-digests', 'prune-sessions-hourly', 'reanalyse-recordings', 'reconcile-conversions', 'reconcile-reminders', 'verify-audit-chain']);
     } finally {
       await maintenance.close();
     }

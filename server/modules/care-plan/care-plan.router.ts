@@ -4,12 +4,14 @@ import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { assertCanAny } from '../../lib/http';
 import type { CarePlanService } from './care-plan.service';
+import { auditRead } from '../audit/read-audit';
 
 export function carePlanRouter(service: CarePlanService): Router {
   const r = Router();
   r.get('/:id/care-plan.pdf', requireUser, validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Prescription');
     const { filename, pdf } = await service.build(req.ability, String(req.params.id));
+    await auditRead(req, { action: 'infant.care_plan_printed', infantId: String(req.params.id) });
     res.set({
       'Content-Type': 'application/pdf',
       // The name is built from [a-z0-9-] and a date only, so it needs no quoting or encoding.

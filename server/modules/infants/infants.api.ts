@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { idParamsSchema } from '@shared/schemas/common';
-import { auditEventsSchema, enrolInfantSchemaFor, infantDetailSchema, infantsPageSchema, listInfantsQuerySchema, replaceContactsSchemaFor, updateInfantSchema } from '@shared/schemas/infants';
+import { auditEventsSchema, infantDetailSchema, infantsPageSchema, listInfantsQuerySchema, updateInfantSchema } from '@shared/schemas/infants';
+import { enrolInfantSchemaFor, replaceContactsSchemaFor } from '@shared/schemas/infant-contacts';
 import { prescriptionListSchema } from '@shared/schemas/prescriptions';
 import { json, route } from '../../openapi/api-route';
 

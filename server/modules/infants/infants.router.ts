@@ -8,6 +8,7 @@ import { actorOf, assertCan, assertCanAny, currentUser } from '../../lib/http';
 import { todayIn } from '../../lib/dates';
 import type { InfantsService } from './infants.service';
 import type { PrescriptionsService } from '../prescriptions/prescriptions.service';
+import { auditRead } from '../audit/read-audit';
 
 export function infantsRouter(service: InfantsService, prescriptions: PrescriptionsService): Router {
   const r = Router();
@@ -28,7 +29,9 @@ export function infantsRouter(service: InfantsService, prescriptions: Prescripti
 
   r.get('/:id', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Infant');
-    res.json(await service.detail(req.ability, String(req.params.id), today(req)));
+    const infant = await service.detail(req.ability, String(req.params.id), today(req));
+    await auditRead(req, { action: 'infant.viewed', infantId: String(req.params.id) });
+    res.json(infant);
   });
 
   r.patch('/:id', validate({ params: idParamsSchema, body: updateInfantSchema }), async (req, res) => {
@@ -43,7 +46,9 @@ export function infantsRouter(service: InfantsService, prescriptions: Prescripti
 
   r.get('/:id/prescriptions', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Infant');
-    res.json(await prescriptions.listForInfant(req.ability, String(req.params.id), currentUser(req).role));
+    const versions = await prescriptions.listForInfant(req.ability, String(req.params.id), currentUser(req).role);
+    await auditRead(req, { action: 'infant.plans_viewed', infantId: String(req.params.id) });
+    res.json(versions);
   });
 
   r.get('/:id/audit', validate({ params: idParamsSchema }), async (req, res) => {

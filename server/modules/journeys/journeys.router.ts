@@ -7,6 +7,7 @@ import { ForbiddenError } from '../../lib/errors';
 import { actorOf, assertCanAny, currentUser } from '../../lib/http';
 import type { JourneysService } from './journeys.service';
 import type { Audience } from './journeys.mapper';
+import { auditRead } from '../audit/read-audit';
 
 const audienceOf = (req: Request): Audience => (currentUser(req).role === 'family' ? 'family' : 'staff');
 
@@ -20,7 +21,9 @@ export function journeysRouters(service: JourneysService) {
   });
   infants.get('/:id/journeys', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Journey');
-    res.json(await service.listForInfant(req.ability, String(req.params.id), audienceOf(req)));
+    const list = await service.listForInfant(req.ability, String(req.params.id), audienceOf(req));
+    await auditRead(req, { action: 'infant.journeys_viewed', infantId: String(req.params.id) });
+    res.json(list);
   });
 
   const journeys = Router();
@@ -32,7 +35,9 @@ export function journeysRouters(service: JourneysService) {
   });
   journeys.get('/:id', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Journey');
-    res.json({ journey: await service.get(req.ability, String(req.params.id), audienceOf(req)) });
+    const journey = await service.get(req.ability, String(req.params.id), audienceOf(req));
+    await auditRead(req, { action: 'journey.viewed', infantId: journey.infantId, details: { journeyId: journey.id } });
+    res.json({ journey });
   });
   journeys.post('/:id/decision', validate({ params: idParamsSchema, body: journeyDecisionSchema }), async (req, res) => {
     assertCanAny(req, 'approve', 'Journey');

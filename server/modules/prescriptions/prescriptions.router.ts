@@ -5,6 +5,7 @@ import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny, currentUser } from '../../lib/http';
 import type { PrescriptionsService } from './prescriptions.service';
+import { auditRead } from '../audit/read-audit';
 
 export function prescriptionsRouter(service: PrescriptionsService): Router {
   const r = Router();
@@ -17,7 +18,9 @@ export function prescriptionsRouter(service: PrescriptionsService): Router {
 
   r.get('/:id', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Prescription');
-    res.json(await service.get(req.ability, String(req.params.id), currentUser(req).role));
+    const version = await service.get(req.ability, String(req.params.id), currentUser(req).role);
+    await auditRead(req, { action: 'prescription.viewed', infantId: version.infantId, details: { prescriptionId: version.id, version: version.version } });
+    res.json(version);
   });
 
   r.post('/:id/decision', validate({ params: idParamsSchema, body: decisionSchema }), async (req, res) => {

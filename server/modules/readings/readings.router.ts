@@ -7,6 +7,7 @@ import { actorOf, assertCanAny, currentUser } from '../../lib/http';
 import { sendCsv } from '../../lib/csv';
 import type { ReadingsService } from './readings.service';
 import { readingColumns } from './readings-csv';
+import { auditRead } from '../audit/read-audit';
 
 export function readingsRouters(service: ReadingsService) {
   const infants = Router();
@@ -19,7 +20,9 @@ export function readingsRouters(service: ReadingsService) {
   infants.get('/:id/readings', validate({ params: idParamsSchema, query: readingsQuerySchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Reading');
     const q = req.query as { from?: string; to?: string };
-    res.json(await service.list(req.ability, String(req.params.id), q.from, q.to));
+    const list = await service.list(req.ability, String(req.params.id), q.from, q.to);
+    await auditRead(req, { action: 'infant.readings_viewed', infantId: String(req.params.id) });
+    res.json(list);
   });
 
   // All the baby's readings (or those between from and to) as a CSV download, with the list's rights.

@@ -8,6 +8,7 @@ import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny } from '../../lib/http';
 import type { RecordingsService } from './recordings.service';
 import { uploadErrorFrom, UploadRejectedError } from './upload-errors';
+import { auditRead } from '../audit/read-audit';
 
 // Multer's defaults are unlimited (docs/service-targets.md, Uploads): every limit is explicit. Memory storage: the file is
 // parsed and checked whole before anything is written, and only the compact samples are kept.
@@ -51,7 +52,9 @@ export function infantRecordingsRouter(service: RecordingsService): Router {
   r.get('/:id/recordings', requireUser, validate({ params: idParamsSchema, query: listRecordingsQuerySchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Recording');
     const { page, pageSize } = req.query as unknown as { page: number; pageSize: number };
-    res.json(await service.listForInfant(req.ability, String(req.params.id), page, pageSize));
+    const list = await service.listForInfant(req.ability, String(req.params.id), page, pageSize);
+    await auditRead(req, { action: 'infant.recordings_listed', infantId: String(req.params.id) });
+    res.json(list);
   });
   return r;
 }
@@ -63,12 +66,16 @@ export function recordingsRouter(service: RecordingsService): Router {
 
   r.get('/:id', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Recording');
-    res.json(await service.get(req.ability, String(req.params.id)));
+    const recording = await service.get(req.ability, String(req.params.id));
+    await auditRead(req, { action: 'recording.viewed', infantId: recording.infantId, details: { recordingId: recording.id } });
+    res.json(recording);
   });
 
   r.get('/:id/trace', validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Recording');
-    res.json(await service.trace(req.ability, String(req.params.id)));
+    const { infantId, trace } = await service.trace(req.ability, String(req.params.id));
+    await auditRead(req, { action: 'recording.trace_viewed', infantId, details: { recordingId: String(req.params.id) } });
+    res.json(trace);
   });
   return r;
 }

@@ -41,7 +41,7 @@ export function createRecordingsService(ds: DataSource, repos: AppRepos, jobs: J
       const recording = await visible(ability, id);
       const stored = await repos.recordings.loadSamples(recording.id);
       const points = stored ? decimateTrace(decodeSamples(stored)) : [];
-      return toTraceDto(points, recording.status === 'done' ? recording.events : null);
+      return { infantId: recording.infantId, trace: toTraceDto(points, recording.status === 'done' ? recording.events : null) };
     },
 
     async listForInfant(ability: AppAbility, infantId: string, page: number, pageSize: number) {

@@ -1,6 +1,7 @@
 import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
 import { ServiceStatus } from '../../features/health/components/service-status';
+import { ChainCard } from '../../features/audit/components/chain-card';
 import { AdminOverview } from '../../features/overview/components/admin-overview';
 import { useSignedInUser } from '../../lib/signed-in-user';
 import { usePageTitle } from '../../lib/page-title';
@@ -17,6 +18,7 @@ export function Component() {
         <Card title="Service status">
           <ServiceStatus />
         </Card>
+        <ChainCard />
       </div>
     </>
   );

@@ -9,6 +9,7 @@ import { useInfant } from '../../features/infants/api/get-infant';
 import { useInfantPrescriptions } from '../../features/infants/api/get-infant-prescriptions';
 import { infantKeys } from '../../features/infants/api/infant-keys';
 import { AuditSection } from '../../features/infants/components/audit-section';
+import { ReadsSection } from '../../features/audit/components/reads-section';
 import { ContactsSection } from '../../features/infants/components/contacts-section';
 import { DetailsSection } from '../../features/infants/components/details-section';
 import { FhirDownloadLink } from '../../features/infants/components/fhir-download-link';
@@ -122,6 +123,7 @@ export function Component() {
           {ability.can('read', 'AuditEvent') && prescriptions.data && (
             <AuditSection infantId={infant.data.id} versionsState={versions.map((rx) => `${rx.version}-${rx.status}`).join(',')} />
           )}
+          {ability.can('read', 'AccessLog') && <ReadsSection infantId={infant.data.id} />}
         </div>
       </div>
     </>
