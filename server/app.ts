@@ -48,6 +48,9 @@ import { createCarePlanService } from './modules/care-plan/care-plan.service';
 import { carePlanRouter } from './modules/care-plan/care-plan.router';
 import { overviewRouter } from './modules/overview/overview.router';
 import { createOverviewService } from './modules/overview/overview.service';
+import { dischargeRouter } from './modules/discharge/discharge.router';
+import { createDischargeService } from './modules/discharge/discharge.service';
+import { createDischargeLetterService } from './modules/discharge/discharge-letter.service';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -138,6 +141,7 @@ export function createApp(deps: AppDeps): Express {
   const journeys = journeysRouters(createJourneysService(deps.ds, repos));
   api.use('/infants', journeys.infants, carePlanRouter(createCarePlanService(repos)));
   api.use('/journeys', journeys.journeys);
+  api.use('/infants', dischargeRouter(createDischargeService(deps.ds, repos, deps.clock), createDischargeLetterService(repos, deps.mail, deps.clock)));
   api.use('/overview', overviewRouter(createOverviewService(repos), deps.clock));
   api.use(apiNotFound);
   app.use('/api', api);
