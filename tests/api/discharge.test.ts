@@ -200,3 +200,37 @@ it('every default item names a source: a publication or common practice', () => 
   for (const item of DEFAULT_DISCHARGE_RULES.items) expect(item.source).toMatch(/Thorax 2009|Am J Respir Crit Care Med 2019|^common practice$/);
   expect(evidenceFor('home_assessment')).toEqual({ date: '2026-11-28', person: 'Nurse Tamsin Reed' });
 });
+
+describe('GET /api/overview (coordinator): babies going home', () => {
+  it('when one baby has a date and another is part done, then both are listed with what is missing; untouched babies are not', async () => {
+    const { infant: ready, coord, clinic } = await approvedBaby(ctx.deps, ctx.app);
+    await tickAll(coord, ready.id);
+    await post(coord, `/api/infants/${ready.id}/discharge`, { date: '2026-12-08' }).expect(200);
+    const part = (await post(coord, '/api/infants', enrolmentBody(clinic)).expect(201)).body;
+    await put(coord, `/api/infants/${part.id}/discharge/items/no_smoking`, { done: true }).expect(200);
+    await post(coord, '/api/infants', enrolmentBody(clinic)).expect(201);
+    const body = (await coord.get('/api/overview').expect(200)).body;
+    expect(body.discharges.withDate).toBe(1);
+    expect(body.discharges.preparing).toBe(1);
+    const [first, second] = body.discharges.babies;
+    expect(first).toEqual({ infantId: ready.id, infantName: `${ready.givenName} ${ready.familyName}`, dischargedOn: '2026-12-08', missing: [] });
+    expect(second.infantId).toBe(part.id);
+    expect(second.dischargedOn).toBeNull();
+    // Not approved yet, and every item but the one ticked.
+    expect(second.missing[0]).toEqual({ key: 'setting_approved', label: 'Setting approved by a consultant' });
+    expect(second.missing).toHaveLength(KEYS.length);
+    expect(second.missing.map((m: { key: string }) => m.key)).not.toContain('no_smoking');
+    // Another programme's coordinator sees none of them.
+    const other = await makeClinic(ctx.deps);
+    const stranger = await signedInAgent(ctx.app, other.people.coordinator.email);
+    expect((await stranger.get('/api/overview').expect(200)).body.discharges).toEqual({ withDate: 0, preparing: 0, babies: [] });
+  });
+
+  it('when the discharge date has passed, then the baby leaves the list', async () => {
+    const { infant, coord } = await approvedBaby(ctx.deps, ctx.app);
+    await tickAll(coord, infant.id);
+    // Yesterday by the injected clock (3 Dec 2026).
+    await post(coord, `/api/infants/${infant.id}/discharge`, { date: '2026-12-02' }).expect(200);
+    expect((await coord.get('/api/overview').expect(200)).body.discharges.babies).toEqual([]);
+  });
+});
