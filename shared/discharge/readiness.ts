@@ -30,9 +30,3 @@ export function familyItems(rules: readonly DischargeItemRule[]): DischargeItemR
 export function sortByGroup<T extends { group: DischargeItemRule['group'] }>(items: readonly T[]): T[] {
   return DISCHARGE_GROUPS.flatMap((g) => items.filter((i) => i.group === g));
 }
-
-/** Calendar arithmetic on "YYYY-MM-DD" dates (UTC noon, so no clock change moves the day). */
-export function addDays(date: string, days: number): string {
-  const t = new Date(`${date}T12:00:00Z`).getTime() + days * 86_400_000;
-  return new Date(t).toISOString().slice(0, 10);
-}

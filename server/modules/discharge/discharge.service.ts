@@ -1,7 +1,8 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
 import type { AppAbility } from '@shared/auth/ability';
-import { addDays, missingEvidence, missingForDischarge } from '@shared/discharge/readiness';
+import { missingEvidence, missingForDischarge } from '@shared/discharge/readiness';
+import { addDays } from '@shared/clinical/dates';
 import type { Discharge, DischargeItem, SetDischargeInput, UpdateDischargeItemInput } from '@shared/schemas/discharge';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import type { InfantEntity } from '../../db/entities/infant.entity';
