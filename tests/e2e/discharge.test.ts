@@ -7,6 +7,7 @@ import path from 'node:path';
 import { addDays } from '@shared/clinical/dates';
 import { dateInWords } from '@shared/dates/date-words';
 import { LETTER_CAUTIONS } from '@shared/discharge/letter-text';
+import { axeReport, headingSkips, seriousViolations } from '../helpers/a11y';
 import { openBrowser, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');
@@ -84,6 +85,10 @@ describe('the coordinator takes a baby home: checklist, discharge date, first vi
     // Default interval 1 day (common practice, shared/schemas/discharge-policy.ts).
     await page.getByText(`First home visit proposed for ${dateInWords(addDays(dischargeOn, 1))}: not booked yet.`).waitFor();
     await screenshot(page, 'discharge-record-date-set');
+    // The record with the discharge section open: no serious axe finding, no skipped heading level.
+    await page.getByRole('button', { name: 'Set discharge date' }).or(page.getByRole('button', { name: 'Change discharge date' })).first().click();
+    expect(axeReport(await seriousViolations(page))).toBe(axeReport([]));
+    expect(await headingSkips(page)).toEqual([]);
   });
 
   it('when the coordinator downloads the discharge letter, then its text reads back with the date, the first visit, the targets and the cautions', async () => {
