@@ -102,6 +102,37 @@ describe('PUT /api/infants/:id/discharge/items/:key', () => {
   });
 });
 
+describe('the baby\'s nurse and the settings', () => {
+  it('when the baby\'s nurse ticks the training they gave, then it is saved; the nurse cannot override a missing step', async () => {
+    const { infant, coord, clinic } = await approvedBaby(ctx.deps, ctx.app);
+    const nurse = await signedInAgent(ctx.app, clinic.people.nurse.email);
+    const item = (await put(nurse, `/api/infants/${infant.id}/discharge/items/basic_life_support`, {
+      done: true, evidence: { date: '2026-12-02', person: clinic.people.nurse.name },
+    }).expect(200)).body;
+    expect(item.doneBy).toEqual({ id: clinic.people.nurse.id, name: clinic.people.nurse.name });
+    await tickAll(coord, infant.id, ['smoke_alarms']);
+    await post(nurse, `/api/infants/${infant.id}/discharge`, { date: '2026-12-08', overrideReason: 'Alarms checked by phone' }).expect(403);
+    // An admin reads the checklist but changes nothing.
+    const admin = await signedInAgent(ctx.app, clinic.people.admin.email);
+    await admin.get(`/api/infants/${infant.id}/discharge`).expect(200);
+    await put(admin, `/api/infants/${infant.id}/discharge/items/smoke_alarms`, { done: true }).expect(403);
+  });
+
+  it('when the admin saves a checklist that breaks the rules, then 400 names the item and field and the version is not saved', async () => {
+    const { clinic } = await approvedBaby(ctx.deps, ctx.app);
+    const admin = await signedInAgent(ctx.app, clinic.people.admin.email);
+    const policy = (await admin.get('/api/policy').expect(200)).body;
+    const items = policy.settings.discharge.items.map((i: { key: string }, n: number) => (n === 12 ? { ...i, familySees: true, familyLabel: 'Your nurse' } : i));
+    const res = await admin.put('/api/policy').set('X-CSRF-Token', admin.csrf)
+      .send({ baseVersion: policy.version, settings: { ...policy.settings, discharge: { items, firstVisitDaysAfterDischarge: 40 } } }).expect(400);
+    expect(res.body.error.details).toMatchObject({
+      'settings.discharge.items.12.familySees': ['Families see only family training and home safety items'],
+      'settings.discharge.firstVisitDaysAfterDischarge': ['At most 28'],
+    });
+    expect((await admin.get('/api/policy').expect(200)).body.version).toBe(policy.version);
+  });
+});
+
 describe('POST /api/infants/:id/discharge', () => {
   it('when the checklist is incomplete, then 422 discharge_not_ready lists the missing keys and nothing is set', async () => {
     const { infant, coord } = await approvedBaby(ctx.deps, ctx.app);

@@ -129,5 +129,19 @@ describe('Infant record: discharge', () => {
     expect(bodies).toEqual([{ date: '2026-12-08', overrideReason: 'Family moving to the coast' }]);
     expect(within(section).getByText(/Date set by Dr Ilse Varga before every step was done \(Working smoke alarms in the home\)/)).toBeInTheDocument();
     expect(within(section).getByText('First home visit proposed for 9 Dec 2026: not booked yet.')).toBeInTheDocument();
+    // A consultant does not book visits.
+    expect(within(section).queryByRole('button', { name: 'Book the first home visit' })).toBeNull();
+  });
+
+  it('when the first visit is proposed, then the coordinator books it from the proposal: a home visit that day, for the first visit', async () => {
+    stubRecord('coordinator', { current: discharge({ items: items(DEFAULT_DISCHARGE_RULES.items.map((i) => i.key)), dischargedOn: '2026-12-08', firstVisit: { proposedOn: '2026-12-09', bookedVisitId: null } }) });
+    const user = userEvent.setup();
+    renderApp(`/infants/${ID}`);
+    const section = await card();
+    await user.click(await within(section).findByRole('button', { name: 'Book the first home visit' }));
+    const booking = within(section).getByRole('form', { name: 'Book a visit' });
+    expect(within(booking).getByLabelText('Kind of visit')).toHaveValue('home_visit');
+    expect(within(booking).getByLabelText('Date')).toHaveValue('2026-12-09');
+    expect(within(booking).getByLabelText('What it is for')).toHaveValue('First home visit after discharge');
   });
 });
