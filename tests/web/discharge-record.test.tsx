@@ -144,4 +144,28 @@ describe('Infant record: discharge', () => {
     expect(within(booking).getByLabelText('Date')).toHaveValue('2026-12-09');
     expect(within(booking).getByLabelText('What it is for')).toHaveValue('First home visit after discharge');
   });
+
+  it('when the letter is e-mailed, then a bad address is refused beside the box and a good one is confirmed', async () => {
+    const bodies: unknown[] = [];
+    stubRecord('coordinator', { current: discharge() }, {
+      [`POST /api/infants/${ID}/discharge-letter/email`]: ({ body }) => {
+        bodies.push(body);
+        const to = (body as { to: string }).to;
+        if (!to.includes('@')) return apiError(400, 'validation_failed', 'Some fields need attention.', { to: ['Enter an e-mail address like gp@example.org'] });
+        return json(200, { sentTo: to, filename: 'discharge-letter-ottoline-marsh-2026-12-03.pdf' });
+      },
+    });
+    const user = userEvent.setup();
+    renderApp(`/infants/${ID}`);
+    const section = await card();
+    const form = await within(section).findByRole('form', { name: 'E-mail the discharge letter' });
+    await user.type(within(form).getByLabelText('E-mail the letter to'), 'surgery');
+    await user.click(within(form).getByRole('button', { name: 'E-mail the letter' }));
+    expect(await within(form).findAllByText('Enter an e-mail address like gp@example.org')).not.toHaveLength(0);
+    await user.clear(within(form).getByLabelText('E-mail the letter to'));
+    await user.type(within(form).getByLabelText('E-mail the letter to'), 'surgery@larkmoor.example');
+    await user.click(within(form).getByRole('button', { name: 'E-mail the letter' }));
+    expect(await within(form).findByText('Letter sent to surgery@larkmoor.example.')).toBeInTheDocument();
+    expect(bodies).toEqual([{ to: 'surgery' }, { to: 'surgery@larkmoor.example' }]);
+  });
 });
