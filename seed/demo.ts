@@ -7,6 +7,7 @@ import { seedJourneys } from './seed-journeys';
 import { seedPolicies } from './seed-policy';
 import { seedHistory } from './seed-history';
 import { seedWaiting } from './seed-waiting';
+import { seedDischarges } from './seed-discharges';
 
 /** The whole demo scenario, in order; `npm run seed` runs it, and tests that need the demo babies call it too. */
 export async function seedDemo(deps: AppDeps) {
@@ -19,5 +20,6 @@ export async function seedDemo(deps: AppDeps) {
   // After the others: the overview's year of history and the work waiting on the start pages.
   const history = await seedHistory(deps, 'larkmoor');
   const waiting = await seedWaiting(deps, 'larkmoor');
-  return { people, babies, studies, visits, journeys, history, waiting };
+  const discharges = await seedDischarges(deps, 'larkmoor');
+  return { people, babies, studies, visits, journeys, history, waiting, discharges };
 }

@@ -62,6 +62,9 @@ import { auditRouters } from './modules/audit/audit.router';
 import { createAuditChainService } from './modules/audit/chain.service';
 import { createReadsService } from './modules/audit/reads.service';
 import { createAuditChainMail } from './notifications/audit-chain-mail';
+import { dischargeRouter } from './modules/discharge/discharge.router';
+import { createDischargeService } from './modules/discharge/discharge.service';
+import { createDischargeLetterService } from './modules/discharge/discharge-letter.service';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -160,6 +163,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/infants', journeys.infants, carePlanRouter(createCarePlanService(repos)));
   api.use('/infants', fhirRouter(createFhirService(repos, { systemBase: env.PUBLIC_URL }), deps.clock));
   api.use('/journeys', journeys.journeys);
+  api.use('/infants', dischargeRouter(createDischargeService(deps.ds, repos, deps.clock), createDischargeLetterService(repos, deps.mail, deps.clock)));
   api.use('/overview', overviewRouter(createOverviewService(repos), deps.clock));
   const audit = auditRouters(createAuditChainService(repos, logger, now, { mail: createAuditChainMail(deps.mail) }), createReadsService(repos));
   api.use('/audit', audit.audit);

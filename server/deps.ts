@@ -24,6 +24,7 @@ import { createReminderContentRepository } from './db/repositories/reminder-cont
 import { createJourneysRepository } from './db/repositories/journeys.repository';
 import { createAccountTokensRepository } from './db/repositories/account-tokens.repository';
 import { createOverviewRepository } from './db/repositories/overview.repository';
+import { createDischargesRepository } from './db/repositories/discharges.repository';
 import { createMailSender, type MailSender } from './notifications/mail-sender';
 import { createLogger, logEvery, type Logger } from './lib/logger';
 
@@ -65,6 +66,7 @@ export function createRepos(ds: DataSource) {
     reminderContent: createReminderContentRepository(ds),
     accountTokens: createAccountTokensRepository(ds),
     overview: createOverviewRepository(ds),
+    discharges: createDischargesRepository(ds),
   };
 }
 export type AppRepos = ReturnType<typeof createRepos>;

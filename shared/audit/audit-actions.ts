@@ -23,6 +23,7 @@ export const AUDIT_ACTIONS = [
   'contact.preferences_changed', 'contact.sms_stopped',
   'message.retried', 'message.confirmed-arrived',
   'policy.changed',
+  'discharge.item_changed', 'discharge.date_set', 'discharge.date_overridden', 'discharge.letter_emailed',
   'user.created', 'user.invited', 'user.invitation_resent', 'user.invite_existing_address', 'user.setup_link_sent', 'user.enabled', 'user.disabled',
   'user.password_set', 'user.password_changed', 'user.password_change_failed',
   'session.signed_in', 'session.signed_out', 'session.sign_in_failed', 'session.sign_in_blocked', 'session.owner_alerted',

@@ -22,6 +22,8 @@ export const SUBJECTS = [
   /** Who opened a baby's record (the read trail), and the verification of the audit hash chain: admins only. */
   'AccessLog',
   'AuditChain',
+  /** The discharge checklist and date of a baby (the fields of the baby it belongs to). */
+  'Discharge',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -48,6 +50,7 @@ function adminRules({ can }: Builder, p: string) {
   can(['read', 'update'], 'Policy', { programmeId: p });
   can(['read', 'update'], 'Message', { programmeId: p });
   can('read', STAFF_READ_ALL, { programmeId: p });
+  can('read', 'Discharge', { programmeId: p });
 }
 
 function coordinatorRules({ can }: Builder, p: string) {
@@ -58,6 +61,8 @@ function coordinatorRules({ can }: Builder, p: string) {
   can('read', STAFF_READ_ALL, { programmeId: p });
   can(['create', 'update'], ['Infant', 'Visit', 'Journey'], { programmeId: p });
   can('create', ['Recording', 'Reading', 'StepDown'], { programmeId: p });
+  // Ticks the discharge checklist and sets the date once everything is done.
+  can(['read', 'update'], 'Discharge', { programmeId: p });
   // The message log, and sending a failed message again.
   can(['read', 'update'], 'Message', { programmeId: p });
   can('create', 'ConversionPreview');
@@ -72,6 +77,8 @@ function nurseRules({ can }: Builder, p: string, userId: string) {
   can('read', ['Prescription', 'Reading', 'Recording', 'Visit', 'Journey'], { programmeId: p, nurseId: userId });
   can('create', ['Reading', 'Recording', 'Visit', 'StepDown'], { programmeId: p, nurseId: userId });
   can('update', 'Visit', { programmeId: p, nurseId: userId });
+  // The nurse trains the family and assesses the home: ticks those items for the babies of the caseload.
+  can(['read', 'update'], 'Discharge', { programmeId: p, nurseId: userId });
   can('create', 'ConversionPreview');
 }
 
@@ -82,6 +89,8 @@ function consultantRules({ can }: Builder, p: string) {
   can('read', 'AuditEvent', { programmeId: p });
   can('read', STAFF_READ_ALL, { programmeId: p });
   can('approve', ['Prescription', 'Journey'], { programmeId: p });
+  // Only a consultant may set a discharge date with something missing ('approve'), with a recorded reason.
+  can(['read', 'update', 'approve'], 'Discharge', { programmeId: p });
   can('create', 'ConversionPreview');
 }
 
@@ -97,6 +106,8 @@ function familyRules({ can }: Builder, p: string, infantIds: readonly string[]) 
   can('create', ['Journey', 'Reading'], own);
   // Their own contact details, channel, consents, language and reminder switch.
   can(['read', 'update'], 'Preferences');
+  // The checklist items that concern them, in plain words (the API filters the items).
+  can('read', 'Discharge', own);
 }
 
 /** The one definition of who may do what; the API enforces it in routes and queries, the web only hides. */

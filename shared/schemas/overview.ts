@@ -22,6 +22,18 @@ export type JourneyWaitingItem = z.infer<typeof journeyWaitingItemSchema>;
 /** The coordinator's overview names the oldest few waiting journey checks; the count covers them all. */
 export const JOURNEYS_LISTED = 5;
 
+export const dischargeListItemSchema = z.object({
+  infantId: z.uuid(),
+  infantName: z.string(),
+  /** Null while the baby is still being prepared. */
+  dischargedOn: z.string().nullable(),
+  /** What is still missing, as checklist keys (with `setting_approved` when it applies) and their labels. */
+  missing: z.array(z.object({ key: z.string(), label: z.string() })),
+});
+export type DischargeListItem = z.infer<typeof dischargeListItemSchema>;
+/** The coordinator's overview lists this many babies going home; the counts cover them all. */
+export const DISCHARGES_LISTED = 20;
+
 export const coordinatorOverviewSchema = z.object({
   role: z.literal('coordinator'),
   asOf: z.string(),
@@ -34,6 +46,12 @@ export const coordinatorOverviewSchema = z.object({
   /** Messages that need someone: failed, or sent with an outcome nobody could confirm. */
   messagesNeedingAction: z.object({ failed: z.number().int().nonnegative(), unknown: z.number().int().nonnegative() }),
   journeysWaiting: waitingSchema.extend({ oldest: z.array(journeyWaitingItemSchema).max(JOURNEYS_LISTED) }),
+  /** Babies with a discharge date from today on, or with checklist work under way and no date yet. */
+  discharges: z.object({
+    withDate: z.number().int().nonnegative(),
+    preparing: z.number().int().nonnegative(),
+    babies: z.array(dischargeListItemSchema).max(DISCHARGES_LISTED),
+  }),
   onOxygenByMonth: z.array(monthCountSchema).length(ON_OXYGEN_MONTHS),
 });
 export type CoordinatorOverview = z.infer<typeof coordinatorOverviewSchema>;

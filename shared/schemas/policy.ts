@@ -4,6 +4,7 @@ import { countryCodeSchema } from './phone';
 import { DEFAULT_COUNTRY, readPhone } from '../phone/phone';
 import { DEFAULT_CANNULA_MAX_FLOW_LPM, DEFAULT_FLOWMETER_STEPS_LPM } from '../clinical/flowmeter';
 import { DEFAULT_DRIFT_THRESHOLD_FIO2 } from '../clinical/growth';
+import { DEFAULT_DISCHARGE_RULES, dischargeRulesSchema } from './discharge-policy';
 
 const int = (min: number, max: number, what: string) =>
   z.number({ error: `Enter ${what}` }).int({ error: 'Use a whole number' }).min(min, { error: `At least ${min}` }).max(max, { error: `At most ${max}` });
@@ -132,6 +133,8 @@ export const policySettingsSchema = z.strictObject({
   reminders: reminderRulesSchema,
   contacts: programmeContactsSchema,
   supply: equipmentSupplySchema,
+  /** The discharge checklist's items and the first home visit's interval (shared/schemas/discharge-policy.ts). */
+  discharge: dischargeRulesSchema,
 });
 export type PolicySettings = z.infer<typeof policySettingsSchema>;
 
@@ -166,6 +169,8 @@ export const DEFAULT_POLICY_SETTINGS: PolicySettings = {
     ],
     reservePercent: 50,
   },
+  // Sources beside each item in shared/schemas/discharge-policy.ts and docs/discharge-sources.md.
+  discharge: DEFAULT_DISCHARGE_RULES,
 };
 
 /** Older stored versions lack newer sections; fill them from the defaults section by section. */
@@ -181,6 +186,7 @@ export function withPolicyDefaults(stored: Partial<PolicySettings>): PolicySetti
     reminders: { ...d.reminders, ...stored.reminders },
     contacts: { ...d.contacts, ...stored.contacts },
     supply: { ...d.supply, ...stored.supply },
+    discharge: { ...d.discharge, ...stored.discharge },
   };
 }
 

@@ -35,6 +35,14 @@ const coordinator: CoordinatorOverview = {
       { id: 'e1e1e1e1-0000-4000-8000-000000000002', infantName: 'Ada Brindlewood', destinationName: 'Flight to see family', departOn: '2026-12-20', waitingSince: '2026-12-02T08:30:00.000Z' },
     ],
   },
+  discharges: {
+    withDate: 1, preparing: 1,
+    babies: [
+      { infantId: 'd1d1d1d1-0000-4000-8000-000000000001', infantName: 'Ottoline Marsh', dischargedOn: '2026-12-08', missing: [] },
+      { infantId: 'd1d1d1d1-0000-4000-8000-000000000002', infantName: 'Bram Pellow', dischargedOn: null,
+        missing: [{ key: 'smoke_alarms', label: 'Working smoke alarms in the home' }, { key: 'equipment_installed', label: 'Equipment installed before the discharge date' }] },
+    ],
+  },
   onOxygenByMonth: MONTHS,
 };
 
@@ -75,6 +83,19 @@ describe('the coordinator overview', () => {
     const journeys = screen.getByRole('region', { name: 'Journey checks waiting for a consultant' });
     expect(within(journeys).getByRole('link', { name: 'Wren Thackeray to High Saddle' })).toHaveAttribute('href', '/journeys/e1e1e1e1-0000-4000-8000-000000000001');
     expect(within(journeys).getByText(/waiting under an hour|waiting 3 hours/)).toBeInTheDocument();
+  });
+
+  it('when babies are going home, then the overview counts them and lists each with what is missing, linking to the record', async () => {
+    stubApi({ 'GET /api/session': sessionHandler('coordinator'), 'GET /api/overview': () => json(200, coordinator) });
+    renderApp('/coordinator');
+    expect(await figure(/^1 baby with a discharge date 1 more being prepared$/)).toHaveAttribute('href', '#going-home');
+    const list = screen.getByRole('list', { name: 'Babies going home' });
+    expect(within(list).getByRole('link', { name: 'Ottoline Marsh' })).toHaveAttribute('href', '/infants/d1d1d1d1-0000-4000-8000-000000000001');
+    expect(within(list).getByText(/goes home .*8 December 2026|goes home .*8 Dec 2026/)).toBeInTheDocument();
+    expect(within(list).getByText('Every step done')).toBeInTheDocument();
+    expect(within(list).getByRole('link', { name: 'Bram Pellow' })).toHaveAttribute('href', '/infants/d1d1d1d1-0000-4000-8000-000000000002');
+    expect(within(list).getByText('2 steps missing: Working smoke alarms in the home; Equipment installed before the discharge date')).toBeInTheDocument();
+    expect(within(list).getByText('no date yet')).toBeInTheDocument();
   });
 
   it('when the chart is shown, then its figures are also in words and in a table for screen readers', async () => {

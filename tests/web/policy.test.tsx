@@ -295,7 +295,7 @@ describe('Programme settings', { timeout: 20_000 }, () => {
     const links = within(nav).getAllByRole('link');
     expect(links.map((link) => link.textContent)).toEqual([
       'Saturation targets', 'Check schedule', 'Stepping down', 'Overnight oximetry analysis', 'Flowmeter and cannula', 'Cylinders',
-      'Readings', 'Reminders', 'Numbers for families',
+      'Readings', 'Reminders', 'Numbers for families', 'Discharge checklist',
     ]);
     // Every link lands on a section of the form whose legend is the link's words.
     for (const link of links) {

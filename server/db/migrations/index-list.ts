@@ -14,6 +14,7 @@ import { OverviewIndexes1765670400000 } from './1765670400000-OverviewIndexes';
 import { ListIndexes1765929600000 } from './1765929600000-ListIndexes';
 import { MessageAndPeopleListIndexes1766016000000 } from './1766016000000-MessageAndPeopleListIndexes';
 import { AuditReadsAndChain1766102400000 } from './1766102400000-AuditReadsAndChain';
+import { DischargeChecklist1766188800000 } from './1766188800000-DischargeChecklist';
 
 export const MIGRATIONS = [
   Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000, Visits1764979200000, Reminders1765065600000,
@@ -24,4 +25,5 @@ export const MIGRATIONS = [
   ListIndexes1765929600000,
   MessageAndPeopleListIndexes1766016000000,
   AuditReadsAndChain1766102400000,
+  DischargeChecklist1766188800000,
 ];

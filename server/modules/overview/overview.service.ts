@@ -5,6 +5,10 @@ import {
   JOURNEYS_LISTED, ON_OXYGEN_MONTHS, type AdminOverview, type ConsultantOverview, type CoordinatorOverview, type MonthCount,
 } from '@shared/schemas/overview';
 import { unmetInEvidence } from '@shared/schedule/step-down-rules';
+import { missingForDischarge } from '@shared/discharge/readiness';
+import { SETTING_APPROVED_KEY } from '@shared/schemas/discharge-policy';
+import { DISCHARGES_LISTED } from '@shared/schemas/overview';
+import { todayIn } from '../../lib/dates';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { JOURNEY_ACL_COLUMNS } from '../../db/repositories/journeys.repository';
@@ -27,15 +31,37 @@ export function createOverviewService(repos: AppRepos) {
     return rows.map((r) => ({ month: r.month, count: r.n }));
   }
 
+  /** Babies going home: a date from today on, or work begun; each with what is still missing under the current policy. */
+  async function dischargesAhead(ability: AppAbility, c: OverviewCaller): Promise<CoordinatorOverview['discharges']> {
+    const [rows, policy] = await Promise.all([
+      // Counted from at most 500 rows: far more than a programme has about to go home at once.
+      repos.discharges.upcoming(infants(ability), todayIn(c.timeZone, c.now), 500),
+      repos.policies.current(c.programmeId),
+    ]);
+    const rules = policy.settings.discharge.items;
+    const labels = new Map<string, string>([[SETTING_APPROVED_KEY, 'Setting approved by a consultant'], ...rules.map((r) => [r.key, r.label] as [string, string])]);
+    const babies = rows.map((r) => ({
+      infantId: r.infant_id, infantName: r.infant_name, dischargedOn: r.discharged_on,
+      missing: missingForDischarge(rules, r.done_keys.map((key) => ({ key, done: true, evidence: null })), r.setting_approved)
+        .map((key) => ({ key, label: labels.get(key) ?? key })),
+    }));
+    return {
+      withDate: babies.filter((b) => b.dischargedOn).length,
+      preparing: babies.filter((b) => !b.dischargedOn).length,
+      babies: babies.slice(0, DISCHARGES_LISTED),
+    };
+  }
+
   return {
     async coordinator(ability: AppAbility, c: OverviewCaller): Promise<CoordinatorOverview> {
-      const [statuses, signOff, overdue, messages, journeys, months] = await Promise.all([
+      const [statuses, signOff, overdue, messages, journeys, months, discharges] = await Promise.all([
         overview.babiesByStatus(infants(ability)),
         overview.proposalsWaiting(accessibleWhere(ability, 'read', 'Prescription', PRESCRIPTION_ACL_COLUMNS)),
         overview.overdueChecks(infants(ability), c.now),
         overview.messagesByStatus(c.programmeId, infants(ability), ['failed', 'unknown'], null),
         overview.journeysWaiting(accessibleWhere(ability, 'read', 'Journey', JOURNEY_ACL_COLUMNS), JOURNEYS_LISTED),
         onOxygenByMonth(ability, c),
+        dischargesAhead(ability, c),
       ]);
       return {
         role: 'coordinator', asOf: c.now.toISOString(),
@@ -49,6 +75,7 @@ export function createOverviewService(repos: AppRepos) {
             id: j.id, infantName: j.infant_name, destinationName: j.destination_name, departOn: j.depart_on, waitingSince: iso(j.created_at)!,
           })),
         },
+        discharges,
         onOxygenByMonth: months,
       };
     },

@@ -6,6 +6,7 @@ import { OurPlan } from '../../features/family/components/our-plan';
 import { useOurBabies } from '../../features/family/api/get-our-babies';
 import { ReadingForm } from '../../features/readings/components/reading-form';
 import { NextVisits } from '../../features/visits/components/next-visits';
+import { FamilyDischarge } from '../../features/discharge/components/family-discharge';
 import { SavedNote } from '../../components/ui/saved-note';
 import { CylinderLinkCard } from '../../features/family/components/cylinder-link-card';
 import { EmergencySection } from '../../features/family/components/emergency-section';
@@ -54,6 +55,7 @@ export function Component() {
       <OurPlan />
       <NextVisits infantId={baby?.id} />
       {baby && <TripSoon infantId={baby.id} today={today} />}
+      {baby && <FamilyDischarge infantId={baby.id} today={today} />}
       <div className="flex flex-col gap-3">
         <WhoToCall />
         {baby && <CylinderLinkCard href={withBaby('/family/cylinder')} />}

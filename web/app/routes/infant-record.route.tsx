@@ -25,6 +25,7 @@ import { StepEvidenceSection } from '../../features/monitoring/components/step-e
 import { readingsDescription, targetBand } from '../../features/monitoring/components/target-band';
 import { RecordingsSection } from '../../features/recordings/components/recordings-section';
 import { VisitsSection } from '../../features/visits/components/visits-section';
+import { DischargeSection } from '../../features/discharge/components/discharge-section';
 import { useAppAbility } from '../../lib/ability';
 import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 import { useSignedInUser } from '../../lib/signed-in-user';
@@ -84,6 +85,7 @@ function Monitoring({ infant, versions }: { infant: InfantDetail; versions: Pres
 export function Component() {
   const { id = '' } = useParams();
   const ability = useAppAbility();
+  const user = useSignedInUser();
   const infant = useInfant(id);
   usePageTitle('Record', infant.data?.name);
   const prescriptions = useInfantPrescriptions(id);
@@ -96,6 +98,13 @@ export function Component() {
   if (fallback || !infant.data) return fallback;
 
   const canEdit = ability.can('update', 'Infant');
+  // The same rules as the API: a fresh object per check (CASL stamps the subject type on it).
+  const own = (): Record<string, unknown> => ({ programmeId: user.programmeId, infantId: infant.data!.id, nurseId: infant.data!.nurse?.id ?? null });
+  const dischargeRights = {
+    canChange: ability.can('update', subject('Discharge', own())),
+    canOverride: ability.can('approve', subject('Discharge', own())),
+    canBookVisit: ability.can('create', subject('Visit', own())),
+  };
   return (
     <>
       <InfantHeader infant={infant.data} />
@@ -115,6 +124,7 @@ export function Component() {
           <Monitoring infant={infant.data} versions={versions} />
         </div>
         <div className="flex min-w-0 flex-col gap-6">
+          <DischargeSection infantId={infant.data.id} rights={dischargeRights} />
           <DetailsSection infant={infant.data} canEdit={canEdit} />
           <ContactsSection infant={infant.data} canEdit={canEdit} />
           <JourneysSection infantId={infant.data.id} canRequest={ability.can('create', 'Journey')} />

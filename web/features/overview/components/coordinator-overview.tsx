@@ -4,6 +4,7 @@ import { Card } from '../../../components/ui/card';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { useOverview } from '../api/get-overview';
 import { BabiesByStatus } from './babies-by-status';
+import { DischargesCard } from './discharges-card';
 import { FigureGrid, FigureLink } from './figure-link';
 import { OverviewLoadState } from './load-state';
 import { OnOxygenCard } from './on-oxygen-card';
@@ -46,12 +47,15 @@ export function CoordinatorFigures({ o }: { o: Data }) {
           detail={messages.unknown ? `and ${messages.unknown} not known to have arrived` : 'to families and staff'} />
         <FigureLink to="#journeys-waiting" count={journeysWaiting.count} label={plural(journeysWaiting.count, 'journey check waiting', 'journey checks waiting')}
           detail={oldest(journeysWaiting.oldestSince, o.asOf, 'Nothing waiting')} />
+        <FigureLink to="#going-home" count={o.discharges.withDate} label={plural(o.discharges.withDate, 'baby with a discharge date', 'babies with a discharge date')}
+          detail={`${o.discharges.preparing} more being prepared`} />
       </FigureGrid>
       <div className="grid gap-4 lg:grid-cols-2">
         <Card title="Babies by status">
           <BabiesByStatus rows={o.babiesByStatus} />
         </Card>
         <JourneysWaiting o={o} />
+        <DischargesCard discharges={o.discharges} />
         <OnOxygenCard months={o.onOxygenByMonth} />
       </div>
     </div>

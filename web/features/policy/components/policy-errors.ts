@@ -13,10 +13,12 @@ const FIELD_PATHS = new Set(settingPaths(DEFAULT_POLICY_SETTINGS, 'settings'));
 const ROW_LISTS = {
   'settings.contacts.phones': ['label', 'number', 'when'],
   'settings.supply.cylinders': ['id', 'name', 'contentLitres', 'unit', 'fullPressure', 'residualPressure'],
+  'settings.discharge.items': ['key', 'label', 'group', 'evidence', 'familySees', 'familyLabel', 'source'],
 } as const;
 
 function rowCount(values: PolicyFormValues, list: keyof typeof ROW_LISTS): number {
-  return list === 'settings.contacts.phones' ? values.settings.contacts.phones.length : values.settings.supply.cylinders.length;
+  if (list === 'settings.contacts.phones') return values.settings.contacts.phones.length;
+  return list === 'settings.supply.cylinders' ? values.settings.supply.cylinders.length : values.settings.discharge.items.length;
 }
 
 /**

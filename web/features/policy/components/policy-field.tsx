@@ -16,6 +16,7 @@ type NumberPath =
   | 'settings.reminders.signOffWaitingHours'
   | 'settings.reminders.failureAlertPeriodMinutes'
   | 'settings.supply.reservePercent'
+  | 'settings.discharge.firstVisitDaysAfterDischarge'
   | `settings.supply.cylinders.${number}.${'contentLitres' | 'fullPressure' | 'residualPressure'}`;
 
 interface NumberSettingProps {

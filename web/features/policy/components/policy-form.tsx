@@ -16,6 +16,7 @@ import { OximetrySection, ScheduleSection, SteppingDownSection, TargetsSection }
 import { toFormValues, type PolicyFormValues } from './policy-values';
 import { RemindersSection } from './reminders-section';
 import { SupplySection } from './supply-section';
+import { DischargeSection } from './discharge-section';
 
 export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boolean }) {
   const queryClient = useQueryClient();
@@ -65,6 +66,7 @@ export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boo
           <ReadingsSection />
           <RemindersSection />
           <ContactsSection />
+          <DischargeSection />
         </fieldset>
         {!readOnly && (
           <div className="sticky bottom-20 z-10 flex flex-wrap items-center gap-3 rounded-2xl border border-surface-200 bg-surface-0 p-3 shadow-md lg:bottom-4">

@@ -7,7 +7,8 @@ type TextPath =
   | `settings.reminders.${Exclude<keyof PolicyFormValues['settings']['reminders'], 'signOffWaitingHours' | 'failureAlertPeriodMinutes'>}`
   | 'settings.contacts.emergencyNumber'
   | `settings.contacts.phones.${number}.${'label' | 'number' | 'when'}`
-  | `settings.supply.cylinders.${number}.${'id' | 'name'}`;
+  | `settings.supply.cylinders.${number}.${'id' | 'name'}`
+  | `settings.discharge.items.${number}.${'key' | 'label' | 'familyLabel' | 'source'}`;
 
 interface TextSettingProps {
   name: TextPath;
@@ -32,7 +33,7 @@ export function TextSetting({ name, label, hint, type = 'text', className = '', 
 }
 
 /** A message about a whole list (too many rows, two cylinders with one code), from zod or from the server. */
-export function ListError({ name }: { name: 'settings.contacts.phones' | 'settings.supply.cylinders' }) {
+export function ListError({ name }: { name: 'settings.contacts.phones' | 'settings.supply.cylinders' | 'settings.discharge.items' }) {
   const { formState } = useFormContext<PolicyFormValues>();
   const message = (get(formState.errors, name) as FieldError | undefined)?.message
     ?? (get(formState.errors, `${name}.root`) as FieldError | undefined)?.message;

@@ -3,7 +3,7 @@ import { InPageLink } from '../../../components/ui/in-page-link';
 /** The form's sections in page order; each `Section` takes its id from its title, so the links always land. */
 export const POLICY_SECTION_TITLES = [
   'Saturation targets', 'Check schedule', 'Stepping down', 'Overnight oximetry analysis', 'Flowmeter and cannula', 'Cylinders',
-  'Readings', 'Reminders', 'Numbers for families',
+  'Readings', 'Reminders', 'Numbers for families', 'Discharge checklist',
 ] as const;
 
 export const policySectionId = (title: string) => `settings-${title.toLowerCase().replace(/[^a-z0-9]+/g, '-')}`;

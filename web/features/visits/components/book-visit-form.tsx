@@ -15,10 +15,11 @@ type Values = z.input<typeof bookVisitSchema>;
 const FIELDS = ['kind', 'date', 'time', 'durationMinutes', 'staffId', 'purpose'] as const;
 const DEFAULTS = { kind: 'home_visit', date: '', time: '', durationMinutes: 45, staffId: '', purpose: '' } satisfies Values;
 
-export function BookVisitForm({ infantId, onClose }: { infantId: string; onClose: () => void }) {
+/** `initial` fills boxes ahead (the proposed first visit after discharge: its date and purpose). */
+export function BookVisitForm({ infantId, onClose, initial }: { infantId: string; onClose: () => void; initial?: Partial<Values> }) {
   const book = useBookVisit(infantId);
   const team = useVisitStaff();
-  const form = useForm<Values, unknown, BookVisitInput>({ resolver: zodResolver(bookVisitSchema), defaultValues: DEFAULTS });
+  const form = useForm<Values, unknown, BookVisitInput>({ resolver: zodResolver(bookVisitSchema), defaultValues: { ...DEFAULTS, ...initial } });
   const { register, formState: { errors, submitCount }, setError } = form;
 
   const onSubmit = form.handleSubmit((input) =>

@@ -1,0 +1,55 @@
+import type { Discharge, DischargeItem } from '@shared/schemas/discharge';
+import type { DischargeItemRule } from '@shared/schemas/discharge-policy';
+import { familyItems, missingForDischarge, sortByGroup } from '@shared/discharge/readiness';
+import type { DischargeEntity, DischargeItemEntity } from '../../db/entities/discharge.entity';
+
+export interface ViewFacts {
+  rules: readonly DischargeItemRule[];
+  states: readonly DischargeItemEntity[];
+  step: DischargeEntity | null;
+  settingApproved: boolean;
+  names: Map<string, string>;
+  bookedVisitId: string | null;
+}
+
+const person = (id: string | null, names: Map<string, string>) => (id ? { id, name: names.get(id) ?? '' } : null);
+
+/** The staff view: every item of the programme's checklist with what is stored for it, in group order. */
+export function staffView(f: ViewFacts): Discharge {
+  const byKey = new Map(f.states.map((s) => [s.key, s]));
+  const items: DischargeItem[] = sortByGroup(f.rules).map((r) => {
+    const s = byKey.get(r.key);
+    return {
+      key: r.key, label: r.label, group: r.group, evidenceNeeded: [...r.evidence], source: r.source,
+      done: s?.done ?? false, doneBy: s?.done ? person(s.doneBy, f.names) : null, doneAt: s?.done && s.doneAt ? s.doneAt.toISOString() : null,
+      note: s?.note ?? '', evidence: s?.done ? s.evidence : null,
+    };
+  });
+  const missing = missingForDischarge(f.rules, f.states, f.settingApproved);
+  const step = f.step;
+  return {
+    items, ready: missing.length === 0, missing, settingApproved: f.settingApproved, dischargedOn: step?.dischargedOn ?? null,
+    override: step?.dischargedOn && step.overrideReason
+      ? { reason: step.overrideReason, by: person(step.setBy, f.names), missing: step.overrideMissing } : null,
+    firstVisit: step?.firstVisitOn ? { proposedOn: step.firstVisitOn, bookedVisitId: f.bookedVisitId } : null,
+  };
+}
+
+/**
+ * The family's view: only the training and home-safety items marked for them, in their plain words, without
+ * who ticked them, notes, evidence or anything about equipment, orders, follow-up work or letters.
+ */
+export function familyView(f: ViewFacts): Discharge {
+  const staff = staffView(f);
+  const mine = familyItems(f.rules);
+  const done = new Map(staff.items.map((i) => [i.key, i]));
+  const items: DischargeItem[] = mine.map((r) => ({
+    key: r.key, label: r.familyLabel, group: r.group, evidenceNeeded: [], source: '',
+    done: done.get(r.key)?.done ?? false, doneBy: null, doneAt: done.get(r.key)?.doneAt ?? null, note: '', evidence: null,
+  }));
+  const keys = new Set(mine.map((r) => r.key));
+  return {
+    items, ready: staff.ready, missing: staff.missing.filter((k) => keys.has(k)), settingApproved: staff.settingApproved,
+    dischargedOn: staff.dischargedOn, override: null, firstVisit: staff.firstVisit,
+  };
+}
