@@ -48,6 +48,9 @@ import { createCarePlanService } from './modules/care-plan/care-plan.service';
 import { carePlanRouter } from './modules/care-plan/care-plan.router';
 import { overviewRouter } from './modules/overview/overview.router';
 import { createOverviewService } from './modules/overview/overview.service';
+import { createEquipmentOrdersService } from './modules/equipment-orders/equipment-orders.service';
+import { equipmentOrdersRouters, supplierRouter } from './modules/equipment-orders/equipment-orders.router';
+import { createSupplierService } from './modules/equipment-orders/supplier.service';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -139,8 +142,15 @@ export function createApp(deps: AppDeps): Express {
   api.use('/infants', journeys.infants, carePlanRouter(createCarePlanService(repos)));
   api.use('/journeys', journeys.journeys);
   api.use('/overview', overviewRouter(createOverviewService(repos), deps.clock));
+  // Equipment orders to the supplier (issue 16).
+  const supplierLinks = { publicUrl: env.PUBLIC_URL, secret: env.SUPPLIER_LINK_SECRET, days: env.SUPPLIER_LINK_DAYS };
+  const orders = equipmentOrdersRouters(createEquipmentOrdersService({ ds: deps.ds, repos, mail: deps.mail, link: supplierLinks, logger, clock: deps.clock }));
+  api.use('/infants', orders.infants);
+  api.use('/equipment-orders', orders.orders);
   api.use(apiNotFound);
   app.use('/api', api);
+  // The supplier's side of an order: outside /api and its sessions; the signed link is the credential.
+  app.use('/supplier-api', supplierRouter(createSupplierService(deps.ds, repos, env.SUPPLIER_LINK_SECRET, deps.clock)));
 
   const webDist = path.resolve(env.WEB_DIST);
   if (fs.existsSync(path.join(webDist, 'index.html'))) {

@@ -23,6 +23,7 @@ import { createReminderContentRepository } from './db/repositories/reminder-cont
 import { createJourneysRepository } from './db/repositories/journeys.repository';
 import { createAccountTokensRepository } from './db/repositories/account-tokens.repository';
 import { createOverviewRepository } from './db/repositories/overview.repository';
+import { createEquipmentOrdersRepository } from './db/repositories/equipment-orders.repository';
 import { createMailSender, type MailSender } from './notifications/mail-sender';
 import { createLogger, logEvery, type Logger } from './lib/logger';
 
@@ -63,6 +64,7 @@ export function createRepos(ds: DataSource) {
     reminderContent: createReminderContentRepository(ds),
     accountTokens: createAccountTokensRepository(ds),
     overview: createOverviewRepository(ds),
+    equipmentOrders: createEquipmentOrdersRepository(ds),
   };
 }
 export type AppRepos = ReturnType<typeof createRepos>;

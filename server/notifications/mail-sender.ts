@@ -11,6 +11,8 @@ export interface MailMessage {
   html?: string;
   /** Fixed per reminder, so a repeat after an attempt of unknown outcome is the same message to the recipient's system. */
   messageId?: string;
+  /** Files sent with the message (an equipment order's PDF). */
+  attachments?: Array<{ filename: string; content: Buffer; contentType: string }>;
 }
 
 export interface MailSender {
@@ -60,6 +62,7 @@ export function createMailSender(env: MailEnv, opts: { timeoutMs?: number } = {}
           text: message.text,
           html: message.html,
           messageId: message.messageId,
+          attachments: message.attachments,
         });
         return { providerId: info.messageId };
       } catch (err) {

@@ -19,6 +19,7 @@ export const SUBJECTS = [
   'Journey',
   'StepDown',
   'Preferences',
+  'EquipmentOrder',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -35,7 +36,7 @@ export interface AbilityUser {
 
 type Builder = AbilityBuilder<AppAbility>;
 
-const STAFF_READ_ALL: SubjectName[] = ['Infant', 'Prescription', 'Reading', 'Recording', 'Visit', 'Journey'];
+const STAFF_READ_ALL: SubjectName[] = ['Infant', 'Prescription', 'Reading', 'Recording', 'Visit', 'Journey', 'EquipmentOrder'];
 
 function adminRules({ can }: Builder, p: string) {
   can('read', 'Programme', { id: p });
@@ -57,6 +58,8 @@ function coordinatorRules({ can }: Builder, p: string) {
   // The message log, and sending a failed message again.
   can(['read', 'update'], 'Message', { programmeId: p });
   can('create', 'ConversionPreview');
+  // Orders to the oxygen supplier: the coordinator makes, sends and cancels them (issue 16).
+  can(['create', 'update'], 'EquipmentOrder', { programmeId: p });
 }
 
 function nurseRules({ can }: Builder, p: string, userId: string) {
@@ -65,7 +68,7 @@ function nurseRules({ can }: Builder, p: string, userId: string) {
   can('read', 'Policy', { programmeId: p });
   // A nurse works on their own caseload: the infant rows assigned to them.
   can('read', 'Infant', { programmeId: p, nurseId: userId });
-  can('read', ['Prescription', 'Reading', 'Recording', 'Visit', 'Journey'], { programmeId: p, nurseId: userId });
+  can('read', ['Prescription', 'Reading', 'Recording', 'Visit', 'Journey', 'EquipmentOrder'], { programmeId: p, nurseId: userId });
   can('create', ['Reading', 'Recording', 'Visit', 'StepDown'], { programmeId: p, nurseId: userId });
   can('update', 'Visit', { programmeId: p, nurseId: userId });
   can('create', 'ConversionPreview');

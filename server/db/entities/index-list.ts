@@ -13,9 +13,11 @@ import { RecordingEntity } from './recording.entity';
 import { RecordingSamplesEntity } from './recording-samples.entity';
 import { JourneyEntity } from './journey.entity';
 import { AccountSetupTokenEntity } from './account-setup-token.entity';
+import { EquipmentOrderEntity } from './equipment-order.entity';
 
 // Listed explicitly (no glob) so tsx, Vitest and the TypeORM CLI load the same set.
 export const ENTITIES = [
   ProgrammeEntity, UserEntity, AuditEventEntity, SiteEntity, ProgrammePolicyEntity, InfantEntity, FamilyContactEntity, PrescriptionEntity,
   CheckEntity, ReadingEntity, VisitEntity, RecordingEntity, RecordingSamplesEntity, JourneyEntity, AccountSetupTokenEntity,
+  EquipmentOrderEntity,
 ];

@@ -12,6 +12,7 @@ import { RecordingColumnMappings1765497600000 } from './1765497600000-RecordingC
 import { PhoneNumbersE1641765584000000 } from './1765584000000-PhoneNumbersE164';
 import { OverviewIndexes1765670400000 } from './1765670400000-OverviewIndexes';
 import { ListIndexes1765929600000 } from './1765929600000-ListIndexes';
+import { EquipmentOrders1766275200000 } from './1766275200000-EquipmentOrders';
 
 export const MIGRATIONS = [
   Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000, Visits1764979200000, Reminders1765065600000,
@@ -20,4 +21,5 @@ export const MIGRATIONS = [
   PhoneNumbersE1641765584000000,
   OverviewIndexes1765670400000,
   ListIndexes1765929600000,
+  EquipmentOrders1766275200000,
 ];

@@ -10,7 +10,9 @@ import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { JOURNEY_ACL_COLUMNS } from '../../db/repositories/journeys.repository';
 import { PRESCRIPTION_ACL_COLUMNS } from '../../db/repositories/prescriptions.repository';
 import { USER_ACL_COLUMNS } from '../../db/repositories/users.repository';
+import { ORDER_ACL_COLUMNS } from '../../db/repositories/equipment-orders.repository';
 import type { AppRepos } from '../../deps';
+import { todayIn } from '../../lib/dates';
 
 /** Who is asking: the programme whose figures these are, its time zone (months, weeks) and the instant of "now". */
 export interface OverviewCaller { programmeId: string; timeZone: string; now: Date }
@@ -29,13 +31,14 @@ export function createOverviewService(repos: AppRepos) {
 
   return {
     async coordinator(ability: AppAbility, c: OverviewCaller): Promise<CoordinatorOverview> {
-      const [statuses, signOff, overdue, messages, journeys, months] = await Promise.all([
+      const [statuses, signOff, overdue, messages, journeys, months, orders] = await Promise.all([
         overview.babiesByStatus(infants(ability)),
         overview.proposalsWaiting(accessibleWhere(ability, 'read', 'Prescription', PRESCRIPTION_ACL_COLUMNS)),
         overview.overdueChecks(infants(ability), c.now),
         overview.messagesByStatus(c.programmeId, infants(ability), ['failed', 'unknown'], null),
         overview.journeysWaiting(accessibleWhere(ability, 'read', 'Journey', JOURNEY_ACL_COLUMNS), JOURNEYS_LISTED),
         onOxygenByMonth(ability, c),
+        repos.equipmentOrders.flagCounts(accessibleWhere(ability, 'read', 'EquipmentOrder', ORDER_ACL_COLUMNS), todayIn(c.timeZone, c.now)),
       ]);
       return {
         role: 'coordinator', asOf: c.now.toISOString(),
@@ -50,6 +53,7 @@ export function createOverviewService(repos: AppRepos) {
           })),
         },
         onOxygenByMonth: months,
+        equipmentOrders: orders,
       };
     },
 
