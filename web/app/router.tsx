@@ -31,6 +31,7 @@ const rolePages: RouteObject[] = [
   { path: 'family/journey', lazy: () => import('./routes/family-journey.route') },
   { path: 'family/preferences', lazy: () => import('./routes/family-preferences.route') },
   { path: 'messages', lazy: () => import('./routes/messages.route') },
+  { path: 'equipment-orders', lazy: () => import('./routes/equipment-orders.route') },
 ];
 
 export const appRoutes: RouteObject[] = [
@@ -41,6 +42,8 @@ export const appRoutes: RouteObject[] = [
     children: [
       { path: 'sign-in', lazy: () => import('./routes/sign-in.route') },
       { path: 'set-password', lazy: () => import('./routes/set-password.route') },
+      // The oxygen supplier's page: no session, the signed link in the path is the credential.
+      { path: 'supplier/orders/:token', lazy: () => import('./routes/supplier-order.route') },
       {
         element: <RequireSession />,
         children: [

@@ -23,6 +23,7 @@ import { StepEvidenceSection } from '../../features/monitoring/components/step-e
 import { readingsDescription, targetBand } from '../../features/monitoring/components/target-band';
 import { RecordingsSection } from '../../features/recordings/components/recordings-section';
 import { VisitsSection } from '../../features/visits/components/visits-section';
+import { EquipmentSection } from '../../features/equipment-orders/components/equipment-section';
 import { useAppAbility } from '../../lib/ability';
 import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 import { useSignedInUser } from '../../lib/signed-in-user';
@@ -110,6 +111,9 @@ export function Component() {
           <DetailsSection infant={infant.data} canEdit={canEdit} />
           <ContactsSection infant={infant.data} canEdit={canEdit} />
           <JourneysSection infantId={infant.data.id} canRequest={ability.can('create', 'Journey')} />
+          {ability.can('read', 'EquipmentOrder') && (
+            <EquipmentSection infantId={infant.data.id} familyAddress={infant.data.home.address} canManage={ability.can('create', 'EquipmentOrder')} />
+          )}
           <StepEvidenceSection versions={versions} />
           <VersionsSection versions={versions} />
           {ability.can('read', 'AuditEvent') && prescriptions.data && (
