@@ -16,6 +16,7 @@ import { OximetrySection, ScheduleSection, SteppingDownSection, TargetsSection }
 import { toFormValues, type PolicyFormValues } from './policy-values';
 import { RemindersSection } from './reminders-section';
 import { SupplySection } from './supply-section';
+import { SupplierSettingsSection } from './supplier-settings-section';
 
 export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boolean }) {
   const queryClient = useQueryClient();
@@ -62,6 +63,7 @@ export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boo
           <OximetrySection />
           <EquipmentSection />
           <SupplySection />
+          <SupplierSettingsSection />
           <ReadingsSection />
           <RemindersSection />
           <ContactsSection />
