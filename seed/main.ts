@@ -9,6 +9,7 @@ import { seedJourneys } from './seed-journeys';
 import { seedPolicies } from './seed-policy';
 import { seedHistory } from './seed-history';
 import { seedWaiting } from './seed-waiting';
+import { seedEquipmentOrders } from './seed-equipment';
 
 const env = loadEnv();
 if (env.NODE_ENV === 'production') {
@@ -43,7 +44,8 @@ try {
   // After the others: the overview's year of history and the work waiting on the start pages.
   const history = await seedHistory(deps, 'larkmoor');
   const waiting = await seedWaiting(deps, 'larkmoor');
-  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s), ${journeys} journey check(s), ${history} former baby/babies, ${waiting} waiting item(s)).`);
+  const orders = await seedEquipmentOrders(deps, 'larkmoor');
+  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s), ${journeys} journey check(s), ${history} former baby/babies, ${waiting} waiting item(s), ${orders} equipment order(s)).`);
 } finally {
   await closeDeps(deps);
 }

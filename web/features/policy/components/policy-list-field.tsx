@@ -7,13 +7,14 @@ type TextPath =
   | `settings.reminders.${Exclude<keyof PolicyFormValues['settings']['reminders'], 'signOffWaitingHours' | 'failureAlertPeriodMinutes'>}`
   | 'settings.contacts.emergencyNumber'
   | `settings.contacts.phones.${number}.${'label' | 'number' | 'when'}`
-  | `settings.supply.cylinders.${number}.${'id' | 'name'}`;
+  | `settings.supply.cylinders.${number}.${'id' | 'name'}`
+  | `settings.supplier.${'name' | 'orderEmail' | 'phone'}`;
 
 interface TextSettingProps {
   name: TextPath;
   label: string;
   hint?: string;
-  type?: 'text' | 'time' | 'tel';
+  type?: 'text' | 'time' | 'tel' | 'email';
   className?: string;
   inputMode?: 'text' | 'numeric' | 'tel';
 }
