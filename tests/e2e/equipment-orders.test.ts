@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
+import { axeReport, headingSkips, seriousViolations } from '../helpers/a11y';
 
 const base = inject('baseUrl');
 const fakeMail = inject('fakeMailUrl');
@@ -53,8 +54,14 @@ describe('an equipment order from the coordinator to the supplier and back', () 
     // The supplier has no account: a fresh start with no cookies at all.
     await page.goto('about:blank');
     await browser.context.clearCookies();
+    // The supplier reads it on a phone: axe finds nothing serious there, and the headings do not skip.
+    await page.setViewportSize({ width: 390, height: 844 });
     await page.goto(link);
     await page.getByRole('heading', { level: 1, name: `Equipment order ${reference}` }).waitFor();
+    await page.waitForLoadState('networkidle');
+    expect(axeReport(await seriousViolations(page))).toBe('');
+    expect(await headingSkips(page)).toEqual([]);
+    expect(await page.title()).toBe(`Order ${reference} · Nestflow`);
     expect(await page.getByText('1 × Oxygen concentrator, flow range 0.1–2 L/min').count()).toBe(1);
     await page.getByRole('textbox', { name: 'Delivery date' }).fill(inDays(3));
     await page.getByRole('button', { name: 'Confirm the delivery date' }).click();
@@ -65,7 +72,14 @@ describe('an equipment order from the coordinator to the supplier and back', () 
     // No session was ever made for the supplier (the app shell's signed-out CSRF cookie is all it may hold).
     expect((await browser.context.cookies()).map((c) => c.name)).not.toContain('nestflow.sid');
 
+    await page.setViewportSize({ width: 1280, height: 860 });
     await signInAndLand(browser, base, 'coordinator@larkmoor.example');
+    // The programme's list, reached from the overview's figure: the seeded order never confirmed by its date is flagged.
+    await page.goto(`${base}/equipment-orders?status=open`);
+    await page.getByRole('heading', { level: 1, name: 'Equipment orders' }).waitFor();
+    await page.getByRole('cell').getByText('Not confirmed by the date needed').first().waitFor();
+    await page.waitForLoadState('networkidle');
+    expect(axeReport(await seriousViolations(page))).toBe('');
     await page.goto(`${base}/infants/${baby.id}`);
     await section.getByText(/^Delivered and cancelled orders/).click();
     const done = section.getByRole('listitem', { name: `Order ${reference}` });
