@@ -48,7 +48,7 @@ describe('POST /api/infants/:id/equipment-orders', () => {
     const { infant, coord, clinic } = await babyWithSupplier();
     const res = await post(coord, `/api/infants/${infant.id}/equipment-orders`, order()).expect(201);
     expect(res.body.order).toMatchObject({ status: 'sent', reference: 'EQ-00001', deliveryAddress: '1 Test Row, Cindermoor' });
-    const mail = await mailTo(ctx.mail, SUPPLIER_EMAIL, /EQ-00001/);
+    const mail = await mailTo(ctx.mail, SUPPLIER_EMAIL, new RegExp(`EQ-00001 from ${clinic.programme.name}`));
     expect(mail.subject).toBe(`Equipment order EQ-00001 from ${clinic.programme.name}: needed by 5 Dec 2026`);
     expect(mail.text).toContain('http://nestflow.test/supplier/orders/');
     const pdf = pdfAttachment(mail);
@@ -70,7 +70,7 @@ describe('POST /api/infants/:id/equipment-orders', () => {
   });
 
   it('when send is false, then the order is drafted and nothing is e-mailed until the coordinator sends it', async () => {
-    const { infant, coord } = await babyWithSupplier();
+    const { infant, coord, clinic } = await babyWithSupplier();
     const before = mailsTo(ctx.mail, SUPPLIER_EMAIL).length;
     const res = await post(coord, `/api/infants/${infant.id}/equipment-orders`, order({ send: false, deliveryAddress: '4 Gull Lane\nHarrowby' })).expect(201);
     expect(res.body.order).toMatchObject({ status: 'drafted', deliveryAddress: '4 Gull Lane\nHarrowby' });
@@ -78,7 +78,7 @@ describe('POST /api/infants/:id/equipment-orders', () => {
     const sent = await post(coord, `/api/equipment-orders/${res.body.order.id}/send`, {}).expect(200);
     expect(sent.body.order.status).toBe('sent');
     expect(sent.body.order.history.map((h: { status: string }) => h.status)).toEqual(['drafted', 'sent']);
-    await mailTo(ctx.mail, SUPPLIER_EMAIL, new RegExp(res.body.order.reference));
+    await mailTo(ctx.mail, SUPPLIER_EMAIL, new RegExp(`${res.body.order.reference} from ${clinic.programme.name}`));
     await post(coord, `/api/equipment-orders/${res.body.order.id}/send`, {}).expect(409);
   });
 
@@ -107,6 +107,20 @@ describe('POST /api/infants/:id/equipment-orders', () => {
     const audit = (await coord.get(`/api/infants/${infant.id}/audit`).expect(200)).body.items;
     const failed = audit.find((e: { action: string }) => e.action === 'equipment_order.send_failed');
     expect(auditWords(failed.action, failed.details)).toMatch(/^Equipment order EQ-\d{5} could not be sent: The programme settings have no supplier order address$/);
+  });
+});
+
+describe('a refused e-mail', () => {
+  it('when the mail service refuses the order, then it stays failed with the reason, flagged, and sending again delivers it', async () => {
+    const { infant, coord, clinic } = await babyWithSupplier();
+    // The fake's failure switch: the next transaction is refused with a permanent 550.
+    await fetch(`http://127.0.0.1:${ctx.mail.httpPort}/fail`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ mode: '4xx', count: 1 }) });
+    const res = await post(coord, `/api/infants/${infant.id}/equipment-orders`, order()).expect(201);
+    expect(res.body.order).toMatchObject({ status: 'failed', flags: ['send_failed'], failureReason: expect.stringMatching(/^Mail rejected: .*550/) });
+    expect(res.body.order.history.map((h: { status: string }) => h.status)).toEqual(['drafted', 'failed']);
+    const again = await post(coord, `/api/equipment-orders/${res.body.order.id}/send`, {}).expect(200);
+    expect(again.body.order).toMatchObject({ status: 'sent', flags: [], failureReason: null });
+    await mailTo(ctx.mail, SUPPLIER_EMAIL, new RegExp(`${res.body.order.reference} from ${clinic.programme.name}`));
   });
 });
 
@@ -199,10 +213,10 @@ describe('the supplier’s signed link', () => {
   });
 
   it('when the coordinator cancels a sent order, then the supplier is told and the link shows it cancelled', async () => {
-    const { token, made, coord } = await sentOrder();
+    const { token, made, coord, clinic } = await sentOrder();
     await post(coord, `/api/equipment-orders/${made.id}/cancel`, { reason: 'x' }).expect(400);
     expect((await post(coord, `/api/equipment-orders/${made.id}/cancel`, { reason: 'Discharge postponed' }).expect(200)).body.order.status).toBe('cancelled');
-    await mailTo(ctx.mail, SUPPLIER_EMAIL, new RegExp(`^Cancelled: order ${made.reference}`));
+    await mailTo(ctx.mail, SUPPLIER_EMAIL, new RegExp(`^Cancelled: order ${made.reference} from ${clinic.programme.name}`));
     expect((await supplier(token).get().expect(200)).body.order.status).toBe('cancelled');
     await supplier(token).confirm('2026-12-04').expect(409);
     await post(coord, `/api/equipment-orders/${made.id}/cancel`, { reason: 'Again' }).expect(409);
