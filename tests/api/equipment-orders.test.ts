@@ -90,6 +90,8 @@ describe('POST /api/infants/:id/equipment-orders', () => {
     expect(Object.keys(res.body.error.details)).toEqual(expect.arrayContaining(['items.0.flowMaxLpm', 'items.1.quantity', 'items.1.size', 'neededBy']));
     const unknown = await post(coord, `/api/infants/${infant.id}/equipment-orders`, order({ items: [{ kind: 'static_cylinder', quantity: 1, size: 'huge' }, { kind: 'oximeter', quantity: 1 }] })).expect(400);
     expect(unknown.body.error.details).toMatchObject({ 'items.0.size': [expect.any(String)], 'items.1.kind': ['The programme does not lend oximeters (programme settings)'] });
+    const past = await post(coord, `/api/infants/${infant.id}/equipment-orders`, order({ neededBy: '2026-11-30' })).expect(400);
+    expect(past.body.error.details).toEqual({ neededBy: ['The date needed cannot be in the past'] });
     expect((await coord.get(`/api/infants/${infant.id}/equipment-orders`).expect(200)).body.items).toEqual([]);
   });
 
@@ -173,6 +175,15 @@ describe('the supplier’s signed link', () => {
     expect(res.body.order).toMatchObject({ status: 'sent', recipient: `The ${infant.familyName} family`, neededBy: '2026-12-05', linkExpiresAt: '2026-12-19T23:59:59.000Z',
       programme: { phone: '01632 960001', phoneDial: '+441632960001' } });
     expect(JSON.stringify(res.body)).not.toMatch(/lung|diagnos|spo2|birth/i);
+  });
+
+  it('when the supplier sends a broken body or a bad date, then 400 with the reason and nothing changes', async () => {
+    const { token } = await sentOrder();
+    const broken = await request(ctx.app).post(`/supplier-api/orders/${token}/confirm`).set('Content-Type', 'application/json').send('{"deliveryOn":').expect(400);
+    expect(broken.body.error.requestId).toBeDefined();
+    expect((await supplier(token).confirm('4 Dec').expect(400)).body.error.details).toEqual({ deliveryOn: ['Use a date like 2026-12-03'] });
+    await request(ctx.app).post(`/supplier-api/orders/${token}/confirm`).send({ deliveryOn: '2026-12-04', extra: 1 }).expect(400);
+    expect((await supplier(token).get().expect(200)).body.order.status).toBe('sent');
   });
 
   it('when the link is tampered with, signed for another order, or expired, then a readable refusal and no order data', async () => {

@@ -97,8 +97,9 @@ export function createEquipmentOrdersService({ ds, repos, mail, link, logger, cl
       return ds.transaction(async (m) => {
         const infant = await visibleInfant(ability, infantId, m);
         if (!ability.can('create', subject('EquipmentOrder', own(infant)))) throw new NotFoundError('No such baby in your records.');
-        const { settings } = await context(infant.programmeId, m);
+        const { settings, timeZone } = await context(infant.programmeId, m);
         checkItems(input, settings);
+        if (input.neededBy < todayIn(timeZone, clock.now())) throw new ValidationError({ neededBy: ['The date needed cannot be in the past'] });
         const order = await insertOrder(repos, m, infant, {
           purpose: input.purpose, items: input.items, neededBy: input.neededBy, deliveryAddress: input.deliveryAddress ?? infant.homeAddress,
           note: input.note ?? null, automaticReason: null,
