@@ -80,11 +80,12 @@ export const ordersQuerySchema = z.strictObject({
 });
 export type OrdersQuery = z.infer<typeof ordersQuerySchema>;
 
-export const ORDER_FLAGS = ['send_failed', 'unconfirmed_by_needed_date'] as const;
+export const ORDER_FLAGS = ['send_failed', 'unconfirmed_by_needed_date', 'delivery_after_needed_date'] as const;
 export type OrderFlag = (typeof ORDER_FLAGS)[number];
 export const ORDER_FLAG_LABELS: Record<OrderFlag, string> = {
   send_failed: 'The e-mail to the supplier failed',
   unconfirmed_by_needed_date: 'Not confirmed by the date needed',
+  delivery_after_needed_date: 'The supplier’s delivery date is after the date needed',
 };
 
 export const orderHistoryEntrySchema = z.object({

@@ -208,18 +208,22 @@ describe('the supplier’s signed link', () => {
     const { token, made, coord, infant } = await sentOrder();
     await supplier(token).delivered().expect(409);
     await supplier(token).confirm('2026-11-30').expect(400);
+    // A date after the one needed is taken, and flagged for the coordinator until a better one comes.
+    await supplier(token).confirm('2026-12-08').expect(200);
+    expect((await coord.get(`/api/infants/${infant.id}/equipment-orders`).expect(200)).body.items[0].flags).toEqual(['delivery_after_needed_date']);
     expect((await supplier(token).confirm('2026-12-04').expect(200)).body.order).toMatchObject({ status: 'confirmed', deliveryOn: '2026-12-04' });
     expect((await supplier(token).delivered().expect(200)).body.order).toMatchObject({ status: 'delivered', deliveredAt: NOW.replace('Z', '.000Z') });
     await supplier(token).confirm('2026-12-06').expect(409);
     const [seen] = (await coord.get(`/api/infants/${infant.id}/equipment-orders`).expect(200)).body.items;
     expect(seen).toMatchObject({ id: made.id, status: 'delivered', deliveryOn: '2026-12-04', flags: [] });
     expect(seen.history.map((h: { status: string; by: string }) => [h.status, h.by])).toEqual([
-      ['drafted', expect.stringMatching(/^Test coordinator/)], ['sent', expect.stringMatching(/^Test coordinator/)], ['confirmed', 'Supplier'], ['delivered', 'Supplier'],
+      ['drafted', expect.stringMatching(/^Test coordinator/)], ['sent', expect.stringMatching(/^Test coordinator/)], ['confirmed', 'Supplier'], ['confirmed', 'Supplier'],
+      ['delivered', 'Supplier'],
     ]);
     const audit = (await coord.get(`/api/infants/${infant.id}/audit`).expect(200)).body.items;
     const confirmed = audit.find((e: { action: string }) => e.action === 'equipment_order.confirmed');
     expect(confirmed.actor).toBeNull();
-    expect(auditWords(confirmed.action, confirmed.details)).toBe(`The supplier confirmed delivery of order ${made.reference} for Fri, 4 Dec 2026`);
+    expect(auditWords(confirmed.action, confirmed.details)).toBe(`The supplier confirmed delivery of order ${made.reference} for Fri, 4 Dec 2026 (was Tue, 8 Dec 2026)`);
     expect(audit.map((e: { action: string }) => e.action)).toContain('equipment_order.delivered');
   });
 

@@ -2,11 +2,12 @@ import { UNCONFIRMED_STATUSES, type EquipmentOrder, type OrderFlag } from '@shar
 import type { EquipmentOrderEntity, StoredHistoryEntry } from '../../db/entities/equipment-order.entity';
 import type { AppRepos } from '../../deps';
 
-/** Flags the coordinator must see: the e-mail failed, or the supplier has not confirmed by the date needed. */
-export function orderFlags(o: Pick<EquipmentOrderEntity, 'status' | 'neededBy'>, today: string): OrderFlag[] {
+/** Flags the coordinator must see: the e-mail failed, the supplier has not confirmed by the date needed, or will come too late. */
+export function orderFlags(o: Pick<EquipmentOrderEntity, 'status' | 'neededBy' | 'deliveryOn'>, today: string): OrderFlag[] {
   const flags: OrderFlag[] = [];
   if (o.status === 'failed') flags.push('send_failed');
   if (UNCONFIRMED_STATUSES.includes(o.status) && o.neededBy <= today) flags.push('unconfirmed_by_needed_date');
+  if (o.status === 'confirmed' && o.deliveryOn !== null && o.deliveryOn > o.neededBy) flags.push('delivery_after_needed_date');
   return flags;
 }
 

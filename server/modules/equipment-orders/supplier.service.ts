@@ -4,6 +4,7 @@ import { EQUIPMENT_KIND_LABELS, itemDetail, type SupplierOrderView } from '@shar
 import type { EquipmentOrderEntity } from '../../db/entities/equipment-order.entity';
 import type { AppRepos } from '../../deps';
 import { systemClock, type Clock } from '../../lib/clock';
+import { todayIn } from '../../lib/dates';
 import { AppError, ConflictError, ValidationError } from '../../lib/errors';
 import { historyEntry } from './orders.mapper';
 import { cylinderNamesOf, recipientOf } from './order-mail';
@@ -73,7 +74,7 @@ export function createSupplierService(ds: DataSource, repos: AppRepos, secret: s
       return ds.transaction(async (m) => {
         const { order, expiresAt } = await lockByToken(token, m);
         if (order.status !== 'sent' && order.status !== 'confirmed') throw new ConflictError(`This order is ${order.status}: nothing to confirm.`);
-        const today = clock.now().toISOString().slice(0, 10);
+        const today = todayIn((await repos.programmes.findById(order.programmeId))?.timeZone ?? 'UTC', clock.now());
         if (deliveryOn < today) throw new ValidationError({ deliveryOn: ['The delivery date cannot be in the past'] });
         const before = order.deliveryOn;
         order.deliveryOn = deliveryOn;
