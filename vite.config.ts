@@ -64,7 +64,7 @@ export default defineConfig({
   server: {
     port: 5173,
     strictPort: true,
-    proxy: { '/api': { target: 'http://127.0.0.1:3000' } },
+    proxy: { '/api': { target: 'http://127.0.0.1:3000' }, '/supplier-api': { target: 'http://127.0.0.1:3000' } },
   },
   build: {
     outDir: 'dist/web',

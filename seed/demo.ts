@@ -8,6 +8,7 @@ import { seedPolicies } from './seed-policy';
 import { seedHistory } from './seed-history';
 import { seedWaiting } from './seed-waiting';
 import { seedDischarges } from './seed-discharges';
+import { seedEquipmentOrders } from './seed-equipment';
 
 /** The whole demo scenario, in order; `npm run seed` runs it, and tests that need the demo babies call it too. */
 export async function seedDemo(deps: AppDeps) {
@@ -21,5 +22,6 @@ export async function seedDemo(deps: AppDeps) {
   const history = await seedHistory(deps, 'larkmoor');
   const waiting = await seedWaiting(deps, 'larkmoor');
   const discharges = await seedDischarges(deps, 'larkmoor');
-  return { people, babies, studies, visits, journeys, history, waiting, discharges };
+  const orders = await seedEquipmentOrders(deps, 'larkmoor');
+  return { people, babies, studies, visits, journeys, history, waiting, discharges, orders };
 }

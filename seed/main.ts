@@ -27,8 +27,8 @@ if (scaleAt !== -1) {
   process.exit(0);
 }
 try {
-  const { people, babies, studies, visits, journeys, history, waiting, discharges } = await seedDemo(deps);
-  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s), ${journeys} journey check(s), ${history} former baby/babies, ${waiting} waiting item(s), ${discharges} baby/babies at a discharge stage).`);
+  const { people, babies, studies, visits, journeys, history, waiting, discharges, orders } = await seedDemo(deps);
+  console.log(`Demo scenario ready (added ${people.programmes} programme(s), ${people.people} person(s), ${babies} baby/babies, ${studies} overnight study/studies, ${visits} visit(s), ${journeys} journey check(s), ${history} former baby/babies, ${waiting} waiting item(s), ${discharges} baby/babies at a discharge stage, ${orders} equipment order(s)).`);
 } finally {
   await closeDeps(deps);
 }

@@ -65,6 +65,9 @@ import { createAuditChainMail } from './notifications/audit-chain-mail';
 import { dischargeRouter } from './modules/discharge/discharge.router';
 import { createDischargeService } from './modules/discharge/discharge.service';
 import { createDischargeLetterService } from './modules/discharge/discharge-letter.service';
+import { createEquipmentOrdersService } from './modules/equipment-orders/equipment-orders.service';
+import { equipmentOrdersRouters, supplierRouter } from './modules/equipment-orders/equipment-orders.router';
+import { createSupplierService } from './modules/equipment-orders/supplier.service';
 
 /** Builds the HTTP app; never listens (main.ts does, tests use Supertest). */
 export function createApp(deps: AppDeps): Express {
@@ -168,8 +171,15 @@ export function createApp(deps: AppDeps): Express {
   const audit = auditRouters(createAuditChainService(repos, logger, now, { mail: createAuditChainMail(deps.mail) }), createReadsService(repos));
   api.use('/audit', audit.audit);
   api.use('/infants', audit.infants);
+  // Equipment orders to the supplier (issue 16).
+  const supplierLinks = { publicUrl: env.PUBLIC_URL, secret: env.SUPPLIER_LINK_SECRET, days: env.SUPPLIER_LINK_DAYS };
+  const orders = equipmentOrdersRouters(createEquipmentOrdersService({ ds: deps.ds, repos, mail: deps.mail, link: supplierLinks, logger, clock: deps.clock }));
+  api.use('/infants', orders.infants);
+  api.use('/equipment-orders', orders.orders);
   api.use(apiNotFound);
   app.use('/api', api);
+  // The supplier's side of an order: outside /api and its sessions; the signed link is the credential.
+  app.use('/supplier-api', supplierRouter(createSupplierService(deps.ds, repos, env.SUPPLIER_LINK_SECRET, deps.clock)));
 
   const webDist = path.resolve(env.WEB_DIST);
   if (fs.existsSync(path.join(webDist, 'index.html'))) {

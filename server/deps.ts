@@ -25,6 +25,7 @@ import { createJourneysRepository } from './db/repositories/journeys.repository'
 import { createAccountTokensRepository } from './db/repositories/account-tokens.repository';
 import { createOverviewRepository } from './db/repositories/overview.repository';
 import { createDischargesRepository } from './db/repositories/discharges.repository';
+import { createEquipmentOrdersRepository } from './db/repositories/equipment-orders.repository';
 import { createMailSender, type MailSender } from './notifications/mail-sender';
 import { createLogger, logEvery, type Logger } from './lib/logger';
 
@@ -67,6 +68,7 @@ export function createRepos(ds: DataSource) {
     accountTokens: createAccountTokensRepository(ds),
     overview: createOverviewRepository(ds),
     discharges: createDischargesRepository(ds),
+    equipmentOrders: createEquipmentOrdersRepository(ds),
   };
 }
 export type AppRepos = ReturnType<typeof createRepos>;

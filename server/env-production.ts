@@ -6,6 +6,7 @@ const DEFAULT_SMTP_FAKE_PORT = 2526;
 
 interface Checked {
   SESSION_SECRET?: string;
+  SUPPLIER_LINK_SECRET?: string;
   SMTP_HOST: string;
   SMTP_PORT?: number;
   FAKE_SMTP_PORT: number;
@@ -29,6 +30,7 @@ const isLoopbackUrl = (url: string) => {
 export function productionProblems(source: NodeJS.ProcessEnv, env: Checked): string[] {
   const problems: string[] = [];
   if (!env.SESSION_SECRET) problems.push('SESSION_SECRET: is required in production (32+ characters)');
+  if (!env.SUPPLIER_LINK_SECRET) problems.push('SUPPLIER_LINK_SECRET: is required in production (32+ characters; signs the supplier\'s order links)');
   const given = (name: string) => typeof source[name] === 'string' && source[name]!.trim() !== '';
   const need = (name: string, what: string) => {
     if (!given(name)) problems.push(`${name}: is required in production (${what})`);

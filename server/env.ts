@@ -32,6 +32,10 @@ export const envSchema = z
     // Where links in e-mails point (set-up links); defaults to this server's own address.
     PUBLIC_URL: optionalUrl,
     SETUP_LINK_HOURS: z.coerce.number().int().min(1).max(24 * 14).default(72),
+    // Signs the supplier's links to an equipment order (HMAC-SHA256); required in production. Changing it ends every
+    // link already sent. SUPPLIER_LINK_DAYS: how long after the date needed a link keeps working.
+    SUPPLIER_LINK_SECRET: z.string().min(32).optional(),
+    SUPPLIER_LINK_DAYS: z.coerce.number().int().min(1).max(90).default(14),
     WEB_DIST: z.string().default('dist/web'),
     LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
     // Defaults point the senders at the local fakes (fakes/mail, fakes/sms); real credentials reach the hosted ones.
@@ -68,6 +72,7 @@ export const envSchema = z
 type Parsed = z.infer<typeof envSchema>;
 export type Env = Omit<Parsed, 'SMTP_PORT' | 'SMS_API_BASE' | 'MAIL_SEARCH_URL'> & {
   SESSION_SECRET: string;
+  SUPPLIER_LINK_SECRET: string;
   COOKIE_SECURE: boolean;
   SMTP_PORT: number;
   /** Empty: the hosted SMS service. */
@@ -94,6 +99,7 @@ export function parseEnv(source: NodeJS.ProcessEnv): { env: Env; problems?: unde
       ...env,
       // A fixed development secret is acceptable only because production refuses to start without one.
       SESSION_SECRET: env.SESSION_SECRET ?? 'nestflow-development-only-session-secret-0000',
+      SUPPLIER_LINK_SECRET: env.SUPPLIER_LINK_SECRET ?? 'nestflow-development-only-supplier-link-secret',
       COOKIE_SECURE: env.COOKIE_SECURE ?? production,
       SMTP_PORT: env.SMTP_PORT ?? (production ? (env.SMTP_SECURE ? 465 : 587) : env.FAKE_SMTP_PORT),
       SMS_API_BASE: env.SMS_API_BASE ?? (production ? '' : fake(env.FAKE_SMS_PORT)),

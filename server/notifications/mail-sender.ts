@@ -11,7 +11,7 @@ export interface MailMessage {
   html?: string;
   /** Fixed per reminder, so a repeat after an attempt of unknown outcome is the same message to the recipient's system. */
   messageId?: string;
-  /** Files sent with the message (the discharge letter's PDF). */
+  /** Files sent with the message (the discharge letter's or an equipment order's PDF). */
   attachments?: Array<{ filename: string; content: Buffer; contentType: string }>;
 }
 

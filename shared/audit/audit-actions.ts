@@ -20,6 +20,8 @@ export const AUDIT_ACTIONS = [
   'recording.uploaded', 'recording.analysed', 'recording.reanalysed', 'recording.failed',
   'journey.requested', 'journey.approved', 'journey.declined',
   'visit.booked', 'visit.moved', 'visit.cancelled',
+  'equipment_order.drafted', 'equipment_order.sent', 'equipment_order.send_failed', 'equipment_order.confirmed', 'equipment_order.delivered',
+  'equipment_order.cancelled',
   'contact.preferences_changed', 'contact.sms_stopped',
   'message.retried', 'message.confirmed-arrived',
   'policy.changed',

@@ -24,6 +24,7 @@ export const SUBJECTS = [
   'AuditChain',
   /** The discharge checklist and date of a baby (the fields of the baby it belongs to). */
   'Discharge',
+  'EquipmentOrder',
 ] as const;
 export type SubjectName = (typeof SUBJECTS)[number];
 
@@ -40,7 +41,7 @@ export interface AbilityUser {
 
 type Builder = AbilityBuilder<AppAbility>;
 
-const STAFF_READ_ALL: SubjectName[] = ['Infant', 'Prescription', 'Reading', 'Recording', 'Visit', 'Journey'];
+const STAFF_READ_ALL: SubjectName[] = ['Infant', 'Prescription', 'Reading', 'Recording', 'Visit', 'Journey', 'EquipmentOrder'];
 
 function adminRules({ can }: Builder, p: string) {
   can('read', 'Programme', { id: p });
@@ -66,6 +67,8 @@ function coordinatorRules({ can }: Builder, p: string) {
   // The message log, and sending a failed message again.
   can(['read', 'update'], 'Message', { programmeId: p });
   can('create', 'ConversionPreview');
+  // Orders to the oxygen supplier: the coordinator makes, sends and cancels them (issue 16).
+  can(['create', 'update'], 'EquipmentOrder', { programmeId: p });
 }
 
 function nurseRules({ can }: Builder, p: string, userId: string) {
@@ -74,7 +77,7 @@ function nurseRules({ can }: Builder, p: string, userId: string) {
   can('read', 'Policy', { programmeId: p });
   // A nurse works on their own caseload: the infant rows assigned to them.
   can('read', 'Infant', { programmeId: p, nurseId: userId });
-  can('read', ['Prescription', 'Reading', 'Recording', 'Visit', 'Journey'], { programmeId: p, nurseId: userId });
+  can('read', ['Prescription', 'Reading', 'Recording', 'Visit', 'Journey', 'EquipmentOrder'], { programmeId: p, nurseId: userId });
   can('create', ['Reading', 'Recording', 'Visit', 'StepDown'], { programmeId: p, nurseId: userId });
   can('update', 'Visit', { programmeId: p, nurseId: userId });
   // The nurse trains the family and assesses the home: ticks those items for the babies of the caseload.

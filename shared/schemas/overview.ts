@@ -53,6 +53,8 @@ export const coordinatorOverviewSchema = z.object({
     babies: z.array(dischargeListItemSchema).max(DISCHARGES_LISTED),
   }),
   onOxygenByMonth: z.array(monthCountSchema).length(ON_OXYGEN_MONTHS),
+  // Equipment orders (issue 16): e-mails to the supplier that failed, and orders not confirmed by the date needed.
+  equipmentOrders: z.object({ failed: z.number().int().nonnegative(), unconfirmed: z.number().int().nonnegative() }),
 });
 export type CoordinatorOverview = z.infer<typeof coordinatorOverviewSchema>;
 

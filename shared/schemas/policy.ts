@@ -5,6 +5,7 @@ import { DEFAULT_COUNTRY, readPhone } from '../phone/phone';
 import { DEFAULT_CANNULA_MAX_FLOW_LPM, DEFAULT_FLOWMETER_STEPS_LPM } from '../clinical/flowmeter';
 import { DEFAULT_DRIFT_THRESHOLD_FIO2 } from '../clinical/growth';
 import { DEFAULT_DISCHARGE_RULES, dischargeRulesSchema } from './discharge-policy';
+import { DEFAULT_SUPPLIER_SETTINGS, supplierSettingsSchema } from './supplier';
 
 const int = (min: number, max: number, what: string) =>
   z.number({ error: `Enter ${what}` }).int({ error: 'Use a whole number' }).min(min, { error: `At least ${min}` }).max(max, { error: `At most ${max}` });
@@ -135,6 +136,8 @@ export const policySettingsSchema = z.strictObject({
   supply: equipmentSupplySchema,
   /** The discharge checklist's items and the first home visit's interval (shared/schemas/discharge-policy.ts). */
   discharge: dischargeRulesSchema,
+  // Equipment orders (issue 16): who delivers the equipment and what the programme lends.
+  supplier: supplierSettingsSchema,
 });
 export type PolicySettings = z.infer<typeof policySettingsSchema>;
 
@@ -171,6 +174,8 @@ export const DEFAULT_POLICY_SETTINGS: PolicySettings = {
   },
   // Sources beside each item in shared/schemas/discharge-policy.ts and docs/discharge-sources.md.
   discharge: DEFAULT_DISCHARGE_RULES,
+  // Empty until the programme enters its supplier (shared/schemas/supplier.ts).
+  supplier: DEFAULT_SUPPLIER_SETTINGS,
 };
 
 /** Older stored versions lack newer sections; fill them from the defaults section by section. */
@@ -187,6 +192,7 @@ export function withPolicyDefaults(stored: Partial<PolicySettings>): PolicySetti
     contacts: { ...d.contacts, ...stored.contacts },
     supply: { ...d.supply, ...stored.supply },
     discharge: { ...d.discharge, ...stored.discharge },
+    supplier: { ...d.supplier, ...stored.supplier },
   };
 }
 
@@ -208,13 +214,20 @@ export const updatePolicySchema = z.strictObject({
     const r = readPhone(p.number, v.settings.country, 'any');
     if (!r.ok) ctx.addIssue({ code: 'custom', path: ['settings', 'contacts', 'phones', i, 'number'], message: r.message });
   });
+  const supplierPhone = v.settings.supplier.phone;
+  if (supplierPhone) {
+    const r = readPhone(supplierPhone, v.settings.country, 'any');
+    if (!r.ok) ctx.addIssue({ code: 'custom', path: ['settings', 'supplier', 'phone'], message: r.message });
+  }
 }).transform((v) => {
   // Stored in E.164 like every other number; shown in the country's own form.
   const phones = v.settings.contacts.phones.map((p) => {
     const r = readPhone(p.number, v.settings.country, 'any');
     return r.ok ? { ...p, number: r.e164 } : p;
   });
-  return { ...v, settings: { ...v.settings, contacts: { ...v.settings.contacts, phones } } };
+  const supplierPhone = v.settings.supplier.phone ? readPhone(v.settings.supplier.phone, v.settings.country, 'any') : null;
+  const supplier = supplierPhone?.ok ? { ...v.settings.supplier, phone: supplierPhone.e164 } : v.settings.supplier;
+  return { ...v, settings: { ...v.settings, contacts: { ...v.settings.contacts, phones }, supplier } };
 });
 export type UpdatePolicyInput = z.infer<typeof updatePolicySchema>;
 

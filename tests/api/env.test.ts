@@ -5,7 +5,7 @@ import { parseEnv } from '../../server/env';
 // Only what the environment says counts here: process.env of the test run is not mixed in.
 const base = { DATABASE_URL: 'postgres://postgres@127.0.0.1:1/x', REDIS_URL: 'redis://127.0.0.1:1' };
 const real = {
-  NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(40), SMTP_HOST: 'smtp.mail.example', MAIL_FROM: 'Larkmoor <care@larkmoor.example>',
+  NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(40), SUPPLIER_LINK_SECRET: 'k'.repeat(40), SMTP_HOST: 'smtp.mail.example', MAIL_FROM: 'Larkmoor <care@larkmoor.example>',
   TWILIO_ACCOUNT_SID: `AC${'1a'.repeat(16)}`, TWILIO_AUTH_TOKEN: 'a-real-secret-token-0001', TWILIO_FROM: '+447700900000',
 };
 
@@ -30,7 +30,7 @@ describe('production refuses fake settings', () => {
   it('when NODE_ENV=production with nothing else, then every missing setting is named', () => {
     const { problems } = parseEnv({ ...base, NODE_ENV: 'production' });
     const names = problems!.map((p) => p.split(':')[0]);
-    expect(names).toEqual(['SESSION_SECRET', 'SMTP_HOST', 'MAIL_FROM', 'TWILIO_ACCOUNT_SID', 'TWILIO_AUTH_TOKEN', 'TWILIO_FROM']);
+    expect(names).toEqual(['SESSION_SECRET', 'SUPPLIER_LINK_SECRET', 'SMTP_HOST', 'MAIL_FROM', 'TWILIO_ACCOUNT_SID', 'TWILIO_AUTH_TOKEN', 'TWILIO_FROM']);
   });
 
   it('when the public development token, the placeholder account or the local fakes are given, then each is refused by name', () => {

@@ -44,6 +44,7 @@ const coordinator: CoordinatorOverview = {
     ],
   },
   onOxygenByMonth: MONTHS,
+  equipmentOrders: { failed: 1, unconfirmed: 2 },
 };
 
 const admin: AdminOverview = {
@@ -75,6 +76,8 @@ describe('the coordinator overview', () => {
     expect(screen.getByRole('link', { name: /^5 checks overdue for 4 babies$/ })).toHaveAttribute('href', '/caseload?flag=check_overdue');
     expect(screen.getByRole('link', { name: /^3 messages failed and 1 not known to have arrived$/ })).toHaveAttribute('href', '/messages?status=failed');
     expect(screen.getByRole('link', { name: /^2 journey checks waiting Oldest has waited 2 days$/ })).toHaveAttribute('href', '#journeys-waiting');
+    expect(screen.getByRole('link', { name: /^3 equipment orders need a look 2 not confirmed by the date needed, 1 failed to send$/ }))
+      .toHaveAttribute('href', '/equipment-orders?status=open');
 
     expect(screen.getByText('36')).toBeInTheDocument(); // babies in the programme, all statuses
     expect(screen.getByRole('link', { name: 'On home oxygen 18' })).toHaveAttribute('href', '/caseload?status=on_oxygen');

@@ -224,6 +224,25 @@ describe('Programme settings', { timeout: 20_000 }, () => {
     expect((puts[0].body as { settings: Policy['settings'] }).settings.country).toBe('IE');
   });
 
+  it('when the oxygen supplier is entered, then its name, order address, number (stored in E.164) and the oximeter loan are saved', async () => {
+    const { puts } = stubSavingPolicy();
+    const { user, form } = await openSettings();
+    await user.type(form.getByLabelText('Supplier’s name'), 'Fenwold Medical Gases');
+    await user.type(form.getByLabelText('Order e-mail address'), 'not an address');
+    await user.type(form.getByLabelText('Supplier’s phone number'), '01632 960002');
+    await user.click(form.getByLabelText('The programme lends families a pulse oximeter'));
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+    expect(await form.findByText('Enter an e-mail address like orders@supplier.example')).toBeInTheDocument();
+    expect(puts).toHaveLength(0);
+    await user.clear(form.getByLabelText('Order e-mail address'));
+    await user.type(form.getByLabelText('Order e-mail address'), 'orders@fenwold.example');
+    await user.click(form.getByRole('button', { name: 'Save as version 5' }));
+    await waitFor(() => expect(puts).toHaveLength(1));
+    expect((puts[0].body as { settings: Policy['settings'] }).settings.supplier).toEqual({
+      name: 'Fenwold Medical Gases', orderEmail: 'orders@fenwold.example', phone: '+441632960002', lendsOximeter: true,
+    });
+  }, 20_000);
+
   it('when a new row breaks the shared rules, then each message sits in its own row and nothing is sent', async () => {
     const { puts } = stubPolicy(() => json(500));
     const { user, form } = await openSettings();
@@ -295,7 +314,7 @@ describe('Programme settings', { timeout: 20_000 }, () => {
     const links = within(nav).getAllByRole('link');
     expect(links.map((link) => link.textContent)).toEqual([
       'Saturation targets', 'Check schedule', 'Stepping down', 'Overnight oximetry analysis', 'Flowmeter and cannula', 'Cylinders',
-      'Readings', 'Reminders', 'Numbers for families', 'Discharge checklist',
+      'Oxygen supplier', 'Readings', 'Reminders', 'Numbers for families', 'Discharge checklist',
     ]);
     // Every link lands on a section of the form whose legend is the link's words.
     for (const link of links) {

@@ -55,6 +55,8 @@ const LINKED_PAGES: readonly { prefix: string; allowed: (role: Role, ability: Ap
   { prefix: '/recordings/', allowed: (role, a) => isStaffRole(role) && a.can('read', 'Recording') },
   // A family sees its approved trips on the family page; the check with its working is staff work.
   { prefix: '/journeys/', allowed: (role, a) => isStaffRole(role) && a.can('read', 'Journey') },
+  // The programme's orders to the supplier: the coordinator's and admin's list, reached from the overview.
+  { prefix: '/equipment-orders', allowed: (role, a) => (role === 'coordinator' || role === 'admin') && a.can('read', 'EquipmentOrder') },
 ];
 
 export function canVisit(path: string, role: Role, ability: AppAbility): boolean {

@@ -57,6 +57,7 @@ const rolePages = [
   page('family/journey', () => import('./routes/family-journey.route')),
   page('family/preferences', () => import('./routes/family-preferences.route')),
   page('messages', () => import('./routes/messages.route')),
+  page('equipment-orders', () => import('./routes/equipment-orders.route')),
 ];
 
 /** The app's routes; the loaders start queries in this client, the one the page components read. */
@@ -68,6 +69,8 @@ export const createAppRoutes = (queryClient: QueryClient): RouteObject[] => [
     children: [
       { path: 'sign-in', lazy: () => import('./routes/sign-in.route') },
       { path: 'set-password', lazy: () => import('./routes/set-password.route') },
+      // The oxygen supplier's page: no session, the signed link in the path is the credential.
+      { path: 'supplier/orders/:token', lazy: () => import('./routes/supplier-order.route') },
       {
         element: <RequireSession />,
         children: [

@@ -14,10 +14,12 @@ import { RecordingSamplesEntity } from './recording-samples.entity';
 import { JourneyEntity } from './journey.entity';
 import { AccountSetupTokenEntity } from './account-setup-token.entity';
 import { DischargeEntity, DischargeItemEntity } from './discharge.entity';
+import { EquipmentOrderEntity } from './equipment-order.entity';
 
 // Listed explicitly (no glob) so tsx, Vitest and the TypeORM CLI load the same set.
 export const ENTITIES = [
   ProgrammeEntity, UserEntity, AuditEventEntity, SiteEntity, ProgrammePolicyEntity, InfantEntity, FamilyContactEntity, PrescriptionEntity,
   CheckEntity, ReadingEntity, VisitEntity, RecordingEntity, RecordingSamplesEntity, JourneyEntity, AccountSetupTokenEntity,
   DischargeItemEntity, DischargeEntity,
+  EquipmentOrderEntity,
 ];

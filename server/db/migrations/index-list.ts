@@ -15,6 +15,7 @@ import { ListIndexes1765929600000 } from './1765929600000-ListIndexes';
 import { MessageAndPeopleListIndexes1766016000000 } from './1766016000000-MessageAndPeopleListIndexes';
 import { AuditReadsAndChain1766102400000 } from './1766102400000-AuditReadsAndChain';
 import { DischargeChecklist1766188800000 } from './1766188800000-DischargeChecklist';
+import { EquipmentOrders1766275200000 } from './1766275200000-EquipmentOrders';
 
 export const MIGRATIONS = [
   Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000, Visits1764979200000, Reminders1765065600000,
@@ -26,4 +27,5 @@ export const MIGRATIONS = [
   MessageAndPeopleListIndexes1766016000000,
   AuditReadsAndChain1766102400000,
   DischargeChecklist1766188800000,
+  EquipmentOrders1766275200000,
 ];

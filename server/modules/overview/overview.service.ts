@@ -14,6 +14,7 @@ import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { JOURNEY_ACL_COLUMNS } from '../../db/repositories/journeys.repository';
 import { PRESCRIPTION_ACL_COLUMNS } from '../../db/repositories/prescriptions.repository';
 import { USER_ACL_COLUMNS } from '../../db/repositories/users.repository';
+import { ORDER_ACL_COLUMNS } from '../../db/repositories/equipment-orders.repository';
 import type { AppRepos } from '../../deps';
 
 /** Who is asking: the programme whose figures these are, its time zone (months, weeks) and the instant of "now". */
@@ -54,7 +55,7 @@ export function createOverviewService(repos: AppRepos) {
 
   return {
     async coordinator(ability: AppAbility, c: OverviewCaller): Promise<CoordinatorOverview> {
-      const [statuses, signOff, overdue, messages, journeys, months, discharges] = await Promise.all([
+      const [statuses, signOff, overdue, messages, journeys, months, discharges, orders] = await Promise.all([
         overview.babiesByStatus(infants(ability)),
         overview.proposalsWaiting(accessibleWhere(ability, 'read', 'Prescription', PRESCRIPTION_ACL_COLUMNS)),
         overview.overdueChecks(infants(ability), c.now),
@@ -62,6 +63,7 @@ export function createOverviewService(repos: AppRepos) {
         overview.journeysWaiting(accessibleWhere(ability, 'read', 'Journey', JOURNEY_ACL_COLUMNS), JOURNEYS_LISTED),
         onOxygenByMonth(ability, c),
         dischargesAhead(ability, c),
+        repos.equipmentOrders.flagCounts(accessibleWhere(ability, 'read', 'EquipmentOrder', ORDER_ACL_COLUMNS), todayIn(c.timeZone, c.now)),
       ]);
       return {
         role: 'coordinator', asOf: c.now.toISOString(),
@@ -77,6 +79,7 @@ export function createOverviewService(repos: AppRepos) {
         },
         discharges,
         onOxygenByMonth: months,
+        equipmentOrders: orders,
       };
     },
 

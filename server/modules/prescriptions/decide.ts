@@ -10,6 +10,7 @@ import type { InfantEntity } from '../../db/entities/infant.entity';
 import type { AppRepos } from '../../deps';
 import { ConflictError, NotFoundError, ValidationError, type FieldErrors } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
+import { draftAfterApproval } from '../equipment-orders/auto-drafts';
 
 const unmetChecks = (rx: PrescriptionEntity): string[] => unmetInEvidence(rx.evidence).map((c) => c.code);
 
@@ -101,7 +102,10 @@ export async function decidePrescription(ds: DataSource, repos: AppRepos, abilit
     if (rx.status !== 'proposed') throw new ConflictError(`This setting has already been dealt with (now: ${rx.status}).`);
     const infant = await repos.infants.findForUpdate(rx.infantId, m);
     if (!infant) throw new NotFoundError();
+    const wasOffOxygen = infant.status === 'off_oxygen' || infant.status === 'left_programme';
     await (input.decision === 'approve' ? approve : reject)(repos, rx, infant, input, actor, m);
+    // Equipment follows the setting: a collection or a change of concentrator is drafted for the coordinator (issue 16).
+    if (input.decision === 'approve') await draftAfterApproval(repos, m, infant, rx, wasOffOxygen, new Date());
     infant.rowVersion += 1;
     await repos.infants.save(infant, m);
     await repos.audit.append(

@@ -26,6 +26,7 @@ import { readingsDescription, targetBand } from '../../features/monitoring/compo
 import { RecordingsSection } from '../../features/recordings/components/recordings-section';
 import { VisitsSection } from '../../features/visits/components/visits-section';
 import { DischargeSection } from '../../features/discharge/components/discharge-section';
+import { EquipmentSection } from '../../features/equipment-orders/components/equipment-section';
 import { useAppAbility } from '../../lib/ability';
 import { infantLoadFallback } from '../../features/infants/components/infant-load-state';
 import { useSignedInUser } from '../../lib/signed-in-user';
@@ -128,6 +129,9 @@ export function Component() {
           <DetailsSection infant={infant.data} canEdit={canEdit} />
           <ContactsSection infant={infant.data} canEdit={canEdit} />
           <JourneysSection infantId={infant.data.id} canRequest={ability.can('create', 'Journey')} />
+          {ability.can('read', 'EquipmentOrder') && (
+            <EquipmentSection infantId={infant.data.id} familyAddress={infant.data.home.address} canManage={ability.can('create', 'EquipmentOrder')} />
+          )}
           <StepEvidenceSection versions={versions} />
           <VersionsSection versions={versions} />
           {ability.can('read', 'AuditEvent') && prescriptions.data && (

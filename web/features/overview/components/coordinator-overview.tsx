@@ -35,7 +35,7 @@ function JourneysWaiting({ o }: { o: Data }) {
 }
 
 export function CoordinatorFigures({ o }: { o: Data }) {
-  const { signOff, overdueChecks, messagesNeedingAction: messages, journeysWaiting } = o;
+  const { signOff, overdueChecks, messagesNeedingAction: messages, journeysWaiting, equipmentOrders: orders } = o;
   return (
     <div className="flex flex-col gap-6">
       <FigureGrid label="What needs doing">
@@ -49,6 +49,9 @@ export function CoordinatorFigures({ o }: { o: Data }) {
           detail={oldest(journeysWaiting.oldestSince, o.asOf, 'Nothing waiting')} />
         <FigureLink to="#going-home" count={o.discharges.withDate} label={plural(o.discharges.withDate, 'baby with a discharge date', 'babies with a discharge date')}
           detail={`${o.discharges.preparing} more being prepared`} />
+        <FigureLink to="/equipment-orders?status=open" count={orders.unconfirmed + orders.failed} attention
+          label={plural(orders.unconfirmed + orders.failed, 'equipment order needs a look', 'equipment orders need a look')}
+          detail={`${orders.unconfirmed} not confirmed by the date needed, ${orders.failed} failed to send`} />
       </FigureGrid>
       <div className="grid gap-4 lg:grid-cols-2">
         <Card title="Babies by status">

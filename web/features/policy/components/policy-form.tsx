@@ -17,6 +17,7 @@ import { toFormValues, type PolicyFormValues } from './policy-values';
 import { RemindersSection } from './reminders-section';
 import { SupplySection } from './supply-section';
 import { DischargeSection } from './discharge-section';
+import { SupplierSettingsSection } from './supplier-settings-section';
 
 export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boolean }) {
   const queryClient = useQueryClient();
@@ -63,6 +64,7 @@ export function PolicyForm({ policy, readOnly }: { policy: Policy; readOnly: boo
           <OximetrySection />
           <EquipmentSection />
           <SupplySection />
+          <SupplierSettingsSection />
           <ReadingsSection />
           <RemindersSection />
           <ContactsSection />

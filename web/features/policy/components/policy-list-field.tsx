@@ -8,13 +8,14 @@ type TextPath =
   | 'settings.contacts.emergencyNumber'
   | `settings.contacts.phones.${number}.${'label' | 'number' | 'when'}`
   | `settings.supply.cylinders.${number}.${'id' | 'name'}`
-  | `settings.discharge.items.${number}.${'key' | 'label' | 'familyLabel' | 'source'}`;
+  | `settings.discharge.items.${number}.${'key' | 'label' | 'familyLabel' | 'source'}`
+  | `settings.supplier.${'name' | 'orderEmail' | 'phone'}`;
 
 interface TextSettingProps {
   name: TextPath;
   label: string;
   hint?: string;
-  type?: 'text' | 'time' | 'tel';
+  type?: 'text' | 'time' | 'tel' | 'email';
   className?: string;
   inputMode?: 'text' | 'numeric' | 'tel';
 }

@@ -1,0 +1,54 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { z } from 'zod';
+import { equipmentOrderSchema, ordersPageSchema, type CreateOrderInput } from '@shared/schemas/equipment-orders';
+import { api } from '../../../lib/api-client';
+import { orderKeys } from './order-keys';
+
+const orderAnswer = z.object({ order: equipmentOrderSchema });
+const infantOrders = z.object({ items: z.array(equipmentOrderSchema) });
+
+export const infantOrdersQueryOptions = (infantId: string) =>
+  queryOptions({
+    queryKey: orderKeys.forInfant(infantId),
+    queryFn: ({ signal }) => api.get(`/api/infants/${encodeURIComponent(infantId)}/equipment-orders`, infantOrders, undefined, signal),
+  });
+export const useInfantOrders = (infantId: string) => useQuery(infantOrdersQueryOptions(infantId));
+
+export const programmeOrdersQueryOptions = (status: string, after: string) =>
+  queryOptions({
+    queryKey: [...orderKeys.programme(status), after],
+    queryFn: ({ signal }) => api.get('/api/equipment-orders', ordersPageSchema, { ...(status ? { status } : {}), ...(after ? { after } : {}) }, signal),
+  });
+export const useProgrammeOrders = (status: string, after: string) => useQuery(programmeOrdersQueryOptions(status, after));
+
+const sentWords = (data: z.infer<typeof orderAnswer>) =>
+  data.order.status === 'sent' ? `Order ${data.order.reference} sent to the supplier.`
+    : data.order.status === 'failed' ? `Order ${data.order.reference} could not be sent: ${data.order.failureReason ?? ''}`
+      : `Order ${data.order.reference} saved as a draft.`;
+
+export function useCreateOrder(infantId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateOrderInput) => api.post(`/api/infants/${encodeURIComponent(infantId)}/equipment-orders`, input, orderAnswer),
+    meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: (d: unknown) => sentWords(orderAnswer.parse(d)) },
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: orderKeys.lists() }),
+  });
+}
+
+export function useSendOrder(infantId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/send`, {}, orderAnswer),
+    meta: { successToast: (d: unknown) => sentWords(orderAnswer.parse(d)) },
+    onSettled: () => queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }),
+  });
+}
+
+export function useCancelOrder(infantId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, reason }: { id: string; reason: string }) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/cancel`, { reason }, orderAnswer),
+    meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: () => 'Order cancelled.' },
+    onSettled: () => queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }),
+  });
+}
