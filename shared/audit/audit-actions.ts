@@ -7,7 +7,7 @@
 export const READ_ACTIONS = [
   'infant.viewed', 'infant.plans_viewed', 'prescription.viewed', 'infant.readings_viewed', 'infant.recordings_listed',
   'recording.viewed', 'recording.trace_viewed', 'infant.journeys_viewed', 'journey.viewed', 'infant.care_plan_printed',
-  'infant.fhir_exported', 'infant.readings_exported', 'caseload.exported', 'messages.exported',
+  'infant.fhir_exported', 'infant.readings_exported', 'caseload.exported', 'messages.exported', 'infant.discharge_letter_printed',
 ] as const;
 export type ReadAction = (typeof READ_ACTIONS)[number];
 

@@ -164,6 +164,7 @@ const WORDS: Record<AuditAction, Words> = {
   'infant.readings_exported': () => 'Downloaded the spot readings as a CSV file',
   'caseload.exported': () => 'Downloaded the caseload as a CSV file',
   'messages.exported': () => 'Downloaded the message log as a CSV file',
+  'infant.discharge_letter_printed': () => 'Downloaded the discharge letter',
 };
 
 /** One audit line in words with what changed; an action this version does not know says so rather than show a code. */

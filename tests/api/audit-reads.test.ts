@@ -48,6 +48,23 @@ describe('reads of a baby’s record are audited', () => {
     }
   });
 
+  it('when staff export the record as FHIR, its readings or the caseload or message log as CSV, or print the discharge letter, then each export is one read row', async () => {
+    const { infant, coord, clinic } = await approvedBaby(ctx.deps, ctx.app);
+    const before = (await readsOf(infant.id)).length;
+    await coord.get(`/api/infants/${infant.id}/fhir`).expect(200);
+    await coord.get(`/api/infants/${infant.id}/readings.csv`).expect(200);
+    await coord.get(`/api/infants/${infant.id}/discharge-letter.pdf`).expect(200);
+    const rows = (await readsOf(infant.id)).slice(before);
+    expect(rows.map((r) => r.action)).toEqual(['infant.fhir_exported', 'infant.readings_exported', 'infant.discharge_letter_printed']);
+    for (const row of rows) expect(row).toMatchObject({ kind: 'read', actor_id: clinic.people.coordinator.id, entity_type: 'infant' });
+
+    await coord.get('/api/infants.csv?status=on_oxygen').expect(200);
+    await coord.get('/api/messages.csv').expect(200);
+    const lists: Array<{ action: string; entity_type: string }> = await ctx.deps.ds.query(
+      `SELECT action, entity_type FROM audit_events WHERE kind = 'read' AND actor_id = $1 AND entity_id IS NULL ORDER BY chain_seq`, [clinic.people.coordinator.id]);
+    expect(lists).toEqual([{ action: 'caseload.exported', entity_type: 'caseload' }, { action: 'messages.exported', entity_type: 'messages' }]);
+  });
+
   it('when a family opens its own baby’s plan, then that read is recorded too', async () => {
     const { infant, family, clinic } = await approvedBaby(ctx.deps, ctx.app);
     await family.get(`/api/infants/${infant.id}/prescriptions`).expect(200);

@@ -6,6 +6,7 @@ import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny, currentUser } from '../../lib/http';
 import type { DischargeService } from './discharge.service';
 import type { DischargeLetterService } from './discharge-letter.service';
+import { auditRead } from '../audit/read-audit';
 
 /** The discharge checklist, the discharge date and the letter, under /api/infants/:id. */
 export function dischargeRouter(service: DischargeService, letters: DischargeLetterService): Router {
@@ -26,6 +27,7 @@ export function dischargeRouter(service: DischargeService, letters: DischargeLet
   r.get('/:id/discharge-letter.pdf', requireUser, validate({ params: idParamsSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Discharge');
     const { filename, pdf } = await letters.build(req.ability, String(req.params.id), currentUser(req).programmeTimeZone);
+    await auditRead(req, { action: 'infant.discharge_letter_printed', infantId: String(req.params.id) });
     res.set({
       'Content-Type': 'application/pdf',
       // Built from [a-z0-9-] and a date only (safeSlug), so it needs no quoting or encoding.

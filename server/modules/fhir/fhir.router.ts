@@ -6,6 +6,7 @@ import { requireUser } from '../../middleware/require-user';
 import { assertCanAny } from '../../lib/http';
 import { systemClock, type Clock } from '../../lib/clock';
 import type { FhirService } from './fhir.service';
+import { auditRead } from '../audit/read-audit';
 
 export function fhirRouter(service: FhirService, clock: Clock = systemClock): Router {
   const r = Router();
@@ -14,6 +15,7 @@ export function fhirRouter(service: FhirService, clock: Clock = systemClock): Ro
     assertCanAny(req, 'read', 'Recording');
     const { filename, bundle } = await service.exportInfant(req.ability, String(req.params.id), clock.now());
     const body = JSON.stringify(bundle);
+    await auditRead(req, { action: 'infant.fhir_exported', infantId: String(req.params.id) });
     res.set({
       'Content-Type': `${FHIR_JSON}; charset=utf-8`,
       // The name is "nestflow-" and a UUID the route has validated, so it needs no quoting or encoding.

@@ -4,6 +4,7 @@ import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { assertCanAny, currentUser } from '../../lib/http';
 import { isoInZone, sendCsv, type CsvColumn } from '../../lib/csv';
+import { auditRead } from '../audit/read-audit';
 import { todayIn } from '../../lib/dates';
 import type { InfantListRow } from '../../db/repositories/infants.repository';
 import type { InfantsService } from './infants.service';
@@ -34,6 +35,7 @@ export function caseloadCsvRouter(service: InfantsService): Router {
     const user = currentUser(req);
     const today = todayIn(user.programmeTimeZone);
     const rows = service.exportRows(req.ability, user, req.query as unknown as ListInfantsQuery, today);
+    await auditRead(req, { action: 'caseload.exported' });
     await sendCsv(res, `caseload-${today}.csv`, columns(user.programmeTimeZone), rows);
   });
   return r;

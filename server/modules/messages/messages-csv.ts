@@ -4,6 +4,7 @@ import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { assertCanAny, currentUser } from '../../lib/http';
 import { isoInZone, type CsvColumn, sendCsv } from '../../lib/csv';
+import { auditRead } from '../audit/read-audit';
 import { todayIn } from '../../lib/dates';
 import type { MessagesService } from './messages.service';
 
@@ -36,6 +37,7 @@ export function messagesCsvRouter(service: MessagesService): Router {
     assertCanAny(req, 'read', 'Message');
     const user = currentUser(req);
     const rows = service.exportRows(req.ability, user.programmeId, req.query as unknown as ListMessagesQuery, user.programmeCountry);
+    await auditRead(req, { action: 'messages.exported' });
     await sendCsv(res, `messages-${todayIn(user.programmeTimeZone)}.csv`, columns(user.programmeTimeZone), rows);
   });
   return r;

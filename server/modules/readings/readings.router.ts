@@ -31,6 +31,7 @@ export function readingsRouters(service: ReadingsService) {
     const q = req.query as { from?: string; to?: string };
     const rows = await service.exportRows(req.ability, String(req.params.id), q);
     const timeZone = currentUser(req).programmeTimeZone;
+    await auditRead(req, { action: 'infant.readings_exported', infantId: String(req.params.id) });
     await sendCsv(res, `readings-${String(req.params.id)}.csv`, readingColumns(timeZone), rows);
   });
 
