@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import { z } from 'zod';
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';
 
@@ -54,3 +54,5 @@ export function errorStatuses(r: ApiRoute): number[] {
 
 export const json = (description: string, schema: z.ZodType): ApiResponse => ({ description, schema });
 
+/** A PDF download: binary, `application/pdf`. */
+export const pdfFile = (description: string): ApiResponse => ({ description, type: 'application/pdf', schema: z.string().meta({ format: 'binary' }) });

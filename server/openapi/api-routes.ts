@@ -1,6 +1,10 @@
 import { accountsApi } from '../modules/accounts/accounts.api';
+import { auditApi } from '../modules/audit/audit.api';
 import { carePlanApi } from '../modules/care-plan/care-plan.api';
 import { conversionsApi } from '../modules/conversions/conversions.api';
+import { dischargeApi } from '../modules/discharge/discharge.api';
+import { equipmentOrdersApi } from '../modules/equipment-orders/equipment-orders.api';
+import { fhirApi } from '../modules/fhir/fhir.api';
 import { healthApi } from '../modules/health/health.api';
 import { infantsApi } from '../modules/infants/infants.api';
 import { journeysApi } from '../modules/journeys/journeys.api';
@@ -30,4 +34,5 @@ export const API_ROUTES: ApiRoute[] = [
   ...healthApi, ...openapiApi, ...smsInboundApi, ...sessionApi, ...accountsApi, ...usersApi, ...sitesApi, ...policyApi, ...conversionsApi,
   ...infantsApi, ...carePlanApi, ...readingsApi, ...scheduleApi, ...stepDownsApi, ...visitsApi, ...prescriptionsApi, ...messagesApi,
   ...preferencesApi, ...recordingsApi, ...journeysApi, ...overviewApi,
+  ...fhirApi, ...dischargeApi, ...auditApi, ...equipmentOrdersApi,
 ];

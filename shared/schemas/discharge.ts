@@ -37,6 +37,9 @@ export const emailLetterSchema = z.strictObject({
 });
 export type EmailLetterInput = z.infer<typeof emailLetterSchema>;
 
+/** The answer to POST /infants/:id/discharge-letter/email once the mail server has taken the letter. */
+export const letterSentSchema = z.object({ sentTo: z.string(), filename: z.string() });
+
 const person = z.object({ id: z.uuid(), name: z.string() });
 
 export const dischargeItemSchema = z.object({

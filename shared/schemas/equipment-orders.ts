@@ -126,6 +126,11 @@ export const equipmentOrderSchema = z.object({
 export type EquipmentOrder = z.infer<typeof equipmentOrderSchema>;
 
 export const ordersPageSchema = z.object({ items: z.array(equipmentOrderSchema), next: z.string().nullable() });
+/** A baby's orders, newest first. */
+export const infantOrdersSchema = z.object({ items: z.array(equipmentOrderSchema) });
+/** The answer to creating, sending or cancelling an order: the order as it now is. */
+export const orderAnswerSchema = z.object({ order: equipmentOrderSchema });
+export type OrderAnswer = z.infer<typeof orderAnswerSchema>;
 
 // --- The supplier's page (no account: the signed link is the credential).
 

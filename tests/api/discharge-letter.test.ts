@@ -6,6 +6,7 @@ import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { flowInWords } from '@shared/family/care-text';
 import { LETTER_CAUTIONS } from '@shared/discharge/letter-text';
+import { letterSentSchema } from '@shared/schemas/discharge';
 import { fixedClock } from '../../server/lib/clock';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import type { Agent } from '../helpers/agents';
@@ -89,7 +90,8 @@ describe('GET /api/infants/:id/discharge-letter.pdf', () => {
 
   it('when the letter is e-mailed, then the attached PDF reads back as the same letter', async () => {
     const { infant, coord } = await approvedBaby(ctx.deps, ctx.app);
-    await post(coord, `/api/infants/${infant.id}/discharge-letter/email`, { to: 'community.team@larkmoor.example' }).expect(200);
+    const sent = await post(coord, `/api/infants/${infant.id}/discharge-letter/email`, { to: 'community.team@larkmoor.example' }).expect(200);
+    expect(letterSentSchema.parse(sent.body)).toEqual({ sentTo: 'community.team@larkmoor.example', filename: expect.stringMatching(/^discharge-letter-.+\.pdf$/) });
     const raw = ctx.mail.messages().find((m) => m.raw.includes('community.team@larkmoor.example'))!.raw;
     const part = raw.split(/\r?\n--/).find((p) => /Content-Type: application\/pdf/i.test(p))!;
     const base64 = part.split(/\r?\n\r?\n/).slice(1).join('').replace(/\s+/g, '');

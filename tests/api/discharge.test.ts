@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEFAULT_DISCHARGE_RULES, FAMILY_GROUPS } from '@shared/schemas/discharge-policy';
+import { dischargeItemSchema, dischargeSchema } from '@shared/schemas/discharge';
 import { fixedClock } from '../../server/lib/clock';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent } from '../helpers/agents';
@@ -24,6 +25,7 @@ describe('GET /api/infants/:id/discharge', () => {
   it('when nothing is ticked, then every policy item is listed by group, not done, and the baby is not ready', async () => {
     const { infant, coord } = await approvedBaby(ctx.deps, ctx.app);
     const body = (await coord.get(`/api/infants/${infant.id}/discharge`).expect(200)).body;
+    expect(dischargeSchema.safeParse(body).error).toBeUndefined();
     expect(body.items.map((i: { key: string }) => i.key).sort()).toEqual([...KEYS].sort());
     expect(body.items[0]).toMatchObject({ key: 'equipment_use', group: 'family_training', done: false, doneBy: null, doneAt: null, note: '' });
     expect(body).toMatchObject({ ready: false, settingApproved: true, dischargedOn: null, firstVisit: null });
@@ -50,6 +52,7 @@ describe('GET /api/infants/:id/discharge', () => {
     await put(coord, `/api/infants/${infant.id}/discharge/items/no_smoking`, { done: true, note: 'Grandfather smokes outside only' }).expect(200);
     await put(coord, `/api/infants/${infant.id}/discharge/items/equipment_ordered`, { done: true }).expect(200);
     const body = (await family.get(`/api/infants/${infant.id}/discharge`).expect(200)).body;
+    expect(dischargeSchema.safeParse(body).error).toBeUndefined();
     const expected = DEFAULT_DISCHARGE_RULES.items.filter((i) => i.familySees);
     expect(body.items.map((i: { key: string }) => i.key)).toEqual(expected.map((i) => i.key));
     for (const item of body.items) expect(FAMILY_GROUPS).toContain(item.group);
@@ -79,6 +82,7 @@ describe('PUT /api/infants/:id/discharge/items/:key', () => {
     expect(row.details).toMatchObject({ key: 'home_assessment', done: true });
     // Unticking clears who and when but keeps the note.
     const undone = (await put(coord, `/api/infants/${infant.id}/discharge/items/home_assessment`, { done: false }).expect(200)).body;
+    expect(dischargeItemSchema.safeParse(undone).error).toBeUndefined();
     expect(undone).toMatchObject({ done: false, doneBy: null, doneAt: null, evidence: null, note: 'Cylinders in the hall cupboard' });
   });
 

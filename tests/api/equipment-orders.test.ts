@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { auditWords } from '@shared/audit/audit-words';
+import { infantOrdersSchema, orderAnswerSchema, ordersPageSchema } from '@shared/schemas/equipment-orders';
 import { fixedClock } from '../../server/lib/clock';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent } from '../helpers/agents';
@@ -47,6 +48,7 @@ describe('POST /api/infants/:id/equipment-orders', () => {
   it('when the coordinator orders and sends, then 201 "sent" and the supplier gets an e-mail with the order as a PDF and a link', async () => {
     const { infant, coord, clinic } = await babyWithSupplier();
     const res = await post(coord, `/api/infants/${infant.id}/equipment-orders`, order()).expect(201);
+    expect(orderAnswerSchema.safeParse(res.body).error).toBeUndefined();
     expect(res.body.order).toMatchObject({ status: 'sent', reference: 'EQ-00001', deliveryAddress: '1 Test Row, Cindermoor' });
     const mail = await mailTo(ctx.mail, SUPPLIER_EMAIL, new RegExp(`EQ-00001 from ${clinic.programme.name}`));
     expect(mail.subject).toBe(`Equipment order EQ-00001 from ${clinic.programme.name}: needed by 5 Dec 2026`);
@@ -76,6 +78,7 @@ describe('POST /api/infants/:id/equipment-orders', () => {
     expect(res.body.order).toMatchObject({ status: 'drafted', deliveryAddress: '4 Gull Lane\nHarrowby' });
     expect(mailsTo(ctx.mail, SUPPLIER_EMAIL).length).toBe(before);
     const sent = await post(coord, `/api/equipment-orders/${res.body.order.id}/send`, {}).expect(200);
+    expect(orderAnswerSchema.safeParse(sent.body).error).toBeUndefined();
     expect(sent.body.order.status).toBe('sent');
     expect(sent.body.order.history.map((h: { status: string }) => h.status)).toEqual(['drafted', 'sent']);
     await mailTo(ctx.mail, SUPPLIER_EMAIL, new RegExp(`${res.body.order.reference} from ${clinic.programme.name}`));
@@ -132,9 +135,13 @@ describe('who may do what', () => {
     const made = (await post(coord, `/api/infants/${infant.id}/equipment-orders`, order({ send: false })).expect(201)).body.order;
     const nurse = await signedInAgent(ctx.app, clinic.people.nurse.email);
     const admin = await signedInAgent(ctx.app, clinic.people.admin.email);
-    expect((await nurse.get(`/api/infants/${infant.id}/equipment-orders`).expect(200)).body.items).toHaveLength(1);
+    const forNurse = (await nurse.get(`/api/infants/${infant.id}/equipment-orders`).expect(200)).body;
+    expect(infantOrdersSchema.safeParse(forNurse).error).toBeUndefined();
+    expect(forNurse.items).toHaveLength(1);
     expect((await consultant.get(`/api/infants/${infant.id}/equipment-orders`).expect(200)).body.items).toHaveLength(1);
-    expect((await admin.get('/api/equipment-orders').expect(200)).body.items).toHaveLength(1);
+    const page = (await admin.get('/api/equipment-orders').expect(200)).body;
+    expect(ordersPageSchema.safeParse(page).error).toBeUndefined();
+    expect(page.items).toHaveLength(1);
     await nurse.get('/api/equipment-orders').expect(403);
     for (const agent of [nurse, consultant, admin]) {
       await post(agent, `/api/infants/${infant.id}/equipment-orders`, order()).expect(403);

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { fhirBundleSchema } from '@shared/schemas/fhir';
 import { analyseRecording } from '../../server/modules/recordings/analyse';
 import { fixedClock } from '../../server/lib/clock';
 import { createTestContext, type TestContext } from '../helpers/test-app';
@@ -42,6 +43,8 @@ describe('GET /api/infants/:id/fhir', () => {
     expect(res.headers['cache-control']).toBe('no-store');
     const bundle = JSON.parse(res.text) as Bundle;
     expect(fhirProblems(bundle)).toEqual([]);
+    // The outer shape the API description declares for this answer.
+    expect(fhirBundleSchema.safeParse(bundle).error).toBeUndefined();
     expect(bundle).toMatchObject({ resourceType: 'Bundle', type: 'collection', timestamp: NOW });
 
     const patient = resources(bundle).find((r) => r.resourceType === 'Patient') as fhir4.Patient;

@@ -132,4 +132,24 @@ describe('OpenAPI description: every mounted route, with its contracts and error
     const csv = operation({ method: 'get', path: '/api/messages.csv' })?.responses?.['200'] as OpenAPIV3_1.ResponseObject;
     expect(Object.keys(csv.content ?? {})).toEqual(['text/csv']);
   });
+
+  it('when the exports, the discharge step and equipment orders are read, then their media types and the errors their services raise appear', () => {
+    const op = (method: string, path: string) => operation({ method, path });
+    const statuses = (method: string, path: string) => Object.keys(op(method, path)?.responses ?? {});
+    const media = (method: string, path: string) => Object.keys((op(method, path)?.responses?.['200'] as OpenAPIV3_1.ResponseObject | undefined)?.content ?? {});
+    expect(media('get', '/api/infants/:id/fhir')).toEqual(['application/fhir+json']);
+    for (const pdf of ['/api/infants/:id/discharge-letter.pdf', '/api/infants/:id/care-plan.pdf']) {
+      expect(media('get', pdf)).toEqual(['application/pdf']);
+      expect((op('get', pdf)?.responses?.['200'] as OpenAPIV3_1.ResponseObject).content?.['application/pdf'].schema).toMatchObject({ type: 'string', format: 'binary' });
+    }
+    // DischargeNotReadyError (422 discharge_not_ready) and the consultant-only override (403).
+    expect(statuses('post', '/api/infants/:id/discharge')).toEqual(expect.arrayContaining(['200', '400', '403', '404', '422']));
+    // No approved setting yet (409); the mail server refusing the letter (503).
+    expect(statuses('post', '/api/infants/:id/discharge-letter/email')).toEqual(expect.arrayContaining(['409', '503']));
+    expect(statuses('get', '/api/infants/:id/discharge-letter.pdf')).toContain('409');
+    for (const action of ['send', 'cancel']) expect(statuses('post', `/api/equipment-orders/:id/${action}`)).toEqual(expect.arrayContaining(['200', '404', '409']));
+    expect(statuses('post', '/api/infants/:id/equipment-orders')).toContain('201');
+    // The chain's routes take no input: nothing to refuse with 400, and no record in the path to miss.
+    expect(statuses('post', '/api/audit/chain/verify')).toEqual(['200', '401', '403', 'default']);
+  });
 });

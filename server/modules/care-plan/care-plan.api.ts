@@ -1,7 +1,6 @@
-import { z } from 'zod';
 import { idParamsSchema } from '@shared/schemas/common';
-import { route } from '../../openapi/api-route';
+import { pdfFile, route } from '../../openapi/api-route';
 
 export const carePlanApi = [
-  route('get', '/infants/:id/care-plan.pdf', { summary: 'The printable care plan (tagged PDF); 404 before a setting is approved', who: 'anyone who may read the baby and its approved setting', params: idParamsSchema, responses: { 200: { description: 'PDF', type: 'application/pdf', schema: z.string() } } }),
+  route('get', '/infants/:id/care-plan.pdf', { summary: 'The printable care plan (tagged PDF); 404 before a setting is approved', who: 'anyone who may read the baby and its approved setting', params: idParamsSchema, responses: { 200: pdfFile('The care plan') } }),
 ];

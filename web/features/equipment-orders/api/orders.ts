@@ -1,16 +1,12 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
-import { equipmentOrderSchema, ordersPageSchema, type CreateOrderInput } from '@shared/schemas/equipment-orders';
+import { infantOrdersSchema, orderAnswerSchema, ordersPageSchema, type CreateOrderInput, type OrderAnswer } from '@shared/schemas/equipment-orders';
 import { api } from '../../../lib/api-client';
 import { orderKeys } from './order-keys';
-
-const orderAnswer = z.object({ order: equipmentOrderSchema });
-const infantOrders = z.object({ items: z.array(equipmentOrderSchema) });
 
 export const infantOrdersQueryOptions = (infantId: string) =>
   queryOptions({
     queryKey: orderKeys.forInfant(infantId),
-    queryFn: ({ signal }) => api.get(`/api/infants/${encodeURIComponent(infantId)}/equipment-orders`, infantOrders, undefined, signal),
+    queryFn: ({ signal }) => api.get(`/api/infants/${encodeURIComponent(infantId)}/equipment-orders`, infantOrdersSchema, undefined, signal),
   });
 export const useInfantOrders = (infantId: string) => useQuery(infantOrdersQueryOptions(infantId));
 
@@ -21,7 +17,7 @@ export const programmeOrdersQueryOptions = (status: string, after: string) =>
   });
 export const useProgrammeOrders = (status: string, after: string) => useQuery(programmeOrdersQueryOptions(status, after));
 
-const sentWords = (data: z.infer<typeof orderAnswer>) =>
+const sentWords = (data: OrderAnswer) =>
   data.order.status === 'sent' ? `Order ${data.order.reference} sent to the supplier.`
     : data.order.status === 'failed' ? `Order ${data.order.reference} could not be sent: ${data.order.failureReason ?? ''}`
       : `Order ${data.order.reference} saved as a draft.`;
@@ -29,8 +25,8 @@ const sentWords = (data: z.infer<typeof orderAnswer>) =>
 export function useCreateOrder(infantId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: CreateOrderInput) => api.post(`/api/infants/${encodeURIComponent(infantId)}/equipment-orders`, input, orderAnswer),
-    meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: (d: unknown) => sentWords(orderAnswer.parse(d)) },
+    mutationFn: (input: CreateOrderInput) => api.post(`/api/infants/${encodeURIComponent(infantId)}/equipment-orders`, input, orderAnswerSchema),
+    meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: (d: unknown) => sentWords(orderAnswerSchema.parse(d)) },
     onSuccess: () => queryClient.invalidateQueries({ queryKey: orderKeys.lists() }),
   });
 }
@@ -38,8 +34,8 @@ export function useCreateOrder(infantId: string) {
 export function useSendOrder(infantId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (id: string) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/send`, {}, orderAnswer),
-    meta: { successToast: (d: unknown) => sentWords(orderAnswer.parse(d)) },
+    mutationFn: (id: string) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/send`, {}, orderAnswerSchema),
+    meta: { successToast: (d: unknown) => sentWords(orderAnswerSchema.parse(d)) },
     onSettled: () => queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }),
   });
 }
@@ -47,7 +43,7 @@ export function useSendOrder(infantId: string) {
 export function useCancelOrder(infantId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, reason }: { id: string; reason: string }) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/cancel`, { reason }, orderAnswer),
+    mutationFn: ({ id, reason }: { id: string; reason: string }) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/cancel`, { reason }, orderAnswerSchema),
     meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: () => 'Order cancelled.' },
     onSettled: () => queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }),
   });
