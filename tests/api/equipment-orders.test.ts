@@ -150,6 +150,11 @@ describe('who may do what', () => {
     }
     await family.get(`/api/infants/${infant.id}/equipment-orders`).expect(403);
     await family.get('/api/equipment-orders').expect(403);
+    // Nor the supplier's address through the programme's settings, which the family reads for its targets and numbers.
+    const policy = (await family.get('/api/policy').expect(200)).body;
+    expect(policy.settings.supplier).toEqual({ name: '', orderEmail: '', phone: '', lendsOximeter: false });
+    expect(policy.settings.discharge.items).toEqual([]);
+    expect((await coord.get('/api/policy').expect(200)).body.settings.supplier.orderEmail).not.toBe('');
   });
 
   it('when another programme’s coordinator tries, then 404 for the baby and the order, and their list is empty', async () => {

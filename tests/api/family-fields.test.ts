@@ -48,7 +48,8 @@ afterAll(() => ctx.close());
 
 describe('what a family can read', () => {
   it('when the family calls every GET route with each id of their baby, then no answer holds a staff-only field or note', async () => {
-    const gets = routes.filter((r) => r.method === 'get' && r.path.startsWith('/api/') && !r.path.includes('{*'));
+    // The OpenAPI description names every field of every contract (staff ones too) but holds no record's values.
+    const gets = routes.filter((r) => r.method === 'get' && r.path.startsWith('/api/') && !r.path.includes('{*') && r.path !== '/api/openapi.json');
     expect(gets.length).toBeGreaterThan(20);
     const answered: string[] = [];
     for (const route of gets) {

@@ -4,6 +4,7 @@ import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCan, currentUser } from '../../lib/http';
 import type { PolicyService } from './policy.service';
+import { DEFAULT_SUPPLIER_SETTINGS } from '@shared/schemas/supplier';
 
 export function policyRouter(service: PolicyService): Router {
   const r = Router();
@@ -11,7 +12,11 @@ export function policyRouter(service: PolicyService): Router {
   r.get('/', async (req, res) => {
     const { programmeId } = currentUser(req);
     assertCan(req, 'read', 'Policy', { programmeId });
-    res.json(await service.current(programmeId));
+    const policy = await service.current(programmeId);
+    // A family reads the targets, numbers and cylinders it needs; the staff's checklist set-up (their own items come
+    // through the discharge route, in plain words) and the supplier's order address are not for them.
+    if (currentUser(req).role !== 'family') return void res.json(policy);
+    res.json({ ...policy, settings: { ...policy.settings, discharge: { ...policy.settings.discharge, items: [] }, supplier: DEFAULT_SUPPLIER_SETTINGS } });
   });
   r.get('/history', async (req, res) => {
     const { programmeId } = currentUser(req);
