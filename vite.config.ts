@@ -4,6 +4,8 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { compression } from 'vite-plugin-compression2';
+import { routePreloads } from './scripts/build/vite-route-preloads';
 
 const root = fileURLToPath(new URL('.', import.meta.url));
 
@@ -59,7 +61,15 @@ const appGroups = [
 export default defineConfig({
   root,
   publicDir: 'web/public',
-  plugins: [react(), tailwindcss()],
+  plugins: [
+    react(),
+    tailwindcss(),
+    // route-preloads.json: each deep link's chunks, which the API names in the page's HTML (server/web/spa-page.ts).
+    routePreloads({ routerFile: path.join(root, 'web/app/router.tsx'), always: [path.join(root, 'shared/schemas/session.ts')] }),
+    // Brotli (and gzip at its best level) once at build time, served as they are by the API (server/app.ts): brotli
+    // takes about an eighth off the first load's bytes, too slow to do per request at its best level.
+    compression({ algorithms: ['brotliCompress', 'gzip'], include: /\.(js|css|svg)$/ }),
+  ],
   resolve: { tsconfigPaths: true },
   server: {
     port: 5173,

@@ -3,6 +3,7 @@ import helmet from 'helmet';
 import path from 'node:path';
 import fs from 'node:fs';
 import compression from 'compression';
+import expressStaticGzip from 'express-static-gzip';
 import { defineAbilityFor } from '@shared/auth/ability';
 import type { AppDeps } from './deps';
 import { createPassport } from './auth/passport';
@@ -11,6 +12,7 @@ import { absoluteTimeout, createSessionMiddleware } from './auth/session-middlew
 import { createSignInLimiter } from './auth/sign-in-limiter';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { requestLog } from './middleware/request-log';
+import { spaPages } from './web/spa-page';
 import { healthRouter } from './modules/health/health.router';
 import { createSessionService } from './modules/session/session.service';
 import { sessionRouter } from './modules/session/session.router';
@@ -183,15 +185,29 @@ export function createApp(deps: AppDeps): Express {
 
   const webDist = path.resolve(env.WEB_DIST);
   if (fs.existsSync(path.join(webDist, 'index.html'))) {
+    // Bundle files carry a hash of their content in the name, so a browser may keep them for good; a new release
+    // names new files. Everything else (the page itself, the icon) is checked again.
+    // The build writes each bundle file also brotli- and gzip-compressed (vite.config.ts); the best the browser
+    // takes is sent as it is, and compression() below leaves an encoded answer alone.
+    app.use(
+      '/assets',
+      expressStaticGzip(path.join(webDist, 'assets'), {
+        enableBrotli: true,
+        orderPreference: ['br', 'gzip'],
+        index: false,
+        serveStatic: { maxAge: '1y', immutable: true },
+      }),
+    );
     app.use(express.static(webDist, { index: false, maxAge: '1h' }));
     // A bundle file this build does not have (an old page asking for last release's chunk) is a 404, not the
     // app's page with status 200 that the browser would then try to run as a script.
     app.use('/assets', (_req, res) => {
       res.status(404).type('text/plain').send('Not found');
     });
-    app.get('/{*splat}', (_req, res) => {
+    const pageFor = spaPages(webDist);
+    app.get('/{*splat}', (req, res) => {
       res.set('Cache-Control', 'no-cache');
-      res.sendFile(path.join(webDist, 'index.html'));
+      res.type('html').send(pageFor(req.path));
     });
   }
   app.use(errorHandler(logger));
