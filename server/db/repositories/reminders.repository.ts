@@ -77,10 +77,13 @@ export const MESSAGE_SORT_KEYS: Record<ListMessagesQuery['sort'], KeyPart[]> = {
 
 export type MessageListRow = ReminderRow & { infant_name: string | null; k_send_at: string };
 /** The message log's filters as SQL: the caller's rights on the baby, the programme, the chosen filters and the search. */
-function logFilter(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter, qPhone: string | null) {
+function logFilter(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter, qPhone: string | null, rights: 'join' | 'exists' = 'join') {
   const named: Record<string, unknown> = { ...infantAcl.params, programmeId };
-  // Used with `LEFT JOIN infants i ON i.id = r.infant_id`: the join that names the baby also checks the caller may read it.
-  const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR (${infantAcl.sql}))`];
+  // 'join': used with `LEFT JOIN infants i ON i.id = r.infant_id`, the join that names the baby also checks the caller
+  // may read it (a page of 26 rows: 26 key lookups). 'exists': the same check as a lookup per message, for the count,
+  // where a join over thousands of messages makes PostgreSQL hash every baby of the installation.
+  const rightsSql = rights === 'join' ? `(${infantAcl.sql})` : `EXISTS (SELECT 1 FROM infants i WHERE i.id = r.infant_id AND ${infantAcl.sql})`;
+  const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR ${rightsSql})`];
   for (const key of ['status', 'channel', 'template', 'infantId'] as const) {
     if (query[key]) {
       named[key] = query[key];
@@ -202,7 +205,9 @@ export function createRemindersRepository(ds: DataSource) {
         where, params: named, key: MESSAGE_SORT_KEYS[query.sort], at, limit: query.pageSize + 1,
       });
       const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
-      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 ${from} WHERE ${where.join(' AND ')}`, named);
+      // A search reads the baby's name, so it needs the join; without one, each message's rights are a key lookup.
+      const counted = query.q ? { where, named, from } : { ...logFilter(query, programmeId, infantAcl, qPhone, 'exists'), from: 'FROM reminders r' };
+      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 ${counted.from} WHERE ${counted.where.join(' AND ')}`, counted.named);
       const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<MessageListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
       return { ...cutPage(rows, query.pageSize, at), ...count };
     },
