@@ -28,7 +28,7 @@ const infant: InfantDetail = {
 const items = (done: readonly string[] = []): DischargeItem[] => DEFAULT_DISCHARGE_RULES.items.map((r) => ({
   key: r.key, label: r.label, group: r.group, evidenceNeeded: [...r.evidence], source: r.source, done: done.includes(r.key),
   doneBy: done.includes(r.key) ? { id: coordinator.id, name: 'Petra Quill' } : null, doneAt: done.includes(r.key) ? '2026-12-01T10:00:00.000Z' : null,
-  note: '', evidence: null,
+  note: '', evidence: null, byOrder: null,
 }));
 const discharge = (over: Partial<Discharge> = {}): Discharge => {
   const list = over.items ?? items();

@@ -2,6 +2,7 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { z } from 'zod';
 import { equipmentOrderSchema, ordersPageSchema, type CreateOrderInput } from '@shared/schemas/equipment-orders';
 import { api } from '../../../lib/api-client';
+import { dischargeKeys } from '../../discharge/api/discharge-keys';
 import { orderKeys } from './order-keys';
 
 const orderAnswer = z.object({ order: equipmentOrderSchema });
@@ -31,7 +32,8 @@ export function useCreateOrder(infantId: string) {
   return useMutation({
     mutationFn: (input: CreateOrderInput) => api.post(`/api/infants/${encodeURIComponent(infantId)}/equipment-orders`, input, orderAnswer),
     meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: (d: unknown) => sentWords(orderAnswer.parse(d)) },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: orderKeys.lists() }),
+    // The checklist's equipment items follow the orders.
+    onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: orderKeys.lists() }), queryClient.invalidateQueries({ queryKey: dischargeKeys.detail(infantId) })]),
   });
 }
 
@@ -40,7 +42,7 @@ export function useSendOrder(infantId: string) {
   return useMutation({
     mutationFn: (id: string) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/send`, {}, orderAnswer),
     meta: { successToast: (d: unknown) => sentWords(orderAnswer.parse(d)) },
-    onSettled: () => queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }),
+    onSettled: () => Promise.all([queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }), queryClient.invalidateQueries({ queryKey: dischargeKeys.detail(infantId) })]),
   });
 }
 
@@ -49,6 +51,6 @@ export function useCancelOrder(infantId: string) {
   return useMutation({
     mutationFn: ({ id, reason }: { id: string; reason: string }) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/cancel`, { reason }, orderAnswer),
     meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: () => 'Order cancelled.' },
-    onSettled: () => queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }),
+    onSettled: () => Promise.all([queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }), queryClient.invalidateQueries({ queryKey: dischargeKeys.detail(infantId) })]),
   });
 }
