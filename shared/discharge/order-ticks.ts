@@ -20,6 +20,8 @@ export interface OrderFact {
 /** An item done by an order: which order, in what status, and when (ISO instant and the programme's day). */
 export interface OrderTick {
   key: string;
+  /** What the order did: it reached the supplier, or the supplier delivered it. */
+  event: 'sent' | 'delivered';
   orderId: string;
   reference: string;
   status: OrderStatus;
@@ -44,13 +46,13 @@ export function ticksFromOrders(orders: readonly OrderFact[], dischargedOn: stri
   const sent = bringing.filter((o): o is OrderFact & { sentAt: string } => SENT_OR_LATER.includes(o.status) && o.sentAt !== null);
   if (sent.length) {
     const o = earliest(sent, (r) => r.sentAt);
-    ticks.push({ key: EQUIPMENT_ORDERED_KEY, orderId: o.id, reference: o.reference, status: o.status, at: o.sentAt, on: sentOn(o.sentAt) });
+    ticks.push({ key: EQUIPMENT_ORDERED_KEY, event: 'sent', orderId: o.id, reference: o.reference, status: o.status, at: o.sentAt, on: sentOn(o.sentAt) });
   }
   const delivered = bringing.filter((o): o is OrderFact & { deliveredAt: string; deliveredOn: string } =>
     o.status === 'delivered' && o.deliveredAt !== null && o.deliveredOn !== null && (dischargedOn === null || o.deliveredOn <= dischargedOn));
   if (delivered.length) {
     const o = earliest(delivered, (r) => r.deliveredAt);
-    ticks.push({ key: EQUIPMENT_INSTALLED_KEY, orderId: o.id, reference: o.reference, status: o.status, at: o.deliveredAt, on: o.deliveredOn });
+    ticks.push({ key: EQUIPMENT_INSTALLED_KEY, event: 'delivered', orderId: o.id, reference: o.reference, status: o.status, at: o.deliveredAt, on: o.deliveredOn });
   }
   return ticks;
 }

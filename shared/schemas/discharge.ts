@@ -54,10 +54,10 @@ export const dischargeItemSchema = z.object({
   evidence: z.object({ date: z.string().optional(), person: z.string().optional() }).nullable(),
   /**
    * Set when the baby's equipment order, not a person, has done the item (equipment ordered / installed): the order,
-   * its status and the programme's day it was sent or delivered. A hand tick, when there is one, stands instead.
+   * its status now, and whether it was sent or delivered on the programme's day `on`. A hand tick, when there is one, stands instead.
    * Left out of the family's view, which says nothing about orders.
    */
-  byOrder: z.object({ orderId: z.uuid(), reference: z.string(), status: z.enum(ORDER_STATUSES), on: z.string() }).nullable().optional(),
+  byOrder: z.object({ event: z.enum(['sent', 'delivered']), orderId: z.uuid(), reference: z.string(), status: z.enum(ORDER_STATUSES), on: z.string() }).nullable().optional(),
 });
 export type DischargeItem = z.infer<typeof dischargeItemSchema>;
 

@@ -45,17 +45,17 @@ describe('the equipment items follow the baby\'s orders', () => {
     expect((await b.checklist()).missing).toEqual(expect.arrayContaining(EQUIPMENT));
     const made = await b.order();
     const ordered = await b.item('equipment_ordered');
-    expect(ordered).toMatchObject({ done: true, doneBy: null, doneAt: NOW.replace('Z', '.000Z'), byOrder: { orderId: made.id, reference: made.reference, status: 'sent', on: TODAY } });
+    expect(ordered).toMatchObject({ done: true, doneBy: null, doneAt: NOW.replace('Z', '.000Z'), byOrder: { event: 'sent', orderId: made.id, reference: made.reference, status: 'sent', on: TODAY } });
     expect(await b.item('equipment_installed')).toMatchObject({ done: false, byOrder: null });
 
     const link = await b.linkOf(made.reference);
     await link.confirm('2026-12-04');
     // Confirmed is still not installed; the ordered item now shows the order's newer status.
-    expect(await b.item('equipment_ordered')).toMatchObject({ done: true, byOrder: { status: 'confirmed' } });
+    expect(await b.item('equipment_ordered')).toMatchObject({ done: true, byOrder: { event: 'sent', status: 'confirmed' } });
     expect((await b.item('equipment_installed')).done).toBe(false);
     await link.delivered();
     expect(await b.item('equipment_installed')).toMatchObject({
-      done: true, doneBy: null, doneAt: NOW.replace('Z', '.000Z'), evidence: { date: TODAY }, byOrder: { orderId: made.id, status: 'delivered', on: TODAY },
+      done: true, doneBy: null, doneAt: NOW.replace('Z', '.000Z'), evidence: { date: TODAY }, byOrder: { event: 'delivered', orderId: made.id, status: 'delivered', on: TODAY },
     });
 
     // Everything else by hand: the baby is ready without anyone ticking the equipment items.

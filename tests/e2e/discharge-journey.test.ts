@@ -41,13 +41,16 @@ const equipment = () => page.locator('section', { has: page.getByRole('heading',
 describe('the coordinator takes a baby home with the supplier’s equipment', () => {
   it('when the coordinator works through the checklist on a demo baby not yet started, then every step but the equipment is done by hand', async () => {
     await signInAndLand(browser, base, 'coordinator@larkmoor.example');
-    // A demo baby with an approved setting, nothing ticked and no order yet; not one of the first five on oxygen,
-    // which the demo's discharge stages and the other browser tests use (seed/seed-discharges.ts).
+    // A demo baby with an approved setting, nothing ticked, no order and no home visit booked ahead (a booked visit
+    // would answer the first-visit proposal); not one of the first five on oxygen, which the demo's discharge
+    // stages and the other browser tests use (seed/seed-discharges.ts).
     const list = (await api('GET', '/api/infants?status=on_oxygen&pageSize=50')).body.items as Array<{ id: string; name: string }>;
     for (const candidate of list.slice(5)) {
       const d = (await api('GET', `/api/infants/${candidate.id}/discharge`)).body as { settingApproved: boolean; items: Array<{ done: boolean }> };
       const orders = (await api('GET', `/api/infants/${candidate.id}/equipment-orders`)).body.items as unknown[];
-      if (d.settingApproved && d.items.every((i) => !i.done) && orders.length === 0) {
+      const visits = (await api('GET', `/api/infants/${candidate.id}/visits`)).body.items as Array<{ kind: string; status: string; date: string }>;
+      const visitAhead = visits.some((v) => v.kind === 'home_visit' && v.status === 'booked' && v.date >= today());
+      if (d.settingApproved && d.items.every((i) => !i.done) && orders.length === 0 && !visitAhead) {
         baby = candidate;
         break;
       }
@@ -75,7 +78,7 @@ describe('the coordinator takes a baby home with the supplier’s equipment', ()
     await sent.waitFor();
     reference = (await sent.getAttribute('aria-label'))!.replace('Order ', '');
 
-    await discharge().getByText(`Done by the supplier’s order, on ${dateInWords(today())}:`).waitFor();
+    await discharge().getByText(`Done by the order sent to the supplier, on ${dateInWords(today())}:`).waitFor();
     await discharge().getByRole('link', { name: `order ${reference}` }).waitFor();
     await discharge().getByText(`${ALL - 1} of ${ALL} steps done`).waitFor();
 

@@ -65,7 +65,7 @@ describe('Infant record: discharge', () => {
   it('when the supplier’s delivery did the equipment items, then they say so with a link to the order and offer no undo', async () => {
     const ORDER_ID = '7a7a7a7a-0000-4000-8000-000000000001';
     const list = items().map((i) => (i.key === 'equipment_installed'
-      ? { ...i, done: true, doneAt: '2026-12-04T14:00:00.000Z', evidence: { date: '2026-12-04' }, byOrder: { orderId: ORDER_ID, reference: 'LHO-0007', status: 'delivered' as const, on: '2026-12-04' } }
+      ? { ...i, done: true, doneAt: '2026-12-04T14:00:00.000Z', evidence: { date: '2026-12-04' }, byOrder: { event: 'delivered' as const, orderId: ORDER_ID, reference: 'LHO-0007', status: 'delivered' as const, on: '2026-12-04' } }
       : i));
     stubRecord('coordinator', { current: discharge({ items: list }) }, { [`GET /api/infants/${ID}/equipment-orders`]: () => json(200, { items: [] }) });
     renderApp(`/infants/${ID}`);

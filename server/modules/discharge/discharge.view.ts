@@ -28,7 +28,7 @@ export function staffView(f: ViewFacts): Discharge {
       return {
         key: r.key, label: r.label, group: r.group, evidenceNeeded: [...r.evidence], source: r.source, done: true, doneBy: null, doneAt: tick.at,
         note: s?.note ?? '', evidence: r.evidence.includes('date') ? { date: tick.on } : null,
-        byOrder: { orderId: tick.orderId, reference: tick.reference, status: tick.status, on: tick.on },
+        byOrder: { event: tick.event, orderId: tick.orderId, reference: tick.reference, status: tick.status, on: tick.on },
       };
     }
     return {

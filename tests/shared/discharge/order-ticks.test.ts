@@ -15,7 +15,7 @@ describe('ticksFromOrders', () => {
       order({ id: 'c', status: 'cancelled', sentAt: '2026-11-01T09:00:00.000Z' }), order({ id: 'd', status: 'drafted', sentAt: null }),
       order({ id: 'col', purpose: 'collection', sentAt: '2026-11-02T09:00:00.000Z' }),
     ], null, day);
-    expect(ticks).toEqual([{ key: 'equipment_ordered', orderId: 'early', reference: 'EQ-2', status: 'confirmed', at: '2026-11-30T09:00:00.000Z', on: '2026-11-30' }]);
+    expect(ticks).toEqual([{ key: 'equipment_ordered', event: 'sent', orderId: 'early', reference: 'EQ-2', status: 'confirmed', at: '2026-11-30T09:00:00.000Z', on: '2026-11-30' }]);
     expect(ticksFromOrders([order({ status: 'failed' }), order({ status: 'drafted', sentAt: null })], null, day)).toEqual([]);
   });
 

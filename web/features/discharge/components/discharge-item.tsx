@@ -60,7 +60,7 @@ export function DischargeItemRow({ infantId, item, canChange }: { infantId: stri
           </p>
           {item.byOrder && (
             <p className="text-sm text-ink-700">
-              Done by the supplier’s {item.byOrder.status === 'delivered' ? 'delivery' : 'order'}, on {formatDate(item.byOrder.on)}:{' '}
+              {item.byOrder.event === 'delivered' ? 'Done by the supplier’s delivery' : 'Done by the order sent to the supplier'}, on {formatDate(item.byOrder.on)}:{' '}
               <a href={`#order-${item.byOrder.orderId}`} className="font-semibold text-brand-800 underline">order {item.byOrder.reference}</a>
             </p>
           )}
