@@ -40,7 +40,7 @@ async function baby() {
 }
 
 describe('the equipment items follow the baby\'s orders', () => {
-  it('when an order is sent, then "ordered" is done by it; when the supplier delivers, "installed" is done; readiness counts both', async () => {
+  it('when an order is sent, then the ordered item is done by it; when the supplier delivers, the installed item is done; readiness counts both', async () => {
     const b = await baby();
     expect((await b.checklist()).missing).toEqual(expect.arrayContaining(EQUIPMENT));
     const made = await b.order();
@@ -68,7 +68,7 @@ describe('the equipment items follow the baby\'s orders', () => {
     expect(JSON.stringify((await b.family.get(`/api/infants/${b.infant.id}/discharge`).expect(200)).body)).not.toMatch(/order|equipment_ordered|equipment_installed/i);
   });
 
-  it('when the delivery comes after the discharge date being set, then "installed" is missing and the date is refused', async () => {
+  it('when the delivery comes after the discharge date being set, then the installed item is missing and the date is refused', async () => {
     const b = await baby();
     const made = await b.order();
     const link = await b.linkOf(made.reference);
@@ -95,7 +95,7 @@ describe('the equipment items follow the baby\'s orders', () => {
     expect((await b.checklist()).missing).toEqual(expect.arrayContaining(EQUIPMENT));
   });
 
-  it('when the equipment came another way, then a hand tick with a note still counts, and stands before an order\'s', async () => {
+  it('when the equipment came another way, then a hand tick with a note still counts, and stands before an order’s', async () => {
     const b = await baby();
     const rule = DEFAULT_DISCHARGE_RULES.items.find((r) => r.key === 'equipment_installed')!;
     expect(rule.evidence).toEqual(['date']);
