@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { plainText } from './common';
 import { DISCHARGE_EVIDENCE, DISCHARGE_GROUPS } from './discharge-policy';
+import { ORDER_STATUSES } from './equipment-orders';
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-12-03' });
 
@@ -54,6 +55,12 @@ export const dischargeItemSchema = z.object({
   doneAt: z.string().nullable(),
   note: z.string(),
   evidence: z.object({ date: z.string().optional(), person: z.string().optional() }).nullable(),
+  /**
+   * Set when the baby's equipment order, not a person, has done the item (equipment ordered / installed): the order,
+   * its status now, and whether it was sent or delivered on the programme's day `on`. A hand tick, when there is one, stands instead.
+   * Left out of the family's view, which says nothing about orders.
+   */
+  byOrder: z.object({ event: z.enum(['sent', 'delivered']), orderId: z.uuid(), reference: z.string(), status: z.enum(ORDER_STATUSES), on: z.string() }).nullable().optional(),
 });
 export type DischargeItem = z.infer<typeof dischargeItemSchema>;
 

@@ -4,9 +4,11 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { axeReport, axeViolations, focused, headingSkips, isSerious, nestedLiveRegions, ringClippedBy, tabThroughPage } from '../helpers/a11y';
 import { openBrowser, pageApi, screenshot, signIn, signInAndLand, type Browser } from '../helpers/browser';
+import { supplierMail } from '../helpers/e2e-discharge';
 
 // WCAG 2.2 AA checks on the five flows named in the accessibility issue, and axe on every page for every role.
 const base = inject('baseUrl');
+const fakeMail = inject('fakeMailUrl');
 const DESKTOP = { width: 1280, height: 860 };
 const PHONE = { width: 390, height: 844 };
 // A 1280 × 860 window at 200 % zoom lays the page out as 640 × 430 CSS pixels.
@@ -296,14 +298,20 @@ describe('axe on every page, staff and family, desktop and phone', () => {
     const recordings = (await api('GET', `/api/infants/${baby.id}/recordings`)).body?.items ?? [];
     const journeys = (await api('GET', `/api/infants/${baby.id}/journeys`)).body?.items ?? [];
     const anyJourney = journeys[0] ?? null;
+    // An order sent to the supplier for this baby: its record then shows the discharge and equipment sections with
+    // an order, and the supplier's page (no session) is reached through the link in the e-mail, as the supplier does.
+    const neededBy = new Date(Date.now() + 5 * 86_400_000).toISOString().slice(0, 10);
+    const sent = await api('POST', `/api/infants/${baby.id}/equipment-orders`, { items: [{ kind: 'concentrator', quantity: 1, flowMinLpm: 0.1, flowMaxLpm: 2 }], neededBy });
+    expect(sent.status, JSON.stringify(sent.body)).toBe(201);
+    const supplierPage = new URL((await supplierMail(fakeMail, sent.body.order.reference)).link).pathname;
     await land('consultant@larkmoor.example');
     const queue = (await api('GET', '/api/prescriptions/queue')).body?.items ?? [];
     const waitingJourneys = (await api('GET', '/api/journeys/waiting')).body?.items ?? [];
 
     const pages: Record<string, string[]> = {
-      'admin@larkmoor.example': ['/admin', '/admin/people', '/admin/settings', '/messages'],
+      'admin@larkmoor.example': ['/admin', '/admin/people', '/admin/settings', '/messages', '/equipment-orders'],
       'coordinator@larkmoor.example': [
-        '/coordinator', '/caseload', '/enrol', '/messages', `/infants/${baby.id}`, `/infants/${baby.id}/reading`,
+        '/coordinator', '/caseload', '/enrol', '/messages', `/infants/${baby.id}`, '/equipment-orders', '/equipment-orders?status=overdue', `/infants/${baby.id}/reading`,
         `/infants/${baby.id}/recordings/new`, `/infants/${baby.id}/cylinder`, `/infants/${baby.id}/journeys/new`,
         ...(recordings[0] ? [`/recordings/${recordings[0].id}`] : []),
         ...(anyJourney ? [`/journeys/${anyJourney.id}`] : []),
@@ -311,7 +319,7 @@ describe('axe on every page, staff and family, desktop and phone', () => {
       ],
       'nurse@larkmoor.example': ['/nurse', '/caseload'],
       'consultant@larkmoor.example': [
-        '/consultant', '/sign-off', '/caseload',
+        '/consultant', '/sign-off', '/caseload', `/infants/${baby.id}`,
         ...(queue[0] ? [`/sign-off/${queue[0].prescriptionId ?? queue[0].id}`] : []),
         ...(waitingJourneys[0] ? [`/journeys/${waitingJourneys[0].id}`] : []),
       ],
@@ -328,7 +336,7 @@ describe('axe on every page, staff and family, desktop and phone', () => {
       const found = await axeViolations(page);
       const serious = found.filter((v) => v.impact === 'serious');
       const critical = found.filter((v) => v.impact === 'critical');
-      rows.push({ page: url.replace(/[0-9a-f]{8}-[0-9a-f-]{27}/g, ':id'), who: who.split('@')[0], screen: screenName, title, total: found.length, serious: serious.length, critical: critical.length, ids: found.map((v) => `${v.id}(${v.impact})`).join(' ') });
+      rows.push({ page: url.replace(/\/supplier\/orders\/\S+/, '/supplier/orders/:token').replace(/[0-9a-f]{8}-[0-9a-f-]{27}/g, ':id'), who: who.split('@')[0], screen: screenName, title, total: found.length, serious: serious.length, critical: critical.length, ids: found.map((v) => `${v.id}(${v.impact})`).join(' ') });
       if (serious.length + critical.length) problems.push(`${who} ${url} ${screenName}\n${axeReport([...critical, ...serious])}`);
       if (!/ · Nestflow$/.test(title)) problems.push(`${who} ${url} ${screenName}: title "${title}"`);
       const skips = await headingSkips(page);
@@ -344,6 +352,7 @@ describe('axe on every page, staff and family, desktop and phone', () => {
       await page.goto('about:blank');
       await browser.context.clearCookies();
       await scan('signed out', '/sign-in', screenName);
+      await scan('supplier (signed link, no session)', supplierPage, screenName);
       for (const [who, urls] of Object.entries(pages)) {
         await land(who);
         for (const url of urls) await scan(who, url, screenName);

@@ -1,14 +1,11 @@
 import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { execFileSync } from 'node:child_process';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
 import { addDays } from '@shared/clinical/dates';
 import { dateInWords } from '@shared/dates/date-words';
 import { LETTER_CAUTIONS } from '@shared/discharge/letter-text';
 import { axeReport, headingSkips, seriousViolations } from '../helpers/a11y';
 import { openBrowser, screenshot, signInAndLand, type Browser } from '../helpers/browser';
+import { downloadPdfText, spaced, tickItem } from '../helpers/e2e-discharge';
 
 const base = inject('baseUrl');
 let browser: Browser;
@@ -27,22 +24,12 @@ beforeEach(({ task, onTestFailed }) => {
 
 /** The programme's calendar day (the demo programme is in Europe/London). */
 const today = () => new Intl.DateTimeFormat('en-CA', { timeZone: 'Europe/London', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
-const spaced = (text: string) => text.replace(/\s+/g, ' ').trim();
 
 let recordUrl = '';
 let babyName = '';
 const dischargeOn = addDays(today(), 2);
 
-async function tick(label: string, evidence?: { date: string; person: string }) {
-  await page.getByRole('button', { name: `Mark done: ${label}` }).click();
-  const form = page.getByRole('form', { name: `Mark done: ${label}` });
-  if (evidence) {
-    await form.getByLabel('Date it was done').fill(evidence.date);
-    await form.getByLabel('Who did it').fill(evidence.person);
-  }
-  await form.getByRole('button', { name: 'Save as done' }).click();
-  await page.getByRole('button', { name: `Undo: ${label}` }).waitFor();
-}
+const tick = (label: string, evidence?: { date: string; person: string }) => tickItem(page, label, evidence);
 
 describe('the coordinator takes a baby home: checklist, discharge date, first visit, letter', () => {
   it('when the overview lists a baby in preparation, then the coordinator opens its record from the list of what is missing', async () => {
@@ -93,14 +80,8 @@ describe('the coordinator takes a baby home: checklist, discharge date, first vi
 
   it('when the coordinator downloads the discharge letter, then its text reads back with the date, the first visit, the targets and the cautions', async () => {
     await page.goto(recordUrl);
-    const [download] = await Promise.all([
-      page.waitForEvent('download'),
-      page.getByRole('link', { name: 'Download the discharge letter (PDF)' }).click(),
-    ]);
-    expect(download.suggestedFilename()).toMatch(/^discharge-letter-[a-z0-9-]+-\d{4}-\d{2}-\d{2}\.pdf$/);
-    const file = path.join(mkdtempSync(path.join(tmpdir(), 'discharge-e2e-')), 'letter.pdf');
-    await download.saveAs(file);
-    const text = spaced(execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }));
+    const { filename, text } = await downloadPdfText(page, 'Download the discharge letter (PDF)');
+    expect(filename).toMatch(/^discharge-letter-[a-z0-9-]+-\d{4}-\d{2}-\d{2}\.pdf$/);
     expect(text).toContain('Home oxygen discharge letter');
     expect(text).toContain(babyName);
     expect(text).toContain(`Discharge date: ${dateInWords(dischargeOn)}.`);

@@ -2,10 +2,10 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 import { axeReport, headingSkips, seriousViolations } from '../helpers/a11y';
+import { supplierMail } from '../helpers/e2e-discharge';
 
 const base = inject('baseUrl');
 const fakeMail = inject('fakeMailUrl');
-const SUPPLIER = 'orders@fenwold-gases.example'; // the demo programme's supplier (seed/seed-policy.ts)
 let browser: Browser;
 let page: Page;
 beforeAll(async () => {
@@ -19,17 +19,9 @@ const api = (method: string, path: string, body?: unknown) => pageApi(page)(meth
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
 async function linkFor(reference: string): Promise<string> {
-  for (let i = 0; i < 100; i++) {
-    const inbox = (await (await fetch(`${fakeMail}/messages`)).json()) as Array<{ envelope: { to: string[] }; subject: string; text: string; raw: string }>;
-    const mail = inbox.find((m) => m.envelope.to.includes(SUPPLIER) && m.subject.includes(reference));
-    if (mail) {
-      expect(mail.raw).toMatch(/Content-Type: application\/pdf/);
-      const link = /http\S+\/supplier\/orders\/[A-Za-z0-9._-]+/.exec(mail.text)?.[0];
-      if (link) return link;
-    }
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`no e-mail to ${SUPPLIER} for ${reference}`);
+  const { message, link } = await supplierMail(fakeMail, reference);
+  expect(message.raw).toMatch(/Content-Type: application\/pdf/);
+  return link;
 }
 
 describe('an equipment order from the coordinator to the supplier and back', () => {

@@ -37,7 +37,12 @@ export default async function setup(project: TestProject) {
   await ds.query('CREATE SCHEMA public');
   await ds.destroy();
   // The fake mail and SMS servers run beside the API, on ports next to it, as `npm start` runs them.
-  const fakes = { FAKE_MAIL_HTTP_PORT: String(PORT + 1), FAKE_SMTP_PORT: String(PORT + 2), FAKE_SMS_PORT: String(PORT + 3) };
+  // E2E_FAKE_*_PORT move them where ports next to the API are taken (several test runs on one machine).
+  const fakes = {
+    FAKE_MAIL_HTTP_PORT: process.env.E2E_FAKE_MAIL_HTTP_PORT ?? String(PORT + 1),
+    FAKE_SMTP_PORT: process.env.E2E_FAKE_SMTP_PORT ?? String(PORT + 2),
+    FAKE_SMS_PORT: process.env.E2E_FAKE_SMS_PORT ?? String(PORT + 3),
+  };
   const env = {
     ...process.env, NODE_ENV: 'test', DATABASE_URL: url, PORT: String(PORT), QUEUE_PREFIX: 'e2e', LOG_LEVEL: 'warn', SIGNIN_IP_LIMIT: '1000', ...fakes,
     SMTP_PORT: fakes.FAKE_SMTP_PORT, SMS_API_BASE: `http://127.0.0.1:${fakes.FAKE_SMS_PORT}`, INBOUND_WEBHOOK_URL: `http://127.0.0.1:${PORT}/api/webhooks/sms`,

@@ -28,7 +28,7 @@ const infant: InfantDetail = {
 const items = (done: readonly string[] = []): DischargeItem[] => DEFAULT_DISCHARGE_RULES.items.map((r) => ({
   key: r.key, label: r.label, group: r.group, evidenceNeeded: [...r.evidence], source: r.source, done: done.includes(r.key),
   doneBy: done.includes(r.key) ? { id: coordinator.id, name: 'Petra Quill' } : null, doneAt: done.includes(r.key) ? '2026-12-01T10:00:00.000Z' : null,
-  note: '', evidence: null,
+  note: '', evidence: null, byOrder: null,
 }));
 const discharge = (over: Partial<Discharge> = {}): Discharge => {
   const list = over.items ?? items();
@@ -60,6 +60,21 @@ describe('Infant record: discharge', () => {
     expect(within(section).getByRole('heading', { name: 'Letters (0 of 2)' })).toBeInTheDocument();
     expect(within(section).getAllByText(/^Done by Petra Quill, 1 Dec 2026/)).toHaveLength(2);
     expect(within(section).getByRole('link', { name: 'Download the discharge letter (PDF)' })).toHaveAttribute('href', `/api/infants/${ID}/discharge-letter.pdf`);
+  });
+
+  it('when the supplier’s delivery did the equipment items, then they say so with a link to the order and offer no undo', async () => {
+    const ORDER_ID = '7a7a7a7a-0000-4000-8000-000000000001';
+    const list = items().map((i) => (i.key === 'equipment_installed'
+      ? { ...i, done: true, doneAt: '2026-12-04T14:00:00.000Z', evidence: { date: '2026-12-04' }, byOrder: { event: 'delivered' as const, orderId: ORDER_ID, reference: 'LHO-0007', status: 'delivered' as const, on: '2026-12-04' } }
+      : i));
+    stubRecord('coordinator', { current: discharge({ items: list }) }, { [`GET /api/infants/${ID}/equipment-orders`]: () => json(200, { items: [] }) });
+    renderApp(`/infants/${ID}`);
+    const section = await card();
+    expect(await within(section).findByText(/Done by the supplier’s delivery, on 4 Dec 2026/)).toBeInTheDocument();
+    expect(within(section).getByRole('link', { name: 'order LHO-0007' })).toHaveAttribute('href', `#order-${ORDER_ID}`);
+    expect(within(section).queryByRole('button', { name: /Undo: Equipment installed/ })).toBeNull();
+    // The item not yet done by an order can still be ticked by hand (equipment that came another way).
+    expect(within(section).getByRole('button', { name: 'Mark done: Equipment ordered from the supplier' })).toBeInTheDocument();
   });
 
   it('when evidence is missing, then the API’s messages sit beside the fields; once given, the tick is saved with it', async () => {

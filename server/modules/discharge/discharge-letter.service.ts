@@ -4,6 +4,7 @@ import { homeFlowsOf } from '@shared/clinical/journey-plan';
 import { JOURNEY_PERIODS } from '@shared/schemas/journeys';
 import { formatPhone } from '@shared/phone/phone';
 import { missingForDischarge, sortByGroup } from '@shared/discharge/readiness';
+import { withOrderTicks } from '@shared/discharge/order-ticks';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
@@ -15,6 +16,7 @@ import { systemClock, type Clock } from '../../lib/clock';
 import { safeSlug } from '../care-plan/care-plan.service';
 import { fieldsOf } from './discharge.service';
 import { renderDischargeLetterPdf, type DischargeLetterData } from './discharge-letter.pdf';
+import { orderTicksFor } from './order-ticks';
 
 export function createDischargeLetterService(repos: AppRepos, mail: MailSender, clock: Clock = systemClock) {
   async function build(ability: AppAbility, infantId: string, timeZone: string) {
@@ -34,7 +36,8 @@ export function createDischargeLetterService(repos: AppRepos, mail: MailSender, 
     const today = todayIn(timeZone, clock.now());
     const flows = homeFlowsOf(rx.approvedFlowLpm, rx.periods);
     const rules = policy.settings.discharge.items;
-    const missing = new Set(missingForDischarge(rules, states, true));
+    const ticks = await orderTicksFor(repos, infant, step?.dischargedOn ?? null);
+    const missing = new Set(missingForDischarge(rules, withOrderTicks(states, ticks), true));
     let booked = false;
     if (step?.dischargedOn && step.firstVisitOn) {
       const visits = await repos.visits.forInfant(infant.id, new Date(`${step.dischargedOn}T00:00:00Z`));

@@ -2,6 +2,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
 import type { AppAbility } from '@shared/auth/ability';
 import { missingEvidence, missingForDischarge } from '@shared/discharge/readiness';
+import { withOrderTicks } from '@shared/discharge/order-ticks';
 import { addDays } from '@shared/clinical/dates';
 import type { Discharge, DischargeItem, SetDischargeInput, UpdateDischargeItemInput } from '@shared/schemas/discharge';
 import { accessibleWhere } from '../../auth/casl-to-sql';
@@ -13,6 +14,7 @@ import type { Actor } from '../../lib/http';
 import { systemClock, type Clock } from '../../lib/clock';
 import { todayIn } from '../../lib/dates';
 import { familyView, staffView } from './discharge.view';
+import { orderTicksFor } from './order-ticks';
 
 export const fieldsOf = (i: InfantEntity) => ({ programmeId: i.programmeId, infantId: i.id, nurseId: i.nurseId } as Record<string, unknown>);
 
@@ -54,7 +56,8 @@ export function createDischargeService(ds: DataSource, repos: AppRepos, clock: C
       const visits = await repos.visits.forInfant(infant.id, new Date(`${step.dischargedOn}T00:00:00Z`));
       bookedVisitId = visits.find((v) => v.status === 'booked' && v.kind === 'home_visit' && v.localDate >= step.dischargedOn!)?.id ?? null;
     }
-    const facts = { rules: policy.settings.discharge.items, states, step, settingApproved: approved, names, bookedVisitId };
+    const orderTicks = await orderTicksFor(repos, infant, step?.dischargedOn ?? null, m);
+    const facts = { rules: policy.settings.discharge.items, states, step, settingApproved: approved, names, bookedVisitId, orderTicks };
     return audience === 'family' ? familyView(facts) : staffView(facts);
   }
 
@@ -105,10 +108,12 @@ export function createDischargeService(ds: DataSource, repos: AppRepos, clock: C
       if (input.date > addDays(today, AHEAD_DAYS)) throw new ValidationError({ date: ['Use a date within the next year'] });
       await ds.transaction(async (m) => {
         const step = await repos.discharges.lockStep(infant.id, infant.programmeId, m);
-        const [policy, states, approved] = await Promise.all([
+        const [policy, states, approved, ticks] = await Promise.all([
           repos.policies.current(infant.programmeId, m), repos.discharges.itemsFor(infant.id, m), settingApproved(infant.id, m),
+          // Equipment counts as installed only when delivered on or before the date being set.
+          orderTicksFor(repos, infant, input.date, m),
         ]);
-        const missing = missingForDischarge(policy.settings.discharge.items, states, approved);
+        const missing = missingForDischarge(policy.settings.discharge.items, withOrderTicks(states, ticks), approved);
         const override = missing.length > 0;
         if (override && !input.overrideReason) throw new DischargeNotReadyError(missing);
         if (override && !ability.can('approve', subject('Discharge', fieldsOf(infant)))) {

@@ -1,6 +1,7 @@
 import type { Discharge, DischargeItem } from '@shared/schemas/discharge';
 import type { DischargeItemRule } from '@shared/schemas/discharge-policy';
 import { familyItems, missingForDischarge, sortByGroup } from '@shared/discharge/readiness';
+import { withOrderTicks, type OrderTick } from '@shared/discharge/order-ticks';
 import type { DischargeEntity, DischargeItemEntity } from '../../db/entities/discharge.entity';
 
 export interface ViewFacts {
@@ -10,6 +11,8 @@ export interface ViewFacts {
   settingApproved: boolean;
   names: Map<string, string>;
   bookedVisitId: string | null;
+  /** Items the baby's equipment orders have done; a hand tick of the same item stands instead. */
+  orderTicks: readonly OrderTick[];
 }
 
 const person = (id: string | null, names: Map<string, string>) => (id ? { id, name: names.get(id) ?? '' } : null);
@@ -17,15 +20,24 @@ const person = (id: string | null, names: Map<string, string>) => (id ? { id, na
 /** The staff view: every item of the programme's checklist with what is stored for it, in group order. */
 export function staffView(f: ViewFacts): Discharge {
   const byKey = new Map(f.states.map((s) => [s.key, s]));
+  const ticks = new Map(f.orderTicks.map((t) => [t.key, t]));
   const items: DischargeItem[] = sortByGroup(f.rules).map((r) => {
     const s = byKey.get(r.key);
+    const tick = s?.done ? undefined : ticks.get(r.key);
+    if (tick) {
+      return {
+        key: r.key, label: r.label, group: r.group, evidenceNeeded: [...r.evidence], source: r.source, done: true, doneBy: null, doneAt: tick.at,
+        note: s?.note ?? '', evidence: r.evidence.includes('date') ? { date: tick.on } : null,
+        byOrder: { event: tick.event, orderId: tick.orderId, reference: tick.reference, status: tick.status, on: tick.on },
+      };
+    }
     return {
       key: r.key, label: r.label, group: r.group, evidenceNeeded: [...r.evidence], source: r.source,
       done: s?.done ?? false, doneBy: s?.done ? person(s.doneBy, f.names) : null, doneAt: s?.done && s.doneAt ? s.doneAt.toISOString() : null,
-      note: s?.note ?? '', evidence: s?.done ? s.evidence : null,
+      note: s?.note ?? '', evidence: s?.done ? s.evidence : null, byOrder: null,
     };
   });
-  const missing = missingForDischarge(f.rules, f.states, f.settingApproved);
+  const missing = missingForDischarge(f.rules, withOrderTicks(f.states, f.orderTicks), f.settingApproved);
   const step = f.step;
   return {
     items, ready: missing.length === 0, missing, settingApproved: f.settingApproved, dischargedOn: step?.dischargedOn ?? null,

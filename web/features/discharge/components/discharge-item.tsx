@@ -39,7 +39,7 @@ function TickForm({ infantId, item, onClose }: { infantId: string; item: Dischar
           {needs.has('person') && <TextField label="Who did it" error={errors.evidence?.person?.message} {...register('evidence.person')} />}
         </div>
       )}
-      <TextAreaField label="Note (optional)" rows={2} error={errors.note?.message} {...register('note')} />
+      <TextAreaField label={item.group === 'equipment' ? 'Note (optional): how the equipment came, if not by an order' : 'Note (optional)'} rows={2} error={errors.note?.message} {...register('note')} />
       <FormActions pending={update.isPending} submitLabel="Save as done" onCancel={onClose} />
     </form>
   );
@@ -58,7 +58,13 @@ export function DischargeItemRow({ infantId, item, canChange }: { infantId: stri
             {item.label}
             <span className="sr-only">{item.done ? ' (done)' : ' (not done)'}</span>
           </p>
-          {item.done && (
+          {item.byOrder && (
+            <p className="text-sm text-ink-700">
+              {item.byOrder.event === 'delivered' ? 'Done by the supplier’s delivery' : 'Done by the order sent to the supplier'}, on {formatDate(item.byOrder.on)}:{' '}
+              <a href={`#order-${item.byOrder.orderId}`} className="font-semibold text-brand-800 underline">order {item.byOrder.reference}</a>
+            </p>
+          )}
+          {item.done && !item.byOrder && (
             <p className="text-sm text-ink-700">
               Done{item.doneBy ? ` by ${item.doneBy.name}` : ''}{item.doneAt ? `, ${formatDateTime(item.doneAt)}` : ''}
               {item.evidence?.date || item.evidence?.person
@@ -68,7 +74,8 @@ export function DischargeItemRow({ infantId, item, canChange }: { infantId: stri
           {item.note && <p className="text-sm text-ink-700">Note: {item.note}</p>}
           {item.source && <p className="text-xs text-ink-500">Source: {item.source}</p>}
         </div>
-        {canChange && !ticking && (item.done
+        {/* An item the supplier's order did is not undone by hand; it follows the order (cancelled: not done). */}
+        {canChange && !ticking && !item.byOrder && (item.done
           ? <Button variant="quiet" size="sm" disabled={untick.isPending} onClick={() => untick.mutate({ done: false })}>Undo: {item.label}</Button>
           : <Button variant="secondary" size="sm" onClick={() => setTicking(true)}>Mark done: {item.label}</Button>)}
       </div>

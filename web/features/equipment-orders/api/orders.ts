@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { infantOrdersSchema, orderAnswerSchema, ordersPageSchema, type CreateOrderInput, type OrderAnswer } from '@shared/schemas/equipment-orders';
 import { api } from '../../../lib/api-client';
+import { dischargeKeys } from '../../discharge/api/discharge-keys';
 import { orderKeys } from './order-keys';
 
 export const infantOrdersQueryOptions = (infantId: string) =>
@@ -27,7 +28,8 @@ export function useCreateOrder(infantId: string) {
   return useMutation({
     mutationFn: (input: CreateOrderInput) => api.post(`/api/infants/${encodeURIComponent(infantId)}/equipment-orders`, input, orderAnswerSchema),
     meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: (d: unknown) => sentWords(orderAnswerSchema.parse(d)) },
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: orderKeys.lists() }),
+    // The checklist's equipment items follow the orders.
+    onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: orderKeys.lists() }), queryClient.invalidateQueries({ queryKey: dischargeKeys.detail(infantId) })]),
   });
 }
 
@@ -36,7 +38,7 @@ export function useSendOrder(infantId: string) {
   return useMutation({
     mutationFn: (id: string) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/send`, {}, orderAnswerSchema),
     meta: { successToast: (d: unknown) => sentWords(orderAnswerSchema.parse(d)) },
-    onSettled: () => queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }),
+    onSettled: () => Promise.all([queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }), queryClient.invalidateQueries({ queryKey: dischargeKeys.detail(infantId) })]),
   });
 }
 
@@ -45,6 +47,6 @@ export function useCancelOrder(infantId: string) {
   return useMutation({
     mutationFn: ({ id, reason }: { id: string; reason: string }) => api.post(`/api/equipment-orders/${encodeURIComponent(id)}/cancel`, { reason }, orderAnswerSchema),
     meta: { inlineErrors: ['validation_failed', 'conflict', 'forbidden', 'not_found'], successToast: () => 'Order cancelled.' },
-    onSettled: () => queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }),
+    onSettled: () => Promise.all([queryClient.invalidateQueries({ queryKey: orderKeys.forInfant(infantId) }), queryClient.invalidateQueries({ queryKey: dischargeKeys.detail(infantId) })]),
   });
 }

@@ -13,7 +13,7 @@ export function OrderItem({ order, canManage, cylinderNames }: { order: Equipmen
   const sendable = canManage && (order.status === 'drafted' || order.status === 'failed');
   const cancellable = canManage && order.status !== 'delivered' && order.status !== 'cancelled';
   return (
-    <li className="flex flex-col gap-2 px-3 py-3" aria-label={`Order ${order.reference}`}>
+    <li id={`order-${order.id}`} className="flex flex-col gap-2 px-3 py-3" aria-label={`Order ${order.reference}`}>
       <div className="flex flex-wrap items-baseline justify-between gap-x-3 gap-y-1">
         <span className="font-semibold text-ink-900">{order.reference} · {ORDER_PURPOSE_LABELS[order.purpose]}</span>
         <Badge tone={STATUS_TONES[order.status]}>{statusLabel(order.status)}</Badge>
