@@ -5,7 +5,7 @@ import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { compression } from 'vite-plugin-compression2';
-import { routePreloads } from './scripts/build/vite-route-preloads';
+import { routePreloads } from './scripts/build/vite-route-preloads.ts';
 
 const root = fileURLToPath(new URL('.', import.meta.url));
 
