@@ -7,6 +7,7 @@ import { actorOf, assertCanAny, currentUser } from '../../lib/http';
 import type { DischargeService } from './discharge.service';
 import type { DischargeLetterService } from './discharge-letter.service';
 import { auditRead } from '../audit/read-audit';
+import { sendPdf } from '../../lib/send-pdf';
 
 /** The discharge checklist, the discharge date and the letter, under /api/infants/:id. */
 export function dischargeRouter(service: DischargeService, letters: DischargeLetterService): Router {
@@ -28,14 +29,7 @@ export function dischargeRouter(service: DischargeService, letters: DischargeLet
     assertCanAny(req, 'read', 'Discharge');
     const { filename, pdf } = await letters.build(req.ability, String(req.params.id), currentUser(req).programmeTimeZone);
     await auditRead(req, { action: 'infant.discharge_letter_printed', infantId: String(req.params.id) });
-    res.set({
-      'Content-Type': 'application/pdf',
-      // Built from [a-z0-9-] and a date only (safeSlug), so it needs no quoting or encoding.
-      'Content-Disposition': `attachment; filename="${filename}"`,
-      'Cache-Control': 'no-store',
-      'Content-Length': String(pdf.length),
-    });
-    res.end(pdf);
+    sendPdf(res, filename, pdf);
   });
   r.post('/:id/discharge-letter/email', requireUser, validate({ params: idParamsSchema, body: emailLetterSchema }), async (req, res) => {
     assertCanAny(req, 'read', 'Discharge');

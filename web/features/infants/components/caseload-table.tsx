@@ -38,17 +38,7 @@ export function CaseloadTable({ query, update, emptyMessage }: CaseloadTableProp
 
   const filtered = Boolean(query.q || query.status || query.flag || query.scope);
   const pager = (
-    <CursorPager
-      page={query.page}
-      pageSize={query.pageSize}
-      total={infants.data.total}
-      estimate={infants.data.totalIsEstimate}
-      nextCursor={infants.data.nextCursor}
-      prevCursor={infants.data.prevCursor}
-      noun={{ one: 'baby', other: 'babies' }}
-      onPage={(to) => update(to)}
-      onPageSize={(pageSize) => update({ pageSize })}
-    />
+    <CursorPager view={query} result={infants.data} noun={{ one: 'baby', other: 'babies' }} onChange={update} />
   );
   if (infants.data.items.length === 0) {
     return <EmptyState message={filtered ? 'No baby matches these filters.' : emptyMessage} />;

@@ -38,17 +38,7 @@ export function MessageTable() {
           {messages.data.items.length === 0 && (
             <EmptyState message={filtered ? 'No message matches this search and these filters.' : 'No messages yet: reminders show here as soon as they are planned.'} />
           )}
-          <CursorPager
-            page={query.page}
-            pageSize={query.pageSize}
-            total={messages.data.total}
-            estimate={messages.data.totalIsEstimate}
-            nextCursor={messages.data.nextCursor}
-            prevCursor={messages.data.prevCursor}
-            noun={{ one: 'message', other: 'messages' }}
-            onPage={(to) => update(to)}
-            onPageSize={(pageSize) => update({ pageSize })}
-          />
+          <CursorPager view={query} result={messages.data} noun={{ one: 'message', other: 'messages' }} onChange={update} />
         </>
       )}
     </div>

@@ -28,17 +28,7 @@ export function PeopleTable() {
       {users.data.items.length === 0 && (
         <EmptyState message={filtered ? 'No one matches this search.' : 'No accounts yet: add the first person above.'} />
       )}
-      <CursorPager
-        page={query.page}
-        pageSize={query.pageSize}
-        total={users.data.total}
-        estimate={users.data.totalIsEstimate}
-        nextCursor={users.data.nextCursor}
-        prevCursor={users.data.prevCursor}
-        noun={{ one: 'person', other: 'people' }}
-        onPage={(to) => update(to)}
-        onPageSize={(pageSize) => update({ pageSize })}
-      />
+      <CursorPager view={query} result={users.data} noun={{ one: 'person', other: 'people' }} onChange={update} />
     </div>
   );
 }
