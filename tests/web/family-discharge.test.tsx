@@ -1,4 +1,4 @@
-import { screen, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { Discharge } from '@shared/schemas/discharge';
 import type { InfantSummary } from '@shared/schemas/infants';
@@ -21,17 +21,29 @@ const family: Discharge = {
   ready: false, missing: ['no_smoking'], settingApproved: true, dischargedOn: '2037-12-08', override: null, firstVisit: null,
 };
 
+const stubFamily = (discharge: Discharge, asked: { count: number }) => stubApi({
+  'GET /api/session': sessionHandler('family'),
+  'GET /api/infants': () => json(200, { items: [baby], total: 1 }),
+  [`GET /api/infants/${BABY_ID}/prescriptions`]: () => json(200, { items: [] }),
+  [`GET /api/infants/${BABY_ID}/visits`]: () => json(200, { items: [] }),
+  [`GET /api/infants/${BABY_ID}/journeys`]: () => json(200, { items: [] }),
+  [`GET /api/infants/${BABY_ID}/discharge`]: () => { asked.count++; return json(200, discharge); },
+  'GET /api/policy': () => json(200, { programmeId: PROGRAMME_ID, version: 3, createdAt: null, settings: DEFAULT_POLICY_SETTINGS }),
+});
+
 describe('Family home: getting ready to go home', () => {
+  it('when no step is done and no date is set (no preparation under way), then the page says nothing about going home', async () => {
+    const asked = { count: 0 };
+    stubFamily({ ...family, items: family.items.map((i) => ({ ...i, done: false, doneAt: null })), dischargedOn: null, missing: ['equipment_use', 'no_smoking'] }, asked);
+    renderApp('/family');
+    await screen.findByRole('heading', { name: 'Our plan' }, { timeout: 5000 });
+    await waitFor(() => expect(asked.count).toBeGreaterThan(0));
+    await new Promise((r) => setTimeout(r, 100));
+    expect(screen.queryByRole('button', { name: /Getting ready to go home/ })).toBeNull();
+  });
+
   it('when the team is preparing the discharge, then the family reads their steps in plain words with what is done', async () => {
-    stubApi({
-      'GET /api/session': sessionHandler('family'),
-      'GET /api/infants': () => json(200, { items: [baby], total: 1 }),
-      [`GET /api/infants/${BABY_ID}/prescriptions`]: () => json(200, { items: [] }),
-      [`GET /api/infants/${BABY_ID}/visits`]: () => json(200, { items: [] }),
-      [`GET /api/infants/${BABY_ID}/journeys`]: () => json(200, { items: [] }),
-      [`GET /api/infants/${BABY_ID}/discharge`]: () => json(200, family),
-      'GET /api/policy': () => json(200, { programmeId: PROGRAMME_ID, version: 3, createdAt: null, settings: DEFAULT_POLICY_SETTINGS }),
-    });
+    stubFamily(family, { count: 0 });
     const { user } = renderApp('/family');
     // Folded, the heading's button carries the summary; unfolded, the steps.
     const fold = await screen.findByRole('button', { name: /^Getting ready to go home/ }, { timeout: 5000 });

@@ -6,7 +6,7 @@ import { currentUrl, renderApp } from './support/render-app';
 
 const cases: { role: Role; home: string; heading: string; items: string[] }[] = [
   { role: 'admin', home: '/admin', heading: 'Overview', items: ['Overview', 'People', 'Programme settings', 'Messages'] },
-  { role: 'coordinator', home: '/coordinator', heading: 'Overview', items: ['Overview', 'Caseload', 'Enrol a baby', 'Messages'] },
+  { role: 'coordinator', home: '/coordinator', heading: 'Overview', items: ['Overview', 'Caseload', 'Enrol a baby', 'Messages', 'Equipment orders'] },
   { role: 'nurse', home: '/nurse', heading: 'My day', items: ['My day', 'Caseload'] },
   { role: 'consultant', home: '/consultant', heading: 'Overview', items: ['Overview', 'Sign-off queue', 'Caseload'] },
   { role: 'family', home: '/family', heading: 'Our plan', items: ['Our plan'] },

@@ -30,6 +30,7 @@ export const NAV_BY_ROLE: Record<Role, readonly NavItem[]> = {
     caseload,
     { to: '/enrol', label: 'Enrol a baby', icon: 'add', allowed: (a) => a.can('create', 'Infant') },
     messageLog,
+    { to: '/equipment-orders', label: 'Equipment orders', icon: 'list', allowed: (a) => a.can('create', 'EquipmentOrder') },
   ],
   nurse: [{ to: '/nurse', label: 'My day', icon: 'day', allowed: (a) => a.can('update', 'Visit') }, caseload],
   consultant: [
