@@ -4,6 +4,7 @@ import { DEFAULT_DISCHARGE_RULES } from '@shared/schemas/discharge-policy';
 import { localParts } from '@shared/reminders/timing';
 import type { AppDeps } from '../server/deps';
 import { createDischargeService } from '../server/modules/discharge/discharge.service';
+import { demoPerson } from './seed-people';
 
 // Fictional evidence for the demo: the Larkmoor community nurses.
 const EVIDENCE = { person: 'Nurse Tamsin Reed (Larkmoor community team)' };
@@ -19,10 +20,7 @@ export async function seedDischarges(deps: AppDeps, programmeSlug: string): Prom
   const { ds, repos } = deps;
   const already = await ds.query(`SELECT 1 FROM discharge_items d JOIN programmes p ON p.id = d.programme_id WHERE p.slug = $1 LIMIT 1`, [programmeSlug]);
   if (already.length) return 0;
-  const person = async (email: string) => {
-    const [row] = await ds.query(`SELECT id FROM users WHERE email = $1`, [email]);
-    return row ? repos.users.findSessionUser(row.id) : null;
-  };
+  const person = (email: string) => demoPerson(deps, email);
   const coordinator = await person(`coordinator@${programmeSlug}.example`);
   const consultant = await person(`consultant@${programmeSlug}.example`);
   const family = await person(`family@${programmeSlug}.example`);

@@ -3,6 +3,7 @@ import { addDays } from '@shared/clinical/dates';
 import { localParts } from '@shared/reminders/timing';
 import type { AppDeps } from '../server/deps';
 import { createJourneysService } from '../server/modules/journeys/journeys.service';
+import { demoPerson } from './seed-people';
 
 /**
  * Demo journey checks through the journeys service: the demo family's approved road trip to the hills later this
@@ -12,10 +13,7 @@ export async function seedJourneys(deps: AppDeps, programmeSlug: string): Promis
   const { ds, repos } = deps;
   const already = await ds.query(`SELECT 1 FROM journeys j JOIN programmes p ON p.id = j.programme_id WHERE p.slug = $1 LIMIT 1`, [programmeSlug]);
   if (already.length) return 0;
-  const person = async (email: string) => {
-    const [row] = await ds.query(`SELECT id FROM users WHERE email = $1`, [email]);
-    return row ? repos.users.findSessionUser(row.id) : null;
-  };
+  const person = (email: string) => demoPerson(deps, email);
   const family = await person(`family@${programmeSlug}.example`);
   const coordinator = await person(`coordinator@${programmeSlug}.example`);
   const consultant = await person(`consultant@${programmeSlug}.example`);

@@ -28,3 +28,9 @@ export async function seedPeople(deps: AppDeps): Promise<{ programmes: number; p
   }
   return { programmes: addedProgrammes, people: addedPeople };
 }
+
+/** A demo person with their programme, as a signed-in session would carry them (null until seedPeople has run). */
+export async function demoPerson({ repos }: AppDeps, email: string) {
+  const user = await repos.users.findByEmail(email);
+  return user ? repos.users.findSessionUser(user.id) : null;
+}

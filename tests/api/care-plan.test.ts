@@ -1,14 +1,8 @@
-import { execFile } from 'node:child_process';
-import { mkdtemp, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
-import { promisify } from 'node:util';
 import { AbilityBuilder, createMongoAbility } from '@casl/ability';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AppAbility } from '@shared/auth/ability';
 import { WARNING_SIGNS, flowInWords } from '@shared/family/care-text';
 import { dateInWords } from '@shared/dates/date-words';
-import { readFile } from 'node:fs/promises';
 import { createCarePlanService } from '../../server/modules/care-plan/care-plan.service';
 import { ForbiddenError } from '../../server/lib/errors';
 import { createTestContext, type TestContext } from '../helpers/test-app';
@@ -16,33 +10,18 @@ import { anonymousAgent, signedInAgent, type Agent } from '../helpers/agents';
 import { makeUser } from '../helpers/factories';
 import { enrolmentBody, makeClinic } from '../helpers/infants';
 import { approvedBaby, post } from '../helpers/approved-baby';
+import { pdfBody, readPdf } from '../helpers/pdf';
 
-const run = promisify(execFile);
 let ctx: TestContext;
-let dir: string;
 beforeAll(async () => {
   ctx = await createTestContext();
-  dir = await mkdtemp(path.join(tmpdir(), 'care-plan-'));
 });
-afterAll(async () => {
-  await rm(dir, { recursive: true, force: true });
-  await ctx.close();
-});
-
-const binary = (res: import('superagent').Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
+afterAll(() => ctx.close());
 
 /** Downloads the plan and reads it back with pdftotext (poppler-utils), as a person copying the text would. */
 async function download(agent: Agent, infantId: string) {
-  const res = await agent.get(`/api/infants/${infantId}/care-plan.pdf`).buffer(true).parse(binary).expect(200);
-  const file = path.join(dir, `${Math.random().toString(36).slice(2)}.pdf`);
-  await writeFile(file, res.body as Buffer);
-  const { stdout: text } = await run('pdftotext', ['-layout', file, '-']);
-  const { stdout: info } = await run('pdfinfo', [file]);
-  return { res, file, info, text: text.replace(/\s+/g, ' '), pages: Number(/Pages:\s+(\d+)/.exec(info)?.[1]) };
+  const res = await agent.get(`/api/infants/${infantId}/care-plan.pdf`).buffer(true).parse(pdfBody).expect(200);
+  return { res, ...(await readPdf(res.body as Buffer)) };
 }
 
 const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
@@ -98,11 +77,11 @@ describe('GET /api/infants/:id/care-plan.pdf', () => {
 
   it('when the plan is read by assistive technology, then it is a tagged PDF 1.7 in English with headings, paragraphs and lists', async () => {
     const { infant, family } = await approvedBaby(ctx.deps, ctx.app);
-    const { file, info } = await download(family, infant.id);
+    const { res, info } = await download(family, infant.id);
     expect(info).toMatch(/Tagged:\s+yes/);
     expect(info).toMatch(/PDF version:\s+1\.7/);
     // pdfkit writes objects uncompressed (only page content is deflated), so the catalog and tree read as text.
-    const raw = (await readFile(file)).toString('latin1');
+    const raw = (res.body as Buffer).toString('latin1');
     const object = (ref: string) => new RegExp(`(?:^|\\n)${ref.replace(' R', '')} obj\\s*<<([\\s\\S]*?)>>\\s*endobj`).exec(raw)?.[1] ?? '';
     const catalog = /<<([^]*?\/Type \/Catalog[^]*?)>>\s*endobj/.exec(raw)?.[1] ?? '';
     expect(catalog).toContain('/Lang (en-GB)');

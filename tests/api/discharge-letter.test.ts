@@ -1,8 +1,3 @@
-import { execFile } from 'node:child_process';
-import { mkdtemp, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
-import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { flowInWords } from '@shared/family/care-text';
 import { LETTER_CAUTIONS } from '@shared/discharge/letter-text';
@@ -12,35 +7,16 @@ import { createTestContext, type TestContext } from '../helpers/test-app';
 import type { Agent } from '../helpers/agents';
 import { approvedBaby, post } from '../helpers/approved-baby';
 import { tickAll } from '../helpers/discharge';
+import { pdfAttachment, pdfBody, readPdf } from '../helpers/pdf';
 
-const run = promisify(execFile);
 let ctx: TestContext;
-let dir: string;
 beforeAll(async () => {
   ctx = await createTestContext({}, { clock: fixedClock('2026-12-03T10:00:00Z') });
-  dir = await mkdtemp(path.join(tmpdir(), 'discharge-letter-'));
 });
-afterAll(async () => {
-  await rm(dir, { recursive: true, force: true });
-  await ctx.close();
-});
+afterAll(() => ctx.close());
 
-const binary = (res: import('superagent').Response, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
-
-/** Reads the letter back with pdftotext (poppler-utils), as a person copying the text would. */
-async function readPdf(pdf: Buffer) {
-  const file = path.join(dir, `${Math.random().toString(36).slice(2)}.pdf`);
-  await writeFile(file, pdf);
-  const { stdout } = await run('pdftotext', ['-layout', file, '-']);
-  const { stdout: info } = await run('pdfinfo', [file]);
-  return { text: stdout.replace(/\s+/g, ' '), info };
-}
 const download = async (agent: Agent, id: string) => {
-  const res = await agent.get(`/api/infants/${id}/discharge-letter.pdf`).buffer(true).parse(binary).expect(200);
+  const res = await agent.get(`/api/infants/${id}/discharge-letter.pdf`).buffer(true).parse(pdfBody).expect(200);
   return { res, ...(await readPdf(res.body as Buffer)) };
 };
 
@@ -92,10 +68,8 @@ describe('GET /api/infants/:id/discharge-letter.pdf', () => {
     const { infant, coord } = await approvedBaby(ctx.deps, ctx.app);
     const sent = await post(coord, `/api/infants/${infant.id}/discharge-letter/email`, { to: 'community.team@larkmoor.example' }).expect(200);
     expect(letterSentSchema.parse(sent.body)).toEqual({ sentTo: 'community.team@larkmoor.example', filename: expect.stringMatching(/^discharge-letter-.+\.pdf$/) });
-    const raw = ctx.mail.messages().find((m) => m.raw.includes('community.team@larkmoor.example'))!.raw;
-    const part = raw.split(/\r?\n--/).find((p) => /Content-Type: application\/pdf/i.test(p))!;
-    const base64 = part.split(/\r?\n\r?\n/).slice(1).join('').replace(/\s+/g, '');
-    const { text } = await readPdf(Buffer.from(base64, 'base64'));
+    const message = ctx.mail.messages().find((m) => m.raw.includes('community.team@larkmoor.example'))!;
+    const { text } = await readPdf(pdfAttachment(message)!);
     expect(text).toContain('Home oxygen discharge letter');
     expect(text).toContain(`${infant.givenName} ${infant.familyName}`);
   });

@@ -8,7 +8,8 @@ import { signedInAgent } from '../helpers/agents';
 import { approvedBaby, post } from '../helpers/approved-baby';
 import { makeClinic } from '../helpers/infants';
 import { mailTo, mailsTo } from '../helpers/account-mail';
-import { SUPPLIER_EMAIL, pdfAttachment, pdfText, supplierToken, withSupplier } from '../helpers/equipment';
+import { SUPPLIER_EMAIL, supplierToken, withSupplier } from '../helpers/equipment';
+import { pdfAttachment, pdfText } from '../helpers/pdf';
 
 // Every time-dependent decision here runs on an injected clock: the order's flags and the link's expiry.
 const NOW = '2026-12-01T10:00:00Z';

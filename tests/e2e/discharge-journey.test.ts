@@ -5,7 +5,7 @@ import { dateInWords } from '@shared/dates/date-words';
 import { DEFAULT_DISCHARGE_RULES } from '@shared/schemas/discharge-policy';
 import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
 import { downloadPdfText, supplierMail, tickItem } from '../helpers/e2e-discharge';
-import { pdfAttachment, pdfText } from '../helpers/equipment';
+import { pdfAttachment, pdfText } from '../helpers/pdf';
 
 // The whole path in one browser: the checklist, the order to the supplier, the supplier's link from the
 // mail fake (no account), the equipment items following the order, the discharge date, the first visit, the PDFs.

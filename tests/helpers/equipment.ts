@@ -1,8 +1,3 @@
-import { execFile } from 'node:child_process';
-import { mkdtemp, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
-import { promisify } from 'node:util';
 import type { FakeMailMessage } from '../../fakes/mail/app';
 import type { AppDeps } from '../../server/deps';
 
@@ -25,24 +20,4 @@ export function supplierToken(message: FakeMailMessage): string {
   const match = /\/supplier\/orders\/([A-Za-z0-9._-]+)/.exec(message.text);
   if (!match) throw new Error(`no supplier link in: ${message.text}`);
   return match[1];
-}
-
-/** The PDF attached to an e-mail, as bytes (base64 part of the raw message). */
-export function pdfAttachment(message: FakeMailMessage): Buffer | null {
-  const part = /Content-Type: application\/pdf[^\r\n]*(?:\r?\n[^\r\n]+)*\r?\n\r?\n([A-Za-z0-9+/=\r\n]+)/.exec(message.raw);
-  return part ? Buffer.from(part[1].replace(/\s+/g, ''), 'base64') : null;
-}
-
-const run = promisify(execFile);
-/** The text of a PDF as pdftotext (poppler-utils) reads it, spaces folded. */
-export async function pdfText(pdf: Buffer): Promise<string> {
-  const dir = await mkdtemp(path.join(tmpdir(), 'order-pdf-'));
-  try {
-    const file = path.join(dir, 'order.pdf');
-    await writeFile(file, pdf);
-    const { stdout } = await run('pdftotext', ['-layout', file, '-']);
-    return stdout.replace(/\s+/g, ' ');
-  } finally {
-    await rm(dir, { recursive: true, force: true });
-  }
 }
