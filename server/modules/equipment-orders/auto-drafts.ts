@@ -6,14 +6,14 @@ import type { PrescriptionEntity } from '../../db/entities/prescription.entity';
 import type { AppRepos } from '../../deps';
 import { todayIn } from '../../lib/dates';
 import { insertOrder } from './insert-order';
+import { addDays } from '@shared/clinical/dates';
+import { concentratorCovers, settingFlowRange } from '@shared/equipment/concentrator-fit';
 
 // Lead times for automatic drafts (common practice: a collection within a week; a different concentrator within two
 // days). The coordinator reads, changes or cancels the draft before it goes anywhere; nothing is sent automatically.
 const COLLECTION_DAYS = 7;
 const CHANGE_DAYS = 2;
 const OPEN = ['drafted', 'sent', 'failed', 'confirmed'];
-
-const addDays = (day: string, n: number) => new Date(Date.parse(`${day}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 
 /** What is at the home: delivered orders since the last delivered collection (oldest first in, newest wins). */
 export function installedEquipment(orders: readonly EquipmentOrderEntity[]) {
@@ -22,12 +22,6 @@ export function installedEquipment(orders: readonly EquipmentOrderEntity[]) {
   const since = delivered.slice(lastCollection + 1);
   const concentrator = [...since].reverse().flatMap((o) => o.items).find((i) => i.kind === 'concentrator') ?? null;
   return { items: since.flatMap((o) => o.items), concentrator };
-}
-
-/** The flows a setting asks for across the day (0 = off, left out). */
-function settingFlows(rx: PrescriptionEntity): number[] {
-  const flows = [rx.approvedFlowLpm ?? 0, ...Object.values(rx.periods ?? {})];
-  return flows.filter((f) => f > 0);
 }
 
 /**
@@ -51,10 +45,9 @@ export async function draftAfterApproval(repos: AppRepos, m: EntityManager, infa
     if (!collect.length) return null;
     return draft('collection', collect, COLLECTION_DAYS, `The baby came off oxygen (setting version ${rx.version} approved): collect the equipment`);
   }
-  const flows = settingFlows(rx);
-  if (!concentrator || !flows.length || concentrator.flowMinLpm === undefined || concentrator.flowMaxLpm === undefined) return null;
-  const [low, high] = [Math.min(...flows), Math.max(...flows)];
-  if (low >= concentrator.flowMinLpm && high <= concentrator.flowMaxLpm) return null;
+  const need = settingFlowRange(rx.approvedFlowLpm, rx.periods);
+  if (!concentrator || !need || concentratorCovers(concentrator, need) !== false) return null;
+  const { low, high } = need;
   if (openOf('change')) return null;
   return draft('change', [{ kind: 'concentrator', quantity: 1, flowMinLpm: low, flowMaxLpm: high }], CHANGE_DAYS,
     `The approved setting (version ${rx.version}, ${low === high ? `${low}` : `${low}–${high}`} L/min) is outside the installed concentrator's range ${concentrator.flowMinLpm}–${concentrator.flowMaxLpm} L/min`);
