@@ -2,7 +2,7 @@ import type { MigrationInterface, QueryRunner } from 'typeorm';
 
 // The caseload reads one page by walking an index in the page's order from the cursor, so a page costs the same
 // at 200,000 babies as at 200. Each sort has an index, alone and after a status filter, ending in the id that
-// breaks ties (server/db/repositories/infants.repository.ts, SORT_KEYS).
+// breaks ties (server/db/repositories/infants.repository.ts, sortKey).
 const INDEXES: Array<[string, string]> = [
   ['infants_p_name_idx', '(programme_id, family_name, given_name, id)'],
   ['infants_p_status_name_idx', '(programme_id, status, family_name, given_name, id)'],

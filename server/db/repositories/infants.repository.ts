@@ -1,35 +1,39 @@
-import type { DataSource, EntityManager, SelectQueryBuilder } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
+import type { QueryResultRow } from 'pg';
 import type { ListInfantsQuery } from '@shared/schemas/infants';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { InfantEntity } from '../entities/infant.entity';
 import { createRowEstimates } from './row-estimates';
+import { cappedCount, cutPage, keysetPageSql, keyValues, reversed, type KeyPart, type KeysetPosition, type SortDir } from './list-paging';
+import { poolOf, preparedRows } from './prepared';
 
 export const INFANT_ACL_COLUMNS = { programmeId: 'i.programme_id', nurseId: 'i.nurse_id', id: 'i.id' };
 
 // Corrected age grows as the term-equivalent date gets earlier; elevation grows as pressure falls. Each sort is a
 // key read in one direction with the id last to break ties, so a page is "the next N after this row" and PostgreSQL
-// walks the matching index (migration ListIndexes) from the cursor instead of counting past every earlier row.
-export const SORT_KEYS: Record<string, { cols: string[]; dir: 'ASC' | 'DESC' }> = {
-  name: { cols: ['i.family_name', 'i.given_name'], dir: 'ASC' },
-  correctedAge: { cols: ['i.term_date'], dir: 'DESC' },
-  elevation: { cols: ['i.home_pressure_mmhg'], dir: 'DESC' },
-  status: { cols: ['i.status'], dir: 'ASC' },
-  enrolled: { cols: ['i.created_at'], dir: 'ASC' },
-};
-// How each key is read back from a row (as exact text) and compared again (cast back from text).
-const KEY_TEXT: Record<string, { alias: string; cast: string }> = {
-  'i.family_name': { alias: 'family_name', cast: 'text' },
-  'i.given_name': { alias: 'given_name', cast: 'text' },
-  'i.term_date': { alias: 'k_term_date', cast: 'date' },
-  'i.home_pressure_mmhg': { alias: 'k_pressure', cast: 'numeric' },
-  'i.status': { alias: 'status', cast: 'text' },
-  'i.created_at': { alias: 'k_created_at', cast: 'timestamptz' },
+// walks the matching index (migration ListIndexes) from the cursor instead of counting past every earlier row
+// (list-paging.ts). `text` is the select-list column holding the part's value as exact text (what a cursor carries).
+const part = (expr: string, dir: SortDir, cast: string, text: string): KeyPart => ({ expr, dir, cast, text, out: text });
+const ID_ASC = part('i.id', 'ASC', 'uuid', 'id');
+const ID_DESC = part('i.id', 'DESC', 'uuid', 'id');
+const NATURAL: Record<string, KeyPart[]> = {
+  name: [part('i.family_name', 'ASC', 'text', 'family_name'), part('i.given_name', 'ASC', 'text', 'given_name'), ID_ASC],
+  correctedAge: [part('i.term_date', 'DESC', 'date', 'k_term_date'), ID_DESC],
+  elevation: [part('i.home_pressure_mmhg', 'DESC', 'numeric', 'k_pressure'), ID_DESC],
+  status: [part('i.status', 'ASC', 'text', 'status'), ID_ASC],
+  enrolled: [part('i.created_at', 'ASC', 'timestamptz', 'k_created_at'), ID_ASC],
 };
 
-/** Above this many matching babies the total is PostgreSQL's estimate, shown as "about N". */
-export const EXACT_TOTAL_LIMIT = 10_000;
+/** The key a sort reads, in reading order ('-elevation' is the natural key reversed), the id last. */
+export function sortKey(sort: string): KeyPart[] {
+  const natural = NATURAL[sort.replace('-', '')]!;
+  return sort.startsWith('-') ? reversed(natural) : natural;
+}
 
-export interface ListPosition { after?: { values: string[]; id: string }; before?: { values: string[]; id: string }; offset?: number }
+/** How many key values (before the id) a sort's cursor carries. */
+export const sortKeyLength = (sort: string): number => NATURAL[sort.replace('-', '')]!.length - 1;
+
+export { EXACT_TOTAL_LIMIT } from './list-paging';
 
 export interface InfantListRow {
   id: string; given_name: string; family_name: string; birth_date: string; ga_weeks: number; ga_days: number;
@@ -38,34 +42,45 @@ export interface InfantListRow {
   active_flow_lpm: string | null; k_term_date: string; k_pressure: string; k_created_at: string;
 }
 
-/** The values of a row's sort key, in key order, as exact text (what a cursor carries). */
+/** The values of a row's sort key, in key order, as exact text (what a cursor carries), the id left out. */
 export function sortValues(sort: string, row: InfantListRow): string[] {
-  return SORT_KEYS[sort.replace('-', '')]!.cols.map((c) => String(row[KEY_TEXT[c]!.alias as keyof InfantListRow]));
+  return keyValues(sortKey(sort), row as unknown as Record<string, unknown>).slice(0, -1);
 }
 
-function filtered<T extends object>(qb: SelectQueryBuilder<T>, query: ListInfantsQuery, acl: SqlFilter, extra?: SqlFilter) {
-  qb.where(acl.sql, acl.params);
-  if (extra) qb.andWhere(extra.sql, extra.params);
-  if (query.status) qb.andWhere('i.status = :status', { status: query.status });
-  if (query.flag) qb.andWhere(':flag = ANY(i.flags)', { flag: query.flag });
-  if (query.q) {
-    const q = `%${query.q.replace(/[%_\\]/g, '\\$&')}%`;
-    qb.andWhere("(i.given_name || ' ' || i.family_name ILIKE :q OR i.family_name ILIKE :q)", { q });
+const LIST_SELECT = `SELECT i.id, i.given_name, i.family_name, i.birth_date::text AS birth_date, i.ga_weeks, i.ga_days, i.home_elevation_m,
+    i.home_pressure_mmhg, i.status, i.flags, i.nurse_id, i.consultant_id, i.term_date::text AS k_term_date,
+    i.home_pressure_mmhg::text AS k_pressure, i.created_at::text AS k_created_at,
+    n.name AS nurse_name, c.name AS consultant_name, p.approved_flow_lpm AS active_flow_lpm
+  FROM infants i LEFT JOIN users n ON n.id = i.nurse_id LEFT JOIN users c ON c.id = i.consultant_id
+    LEFT JOIN prescriptions p ON p.infant_id = i.id AND p.status = 'active'`;
+
+/** The list's filters as SQL conditions with :named parameters (the caller's rights first). */
+function listFilter(query: ListInfantsQuery, acl: SqlFilter, extra?: SqlFilter): { where: string[]; named: Record<string, unknown> } {
+  const where = [`(${acl.sql})`];
+  const named: Record<string, unknown> = { ...acl.params };
+  if (extra) {
+    where.push(`(${extra.sql})`);
+    Object.assign(named, extra.params);
   }
-  return qb;
-}
-
-function withPeople<T extends object>(qb: SelectQueryBuilder<T>) {
-  return qb
-    .leftJoin('users', 'n', 'n.id = i.nurse_id')
-    .leftJoin('users', 'c', 'c.id = i.consultant_id')
-    .leftJoin('prescriptions', 'p', "p.infant_id = i.id AND p.status = 'active'")
-    .addSelect(['n.name AS nurse_name', 'c.name AS consultant_name', 'p.approved_flow_lpm AS active_flow_lpm']);
+  if (query.status) {
+    where.push('i.status = :status');
+    named.status = query.status;
+  }
+  if (query.flag) {
+    where.push(':flag = ANY(i.flags)');
+    named.flag = query.flag;
+  }
+  if (query.q) {
+    where.push("(i.given_name || ' ' || i.family_name ILIKE :q OR i.family_name ILIKE :q)");
+    named.q = `%${query.q.replace(/[%_\\]/g, '\\$&')}%`;
+  }
+  return { where, named };
 }
 
 export function createInfantsRepository(ds: DataSource) {
   const repo = (m?: EntityManager) => (m ?? ds.manager).getRepository(InfantEntity);
   const estimateRows = createRowEstimates(ds);
+  const pool = poolOf(ds);
   return {
     /** The baby's given and family name as one text, or undefined when there is no such baby. */
     fullName: async (id: string): Promise<{ name: string } | undefined> =>
@@ -85,39 +100,14 @@ export function createInfantsRepository(ds: DataSource) {
 
     /**
      * One page in the sort's order: the first, the one after a row (next), the one before a row (previous), or at
-     * an offset (a page number typed in). Reads one row more than the page to know whether more follow.
+     * an offset (a page number typed in). Reads one row more than the page to know whether more follow. Prepared
+     * (prepared.ts): the page is read on every turn of the caseload.
      */
-    async list(query: ListInfantsQuery, acl: SqlFilter, extra: SqlFilter | undefined, at: ListPosition): Promise<{ rows: InfantListRow[]; more: boolean }> {
-      const qb = filtered(withPeople(
-        ds.createQueryBuilder().select(['i.id AS id', 'i.given_name AS given_name', 'i.family_name AS family_name',
-          'i.birth_date::text AS birth_date', 'i.ga_weeks AS ga_weeks', 'i.ga_days AS ga_days', 'i.home_elevation_m AS home_elevation_m',
-          'i.home_pressure_mmhg AS home_pressure_mmhg', 'i.status AS status', 'i.flags AS flags', 'i.nurse_id AS nurse_id',
-          'i.consultant_id AS consultant_id', 'i.term_date::text AS k_term_date', 'i.home_pressure_mmhg::text AS k_pressure',
-          'i.created_at::text AS k_created_at']).from('infants', 'i'),
-      ), query, acl, extra);
-      const key = SORT_KEYS[query.sort.replace('-', '')]!;
-      const flipped = query.sort.startsWith('-');
-      const forward = flipped ? (key.dir === 'ASC' ? 'DESC' : 'ASC') : key.dir;
-      // Reading backwards (the page before a row) walks the same index the other way, then the page is turned round.
-      const backwards = !!at.before;
-      const dir = backwards ? (forward === 'ASC' ? 'DESC' : 'ASC') : forward;
-      const from = at.after ?? at.before;
-      if (from) {
-        const cols = [...key.cols, 'i.id'];
-        const params: Record<string, string> = { k_id: from.id };
-        const vals = key.cols.map((c, n) => {
-          params[`k_${n}`] = from.values[n]!;
-          return `CAST(:k_${n} AS ${KEY_TEXT[c]!.cast})`;
-        });
-        qb.andWhere(`(${cols.join(', ')}) ${dir === 'ASC' ? '>' : '<'} (${[...vals, 'CAST(:k_id AS uuid)'].join(', ')})`, params);
-      }
-      for (const col of key.cols) qb.addOrderBy(col, dir);
-      qb.addOrderBy('i.id', dir).limit(query.pageSize + 1);
-      if (!from && at.offset) qb.offset(at.offset);
-      const rows: InfantListRow[] = await qb.getRawMany();
-      const more = rows.length > query.pageSize;
-      const page = rows.slice(0, query.pageSize);
-      return { rows: backwards ? page.reverse() : page, more };
+    async list(query: ListInfantsQuery, acl: SqlFilter, extra: SqlFilter | undefined, at: KeysetPosition): Promise<{ rows: InfantListRow[]; more: boolean }> {
+      const { where, named } = listFilter(query, acl, extra);
+      const page = keysetPageSql({ select: LIST_SELECT, where, params: named, key: sortKey(query.sort), at, limit: query.pageSize + 1 });
+      const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
+      return cutPage(await preparedRows<InfantListRow & QueryResultRow>(pool, sql, params), query.pageSize, at);
     },
 
     /**
@@ -125,13 +115,9 @@ export function createInfantsRepository(ds: DataSource) {
      * index entries), PostgreSQL's row estimate above it.
      */
     async count(query: ListInfantsQuery, acl: SqlFilter, extra?: SqlFilter): Promise<{ total: number; estimate: boolean }> {
-      const qb = filtered(ds.createQueryBuilder().select('1').from('infants', 'i'), query, acl, extra).limit(EXACT_TOTAL_LIMIT + 1);
-      const [sql, params] = qb.getQueryAndParameters();
-      const [{ n }] = await ds.query(`SELECT count(*)::int AS n FROM (${sql}) capped`, params);
-      if (n <= EXACT_TOTAL_LIMIT) return { total: n, estimate: false };
-      const [unlimitedSql, unlimitedParams] = filtered(ds.createQueryBuilder().select('1').from('infants', 'i'), query, acl, extra).getQueryAndParameters();
-      const rows = await estimateRows(unlimitedSql, unlimitedParams);
-      return { total: Math.max(EXACT_TOTAL_LIMIT + 1, rows), estimate: true };
+      const { where, named } = listFilter(query, acl, extra);
+      const [sql, params] = ds.driver.escapeQueryWithParameters(`SELECT 1 FROM infants i WHERE ${where.join(' AND ')}`, named);
+      return cappedCount(ds, estimateRows, sql, params);
     },
 
     findVisible: (id: string, acl: SqlFilter, m?: EntityManager) =>

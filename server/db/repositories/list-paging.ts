@@ -1,16 +1,18 @@
 import type { DataSource } from 'typeorm';
-import { EXACT_TOTAL_LIMIT } from './infants.repository';
 import type { createRowEstimates } from './row-estimates';
+import { poolOf, preparedRows } from './prepared';
 
 type RowEstimates = ReturnType<typeof createRowEstimates>;
 
-// Keyset paging shared by the message log and People (the caseload has its own, older copy in
-// infants.repository.ts). A sort is a list of key parts, each read in one direction, ending in the row's id so no
-// two rows tie. A page is "the next N rows after this row" (or before it), which PostgreSQL reads by walking an
+// Keyset paging shared by the caseload, the message log and People. A sort is a list of key parts, each read in one
+// direction, ending in the row's id so no two rows tie. A page is "the next N rows after this row" (or before it), which PostgreSQL reads by walking an
 // index that matches the filter and the sort from the cursor, so the page costs the same deep in the list as at
 // its start.
 
 export type SortDir = 'ASC' | 'DESC';
+
+/** Above this many matching rows a list's total is PostgreSQL's estimate, shown as "about N". */
+export const EXACT_TOTAL_LIMIT = 10_000;
 
 export interface KeyPart {
   /** The SQL expression sorted on (`r.send_at`). */
@@ -90,7 +92,7 @@ export function keysetPageSql(opts: {
  * while by `estimateRows`, see row-estimates.ts). `sql` is "SELECT 1 FROM … WHERE …" with positional parameters.
  */
 export async function cappedCount(ds: DataSource, estimateRows: RowEstimates, sql: string, params: unknown[]): Promise<{ total: number; estimate: boolean }> {
-  const [{ n }] = await ds.query(`SELECT count(*)::int AS n FROM (${sql} LIMIT ${EXACT_TOTAL_LIMIT + 1}) capped`, params);
+  const [{ n }] = await preparedRows<{ n: number }>(poolOf(ds), `SELECT count(*)::int AS n FROM (${sql} LIMIT ${EXACT_TOTAL_LIMIT + 1}) capped`, params);
   if (n <= EXACT_TOTAL_LIMIT) return { total: n, estimate: false };
   return { total: Math.max(EXACT_TOTAL_LIMIT + 1, await estimateRows(sql, params)), estimate: true };
 }

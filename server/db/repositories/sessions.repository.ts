@@ -1,6 +1,7 @@
 import type { Pool } from 'pg';
 import type { SessionUser } from '@shared/schemas/session';
 import { DEFAULT_COUNTRY } from '@shared/phone/phone';
+import { preparedRows } from './prepared';
 
 /** A stored session with its signed-in account, read together (`user` is null when signed out, disabled or gone). */
 export interface StoredSession {
@@ -9,7 +10,7 @@ export interface StoredSession {
 }
 
 // The session row and the account it names in one statement: this runs on every API request, so it replaces the
-// store's own read plus a second read of the user. The cast is guarded so a malformed id reads as "no account".
+// store's own read plus a second read of the user, and is prepared (prepared.ts). The cast is guarded so a malformed id reads as "no account".
 const FIND_WITH_USER = `
   SELECT s.sess, u.id, u.email, u.name, u.role, u.programme_id, p.name AS programme_name, p.time_zone AS programme_time_zone,
     (SELECT pp.settings->>'country' FROM programme_policies pp WHERE pp.programme_id = p.id ORDER BY pp.version DESC LIMIT 1) AS programme_country
@@ -33,8 +34,7 @@ interface Row {
 export function createSessionsRepository(pool: Pool) {
   return {
     async findWithUser(sid: string, nowMs: number): Promise<StoredSession | null> {
-      const { rows } = await pool.query<Row>(FIND_WITH_USER, [sid, nowMs / 1000]);
-      const row = rows[0];
+      const [row] = await preparedRows<Row>(pool, FIND_WITH_USER, [sid, nowMs / 1000]);
       if (!row) return null;
       const sess = typeof row.sess === 'string' ? (JSON.parse(row.sess) as Record<string, unknown>) : row.sess;
       const user: SessionUser | null = row.id && row.programme_name

@@ -5,6 +5,7 @@ import type { SqlFilter } from '../../auth/casl-to-sql';
 import { UserEntity } from '../entities/user.entity';
 import { cappedCount, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
 import { createRowEstimates } from './row-estimates';
+import { poolOf, preparedRows } from './prepared';
 import { DEFAULT_COUNTRY } from '@shared/phone/phone';
 
 // People's sorts, each ending in the id so no two rows tie (list-paging.ts); by role, people of one role by name.
@@ -60,7 +61,7 @@ export function createUsersRepository(ds: DataSource) {
     findOneWhere: (id: string, acl: SqlFilter, m?: EntityManager) =>
       repo(m).createQueryBuilder('u').where('u.id = :id', { id }).andWhere(acl.sql, acl.params).getOne(),
 
-    /** One page of People in the sort's order from a position (list-paging.ts), and how many match. */
+    /** One page of People in the sort's order from a position (list-paging.ts, prepared: prepared.ts), and how many match. */
     async list(query: ListUsersQuery, acl: SqlFilter, at: KeysetPosition) {
       const named: Record<string, unknown> = { ...acl.params };
       const where = [`(${acl.sql})`];
@@ -79,7 +80,7 @@ export function createUsersRepository(ds: DataSource) {
       });
       const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
       const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 FROM users u WHERE ${where.join(' AND ')}`, named);
-      const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<UserListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
+      const [rows, count] = await Promise.all([preparedRows<UserListRow>(poolOf(ds), sql, params), cappedCount(ds, estimateRows, countSql, countParams)]);
       return { ...cutPage(rows, query.pageSize, at), ...count };
     },
 

@@ -2,8 +2,8 @@ import type { DataSource } from 'typeorm';
 import type { AppAbility } from '@shared/auth/ability';
 import type { ContactInput, EnrolInfantInput, InfantSummary, ListInfantsQuery, UpdateInfantInput } from '@shared/schemas/infants';
 import { accessibleWhere, type SqlFilter } from '../../auth/casl-to-sql';
-import { INFANT_ACL_COLUMNS, SORT_KEYS, sortValues, type InfantListRow } from '../../db/repositories/infants.repository';
-import { decodeCursor, encodeCursor, readingFrom } from '../../lib/cursor';
+import { INFANT_ACL_COLUMNS, sortKeyLength, sortValues, type InfantListRow } from '../../db/repositories/infants.repository';
+import { encodeCursor, pageCursors, positionOf, readingFrom } from '../../lib/cursor';
 import { EXPORT_PAGE_ROWS } from '../../lib/csv';
 import type { AppRepos } from '../../deps';
 import type { JobProducer } from '../../jobs/producer';
@@ -53,23 +53,17 @@ export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobP
 
     async list(ability: AppAbility, user: Express.User, query: ListInfantsQuery, today: string) {
       const extra = scopeFilter(user, query);
-      const keys = SORT_KEYS[query.sort.replace('-', '')]!.cols.length;
-      const from = query.cursor ? decodeCursor(query.cursor, query.sort, keys) : undefined;
-      const position = !from ? { offset: (query.page - 1) * query.pageSize } : query.direction === 'prev' ? { before: from } : { after: from };
+      const { from, at } = positionOf(query, query.sort, sortKeyLength(query.sort));
       const [{ rows, more }, count] = await readingFrom(from, Promise.all([
-        repos.infants.list(query, acl(ability), extra, position),
+        repos.infants.list(query, acl(ability), extra, at),
         repos.infants.count(query, acl(ability), extra),
       ]));
-      const cursorOf = (r: InfantListRow | undefined) => (r ? encodeCursor({ sort: query.sort, values: sortValues(query.sort, r), id: r.id }) : null);
-      // Going back, "more" means more pages before this one; a page reached by "next" always has one before it.
-      const hasNext = query.direction === 'prev' && from ? true : more;
-      const hasPrev = query.direction === 'prev' && from ? more : !!from || query.page > 1;
+      const cursorOf = (r: InfantListRow) => encodeCursor({ sort: query.sort, values: sortValues(query.sort, r), id: r.id });
       return {
         items: rows.map((r) => toSummary(r, today)),
         total: count.total,
         totalIsEstimate: count.estimate,
-        nextCursor: hasNext ? cursorOf(rows.at(-1)) : null,
-        prevCursor: hasPrev ? cursorOf(rows[0]) : null,
+        ...pageCursors({ query, from, rows, more, cursorOf }),
       };
     },
 
@@ -81,13 +75,13 @@ export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobP
       const extra = scopeFilter(user, query);
       const pageQuery = { ...query, pageSize: EXPORT_PAGE_ROWS };
       return (async function* () {
-        let after: { values: string[]; id: string } | undefined;
+        let after: string[] | undefined;
         for (;;) {
           const { rows, more } = await repos.infants.list(pageQuery, acl(ability), extra, after ? { after } : {});
           for (const r of rows) yield { ...r, summary: toSummary(r, today) };
           if (!more || !rows.length) return;
           const last = rows.at(-1)!;
-          after = { values: sortValues(query.sort, last), id: last.id };
+          after = [...sortValues(query.sort, last), last.id];
         }
       })();
     },
