@@ -1,3 +1,4 @@
+import { subject } from '@casl/ability';
 import { rulesToAST } from '@casl/ability/extra';
 import type { AppAbility, Action, SubjectName } from '@shared/auth/ability';
 
@@ -68,4 +69,14 @@ export function accessibleWhere(
     }
   };
   return { sql: build(ast), params };
+}
+
+const NO_ONE = '00000000-0000-0000-0000-000000000000';
+
+/**
+ * Whether the caller may read every baby of a programme, whoever its nurse and whichever baby: asked of the rules
+ * with a baby no rule names by nurse or by id, so only a rule on the programme alone can allow it.
+ */
+export function readsEveryInfantOf(ability: AppAbility, programmeId: string): boolean {
+  return ability.can('read', subject('Infant', { programmeId, nurseId: NO_ONE, id: NO_ONE } as Record<string, unknown>));
 }

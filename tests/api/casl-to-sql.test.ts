@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { defineAbilityFor } from '@shared/auth/ability';
-import { accessibleWhere } from '../../server/auth/casl-to-sql';
+import { accessibleWhere, readsEveryInfantOf } from '../../server/auth/casl-to-sql';
 
 const P = '11111111-1111-4111-8111-111111111111';
 const cols = { programmeId: 'i.programme_id', nurseId: 'i.nurse_id', id: 'i.id', infantId: 'i.infant_id', status: 'i.status' };
@@ -29,5 +29,17 @@ describe('CASL rules → SQL', () => {
 
   it('when a rule uses a field with no column mapping, then it throws instead of widening access', () => {
     expect(() => accessibleWhere(defineAbilityFor({ id: 'n', role: 'nurse', programmeId: P }), 'read', 'Infant', { programmeId: 'x' })).toThrow(/nurseId/);
+  });
+
+  it('when asked who may read every baby of a programme, then staff who read the whole programme may; a nurse, a family or another programme may not', () => {
+    const OTHER = '22222222-2222-4222-8222-222222222222';
+    for (const role of ['admin', 'coordinator', 'consultant'] as const) {
+      const ability = defineAbilityFor({ id: 'u', role, programmeId: P });
+      expect(readsEveryInfantOf(ability, P), role).toBe(true);
+      expect(readsEveryInfantOf(ability, OTHER), `${role} in another programme`).toBe(false);
+    }
+    expect(readsEveryInfantOf(defineAbilityFor({ id: 'nurse-1', role: 'nurse', programmeId: P }), P)).toBe(false);
+    expect(readsEveryInfantOf(defineAbilityFor({ id: 'f', role: 'family', programmeId: P, infantIds: ['b1'] }), P)).toBe(false);
+    expect(readsEveryInfantOf(defineAbilityFor(null), P)).toBe(false);
   });
 });

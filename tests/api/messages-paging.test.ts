@@ -2,7 +2,9 @@ import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent, type Agent } from '../helpers/agents';
 import { makeClinic } from '../helpers/infants';
+import { makeProgramme } from '../helpers/factories';
 import { EXACT_TOTAL_LIMIT } from '../../server/db/repositories/infants.repository';
+import { poolOf } from '../../server/db/repositories/prepared';
 
 // The message log pages by position (keyset, server/db/repositories/list-paging.ts): next and previous pages follow
 // the sort with ties broken by id, filters and the search narrow every page, another programme's messages never
@@ -152,6 +154,32 @@ describe('message log paging by position', () => {
 });
 
 describe('a large message log', () => {
+  it('when a coordinator (who reads every baby of the programme) counts the log, then PostgreSQL reads messages only, none of the programme\'s babies', async () => {
+    const pool = poolOf(ctx.deps.ds);
+    const spy = vi.spyOn(pool, 'query');
+    await bigCoord.get('/api/messages?status=sent&pageSize=25').expect(200);
+    const countCall = spy.mock.calls.map(([c]) => c as unknown as { text: string; values: unknown[] }).find((c) => /^SELECT count\(\*\)/.test(c.text))!;
+    spy.mockRestore();
+    const [{ 'QUERY PLAN': plan }] = await ctx.deps.ds.query(`EXPLAIN (FORMAT JSON) ${countCall.text}`, countCall.values);
+    const relations: string[] = [];
+    const visit = (n: { 'Relation Name'?: string; Plans?: unknown[] }) => {
+      if (n['Relation Name']) relations.push(n['Relation Name']);
+      (n.Plans ?? []).forEach((c) => visit(c as never));
+    };
+    visit(plan[0].Plan);
+    expect(relations).toEqual(['reminders']);
+  });
+
+  it('when a message about a baby names another programme than the baby\'s, then the database refuses it', async () => {
+    const [baby] = await ctx.deps.ds.query(`SELECT id FROM infants WHERE programme_id = $1 LIMIT 1`, [big.programme.id]);
+    const elsewhere = await makeProgramme(ctx.deps, 'Elsewhere');
+    await expect(ctx.deps.ds.query(
+      `INSERT INTO reminders (programme_id, infant_id, template, recipient_name, channel, to_address, time_zone, dedupe_key, send_at, status, attempts)
+       VALUES ($1, $2, 'visit-booked', 'Someone', 'sms', '+447700900001', 'Europe/London', 'mismatch-' || gen_random_uuid(), now(), 'scheduled', 0)`,
+      [elsewhere.id, baby.id],
+    )).rejects.toMatchObject({ code: '23503' });
+  });
+
   it(`when more than ${EXACT_TOTAL_LIMIT} messages match, then the total is marked as an estimate near the true count; a narrower filter is exact`, async () => {
     const body = (await bigCoord.get('/api/messages?pageSize=25').expect(200)).body;
     expect(body.totalIsEstimate).toBe(true);

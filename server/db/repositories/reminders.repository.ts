@@ -77,13 +77,20 @@ export const MESSAGE_SORT_KEYS: Record<ListMessagesQuery['sort'], KeyPart[]> = {
 
 export type MessageListRow = ReminderRow & { infant_name: string | null; k_send_at: string };
 /** The message log's filters as SQL: the caller's rights on the baby, the programme, the chosen filters and the search. */
-function logFilter(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter, qPhone: string | null, rights: 'join' | 'exists' = 'join') {
-  const named: Record<string, unknown> = { ...infantAcl.params, programmeId };
+/**
+ * The log's filters. `infantAcl` is the caller's right to read babies, checked on every message about a baby; null
+ * when the caller may read every baby of `programmeId`: a message about a baby belongs to that baby's programme (a
+ * foreign key, migration ReminderProgrammeMatchesInfant), so the programme filter is then the whole check.
+ */
+function logFilter(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter | null, qPhone: string | null, rights: 'join' | 'exists' = 'join') {
+  const named: Record<string, unknown> = { ...infantAcl?.params, programmeId };
   // 'join': used with `LEFT JOIN infants i ON i.id = r.infant_id`, the join that names the baby also checks the caller
-  // may read it (a page of 26 rows: 26 key lookups). 'exists': the same check as a lookup per message, for the count,
-  // where a join over thousands of messages makes PostgreSQL hash every baby of the installation.
-  const rightsSql = rights === 'join' ? `(${infantAcl.sql})` : `EXISTS (SELECT 1 FROM infants i WHERE i.id = r.infant_id AND ${infantAcl.sql})`;
-  const where = [`r.programme_id = :programmeId`, `(r.infant_id IS NULL OR ${rightsSql})`];
+  // may read it (a page of 26 rows: 26 key lookups). 'exists': the same check as a lookup per message, for the count.
+  const where = [`r.programme_id = :programmeId`];
+  if (infantAcl) {
+    const rightsSql = rights === 'join' ? `(${infantAcl.sql})` : `EXISTS (SELECT 1 FROM infants i WHERE i.id = r.infant_id AND ${infantAcl.sql})`;
+    where.push(`(r.infant_id IS NULL OR ${rightsSql})`);
+  }
   for (const key of ['status', 'channel', 'template', 'infantId'] as const) {
     if (query[key]) {
       named[key] = query[key];
@@ -197,7 +204,7 @@ export function createRemindersRepository(ds: DataSource) {
      * same join that checks the caller may read the baby (no query per row).
      * `qPhone`: the search text read as a phone number (E.164), when it is one, so '07700 900123' finds '+447700900123'.
      */
-    async list(query: ListMessagesQuery, programmeId: string, infantAcl: SqlFilter, at: KeysetPosition, qPhone: string | null = null) {
+    async list(query: ListMessagesQuery, programmeId: string, infantAcl: SqlFilter | null, at: KeysetPosition, qPhone: string | null = null) {
       const { where, named } = logFilter(query, programmeId, infantAcl, qPhone);
       const from = `FROM reminders r LEFT JOIN infants i ON i.id = r.infant_id`;
       const page = keysetPageSql({
@@ -213,7 +220,7 @@ export function createRemindersRepository(ds: DataSource) {
     },
 
     /** One page of the log after a row's keyset position, in the sort's order (mixed directions compared key by key). */
-    async exportPage(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter, qPhone: string | null, after: string[] | undefined, limit: number): Promise<MessageExportRow[]> {
+    async exportPage(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programmeId: string, infantAcl: SqlFilter | null, qPhone: string | null, after: string[] | undefined, limit: number): Promise<MessageExportRow[]> {
       const { where, named } = logFilter(query, programmeId, infantAcl, qPhone);
       const keys = EXPORT_KEYS[query.sort];
       if (after) {

@@ -3,7 +3,7 @@ import { subject } from '@casl/ability';
 import type { AppAbility } from '@shared/auth/ability';
 import { SKIP_REASONS, type ListMessagesQuery, type Message, type MessagesPage, type SkipReason } from '@shared/schemas/messages';
 import { DEFAULT_COUNTRY, isCountryCode, readPhone } from '@shared/phone/phone';
-import { accessibleWhere } from '../../auth/casl-to-sql';
+import { accessibleWhere, readsEveryInfantOf } from '../../auth/casl-to-sql';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import { keyValues } from '../../db/repositories/list-paging';
 import { exportKeyOf, MESSAGE_SORT_KEYS, type MessageListRow, type ReminderRow } from '../../db/repositories/reminders.repository';
@@ -25,13 +25,17 @@ function toDto(r: ReminderRow & { infant_name?: string | null }): Message {
   };
 }
 
+/** The check each message's baby needs for this caller, or null when the programme filter already is the check. */
+const infantRights = (ability: AppAbility, programmeId: string) =>
+  readsEveryInfantOf(ability, programmeId) ? null : accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS);
+
 export function createMessagesService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
   return {
     async list(ability: AppAbility, programmeId: string, query: ListMessagesQuery, country: string = DEFAULT_COUNTRY): Promise<MessagesPage> {
       const phone = query.q && isCountryCode(country) ? readPhone(query.q, country, 'any') : null;
       const key = MESSAGE_SORT_KEYS[query.sort];
       const { from, at } = positionOf(query, query.sort, key.length - 1);
-      const { rows, more, total, estimate } = await readingFrom(from, repos.reminders.list(query, programmeId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), at, phone?.ok ? phone.e164 : null));
+      const { rows, more, total, estimate } = await readingFrom(from, repos.reminders.list(query, programmeId, infantRights(ability, programmeId), at, phone?.ok ? phone.e164 : null));
       const cursorOf = (r: MessageListRow) => {
         const values = keyValues(key, r as unknown as Record<string, unknown>);
         return encodeCursor({ sort: query.sort, values: values.slice(0, -1), id: r.id });
@@ -42,7 +46,7 @@ export function createMessagesService(ds: DataSource, repos: AppRepos, jobs: Job
     /** Every message the log's filters and search match (paging ignored), read a keyset page at a time in the list's order. */
     exportRows(ability: AppAbility, programmeId: string, query: ListMessagesQuery, country: string = DEFAULT_COUNTRY): AsyncIterable<Message> {
       const phone = query.q && isCountryCode(country) ? readPhone(query.q, country, 'any') : null;
-      const acl = accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS);
+      const acl = infantRights(ability, programmeId);
       return (async function* () {
         let after: string[] | undefined;
         for (;;) {
