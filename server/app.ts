@@ -8,7 +8,7 @@ import { defineAbilityFor } from '@shared/auth/ability';
 import type { AppDeps } from './deps';
 import { createPassport } from './auth/passport';
 import { createCsrf } from './auth/csrf';
-import { absoluteTimeout, createSessionMiddleware } from './auth/session-middleware';
+import { absoluteTimeout, createSessionMiddleware, SESSION_COOKIE } from './auth/session-middleware';
 import { createSignInLimiter } from './auth/sign-in-limiter';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { requestLog } from './middleware/request-log';
@@ -207,7 +207,9 @@ export function createApp(deps: AppDeps): Express {
     const pageFor = spaPages(webDist);
     app.get('/{*splat}', (req, res) => {
       res.set('Cache-Control', 'no-cache');
-      res.type('html').send(pageFor(req.path));
+      // A session cookie (not yet checked: the page's own requests are) lets the page name its first data request.
+      const signedIn = typeof req.headers.cookie === 'string' && req.headers.cookie.includes(`${SESSION_COOKIE}=`);
+      res.type('html').send(pageFor(req.path, new URL(req.originalUrl, 'http://page').searchParams, signedIn));
     });
   }
   app.use(errorHandler(logger));

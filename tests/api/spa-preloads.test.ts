@@ -89,6 +89,33 @@ describe('the app page for a deep link', () => {
   });
 });
 
+describe('the first data request of a deep link', () => {
+  const fetchPreloads = (html: string) => [...headOf(html).matchAll(/<link rel="preload" href="([^"]+)" as="fetch" crossorigin>/g)].map((m) => m[1]!.replace(/&amp;/g, '&'));
+  const withSession = (address: string) => request(app).get(address).set('cookie', 'nestflow.sid=s%3Aanything');
+
+  it('when the caseload is opened with a session cookie, then its page request is preloaded right after the session, as the web client will ask for it', async () => {
+    expect(fetchPreloads((await withSession('/caseload').expect(200)).text)).toEqual([
+      '/api/session', '/api/infants?page=1&pageSize=25&sort=name&direction=next',
+    ]);
+    // Filters and sort from the address, a bad page size falling back to the default on its own (shared/http/list-view.ts).
+    expect(fetchPreloads((await withSession('/caseload?status=on_oxygen&sort=-elevation&pageSize=oops&q=Ash').expect(200)).text)).toEqual([
+      '/api/session', '/api/infants?page=1&pageSize=25&sort=-elevation&status=on_oxygen&q=Ash&direction=next',
+    ]);
+  });
+
+  it('when the request would depend on who is signed in (a scope), there is no session cookie, or the page is another, then only the session is preloaded', async () => {
+    expect(fetchPreloads((await withSession('/caseload?scope=mine').expect(200)).text)).toEqual(['/api/session']);
+    expect(fetchPreloads((await request(app).get('/caseload').expect(200)).text)).toEqual(['/api/session']);
+    expect(fetchPreloads((await withSession('/infants/4f1c').expect(200)).text)).toEqual(['/api/session']);
+  });
+
+  it('when the address carries markup, then the preload is escaped and the page stays well formed', async () => {
+    const html = (await withSession('/caseload?q=%22%3E%3Cscript%3E').expect(200)).text;
+    expect(html).not.toContain('"><script>');
+    expect(fetchPreloads(html)[1]).toBe('/api/infants?page=1&pageSize=25&sort=name&q=%22%3E%3Cscript%3E&direction=next');
+  });
+});
+
 describe('caching of the web build', () => {
   it('when a hashed bundle file is served, then browsers may keep it for a year without asking again', async () => {
     const res = await request(app).get('/assets/index-1.js').expect(200);

@@ -3,6 +3,7 @@ import type { QueryClient, QueryKey } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { describe, expect, it } from 'vitest';
 import type { Role } from '@shared/auth/roles';
+import { caseloadRequestFor } from '@shared/http/caseload-request';
 import type { InfantSummary } from '@shared/schemas/infants';
 import { createAppQueryClient } from '../../web/app/providers';
 import type { PageLoader } from '../../web/app/loaders/page-loader';
@@ -72,6 +73,17 @@ describe('Route loaders', () => {
     expect(calls[0].pathname).toBe('/api/infants');
     expect(calls[0].searchParams.get('sort')).toBe('-elevation');
     expect(calls[0].searchParams.get('scope')).toBeNull();
+  });
+
+  it('when the server names the caseload request in the page (shared/http/caseload-request.ts), then it is the very request the loader makes, for every role that opens the caseload', async () => {
+    for (const address of ['/caseload', '/caseload?sort=-elevation&status=on_oxygen&page=2&cursor=after-1', '/caseload?q=Ash%20Row&pageSize=50&flag=number_unreadable', '/caseload?pageSize=oops&sort=nope']) {
+      for (const role of ['coordinator', 'consultant', 'nurse'] as const) {
+        const calls = stubAll(role);
+        await runLoader(caseloadLoader, address);
+        await waitFor(() => expect(calls).toHaveLength(1));
+        expect(`${calls[0].pathname}${calls[0].search}`, `${role} ${address}`).toBe(caseloadRequestFor(new URL(address, 'http://localhost').searchParams));
+      }
+    }
   });
 
   it('when a consultant opens "only mine", then the scope is part of the key and the request', async () => {

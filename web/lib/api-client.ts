@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import { apiPath } from '@shared/http/list-view';
 import { ApiError } from './api-error';
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
@@ -37,21 +38,13 @@ export function configureApiClient(next: Partial<ClientHooks>): void {
   hooks = { ...hooks, ...next };
 }
 
-function buildUrl(path: string, query?: QueryParams): string {
-  const params = new URLSearchParams();
-  for (const [key, value] of Object.entries(query ?? {})) {
-    if (value !== undefined && value !== null && value !== '') params.set(key, String(value));
-  }
-  const search = params.toString();
-  return search ? `${path}?${search}` : path;
-}
 
 async function send<T>(path: string, options: RequestOptions<T>, csrfToken?: string): Promise<Response> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   if (options.body !== undefined) headers['Content-Type'] = 'application/json';
   if (csrfToken) headers['X-CSRF-Token'] = csrfToken;
   try {
-    return await fetch(buildUrl(path, options.query), {
+    return await fetch(apiPath(path, options.query), {
       method: options.method ?? 'GET',
       credentials: 'same-origin',
       headers,
