@@ -9,6 +9,8 @@ import pg from 'pg';
 import { loadEnv } from '../server/env';
 import { closeDeps, createDeps } from '../server/deps';
 import { createApp } from '../server/app';
+import express from 'express';
+import { createSessionMiddleware } from '../server/auth/session-middleware';
 import { fork } from 'node:child_process';
 import { SCALE_PASSWORD, scaleProgrammes, seedScale } from '../seed/scale';
 import { replan } from '../server/modules/schedule/planning';
@@ -187,6 +189,23 @@ console.log(`  bare node:http + pg (best SQL)  median ${bareRate.toFixed(0)} req
 console.log(`  Nestflow API                    median ${appRate.toFixed(0)} req/s  (${cpuPerRequest(appUrl)} ms CPU per request in the server process)`);
 console.log(`  ratio (target ≥ 0.8)            ${(appRate / bareRate).toFixed(2)}×`);
 console.log(`  Nestflow API, gzip as phones get it: median ${pct(gzipRates, 0.5).toFixed(0)} req/s (${(pct(gzipRates, 0.5) / bareRate).toFixed(2)}× the bare route)`);
+
+// Where the app's cost per request goes, as a floor: the same page's JSON (already made) answered by Express alone,
+// and by Express with the session read every signed-in request does, driven the same way.
+const pageJson = await (await fetch(appUrl, { headers: { cookie, ...PLAIN } })).text();
+const expressOnly = express();
+expressOnly.get('/', (_req, res) => { res.type('json').send(pageJson); });
+const withSession = express();
+withSession.use(createSessionMiddleware(env, deps.sessionPool));
+withSession.get('/', (_req, res) => { res.type('json').send(pageJson); });
+const floors: Array<[string, Server]> = [['Express alone, the same JSON', createServer(expressOnly)], ['Express + the session read, the same JSON', createServer(withSession)]];
+for (const [label, server] of floors) {
+  const url = `http://127.0.0.1:${await listen(server)}/`;
+  const rates: number[] = [];
+  for (let round = 0; round < 3; round++) rates.push(await throughput(url, { cookie, ...PLAIN }));
+  console.log(`  ${label.padEnd(42)} median ${pct(rates, 0.5).toFixed(0)} req/s  (${cpuPerRequest(url)} ms CPU per request in the server process)`);
+  server.close();
+}
 
 // Open loop: requests are sent at a fixed rate whatever the answers' speed (a closed loop would slow down with the
 // server and hide queueing), and the latency of each is kept.
