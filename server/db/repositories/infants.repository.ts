@@ -4,7 +4,7 @@ import type { ListInfantsQuery } from '@shared/schemas/infants';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { InfantEntity } from '../entities/infant.entity';
 import { createRowEstimates } from './row-estimates';
-import { cappedCount, cutPage, keysetPageSql, keyValues, reversed, type KeyPart, type KeysetPosition, type SortDir } from './list-paging';
+import { cappedCount, containsPattern, cutPage, keysetPageSql, keyValues, reversed, type KeyPart, type KeysetPosition, type SortDir } from './list-paging';
 import { poolOf, preparedRows } from './prepared';
 
 export const INFANT_ACL_COLUMNS = { programmeId: 'i.programme_id', nurseId: 'i.nurse_id', id: 'i.id' };
@@ -72,7 +72,7 @@ function listFilter(query: ListInfantsQuery, acl: SqlFilter, extra?: SqlFilter):
   }
   if (query.q) {
     where.push("(i.given_name || ' ' || i.family_name ILIKE :q OR i.family_name ILIKE :q)");
-    named.q = `%${query.q.replace(/[%_\\]/g, '\\$&')}%`;
+    named.q = containsPattern(query.q);
   }
   return { where, named };
 }

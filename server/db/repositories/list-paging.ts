@@ -97,6 +97,9 @@ export async function cappedCount(ds: DataSource, estimateRows: RowEstimates, sq
   return { total: Math.max(EXACT_TOTAL_LIMIT + 1, await estimateRows(sql, params)), estimate: true };
 }
 
+/** A search text as a LIKE/ILIKE pattern matching it anywhere, LIKE's own wildcards in it taken literally. */
+export const containsPattern = (text: string): string => `%${text.replace(/[\\%_]/g, '\\$&')}%`;
+
 /** A page read with one row more than asked for: the page, and whether more rows follow in the reading direction. */
 export function cutPage<T>(rows: T[], pageSize: number, at: KeysetPosition): { rows: T[]; more: boolean } {
   const page = rows.slice(0, pageSize);

@@ -1,7 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { Channel, ListMessagesQuery, MessageStatus, MessageTemplate } from '@shared/schemas/messages';
 import type { SqlFilter } from '../../auth/casl-to-sql';
-import { cappedCount, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
+import { cappedCount, containsPattern, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
 import { createRowEstimates } from './row-estimates';
 
 export interface ReminderRow {
@@ -99,7 +99,7 @@ function logFilter(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programm
   }
   if (query.q) {
     // Matched as plain text: LIKE's own wildcards in what was typed are escaped.
-    named.q = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    named.q = containsPattern(query.q);
     const phone = qPhone ? ` OR r.to_address = :qPhone` : '';
     if (qPhone) named.qPhone = qPhone;
     where.push(`((i.given_name || ' ' || i.family_name) ILIKE :q OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);

@@ -3,7 +3,7 @@ import { USER_SORTS, type ListUsersQuery } from '@shared/schemas/users';
 import type { Role } from '@shared/auth/roles';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { UserEntity } from '../entities/user.entity';
-import { cappedCount, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
+import { cappedCount, containsPattern, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
 import { createRowEstimates } from './row-estimates';
 import { poolOf, preparedRows } from './prepared';
 import { DEFAULT_COUNTRY } from '@shared/phone/phone';
@@ -70,7 +70,7 @@ export function createUsersRepository(ds: DataSource) {
         where.push('u.role = :role');
       }
       if (query.q) {
-        named.q = `%${query.q.replace(/[%_\\]/g, '\\$&')}%`;
+        named.q = containsPattern(query.q);
         where.push('(u.name ILIKE :q OR u.email ILIKE :q)');
       }
       const page = keysetPageSql({

@@ -1,7 +1,8 @@
 import { useCallback } from 'react';
 import type { Role } from '@shared/auth/roles';
 import { listInfantsQuerySchema, type ListInfantsQuery } from '@shared/schemas/infants';
-import { readUrlView, useUrlView } from '../../../lib/url-view';
+import { readListView } from '@shared/http/list-view';
+import { useUrlView } from '../../../lib/url-view';
 
 /** Only a consultant narrows by scope; a nurse's list is their own caseload by rule, whatever a link says. */
 export const offersMine = (role: Role): boolean => role === 'consultant';
@@ -10,7 +11,7 @@ const adjustFor = (role: Role) => (view: ListInfantsQuery): ListInfantsQuery => 
 
 /** The caseload view an address asks for, as the page reads it (the route loader asks for the same page). */
 export const readCaseloadView = (params: URLSearchParams, role: Role): ListInfantsQuery =>
-  adjustFor(role)(readUrlView(listInfantsQuerySchema, params));
+  adjustFor(role)(readListView(listInfantsQuerySchema, params));
 
 /**
  * The caseload view lives in the address bar, so reload, back and a shared link all restore it. Pages are reached
