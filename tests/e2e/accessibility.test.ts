@@ -3,7 +3,7 @@ import type { Page } from 'playwright-core';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { axeReport, axeViolations, focused, headingSkips, isSerious, nestedLiveRegions, ringClippedBy, tabThroughPage } from '../helpers/a11y';
-import { openBrowser, pageApi, screenshot, signIn, signInAndLand, type Browser } from '../helpers/browser';
+import { openBrowser, pageApi, screenshot, signOut, signIn, signInAndLand, type Browser } from '../helpers/browser';
 import { supplierMail } from '../helpers/e2e-discharge';
 
 // WCAG 2.2 AA checks on the five flows named in the accessibility issue, and axe on every page for every role.
@@ -70,8 +70,7 @@ async function expectNothingCovered(label: string) {
 
 describe('keyboard, screen reader and zoom: the five flows', () => {
   it('sign-in: the title and focus follow each step, a failed sign-in focuses the error summary, the home heading takes focus after sign-in', async () => {
-    await page.goto('about:blank');
-    await browser.context.clearCookies();
+    await signOut(browser, base);
     await page.goto(`${base}/sign-in`);
     await expectTitle('Sign in · Nestflow');
     await expectFocusOnHeading('Sign in');
@@ -349,8 +348,7 @@ describe('axe on every page, staff and family, desktop and phone', () => {
 
     for (const [screenName, viewport] of [['desktop', DESKTOP], ['phone', PHONE]] as const) {
       await page.setViewportSize(viewport);
-      await page.goto('about:blank');
-      await browser.context.clearCookies();
+      await signOut(browser, base);
       await scan('signed out', '/sign-in', screenName);
       await scan('supplier (signed link, no session)', supplierPage, screenName);
       for (const [who, urls] of Object.entries(pages)) {

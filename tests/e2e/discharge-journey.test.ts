@@ -3,7 +3,7 @@ import type { Page } from 'playwright-core';
 import { addDays } from '@shared/clinical/dates';
 import { dateInWords } from '@shared/dates/date-words';
 import { DEFAULT_DISCHARGE_RULES } from '@shared/schemas/discharge-policy';
-import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
+import { openBrowser, pageApi, screenshot, signOut, signInAndLand, type Browser } from '../helpers/browser';
 import { downloadPdfText, supplierMail, tickItem } from '../helpers/e2e-discharge';
 import { pdfAttachment, pdfText } from '../helpers/pdf';
 
@@ -94,8 +94,7 @@ describe('the coordinator takes a baby home with the supplier’s equipment', ()
 
   it('when the supplier confirms and delivers through the link in the mail fake, with no session, then the order says delivered', async () => {
     const { link } = await supplierMail(fakeMail, reference);
-    await page.goto('about:blank');
-    await browser.context.clearCookies();
+    await signOut(browser, base);
     await page.setViewportSize({ width: 390, height: 844 });
     await page.goto(link);
     await page.getByRole('heading', { level: 1, name: `Equipment order ${reference}` }).waitFor();

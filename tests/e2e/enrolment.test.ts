@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, pageApi, screenshot, signInAndLand as landIn, type Browser } from '../helpers/browser';
+import { openBrowser, pageApi, screenshot, signOut, signInAndLand as landIn, type Browser } from '../helpers/browser';
 
 const base = inject('baseUrl');
 const fakeMail = inject('fakeMailUrl');
@@ -38,8 +38,7 @@ describe('enrolment to an approved plan the family can read', () => {
       if (!link) await new Promise((r) => setTimeout(r, 100));
     }
     expect(link).toBeDefined();
-    await page.goto('about:blank');
-    await browser.context.clearCookies();
+    await signOut(browser, base);
     await page.goto(link!);
     await page.getByText('Hello Iris Ashvale').waitFor();
     await page.getByLabel('New password').fill(familyPassword);

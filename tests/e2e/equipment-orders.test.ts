@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, pageApi, screenshot, signInAndLand, type Browser } from '../helpers/browser';
+import { openBrowser, pageApi, screenshot, signOut, signInAndLand, type Browser } from '../helpers/browser';
 import { axeReport, headingSkips, seriousViolations } from '../helpers/a11y';
 import { supplierMail } from '../helpers/e2e-discharge';
 
@@ -44,8 +44,7 @@ describe('an equipment order from the coordinator to the supplier and back', () 
 
     const link = await linkFor(reference);
     // The supplier has no account: a fresh start with no cookies at all.
-    await page.goto('about:blank');
-    await browser.context.clearCookies();
+    await signOut(browser, base);
     // The supplier reads it on a phone: axe finds nothing serious there, and the headings do not skip.
     await page.setViewportSize({ width: 390, height: 844 });
     await page.goto(link);

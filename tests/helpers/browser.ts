@@ -43,14 +43,34 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   return file;
 }
 
+/** Signs out through the API with the context's cookies, if anyone is signed in. */
+async function endSessionOnServer(context: BrowserContext, base: string): Promise<void> {
+  const session = await context.request.get(`${base}/api/session`);
+  const body = (await session.json()) as { user: unknown; csrfToken: string };
+  if (!body.user) return;
+  const res = await context.request.delete(`${base}/api/session`, { headers: { 'x-csrf-token': body.csrfToken } });
+  if (res.status() !== 204) throw new Error(`sign-out answered ${res.status()}`);
+}
+
+/**
+ * Leaves the app, ends the current session on the server, then drops the cookies. Ending it on the server matters:
+ * a poll still in flight can set the rolling session cookie again after it was cleared, and the next page would
+ * then see the previous person signed in; a cookie of an ended session signs no one in.
+ */
+export async function signOut(browser: Browser, base: string): Promise<void> {
+  await browser.page.goto('about:blank');
+  await endSessionOnServer(browser.context, base);
+  await browser.context.clearCookies();
+}
+
 /** Signs in through the form from a signed-out start, whatever the previous case left behind. */
 export async function signIn(browser: Browser, base: string, email: string, password = 'nestflow-demo'): Promise<void> {
   const { page } = browser;
-  // Leave the app first: a request still in flight could otherwise set the previous person's rolling session
-  // cookie again after it was cleared, and the sign-in page would then redirect to their home.
-  await page.goto('about:blank');
-  await browser.context.clearCookies();
+  await signOut(browser, base);
   await page.goto(`${base}/sign-in`);
+  if (!new URL(page.url()).pathname.startsWith('/sign-in')) {
+    throw new Error(`the sign-in page moved on to ${page.url()} although the previous session was ended`);
+  }
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
