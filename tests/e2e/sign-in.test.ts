@@ -29,7 +29,8 @@ describe('signing in as each demo role', () => {
     if (!email.startsWith('admin')) await expect(navigation.getByRole('link', { name: 'People' }).count()).resolves.toBe(0);
     await screenshot(page, `home-${email.split('@')[0]}`);
     await page.getByRole('button', { name: 'Sign out' }).first().click();
-    await page.waitForURL(/\/sign-in/);
+    // Plain sign-in: a deliberate sign-out names no page for the next person at this computer to see.
+    await page.waitForURL(`${base}/sign-in`);
     const session = await page.evaluate(() => fetch('/api/session').then((r) => r.json()));
     expect(session.user).toBeNull();
   });

@@ -51,7 +51,7 @@ describe('role navigation', () => {
     expect(within(banner).getAllByText(/Consultant/).length).toBeGreaterThan(0);
   });
 
-  it('when the person signs out, then the session ends with the CSRF token and sign-in is shown', async () => {
+  it('when the person signs out, then the session ends with the CSRF token and plain sign-in is shown, naming no page', async () => {
     let signedOut = false;
     const fetchMock = stubApi({
       'GET /api/session': (request) => sessionHandler(signedOut ? null : 'coordinator', signedOut ? 'csrf-2' : 'csrf-1')(request),
@@ -60,10 +60,12 @@ describe('role navigation', () => {
         return json(204);
       },
     });
-    const { user } = renderApp('/coordinator');
+    const { user, router } = renderApp('/coordinator');
     await user.click(await screen.findByRole('button', { name: 'Sign out' }));
 
     expect(await screen.findByRole('heading', { name: 'Sign in' })).toBeInTheDocument();
+    // Not /sign-in?next=%2Fcoordinator: a session that ran out keeps the page, a deliberate sign-out does not.
+    expect(currentUrl(router)).toBe('/sign-in');
     const deleteCall = fetchMock.mock.calls.find(([, init]) => init?.method === 'DELETE');
     expect(new Headers(deleteCall?.[1]?.headers).get('X-CSRF-Token')).toBe('csrf-1');
     await waitFor(() => expect(screen.queryByRole('navigation', { name: 'Main' })).not.toBeInTheDocument());

@@ -6,6 +6,6 @@ export function useSignOut() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => api.delete('/api/session'),
-    onSuccess: () => endLocalSession(queryClient),
+    onSuccess: () => endLocalSession(queryClient, 'signed-out'),
   });
 }
