@@ -216,6 +216,21 @@ describe('POST /api/infants/:id/discharge', () => {
   });
 });
 
+describe('a baby who has left the programme', () => {
+  it('when someone ticks an item or sets the date after the baby left, then 409 and nothing changes; reading still works', async () => {
+    const { infant, coord } = await approvedBaby(ctx.deps, ctx.app);
+    await put(coord, `/api/infants/${infant.id}/discharge/items/${KEYS[0]}`, { done: true, evidence: evidenceFor(KEYS[0]!) }).expect(200);
+    await ctx.deps.ds.query(`UPDATE infants SET status = 'left_programme' WHERE id = $1`, [infant.id]);
+    const untick = await put(coord, `/api/infants/${infant.id}/discharge/items/${KEYS[0]}`, { done: false }).expect(409);
+    expect(untick.body.error).toMatchObject({ code: 'conflict', message: 'This baby has left the programme: the discharge checklist is closed.' });
+    await put(coord, `/api/infants/${infant.id}/discharge/items/${KEYS[1]}`, { done: true, evidence: evidenceFor(KEYS[1]!) }).expect(409);
+    await post(coord, `/api/infants/${infant.id}/discharge`, { date: '2026-12-01' }).expect(409);
+    const after = dischargeSchema.parse((await coord.get(`/api/infants/${infant.id}/discharge`).expect(200)).body);
+    expect(after.items.filter((i) => i.done).map((i) => i.key)).toEqual([KEYS[0]]);
+    expect(after.dischargedOn).toBeNull();
+  });
+});
+
 describe('POST /api/infants/:id/discharge-letter/email', () => {
   it('when the coordinator e-mails the letter, then the fake receives it with the PDF attached, and it is audited', async () => {
     const { infant, coord, clinic } = await approvedBaby(ctx.deps, ctx.app);

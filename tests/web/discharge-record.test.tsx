@@ -62,6 +62,19 @@ describe('Infant record: discharge', () => {
     expect(within(section).getByRole('link', { name: 'Download the discharge letter (PDF)' })).toHaveAttribute('href', `/api/infants/${ID}/discharge-letter.pdf`);
   });
 
+  it('when the baby has left the programme, then the checklist reads as a record: no date to set, nothing to tick or undo', async () => {
+    stubRecord('coordinator', { current: discharge({ items: items(['equipment_use']) }) }, {
+      [`GET /api/infants/${ID}`]: () => json(200, { ...infant, status: 'left_programme', activeFlowLpm: null }),
+    });
+    renderApp(`/infants/${ID}`);
+    const section = await card();
+    expect(await within(section).findByText('This baby has left the programme: the checklist is closed and kept as it was.')).toBeInTheDocument();
+    expect(within(section).getByText(`1 of ${DEFAULT_DISCHARGE_RULES.items.length} steps done`)).toBeInTheDocument();
+    expect(within(section).queryByRole('button', { name: /discharge date/ })).toBeNull();
+    expect(within(section).queryByRole('button', { name: /^Mark done:|^Undo:/ })).toBeNull();
+    expect(within(section).getByRole('link', { name: 'Download the discharge letter (PDF)' })).toBeInTheDocument();
+  });
+
   it('when the supplier’s delivery did the equipment items, then they say so with a link to the order and offer no undo', async () => {
     const ORDER_ID = '7a7a7a7a-0000-4000-8000-000000000001';
     const list = items().map((i) => (i.key === 'equipment_installed'

@@ -9,7 +9,7 @@ import { accessibleWhere } from '../../auth/casl-to-sql';
 import type { InfantEntity } from '../../db/entities/infant.entity';
 import { INFANT_ACL_COLUMNS } from '../../db/repositories/infants.repository';
 import type { AppRepos } from '../../deps';
-import { AppError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
+import { AppError, ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { Actor } from '../../lib/http';
 import { systemClock, type Clock } from '../../lib/clock';
 import { todayIn } from '../../lib/dates';
@@ -23,6 +23,11 @@ export class DischargeNotReadyError extends AppError {
   constructor(missing: string[]) {
     super(422, 'discharge_not_ready', 'The baby is not ready to go home: some steps are not done.', { missing });
   }
+}
+
+/** After a baby has left the programme its hospital discharge is history: the checklist and the date are closed. */
+function assertOpen(infant: InfantEntity): void {
+  if (infant.status === 'left_programme') throw new ConflictError('This baby has left the programme: the discharge checklist is closed.');
 }
 
 // How far from today a discharge date may be: a date just past is recorded late; a year ahead is a typing slip.
@@ -69,6 +74,7 @@ export function createDischargeService(ds: DataSource, repos: AppRepos, clock: C
     async updateItem(ability: AppAbility, actor: Actor, infantId: string, key: string, input: UpdateDischargeItemInput): Promise<DischargeItem> {
       const infant = await visibleInfant(ability, infantId);
       if (!ability.can('update', subject('Discharge', fieldsOf(infant)))) throw new ForbiddenError('You cannot change this baby’s discharge checklist.');
+      assertOpen(infant);
       const policy = await repos.policies.current(infant.programmeId);
       const rule = policy.settings.discharge.items.find((r) => r.key === key);
       if (!rule) throw new NotFoundError('There is no such item on your programme’s discharge checklist.');
@@ -103,6 +109,7 @@ export function createDischargeService(ds: DataSource, repos: AppRepos, clock: C
     async setDate(ability: AppAbility, actor: Actor & { timeZone: string }, infantId: string, input: SetDischargeInput): Promise<Discharge> {
       const infant = await visibleInfant(ability, infantId);
       if (!ability.can('update', subject('Discharge', fieldsOf(infant)))) throw new ForbiddenError('You cannot set this baby’s discharge date.');
+      assertOpen(infant);
       const today = todayIn(actor.timeZone, clock.now());
       if (input.date < addDays(today, -PAST_DAYS)) throw new ValidationError({ date: [`Use a date from ${PAST_DAYS} days ago on`] });
       if (input.date > addDays(today, AHEAD_DAYS)) throw new ValidationError({ date: ['Use a date within the next year'] });

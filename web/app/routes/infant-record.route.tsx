@@ -125,7 +125,7 @@ export function Component() {
           <Monitoring infant={infant.data} versions={versions} />
         </div>
         <div className="flex min-w-0 flex-col gap-6">
-          <DischargeSection infantId={infant.data.id} rights={dischargeRights} />
+          <DischargeSection infantId={infant.data.id} rights={dischargeRights} closed={infant.data.status === 'left_programme'} />
           <DetailsSection infant={infant.data} canEdit={canEdit} />
           <ContactsSection infant={infant.data} canEdit={canEdit} />
           <JourneysSection infantId={infant.data.id} canRequest={ability.can('create', 'Journey')} />

@@ -59,12 +59,16 @@ function FirstVisit({ infantId, d, canBook }: { infantId: string; d: Discharge; 
   );
 }
 
-/** The discharge checklist on the baby's record: progress, the items by group, the date and the letter. */
-export function DischargeSection({ infantId, rights }: { infantId: string; rights: DischargeRights }) {
+/**
+ * The discharge checklist on the baby's record: progress, the items by group, the date and the letter. `closed` once
+ * the baby has left the programme: the checklist is then a record, as the API keeps it.
+ */
+export function DischargeSection({ infantId, rights, closed = false }: { infantId: string; rights: DischargeRights; closed?: boolean }) {
   const discharge = useDischarge(infantId);
   const [setting, setSetting] = useState(false);
   const d = discharge.data;
-  const action = d && rights.canChange && !setting
+  const canChange = rights.canChange && !closed;
+  const action = d && canChange && !setting
     ? <Button variant="secondary" size="sm" onClick={() => setSetting(true)}>{d.dischargedOn ? 'Change discharge date' : 'Set discharge date'}</Button>
     : undefined;
   return (
@@ -74,6 +78,7 @@ export function DischargeSection({ infantId, rights }: { infantId: string; right
       {d && (
         <div className="flex flex-col gap-4">
           <Progress d={d} />
+          {closed && <p className="text-ink-700">This baby has left the programme: the checklist is closed and kept as it was.</p>}
           {setting && <SetDischargeForm infantId={infantId} discharge={d} canOverride={rights.canOverride} onClose={() => setSetting(false)} />}
           <FirstVisit infantId={infantId} d={d} canBook={rights.canBookVisit} />
           {DISCHARGE_GROUPS.map((group) => {
@@ -85,7 +90,7 @@ export function DischargeSection({ infantId, rights }: { infantId: string; right
                   {DISCHARGE_GROUP_LABELS[group]} ({items.filter((i) => i.done).length} of {items.length})
                 </h3>
                 <ul className="flex flex-col divide-y divide-surface-200 rounded-lg border border-surface-200">
-                  {items.map((item) => <DischargeItemRow key={item.key} infantId={infantId} item={item} canChange={rights.canChange} />)}
+                  {items.map((item) => <DischargeItemRow key={item.key} infantId={infantId} item={item} canChange={canChange} />)}
                 </ul>
               </section>
             );
