@@ -1,8 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent, type Agent } from '../helpers/agents';
 import { makeClinic } from '../helpers/infants';
 import { EXACT_TOTAL_LIMIT } from '../../server/db/repositories/infants.repository';
+import { poolOf } from '../../server/db/repositories/prepared';
 
 // The caseload pages by position (keyset): next and previous pages follow the sort with ties broken by id, no
 // row is skipped or repeated, the total is exact up to EXACT_TOTAL_LIMIT and an estimate above, and a page is read
@@ -11,6 +12,7 @@ let ctx: TestContext;
 let coord: Agent;
 let bigCoord: Agent;
 let clinic: Awaited<ReturnType<typeof makeClinic>>;
+let bigProgrammeId: string;
 const SMALL = 63;
 const BIG = EXACT_TOTAL_LIMIT + 1200;
 
@@ -51,6 +53,7 @@ beforeAll(async () => {
   coord = await signedInAgent(ctx.app, clinic.people.coordinator.email);
   const big = await makeClinic(ctx.deps);
   await addBabies(big, BIG);
+  bigProgrammeId = big.programme.id;
   await ctx.deps.ds.query('ANALYZE infants');
   bigCoord = await signedInAgent(ctx.app, big.people.coordinator.email);
 }, 60_000);
@@ -149,5 +152,36 @@ describe('a large programme', () => {
     const scan = nodes.find((n) => n['Index Name']);
     expect(scan?.['Index Name']).toMatch(/^infants_p_(status_)?pressure_idx$/);
     expect(scan!['Actual Rows'] + (scan!['Rows Removed by Filter'] ?? 0)).toBeLessThanOrEqual(26 * 8);
+  });
+});
+
+describe('searching a large programme by name', () => {
+  const countOf = async (where: string, params: unknown[]) =>
+    (await ctx.deps.ds.query(`SELECT count(*)::int AS n FROM infants WHERE programme_id = $1 AND ${where}`, [bigProgrammeId, ...params]))[0].n as number;
+
+  it('when a name no baby has is searched, then the count is answered from the name index without reading the programme\'s babies', async () => {
+    const pool = poolOf(ctx.deps.ds);
+    const spy = vi.spyOn(pool, 'query');
+    const body = (await bigCoord.get('/api/infants?q=Quillon&pageSize=25').expect(200)).body;
+    const countCall = spy.mock.calls.map(([c]) => c as unknown as { text: string; values: unknown[] }).find((c) => /^SELECT count\(\*\)/.test(c?.text ?? ''))!;
+    spy.mockRestore();
+    expect(body).toMatchObject({ items: [], total: 0 });
+    const [{ 'QUERY PLAN': plan }] = await ctx.deps.ds.query(`EXPLAIN (ANALYZE, FORMAT JSON) ${countCall.text}`, countCall.values);
+    const nodes: Array<PlanNode & { 'Relation Name'?: string }> = [];
+    const visit = (n: PlanNode) => { nodes.push(n); (n.Plans ?? []).forEach(visit); };
+    visit(plan[0].Plan);
+    expect(nodes.map((n) => n['Index Name'])).toContain('infants_full_name_trgm_idx');
+    expect(nodes.filter((n) => n['Node Type'] === 'Seq Scan')).toEqual([]);
+  });
+
+  it('when part of a family name, or a given and a family name together, is searched, then exactly their babies are counted and listed', async () => {
+    const family = (await bigCoord.get(`/api/infants?q=${encodeURIComponent('aging 10')}&pageSize=25`).expect(200)).body;
+    expect(family.total).toBe(await countOf(`family_name = 'Paging 10'`, []));
+    expect(family.total).toBeGreaterThan(25);
+    const both = (await bigCoord.get(`/api/infants?q=${encodeURIComponent('baby 3 paging 4')}&pageSize=25`).expect(200)).body;
+    expect(both.total).toBe(await countOf(`given_name = 'Baby 3' AND family_name = 'Paging 4'`, []));
+    expect(both.total).toBeGreaterThan(0);
+    const { ids } = await walk(bigCoord, `q=${encodeURIComponent('baby 3 paging 4')}&pageSize=25`);
+    expect(ids).toHaveLength(both.total);
   });
 });

@@ -17,6 +17,7 @@ import { AuditReadsAndChain1766102400000 } from './1766102400000-AuditReadsAndCh
 import { DischargeChecklist1766188800000 } from './1766188800000-DischargeChecklist';
 import { EquipmentOrders1766275200000 } from './1766275200000-EquipmentOrders';
 import { ReminderProgrammeMatchesInfant1766361600000 } from './1766361600000-ReminderProgrammeMatchesInfant';
+import { InfantNameSearchIndex1766448000000 } from './1766448000000-InfantNameSearchIndex';
 
 export const MIGRATIONS = [
   Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000, Visits1764979200000, Reminders1765065600000,
@@ -30,4 +31,5 @@ export const MIGRATIONS = [
   DischargeChecklist1766188800000,
   EquipmentOrders1766275200000,
   ReminderProgrammeMatchesInfant1766361600000,
+  InfantNameSearchIndex1766448000000,
 ];
