@@ -119,19 +119,21 @@ const ratioFirst = perSize[large!.slug]!.first / perSize[tenth!.slug]!.first;
 const ratioDeep = perSize[large!.slug]!.deep / perSize[tenth!.slug]!.deep;
 console.log(`  ratio ${large!.babies.toLocaleString('en')} / ${tenth!.babies.toLocaleString('en')}: first page ${ratioFirst.toFixed(2)}×, page 21 ${ratioDeep.toFixed(2)}× (target ≤ 1.3×)`);
 
-// The caseload's name search (a trigram index on the full name): one baby's family name, and a name no baby has —
-// without the index, both read every baby of the programme.
+// The name search of the caseload and the message log (trigram indexes): one baby's family name, and a name no one
+// has — without the indexes, both read every baby (or every message) of the programme.
 const searchRows: Array<Record<string, string>> = [];
 for (const programme of [tenth!, large!]) {
   const cookie = await signIn(`coordinator@${programme.slug}.scale.example`);
   const [{ family_name: oneFamily }] = (await pool.query(
     `SELECT i.family_name FROM infants i JOIN programmes p ON p.id = i.programme_id WHERE p.slug = $1 ORDER BY i.id LIMIT 1`, [programme.slug])).rows;
-  for (const [what, q] of [['one baby\'s family name', oneFamily], ['a name no baby has', 'Quornwick']] as const) {
-    const t = await timeEach(`http://127.0.0.1:${appPort}/api/infants?q=${encodeURIComponent(q)}&pageSize=25`, { cookie });
-    searchRows.push({ programme: `${programme.babies.toLocaleString('en')} babies`, search: what, 'median / p99': `${t.median.toFixed(2)} / ${t.p99.toFixed(2)} ms` });
+  for (const [list, path] of [['caseload', '/api/infants'], ['message log', '/api/messages']] as const) {
+    for (const [what, q] of [['one baby\'s family name', oneFamily], ['a name no one has', 'Quornwick']] as const) {
+      const t = await timeEach(`http://127.0.0.1:${appPort}${path}?q=${encodeURIComponent(q)}&pageSize=25`, { cookie });
+      searchRows.push({ programme: `${programme.babies.toLocaleString('en')} babies`, list, search: what, 'median / p99': `${t.median.toFixed(2)} / ${t.p99.toFixed(2)} ms` });
+    }
   }
 }
-console.log(`\ncaseload name search, first page, one request at a time, ${SAMPLES} samples each`);
+console.log(`\nname search, first page, one request at a time, ${SAMPLES} samples each`);
 console.table(searchRows);
 
 // The message log and People page the same way (keyset, server/db/repositories/list-paging.ts): a quarter as many

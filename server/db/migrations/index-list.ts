@@ -18,6 +18,7 @@ import { DischargeChecklist1766188800000 } from './1766188800000-DischargeCheckl
 import { EquipmentOrders1766275200000 } from './1766275200000-EquipmentOrders';
 import { ReminderProgrammeMatchesInfant1766361600000 } from './1766361600000-ReminderProgrammeMatchesInfant';
 import { InfantNameSearchIndex1766448000000 } from './1766448000000-InfantNameSearchIndex';
+import { MessageSearchIndexes1766534400000 } from './1766534400000-MessageSearchIndexes';
 
 export const MIGRATIONS = [
   Foundation1764633600000, Enrolment1764720000000, Recordings1764806400000, Monitoring1764892800000, Visits1764979200000, Reminders1765065600000,
@@ -32,4 +33,5 @@ export const MIGRATIONS = [
   EquipmentOrders1766275200000,
   ReminderProgrammeMatchesInfant1766361600000,
   InfantNameSearchIndex1766448000000,
+  MessageSearchIndexes1766534400000,
 ];

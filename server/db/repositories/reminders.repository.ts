@@ -98,11 +98,15 @@ function logFilter(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programm
     }
   }
   if (query.q) {
-    // Matched as plain text: LIKE's own wildcards in what was typed are escaped.
+    // Matched as plain text: LIKE's own wildcards in what was typed are escaped. Each alternative is on the message
+    // itself so each can be read from an index (migrations InfantNameSearchIndex, MessageSearchIndexes): the babies
+    // of the programme whose name matches, through the same expression as the caseload's search, then their
+    // messages; the recipient's name; the address (or the number typed in national form).
     named.q = containsPattern(query.q);
     const phone = qPhone ? ` OR r.to_address = :qPhone` : '';
     if (qPhone) named.qPhone = qPhone;
-    where.push(`((i.given_name || ' ' || i.family_name) ILIKE :q OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
+    where.push(`(r.infant_id = ANY (ARRAY(SELECT s.id FROM infants s WHERE s.programme_id = :programmeId AND (s.given_name || ' ' || s.family_name) ILIKE :q))
+      OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
   }
   return { where, named };
 }
@@ -212,8 +216,8 @@ export function createRemindersRepository(ds: DataSource) {
         where, params: named, key: MESSAGE_SORT_KEYS[query.sort], at, limit: query.pageSize + 1,
       });
       const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
-      // A search reads the baby's name, so it needs the join; without one, each message's rights are a key lookup.
-      const counted = query.q ? { where, named, from } : { ...logFilter(query, programmeId, infantAcl, qPhone, 'exists'), from: 'FROM reminders r' };
+      // Counted on the messages alone: each message's rights, when the caller has any to check, are a key lookup.
+      const counted = { ...logFilter(query, programmeId, infantAcl, qPhone, 'exists'), from: 'FROM reminders r' };
       const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 ${counted.from} WHERE ${counted.where.join(' AND ')}`, counted.named);
       const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<MessageListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
       return { ...cutPage(rows, query.pageSize, at), ...count };
