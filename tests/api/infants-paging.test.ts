@@ -1,9 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { signedInAgent, type Agent } from '../helpers/agents';
 import { makeClinic } from '../helpers/infants';
 import { EXACT_TOTAL_LIMIT } from '../../server/db/repositories/infants.repository';
-import { poolOf } from '../../server/db/repositories/prepared';
+import { countPlanOf } from '../helpers/count-plan';
 
 // The caseload pages by position (keyset): next and previous pages follow the sort with ties broken by id, no
 // row is skipped or repeated, the total is exact up to EXACT_TOTAL_LIMIT and an estimate above, and a page is read
@@ -160,16 +160,8 @@ describe('searching a large programme by name', () => {
     (await ctx.deps.ds.query(`SELECT count(*)::int AS n FROM infants WHERE programme_id = $1 AND ${where}`, [bigProgrammeId, ...params]))[0].n as number;
 
   it('when a name no baby has is searched, then the count is answered from the name index without reading the programme\'s babies', async () => {
-    const pool = poolOf(ctx.deps.ds);
-    const spy = vi.spyOn(pool, 'query');
-    const body = (await bigCoord.get('/api/infants?q=Quillon&pageSize=25').expect(200)).body;
-    const countCall = spy.mock.calls.map(([c]) => c as unknown as { text: string; values: unknown[] }).find((c) => /^SELECT count\(\*\)/.test(c?.text ?? ''))!;
-    spy.mockRestore();
-    expect(body).toMatchObject({ items: [], total: 0 });
-    const [{ 'QUERY PLAN': plan }] = await ctx.deps.ds.query(`EXPLAIN (ANALYZE, FORMAT JSON) ${countCall.text}`, countCall.values);
-    const nodes: Array<PlanNode & { 'Relation Name'?: string }> = [];
-    const visit = (n: PlanNode) => { nodes.push(n); (n.Plans ?? []).forEach(visit); };
-    visit(plan[0].Plan);
+    const { answer, nodes } = await countPlanOf(ctx.deps.ds, () => bigCoord.get('/api/infants?q=Quillon&pageSize=25').expect(200));
+    expect(answer.body).toMatchObject({ items: [], total: 0 });
     expect(nodes.map((n) => n['Index Name'])).toContain('infants_full_name_trgm_idx');
     expect(nodes.filter((n) => n['Node Type'] === 'Seq Scan')).toEqual([]);
   });

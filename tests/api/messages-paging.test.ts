@@ -4,7 +4,7 @@ import { signedInAgent, type Agent } from '../helpers/agents';
 import { makeClinic } from '../helpers/infants';
 import { makeProgramme } from '../helpers/factories';
 import { EXACT_TOTAL_LIMIT } from '../../server/db/repositories/infants.repository';
-import { poolOf } from '../../server/db/repositories/prepared';
+import { countPlanOf } from '../helpers/count-plan';
 
 // The message log pages by position (keyset, server/db/repositories/list-paging.ts): next and previous pages follow
 // the sort with ties broken by id, filters and the search narrow every page, another programme's messages never
@@ -155,34 +155,15 @@ describe('message log paging by position', () => {
 
 describe('a large message log', () => {
   it('when a coordinator (who reads every baby of the programme) counts the log, then PostgreSQL reads messages only, none of the programme\'s babies', async () => {
-    const pool = poolOf(ctx.deps.ds);
-    const spy = vi.spyOn(pool, 'query');
-    await bigCoord.get('/api/messages?status=sent&pageSize=25').expect(200);
-    const countCall = spy.mock.calls.map(([c]) => c as unknown as { text: string; values: unknown[] }).find((c) => /^SELECT count\(\*\)/.test(c.text))!;
-    spy.mockRestore();
-    const [{ 'QUERY PLAN': plan }] = await ctx.deps.ds.query(`EXPLAIN (FORMAT JSON) ${countCall.text}`, countCall.values);
-    const relations: string[] = [];
-    const visit = (n: { 'Relation Name'?: string; Plans?: unknown[] }) => {
-      if (n['Relation Name']) relations.push(n['Relation Name']);
-      (n.Plans ?? []).forEach((c) => visit(c as never));
-    };
-    visit(plan[0].Plan);
-    expect(relations).toEqual(['reminders']);
+    const { nodes } = await countPlanOf(ctx.deps.ds, () => bigCoord.get('/api/messages?status=sent&pageSize=25').expect(200));
+    expect(nodes.flatMap((n) => n['Relation Name'] ?? [])).toEqual(['reminders']);
   });
 
   it('when a name no message has is searched, then the count reads the search indexes, not the programme\'s messages; a baby\'s name still finds its messages', async () => {
     // Autovacuum folds GIN's pending list into the index in service; here the rows were bulk-inserted a moment ago.
     await ctx.deps.ds.query('VACUUM ANALYZE reminders');
-    const pool = poolOf(ctx.deps.ds);
-    const spy = vi.spyOn(pool, 'query');
-    const body = (await bigCoord.get('/api/messages?q=Quornwick&pageSize=25').expect(200)).body;
-    const countCall = spy.mock.calls.map(([c]) => c as unknown as { text: string; values: unknown[] }).find((c) => /^SELECT count\(\*\)/.test(c?.text ?? ''))!;
-    spy.mockRestore();
-    expect(body).toMatchObject({ items: [], total: 0 });
-    const [{ 'QUERY PLAN': plan }] = await ctx.deps.ds.query(`EXPLAIN (FORMAT JSON) ${countCall.text}`, countCall.values);
-    const nodes: Array<{ 'Node Type': string; 'Relation Name'?: string; 'Index Name'?: string; Plans?: unknown[] }> = [];
-    const visit = (n: (typeof nodes)[number]) => { nodes.push(n); (n.Plans ?? []).forEach((c) => visit(c as never)); };
-    visit(plan[0].Plan);
+    const { answer, nodes } = await countPlanOf(ctx.deps.ds, () => bigCoord.get('/api/messages?q=Quornwick&pageSize=25').expect(200));
+    expect(answer.body).toMatchObject({ items: [], total: 0 });
     // The babies' names may be read whole while the programme is small (the caseload's search test covers their index).
     expect(nodes.filter((n) => n['Node Type'] === 'Seq Scan' && n['Relation Name'] === 'reminders')).toEqual([]);
     expect(nodes.map((n) => n['Index Name'])).toEqual(expect.arrayContaining(['reminders_recipient_trgm_idx', 'reminders_address_trgm_idx']));
