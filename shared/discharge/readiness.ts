@@ -1,4 +1,8 @@
 import { DISCHARGE_GROUPS, FAMILY_GROUPS, SETTING_APPROVED_KEY, type DischargeEvidenceKind, type DischargeItemRule } from '../schemas/discharge-policy';
+import type { InfantStatus } from '../schemas/infants';
+
+/** After a baby has left the programme its hospital discharge is history: the checklist and the date are closed. */
+export const dischargeClosed = (status: InfantStatus): boolean => status === 'left_programme';
 
 /** What is stored for one item of one baby. */
 export interface ItemState { key: string; done: boolean; evidence: { date?: string; person?: string } | null }

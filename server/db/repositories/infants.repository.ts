@@ -9,6 +9,12 @@ import { poolOf, preparedRows } from './prepared';
 
 export const INFANT_ACL_COLUMNS = { programmeId: 'i.programme_id', nurseId: 'i.nurse_id', id: 'i.id' };
 
+/**
+ * A baby's full name as the name searches match it (the caseload's and the message log's): exactly the expression
+ * infants_full_name_trgm_idx indexes (migration InfantNameSearchIndex), so change both together.
+ */
+export const fullNameSql = (alias: string): string => `(${alias}.given_name || ' ' || ${alias}.family_name)`;
+
 // Corrected age grows as the term-equivalent date gets earlier; elevation grows as pressure falls. Each sort is a
 // key read in one direction with the id last to break ties, so a page is "the next N after this row" and PostgreSQL
 // walks the matching index (migration ListIndexes) from the cursor instead of counting past every earlier row
@@ -71,8 +77,8 @@ function listFilter(query: ListInfantsQuery, acl: SqlFilter, extra?: SqlFilter):
     named.flag = query.flag;
   }
   if (query.q) {
-    // One expression, the one infants_full_name_trgm_idx indexes (a match in the family name is a match in it too).
-    where.push("(i.given_name || ' ' || i.family_name) ILIKE :q");
+    // A match in the family name is a match in the full name too.
+    where.push(`${fullNameSql('i')} ILIKE :q`);
     named.q = containsPattern(query.q);
   }
   return { where, named };

@@ -3,6 +3,7 @@ import type { Channel, ListMessagesQuery, MessageStatus, MessageTemplate } from 
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { cappedCount, containsPattern, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
 import { createRowEstimates } from './row-estimates';
+import { fullNameSql } from './infants.repository';
 
 export interface ReminderRow {
   id: string;
@@ -105,7 +106,7 @@ function logFilter(query: Omit<ListMessagesQuery, 'page' | 'pageSize'>, programm
     named.q = containsPattern(query.q);
     const phone = qPhone ? ` OR r.to_address = :qPhone` : '';
     if (qPhone) named.qPhone = qPhone;
-    where.push(`(r.infant_id = ANY (ARRAY(SELECT s.id FROM infants s WHERE s.programme_id = :programmeId AND (s.given_name || ' ' || s.family_name) ILIKE :q))
+    where.push(`(r.infant_id = ANY (ARRAY(SELECT s.id FROM infants s WHERE s.programme_id = :programmeId AND ${fullNameSql('s')} ILIKE :q))
       OR r.recipient_name ILIKE :q OR r.to_address ILIKE :q${phone})`);
   }
   return { where, named };
@@ -217,8 +218,8 @@ export function createRemindersRepository(ds: DataSource) {
       });
       const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
       // Counted on the messages alone: each message's rights, when the caller has any to check, are a key lookup.
-      const counted = { ...logFilter(query, programmeId, infantAcl, qPhone, 'exists'), from: 'FROM reminders r' };
-      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 ${counted.from} WHERE ${counted.where.join(' AND ')}`, counted.named);
+      const counted = logFilter(query, programmeId, infantAcl, qPhone, 'exists');
+      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 FROM reminders r WHERE ${counted.where.join(' AND ')}`, counted.named);
       const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<MessageListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
       return { ...cutPage(rows, query.pageSize, at), ...count };
     },

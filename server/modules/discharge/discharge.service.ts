@@ -1,7 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
 import type { AppAbility } from '@shared/auth/ability';
-import { missingEvidence, missingForDischarge } from '@shared/discharge/readiness';
+import { dischargeClosed, missingEvidence, missingForDischarge } from '@shared/discharge/readiness';
 import { withOrderTicks } from '@shared/discharge/order-ticks';
 import { addDays } from '@shared/clinical/dates';
 import type { Discharge, DischargeItem, SetDischargeInput, UpdateDischargeItemInput } from '@shared/schemas/discharge';
@@ -25,9 +25,9 @@ export class DischargeNotReadyError extends AppError {
   }
 }
 
-/** After a baby has left the programme its hospital discharge is history: the checklist and the date are closed. */
+/** The checklist and the date are closed once the baby has left the programme (dischargeClosed, shared with the web). */
 function assertOpen(infant: InfantEntity): void {
-  if (infant.status === 'left_programme') throw new ConflictError('This baby has left the programme: the discharge checklist is closed.');
+  if (dischargeClosed(infant.status)) throw new ConflictError('This baby has left the programme: the discharge checklist is closed.');
 }
 
 // How far from today a discharge date may be: a date just past is recorded late; a year ahead is a typing slip.

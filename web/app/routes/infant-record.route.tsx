@@ -3,6 +3,7 @@ import { subject } from '@casl/ability';
 import { useQueryClient } from '@tanstack/react-query';
 import { useParams } from 'react-router-dom';
 import type { InfantDetail } from '@shared/schemas/infants';
+import { dischargeClosed } from '@shared/discharge/readiness';
 import type { Prescription } from '@shared/schemas/prescriptions';
 import { ReadingsChart } from '../../features/charts/components/readings-chart';
 import { useInfant } from '../../features/infants/api/get-infant';
@@ -125,7 +126,7 @@ export function Component() {
           <Monitoring infant={infant.data} versions={versions} />
         </div>
         <div className="flex min-w-0 flex-col gap-6">
-          <DischargeSection infantId={infant.data.id} rights={dischargeRights} closed={infant.data.status === 'left_programme'} />
+          <DischargeSection infantId={infant.data.id} rights={dischargeRights} closed={dischargeClosed(infant.data.status)} />
           <DetailsSection infant={infant.data} canEdit={canEdit} />
           <ContactsSection infant={infant.data} canEdit={canEdit} />
           <JourneysSection infantId={infant.data.id} canRequest={ability.can('create', 'Journey')} />
