@@ -9,7 +9,7 @@ import { approvedBaby, post } from '../helpers/approved-baby';
 import { makeClinic } from '../helpers/infants';
 import { mailTo, mailsTo } from '../helpers/account-mail';
 import { SUPPLIER_EMAIL, supplierToken, withSupplier } from '../helpers/equipment';
-import { pdfAttachment, pdfText } from '../helpers/pdf';
+import { pdfAttachment, pdfLinks, pdfText } from '../helpers/pdf';
 
 // Every time-dependent decision here runs on an injected clock: the order's flags and the link's expiry.
 const NOW = '2026-12-01T10:00:00Z';
@@ -53,10 +53,14 @@ describe('POST /api/infants/:id/equipment-orders', () => {
     expect(res.body.order).toMatchObject({ status: 'sent', reference: 'EQ-00001', deliveryAddress: '1 Test Row, Cindermoor' });
     const mail = await mailTo(ctx.mail, SUPPLIER_EMAIL, new RegExp(`EQ-00001 from ${clinic.programme.name}`));
     expect(mail.subject).toBe(`Equipment order EQ-00001 from ${clinic.programme.name}: needed by 5 Dec 2026`);
-    expect(mail.text).toContain('http://nestflow.test/supplier/orders/');
+    const link = /http:\/\/nestflow\.test\/supplier\/orders\/[A-Za-z0-9._-]+/.exec(mail.text)?.[0];
+    expect(link, 'the signed link in the mail').toBeDefined();
     const pdf = pdfAttachment(mail);
     expect(pdf?.subarray(0, 8).toString()).toBe('%PDF-1.7');
     const text = await pdfText(pdf!);
+    // The same link in the PDF: printed (it may wrap, so compared without the white space) and clickable as a whole.
+    expect(text.replace(/\s/g, '')).toContain(link);
+    expect(pdfLinks(pdf!)).toEqual([link]);
     expect(text).toContain('Equipment order EQ-00001');
     expect(text).toContain('5 Dec 2026');
     expect(text).toContain(`The ${infant.familyName} family`);

@@ -35,6 +35,15 @@ export async function readPdf(pdf: Buffer): Promise<{ text: string; info: string
 /** The text of a PDF, spaces folded (see readPdf). */
 export const pdfText = async (pdf: Buffer): Promise<string> => (await readPdf(pdf)).text;
 
+/**
+ * The web addresses a PDF's link annotations open (`/URI (…)` in its object dictionaries, which pdfkit writes
+ * uncompressed), each once, with the literal string's escapes undone.
+ */
+export function pdfLinks(pdf: Buffer): string[] {
+  const uris = [...pdf.toString('latin1').matchAll(/\/URI \(((?:\\.|[^\\)])*)\)/g)].map((m) => m[1].replace(/\\(.)/g, '$1'));
+  return [...new Set(uris)];
+}
+
 /** The PDF attached to an e-mail, as bytes (base64 part of the raw message). */
 export function pdfAttachment(message: FakeMailMessage): Buffer | null {
   const part = /Content-Type: application\/pdf[^\r\n]*(?:\r?\n[^\r\n]+)*\r?\n\r?\n([A-Za-z0-9+/=\r\n]+)/.exec(message.raw);

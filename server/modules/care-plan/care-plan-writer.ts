@@ -8,6 +8,7 @@ const FONT_BOLD = require.resolve('@fontsource/nunito-sans/files/nunito-sans-lat
 
 export const INK = '#1f2933';
 export const ALERT = '#9b1c1c';
+const LINK = '#1d4ed8';
 
 type Struct = PDFKit.PDFStructureElement;
 
@@ -48,6 +49,16 @@ export function openTaggedDocument(info: { title: string; author: string }) {
     },
     para(text: string, bold = false) {
       parent.add(doc.struct('P', {}, () => doc.font(bold ? 'Bold' : 'Body').fontSize(10.5).text(text, { width, lineGap: 1.5 })));
+    },
+    /**
+     * A web address as a paragraph that is also a link annotation over each of its lines: a long address wraps, and
+     * text copied across the wrap picks up a space, but clicking it opens the whole address.
+     */
+    link(url: string) {
+      parent.add(doc.struct('P', {}, () => {
+        doc.font('Body').fontSize(10.5).fillColor(LINK).text(url, { width, lineGap: 1.5, link: url, underline: true });
+        doc.fillColor(INK);
+      }));
     },
     bullets(items: readonly string[]) {
       if (!items.length) return;

@@ -36,7 +36,7 @@ export function renderOrderPdf(d: OrderPdfData): Promise<Buffer> {
   if (d.note) w.section('Notes', () => w.para(d.note!));
   w.section('Confirm the delivery', () => {
     w.para('Open this link to confirm the delivery date, and again to record the delivery (no account needed):');
-    w.para(d.link);
+    w.link(d.link);
     w.para(`The link works for this order only, until ${dateInWords(d.linkExpiresOn)}.`);
     if (d.contactPhone) w.para(`Questions: ${d.programmeName}, ${d.contactPhone}.`);
   });
