@@ -99,6 +99,12 @@ describe('caseload paging by position', () => {
     expect(p3.prevCursor).not.toBeNull();
   });
 
+  it('when a page number past the last page is asked for, then the page is empty and still says how many babies match', async () => {
+    // The page and its count are one statement (list-paging.ts): an empty page must not lose the count.
+    const past = (await coord.get('/api/infants?sort=name&pageSize=10&page=50').expect(200)).body;
+    expect(past).toMatchObject({ items: [], total: SMALL, totalIsEstimate: false, nextCursor: null });
+  });
+
   it('when the cursor is damaged or belongs to another sort, then 400 names the cursor and says what to do', async () => {
     const p1 = (await coord.get('/api/infants?sort=name&pageSize=10').expect(200)).body;
     for (const cursor of ['not-a-cursor', Buffer.from('["name",["x"],"nope"]').toString('base64url')]) {

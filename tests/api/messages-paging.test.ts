@@ -212,8 +212,9 @@ describe('a large message log', () => {
 
     const [{ 'QUERY PLAN': plan }] = await ctx.deps.ds.query(`EXPLAIN (ANALYZE, FORMAT JSON) ${pageCall[0]}`, pageCall[1]);
     interface PlanNode { 'Node Type': string; 'Relation Name'?: string; 'Index Name'?: string; 'Actual Rows': number; 'Rows Removed by Filter'?: number; Plans?: PlanNode[] }
+    // The page's part of the statement: the count beside it (its one aggregate) is another test's.
     const nodes: PlanNode[] = [];
-    const visit = (n: PlanNode) => { nodes.push(n); (n.Plans ?? []).forEach(visit); };
+    const visit = (n: PlanNode) => { if (n['Node Type'] === 'Aggregate') return; nodes.push(n); (n.Plans ?? []).forEach(visit); };
     visit(plan[0].Plan);
     const scans = nodes.filter((n) => n['Relation Name'] === 'reminders');
     expect(scans.length).toBeGreaterThan(0);

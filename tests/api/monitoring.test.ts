@@ -76,6 +76,23 @@ describe('readings', () => {
     expect(list.map((r: { id: string }) => r.id)).toEqual([res.body.id]);
   });
 
+  it('when readings are listed, then they come oldest first, each as it was answered when saved (who logged it, until when it may be corrected), and a window narrows them', async () => {
+    const { infant, nurse, clinic } = await babyAtHome();
+    const family = await signedInAgent(ctx.app, clinic.people.family.email);
+    const hoursAgo = (h: number) => new Date(Date.now() - h * 3_600_000).toISOString();
+    const later = (await post(nurse, `/api/infants/${infant.id}/readings`, reading({ takenAt: hoursAgo(1), notes: 'settled' })).expect(201)).body;
+    const earlier = (await post(family, `/api/infants/${infant.id}/readings`, reading({ takenAt: hoursAgo(3), spo2: 93, state: 'awake' })).expect(201)).body;
+    expect(later.createdBy).toEqual({ id: clinic.people.nurse.id, name: clinic.people.nurse.name });
+    expect(later.editableUntil).not.toBeNull();
+    expect(earlier.editableUntil).toBeNull();
+    expect((await nurse.get(`/api/infants/${infant.id}/readings`).expect(200)).body.items).toEqual([earlier, later]);
+    const window = new URLSearchParams({ from: hoursAgo(2), to: new Date(Date.now()).toISOString() });
+    expect((await nurse.get(`/api/infants/${infant.id}/readings?${window}`).expect(200)).body.items).toEqual([later]);
+    // A baby with no readings yet: an empty list, not a missing baby.
+    const none = await babyAtHome();
+    expect((await none.nurse.get(`/api/infants/${none.infant.id}/readings`).expect(200)).body.items).toEqual([]);
+  });
+
   it('when values are out of range, then 400 per field and nothing is stored', async () => {
     const { infant, nurse } = await babyAtHome();
     const res = await post(nurse, `/api/infants/${infant.id}/readings`, reading({ spo2: 49, pulse: 251, state: 'running', weightKg: 30 })).expect(400);

@@ -2,9 +2,13 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { QueryResultRow } from 'pg';
 import type { ListInfantsQuery } from '@shared/schemas/infants';
 import type { SqlFilter } from '../../auth/casl-to-sql';
+import { FamilyContactEntity } from '../entities/family-contact.entity';
 import { InfantEntity } from '../entities/infant.entity';
+import { PrescriptionEntity } from '../entities/prescription.entity';
+import { SiteEntity } from '../entities/site.entity';
+import { UserEntity } from '../entities/user.entity';
 import { createRowEstimates } from './row-estimates';
-import { cappedCount, containsPattern, cutPage, keysetPageSql, keyValues, reversed, type KeyPart, type KeysetPosition, type SortDir } from './list-paging';
+import { containsPattern, cutPage, keysetPageSql, keyValues, pageAndCount, reversed, type KeyPart, type KeysetPosition, type SortDir } from './list-paging';
 import { poolOf, preparedRows } from './prepared';
 
 export const INFANT_ACL_COLUMNS = { programmeId: 'i.programme_id', nurseId: 'i.nurse_id', id: 'i.id' };
@@ -118,13 +122,41 @@ export function createInfantsRepository(ds: DataSource) {
     },
 
     /**
-     * How many babies match: exact up to EXACT_TOTAL_LIMIT (counting stops there, so it costs at most that many
-     * index entries), PostgreSQL's row estimate above it.
+     * A page of the caseload (as `list`) and how many babies match, in one prepared statement (list-paging.ts):
+     * exact up to EXACT_TOTAL_LIMIT (counting stops there, so it costs at most that many index entries),
+     * PostgreSQL's row estimate above it.
      */
-    async count(query: ListInfantsQuery, acl: SqlFilter, extra?: SqlFilter): Promise<{ total: number; estimate: boolean }> {
+    async listWithTotal(query: ListInfantsQuery, acl: SqlFilter, extra: SqlFilter | undefined, at: KeysetPosition): Promise<{ rows: InfantListRow[]; more: boolean; total: number; estimate: boolean }> {
       const { where, named } = listFilter(query, acl, extra);
-      const [sql, params] = ds.driver.escapeQueryWithParameters(`SELECT 1 FROM infants i WHERE ${where.join(' AND ')}`, named);
-      return cappedCount(ds, estimateRows, sql, params);
+      const page = keysetPageSql({ select: LIST_SELECT, where, params: named, key: sortKey(query.sort), at, limit: query.pageSize + 1 });
+      const { rows, total, estimate } = await pageAndCount<InfantListRow & QueryResultRow>(ds, estimateRows, page, { sql: `SELECT 1 FROM infants i WHERE ${where.join(' AND ')}`, params: named }, true);
+      return { ...cutPage(rows, query.pageSize, at), total, estimate };
+    },
+
+    /**
+     * A baby's record in one statement, when the caller may read the baby: the baby, its hospital site, its family
+     * contacts in order, its active setting (null without one) and the names of its nurse and consultant.
+     */
+    async findRecord(id: string, acl: SqlFilter): Promise<InfantRecord | undefined> {
+      type Mapped = InfantEntity & { site?: SiteEntity | null; contacts?: FamilyContactEntity[]; active?: PrescriptionEntity | null };
+      const { entities, raw } = await repo().createQueryBuilder('i')
+        .leftJoinAndMapOne('i.site', SiteEntity, 's', 's.id = i.site_id AND s.programme_id = i.programme_id')
+        .leftJoinAndMapMany('i.contacts', FamilyContactEntity, 'fc', 'fc.infant_id = i.id')
+        .leftJoinAndMapOne('i.active', PrescriptionEntity, 'p', "p.infant_id = i.id AND p.status = 'active'")
+        .leftJoin(UserEntity, 'n', 'n.id = i.nurse_id').addSelect('n.name', 'nurse_name')
+        .leftJoin(UserEntity, 'c', 'c.id = i.consultant_id').addSelect('c.name', 'consultant_name')
+        .where('i.id = :id', { id }).andWhere(acl.sql, acl.params)
+        .orderBy('fc.position', 'ASC')
+        .getRawAndEntities();
+      const found = entities[0] as Mapped | undefined;
+      if (!found) return undefined;
+      const { site, contacts, active, ...fields } = found;
+      const infant = Object.assign(new InfantEntity(), fields);
+      const names = new Map<string, string>();
+      const [{ nurse_name: nurseName, consultant_name: consultantName }] = raw as Array<{ nurse_name: string | null; consultant_name: string | null }>;
+      if (infant.nurseId && nurseName) names.set(infant.nurseId, nurseName);
+      if (infant.consultantId && consultantName) names.set(infant.consultantId, consultantName);
+      return { infant, site: site!, contacts: contacts ?? [], active: active ?? null, names };
     },
 
     findVisible: (id: string, acl: SqlFilter, m?: EntityManager) =>
@@ -146,3 +178,7 @@ export function createInfantsRepository(ds: DataSource) {
   };
 }
 export type InfantsRepository = ReturnType<typeof createInfantsRepository>;
+
+export interface InfantRecord {
+  infant: InfantEntity; site: SiteEntity; contacts: FamilyContactEntity[]; active: PrescriptionEntity | null; names: Map<string, string>;
+}

@@ -1,3 +1,4 @@
+import type { QueryResultRow } from 'pg';
 import type { DataSource } from 'typeorm';
 import type { createRowEstimates } from './row-estimates';
 import { poolOf, preparedRows } from './prepared';
@@ -42,6 +43,9 @@ export const reversed = (key: KeyPart[]): KeyPart[] => key.map((p) => ({ ...p, d
 /** The key values of a row as a cursor carries them (exact text, the id last). */
 export const keyValues = (key: KeyPart[], row: Record<string, unknown>): string[] => key.map((p) => String(row[p.text]));
 
+/** One page's SQL with :named parameters, and its order as an ORDER BY over the page's own columns (alias `page`). */
+export interface PageSql { sql: string; params: Record<string, unknown>; order: string }
+
 /**
  * The SQL of one page: `select` is "SELECT … FROM … [JOIN …]" (the columns named by each part's `text` and `out`
  * included), `where` the filters with :named parameters. Reads `limit` rows. Backwards (a page before a row) reads
@@ -54,9 +58,10 @@ export const keyValues = (key: KeyPart[], row: Record<string, unknown>): string[
  */
 export function keysetPageSql(opts: {
   select: string; where: string[]; params: Record<string, unknown>; key: KeyPart[]; at: KeysetPosition; limit: number;
-}): { sql: string; params: Record<string, unknown> } {
+}): PageSql {
   const backwards = !!opts.at.before;
   const key = backwards ? reversed(opts.key) : opts.key;
+  const order = key.map((p) => `CAST(page.${p.text} AS ${p.cast}) ${p.dir}`).join(', ');
   const from = opts.at.after ?? opts.at.before;
   const params: Record<string, unknown> = { ...opts.params, k_limit: opts.limit };
   const orderBy = (parts: KeyPart[], col: (p: KeyPart) => string) => parts.map((p) => `${col(p)} ${p.dir}`).join(', ');
@@ -66,7 +71,7 @@ export function keysetPageSql(opts: {
   };
   if (!from) {
     params.k_offset = opts.at.offset ?? 0;
-    return { sql: `${opts.select}${where([])} ORDER BY ${orderBy(key, (p) => p.expr)} LIMIT :k_limit OFFSET :k_offset`, params };
+    return { sql: `${opts.select}${where([])} ORDER BY ${orderBy(key, (p) => p.expr)} LIMIT :k_limit OFFSET :k_offset`, params, order };
   }
   const value = (n: number) => {
     params[`k_${n}`] = from[n];
@@ -82,19 +87,33 @@ export function keysetPageSql(opts: {
     const beyond = `(${cols.join(', ')}) ${op} (${run.map(value).join(', ')})`;
     return `${opts.select}${where([...equal, beyond])} ORDER BY ${orderBy(key, (p) => p.expr)} LIMIT :k_limit`;
   });
-  if (branches.length === 1) return { sql: branches[0]!, params };
-  return { sql: `SELECT * FROM (${branches.map((b) => `(${b})`).join(' UNION ALL ')}) page ORDER BY ${orderBy(key, (p) => p.out)} LIMIT :k_limit`, params };
+  if (branches.length === 1) return { sql: branches[0]!, params, order };
+  return { sql: `SELECT * FROM (${branches.map((b) => `(${b})`).join(' UNION ALL ')}) page ORDER BY ${orderBy(key, (p) => p.out)} LIMIT :k_limit`, params, order };
 }
 
 /**
- * How many rows match, consistent with the caseload: exact up to EXACT_TOTAL_LIMIT (counting stops there, so it
- * reads at most that many index entries), PostgreSQL's row estimate above it (shown as "about N", remembered for a
- * while by `estimateRows`, see row-estimates.ts). `sql` is "SELECT 1 FROM … WHERE …" with positional parameters.
+ * One page and how many rows match, read in one statement (one round trip, one connection). The count is exact up
+ * to EXACT_TOTAL_LIMIT (counting stops there, so it reads at most that many index entries) and PostgreSQL's row
+ * estimate above it (shown as "about N", remembered for a while by `estimateRows`, see row-estimates.ts). The count
+ * is a row of its own and the page is joined to it, so a page past the end still brings its count.
+ * `count.sql` is "SELECT 1 FROM … WHERE …" with :named parameters of the same names and values as the page's.
+ * The page's rows come back in its order (`order`, on the page's exact-text key columns cast back), each with a
+ * `k_total` column the caller ignores. `prepared`: as prepared.ts, only for a page that names its columns.
  */
-export async function cappedCount(ds: DataSource, estimateRows: RowEstimates, sql: string, params: unknown[]): Promise<{ total: number; estimate: boolean }> {
-  const [{ n }] = await preparedRows<{ n: number }>(poolOf(ds), `SELECT count(*)::int AS n FROM (${sql} LIMIT ${EXACT_TOTAL_LIMIT + 1}) capped`, params);
-  if (n <= EXACT_TOTAL_LIMIT) return { total: n, estimate: false };
-  return { total: Math.max(EXACT_TOTAL_LIMIT + 1, await estimateRows(sql, params)), estimate: true };
+export async function pageAndCount<T extends QueryResultRow & { id: string }>(
+  ds: DataSource, estimateRows: RowEstimates, page: PageSql, count: { sql: string; params: Record<string, unknown> }, prepared: boolean,
+): Promise<{ rows: T[]; total: number; estimate: boolean }> {
+  const [sql, params] = ds.driver.escapeQueryWithParameters(
+    `SELECT c.k_total, page.* FROM (SELECT count(*)::int AS k_total FROM (${count.sql} LIMIT ${EXACT_TOTAL_LIMIT + 1}) capped) c
+      LEFT JOIN (${page.sql}) page ON true ORDER BY ${page.order}`,
+    { ...count.params, ...page.params });
+  const read: Array<T & { k_total: number }> = prepared ? await preparedRows(poolOf(ds), sql, params) : await ds.query(sql, params);
+  const n = read[0]!.k_total;
+  // An empty page is the count's row alone, its page columns null.
+  const rows = read[0]!.id === null ? [] : read;
+  if (n <= EXACT_TOTAL_LIMIT) return { rows, total: n, estimate: false };
+  const [countSql, countParams] = ds.driver.escapeQueryWithParameters(count.sql, count.params);
+  return { rows, total: Math.max(EXACT_TOTAL_LIMIT + 1, await estimateRows(countSql, countParams)), estimate: true };
 }
 
 /** A search text as a LIKE/ILIKE pattern matching it anywhere, LIKE's own wildcards in it taken literally. */

@@ -1,7 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { Channel, ListMessagesQuery, MessageStatus, MessageTemplate } from '@shared/schemas/messages';
 import type { SqlFilter } from '../../auth/casl-to-sql';
-import { cappedCount, containsPattern, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
+import { containsPattern, cutPage, keysetPageSql, pageAndCount, reversed, type KeyPart, type KeysetPosition } from './list-paging';
 import { createRowEstimates } from './row-estimates';
 import { fullNameSql } from './infants.repository';
 
@@ -216,12 +216,11 @@ export function createRemindersRepository(ds: DataSource) {
         select: `SELECT r.*, r.send_at::text AS k_send_at, i.given_name || ' ' || i.family_name AS infant_name ${from}`,
         where, params: named, key: MESSAGE_SORT_KEYS[query.sort], at, limit: query.pageSize + 1,
       });
-      const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
       // Counted on the messages alone: each message's rights, when the caller has any to check, are a key lookup.
+      // Not prepared: the page reads `r.*` (prepared.ts).
       const counted = logFilter(query, programmeId, infantAcl, qPhone, 'exists');
-      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 FROM reminders r WHERE ${counted.where.join(' AND ')}`, counted.named);
-      const [rows, count] = await Promise.all([ds.query(sql, params) as Promise<MessageListRow[]>, cappedCount(ds, estimateRows, countSql, countParams)]);
-      return { ...cutPage(rows, query.pageSize, at), ...count };
+      const { rows, total, estimate } = await pageAndCount<MessageListRow>(ds, estimateRows, page, { sql: `SELECT 1 FROM reminders r WHERE ${counted.where.join(' AND ')}`, params: counted.named }, false);
+      return { ...cutPage(rows, query.pageSize, at), total, estimate };
     },
 
     /** One page of the log after a row's keyset position, in the sort's order (mixed directions compared key by key). */

@@ -3,9 +3,8 @@ import { USER_SORTS, type ListUsersQuery } from '@shared/schemas/users';
 import type { Role } from '@shared/auth/roles';
 import type { SqlFilter } from '../../auth/casl-to-sql';
 import { UserEntity } from '../entities/user.entity';
-import { cappedCount, containsPattern, cutPage, keysetPageSql, reversed, type KeyPart, type KeysetPosition } from './list-paging';
+import { containsPattern, cutPage, keysetPageSql, pageAndCount, reversed, type KeyPart, type KeysetPosition } from './list-paging';
 import { createRowEstimates } from './row-estimates';
-import { poolOf, preparedRows } from './prepared';
 import { DEFAULT_COUNTRY } from '@shared/phone/phone';
 
 // People's sorts, each ending in the id so no two rows tie (list-paging.ts); by role, people of one role by name.
@@ -78,10 +77,8 @@ export function createUsersRepository(ds: DataSource) {
           u.last_sign_in_at, u.created_at::text AS k_created_at FROM users u`,
         where, params: named, key: USER_SORT_KEYS[query.sort], at, limit: query.pageSize + 1,
       });
-      const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
-      const [countSql, countParams] = ds.driver.escapeQueryWithParameters(`SELECT 1 FROM users u WHERE ${where.join(' AND ')}`, named);
-      const [rows, count] = await Promise.all([preparedRows<UserListRow>(poolOf(ds), sql, params), cappedCount(ds, estimateRows, countSql, countParams)]);
-      return { ...cutPage(rows, query.pageSize, at), ...count };
+      const { rows, total, estimate } = await pageAndCount<UserListRow>(ds, estimateRows, page, { sql: `SELECT 1 FROM users u WHERE ${where.join(' AND ')}`, params: named }, true);
+      return { ...cutPage(rows, query.pageSize, at), total, estimate };
     },
 
     insert: (data: Partial<UserEntity>, m?: EntityManager) => repo(m).save(repo(m).create(data)),

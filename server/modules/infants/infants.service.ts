@@ -37,15 +37,9 @@ export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobP
   const acl = (ability: AppAbility) => accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS);
 
   async function detail(ability: AppAbility, id: string, today: string) {
-    const infant = await repos.infants.findVisible(id, acl(ability));
-    if (!infant) throw new NotFoundError('No such baby in your records.');
-    const [site, contacts, active, names] = await Promise.all([
-      repos.sites.findInProgramme(infant.siteId, infant.programmeId),
-      repos.contacts.listForInfant(infant.id),
-      repos.prescriptions.active(infant.id),
-      repos.infants.peopleNames([infant.nurseId, infant.consultantId]),
-    ]);
-    return toDetail(infant, site!, contacts, active, names, today);
+    const record = await repos.infants.findRecord(id, acl(ability));
+    if (!record) throw new NotFoundError('No such baby in your records.');
+    return toDetail(record.infant, record.site, record.contacts, record.active, record.names, today);
   }
 
   return {
@@ -54,15 +48,12 @@ export function createInfantsService(ds: DataSource, repos: AppRepos, jobs: JobP
     async list(ability: AppAbility, user: Express.User, query: ListInfantsQuery, today: string) {
       const extra = scopeFilter(user, query);
       const { from, at } = positionOf(query, query.sort, sortKeyLength(query.sort));
-      const [{ rows, more }, count] = await readingFrom(from, Promise.all([
-        repos.infants.list(query, acl(ability), extra, at),
-        repos.infants.count(query, acl(ability), extra),
-      ]));
+      const { rows, more, total, estimate } = await readingFrom(from, repos.infants.listWithTotal(query, acl(ability), extra, at));
       const cursorOf = (r: InfantListRow) => encodeCursor({ sort: query.sort, values: sortValues(query.sort, r), id: r.id });
       return {
         items: rows.map((r) => toSummary(r, today)),
-        total: count.total,
-        totalIsEstimate: count.estimate,
+        total,
+        totalIsEstimate: estimate,
         ...pageCursors({ query, from, rows, more, cursorOf }),
       };
     },

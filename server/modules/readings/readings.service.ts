@@ -2,6 +2,7 @@ import { weightWarnings } from '@shared/clinical/weight-check';
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
 import type { AppAbility } from '@shared/auth/ability';
+import { DEFAULT_POLICY_SETTINGS, withPolicyDefaults } from '@shared/schemas/policy';
 import type { CreateReadingInput, Reading, UpdateReadingInput } from '@shared/schemas/readings';
 import { accessibleWhere } from '../../auth/casl-to-sql';
 import type { InfantEntity } from '../../db/entities/infant.entity';
@@ -28,7 +29,10 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
   }
 
   async function toDto(rows: ReadingEntity[], windowMinutes: number): Promise<Reading[]> {
-    const names = await repos.infants.peopleNames(rows.map((r) => r.createdBy));
+    return asDtos(rows, await repos.infants.peopleNames(rows.map((r) => r.createdBy)), windowMinutes);
+  }
+
+  function asDtos(rows: ReadingEntity[], names: Map<string, string>, windowMinutes: number): Reading[] {
     return rows.map((r) => ({
       id: r.id, infantId: r.infantId, checkId: r.checkId, takenAt: r.takenAt.toISOString(), spo2: r.spo2, pulse: r.pulse, flowLpm: r.flowLpm,
       state: r.state, weightKg: r.weightKg, notes: r.notes, familyReported: r.familyReported,
@@ -75,12 +79,14 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
     },
 
     async list(ability: AppAbility, infantId: string, from?: string, to?: string) {
-      const infant = await visibleInfant(ability, infantId);
-      if (!ability.can('read', subject('Reading', fields(infant)))) throw new ForbiddenError();
       const until = to ? new Date(to) : new Date();
       const since = from ? new Date(from) : new Date(until.getTime() - 90 * 86_400_000);
-      const policy = await repos.policies.current(infant.programmeId);
-      return { items: await toDto(await repos.readings.between(infantId, since, until), policy.settings.readingEditWindowMinutes) };
+      // One statement: the baby (with the caller's rights), its readings, who logged them and the policy.
+      const found = await repos.readings.forInfant(infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), since, until);
+      if (!found) throw new NotFoundError('No such baby in your records.');
+      if (!ability.can('read', subject('Reading', fields(found.infant)))) throw new ForbiddenError();
+      const settings = found.policySettings ? withPolicyDefaults(found.policySettings) : DEFAULT_POLICY_SETTINGS;
+      return { items: asDtos(found.readings, found.names, settings.readingEditWindowMinutes) };
     },
 
     /**
