@@ -4,6 +4,7 @@ import type { AppAbility } from '@shared/auth/ability';
 import { WARNING_SIGNS, flowInWords } from '@shared/family/care-text';
 import { dateInWords } from '@shared/dates/date-words';
 import { createCarePlanService } from '../../server/modules/care-plan/care-plan.service';
+import { renderCarePlanPdf } from '../../server/modules/care-plan/care-plan.pdf';
 import { ForbiddenError } from '../../server/lib/errors';
 import { createTestContext, type TestContext } from '../helpers/test-app';
 import { anonymousAgent, signedInAgent, type Agent } from '../helpers/agents';
@@ -73,6 +74,19 @@ describe('GET /api/infants/:id/care-plan.pdf', () => {
     expect(text).toContain('Cylinder numbers cover 6 hours away');
     expect(text).not.toContain('hour(s)');
     expect(pages).toBeLessThanOrEqual(2);
+  });
+
+  it('when the approved setting is the last step down, to no oxygen, then the plan says the flowmeter stays off and names no supply or cannula', async () => {
+    const pdf = await renderCarePlanPdf({
+      programmeName: 'Test programme', hospitalName: 'Test hospital', printedOn: '2026-12-01', baby: { name: 'Test Baby', birthDate: '2026-08-01' },
+      home: { elevationM: 40, pressureMmHg: 756.4, measured: false },
+      setting: { periods: [{ period: 'awake', flowLpm: 0 }, { period: 'asleep', flowLpm: 0 }, { period: 'feeding', flowLpm: 0 }], source: 'concentrator', o2Percent: 95, approvedBy: 'Dr Test', approvedOn: '2026-11-30' },
+      spo2Target: { meanMin: 93, lowAtOrBelow: 90 }, phones: [], emergencyNumber: '999', family: [], journey: null,
+    });
+    const { text } = await readPdf(pdf);
+    expect(text).toContain('No oxygen, day and night: the flowmeter stays off.');
+    expect(text).not.toMatch(/Given from|nasal cannula|off \(no oxygen\)/);
+    expect(text).toContain('Approved by Dr Test on 30 Nov 2026.');
   });
 
   it('when the plan is read by assistive technology, then it is a tagged PDF 1.7 in English with headings, paragraphs and lists', async () => {

@@ -63,6 +63,16 @@ describe('Family plan', () => {
     expect(screen.getByText('The oxygen comes from a cylinder.')).toBeInTheDocument();
   });
 
+  it('when the consultant approved the last step down to no oxygen, then the plan says the flowmeter stays off and names no source', async () => {
+    stubFamily([juniper], { [juniper.id]: [plan(juniper.id, { reason: 'step_down', approvedFlowLpm: 0, periods: { awake: 0, asleep: 0, feeding: 0 } })] });
+    renderApp('/family');
+    const words = await screen.findByText('No oxygen: the flowmeter stays off, day and night.');
+    const card = words.closest('section')!;
+    expect(within(card).queryByText(/Set the flowmeter to/)).not.toBeInTheDocument();
+    expect(within(card).queryByText(/The oxygen comes from/)).not.toBeInTheDocument();
+    expect(within(card).getByRole('complementary', { name: 'Keep your baby safe' })).toBeInTheDocument();
+  });
+
   it('when only a proposal exists, then nothing of it is shown and the plan waits for approval', async () => {
     const waiting = plan(juniper.id, { status: 'proposed', approvedFlowLpm: null, decidedAt: null, decidedBy: null, decisionReason: null });
     stubFamily([juniper], { [juniper.id]: [waiting] });

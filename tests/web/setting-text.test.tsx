@@ -22,6 +22,11 @@ describe('settingText', () => {
     expect(flowWords(1)).toBe('1 litre per minute');
   });
 
+  it('when the setting is no oxygen at all (the last step down), then it says so and names no source', () => {
+    expect(settingText({ flowLpm: 0, periods: null, source: 'concentrator' })).toBe('No oxygen, day and night');
+    expect(settingText({ flowLpm: 0, periods: { awake: 0, asleep: 0, feeding: 0 }, source: 'cylinder' })).toBe('No oxygen, day and night');
+  });
+
   it('when the source is known, then it follows in words', () => {
     expect(settingText({ flowLpm: 0.25, periods: null, source: 'concentrator' })).toBe(
       '0.25 litres per minute, day and night, from the concentrator',

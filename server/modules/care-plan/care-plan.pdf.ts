@@ -35,8 +35,13 @@ const flowLine = (flowLpm: number) => (flowLpm === 0 ? 'off (no oxygen)' : `${fl
 function settingSection(w: PlanWriter, d: CarePlanData) {
   const s = d.setting;
   w.section('Your baby’s oxygen', () => {
-    for (const line of periodLines(s.periods)) w.para(`${line.label}: ${flowLine(line.flowLpm)}`, true);
-    w.para(`Given from the home ${s.source === 'concentrator' ? 'concentrator' : 'cylinder'} (${s.o2Percent}% oxygen), through a nasal cannula.`);
+    if (s.periods.every((p) => p.flowLpm === 0)) {
+      // The last step down: nothing flows, so there is no flowmeter setting and no supply to name.
+      w.para('No oxygen, day and night: the flowmeter stays off.', true);
+    } else {
+      for (const line of periodLines(s.periods)) w.para(`${line.label}: ${flowLine(line.flowLpm)}`, true);
+      w.para(`Given from the home ${s.source === 'concentrator' ? 'concentrator' : 'cylinder'} (${s.o2Percent}% oxygen), through a nasal cannula.`);
+    }
     w.para(d.home.measured || d.home.elevationM === null
       ? `Home air pressure (measured): ${Math.round(d.home.pressureMmHg)} mmHg.`
       : `Home: ${Math.round(d.home.elevationM).toLocaleString('en-GB')} m above sea level (air pressure about ${Math.round(d.home.pressureMmHg)} mmHg).`);

@@ -35,11 +35,9 @@ export function settingText(setting: SettingForText): string {
   const source = setting.source ? SOURCE_WORDS[setting.source] : undefined;
   const samePeriods =
     !periods || (periods.awake === setting.flowLpm && periods.asleep === setting.flowLpm && periods.feeding === setting.flowLpm);
-  const body = samePeriods
-    ? setting.flowLpm === 0
-      ? 'No oxygen, day and night'
-      : `${flowWords(setting.flowLpm)}, day and night`
-    : capitalise(periodWords(periods));
+  // Weaned off: no flow comes from anything, so no source is named.
+  if (samePeriods && setting.flowLpm === 0) return 'No oxygen, day and night';
+  const body = samePeriods ? `${flowWords(setting.flowLpm)}, day and night` : capitalise(periodWords(periods));
   return source ? `${body}, ${source}` : body;
 }
 
