@@ -74,7 +74,10 @@ export const dischargeSchema = z.object({
   dischargedOn: z.string().nullable(),
   /** Set when a consultant set the date with something missing. */
   override: z.object({ reason: z.string(), by: person.nullable(), missing: z.array(z.string()) }).nullable(),
-  /** The nurse's first home visit, proposed at the policy's interval after discharge until someone books it. */
-  firstVisit: z.object({ proposedOn: z.string(), bookedVisitId: z.uuid().nullable() }).nullable(),
+  /**
+   * The nurse's first home visit, proposed at the policy's interval after discharge until someone books it; then the
+   * earliest home visit booked on or after the discharge date (`bookedVisitId`, on `visitOn`).
+   */
+  firstVisit: z.object({ proposedOn: z.string(), bookedVisitId: z.uuid().nullable(), visitOn: z.string().nullable() }).nullable(),
 });
 export type Discharge = z.infer<typeof dischargeSchema>;

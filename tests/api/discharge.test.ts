@@ -187,7 +187,21 @@ describe('POST /api/infants/:id/discharge', () => {
     const visit = (await post(coord, `/api/infants/${infant.id}/visits`, {
       kind: 'home_visit', date: '2026-12-09', time: '10:00', durationMinutes: 60, staffId: clinic.people.nurse.id, purpose: 'First home visit after discharge',
     }).expect(201)).body;
-    expect((await coord.get(`/api/infants/${infant.id}/discharge`)).body.firstVisit).toEqual({ proposedOn: '2026-12-09', bookedVisitId: visit.id });
+    expect((await coord.get(`/api/infants/${infant.id}/discharge`)).body.firstVisit).toEqual({ proposedOn: '2026-12-09', bookedVisitId: visit.id, visitOn: '2026-12-09' });
+  });
+
+  it('when the first visit is booked on another day than proposed, then that day is shown; a cancelled visit answers nothing', async () => {
+    const { infant, coord, clinic } = await approvedBaby(ctx.deps, ctx.app);
+    await tickAll(coord, infant.id);
+    await post(coord, `/api/infants/${infant.id}/discharge`, { date: '2026-12-08' }).expect(200);
+    const book = async (date: string) => (await post(coord, `/api/infants/${infant.id}/visits`, {
+      kind: 'home_visit', date, time: '10:00', durationMinutes: 60, staffId: clinic.people.nurse.id, purpose: 'First home visit after discharge',
+    }).expect(201)).body;
+    const early = await book('2026-12-10');
+    const later = await book('2026-12-11');
+    expect((await coord.get(`/api/infants/${infant.id}/discharge`)).body.firstVisit).toEqual({ proposedOn: '2026-12-09', bookedVisitId: early.id, visitOn: '2026-12-10' });
+    await post(coord, `/api/visits/${early.id}/cancel`, { reason: 'Family away that day' }).expect(200);
+    expect((await coord.get(`/api/infants/${infant.id}/discharge`)).body.firstVisit).toEqual({ proposedOn: '2026-12-09', bookedVisitId: later.id, visitOn: '2026-12-11' });
   });
 
   it('when a coordinator tries to override, then 403; a consultant with a reason may, and the reason and what was missing are kept', async () => {

@@ -69,6 +69,9 @@ describe('Infant record: discharge', () => {
     renderApp(`/infants/${ID}`);
     const section = await card();
     expect(await within(section).findByText('This baby has left the programme: the checklist is closed and kept as it was.')).toBeInTheDocument();
+    // Not "getting ready to go home": the baby has left.
+    expect(within(section).getByText('No discharge date was set here')).toBeInTheDocument();
+    expect(within(section).queryByText('Getting ready to go home')).toBeNull();
     expect(within(section).getByText(`1 of ${DEFAULT_DISCHARGE_RULES.items.length} steps done`)).toBeInTheDocument();
     expect(within(section).queryByRole('button', { name: /discharge date/ })).toBeNull();
     expect(within(section).queryByRole('button', { name: /^Mark done:|^Undo:/ })).toBeNull();
@@ -141,7 +144,7 @@ describe('Infant record: discharge', () => {
     stubRecord('consultant', state, {
       [`POST /api/infants/${ID}/discharge`]: ({ body }) => {
         bodies.push(body);
-        state.current = { ...state.current, dischargedOn: '2026-12-08', override: { reason: 'Family moving to the coast', by: { id: sessionUser('consultant').id, name: 'Dr Ilse Varga' }, missing: ['smoke_alarms'] }, firstVisit: { proposedOn: '2026-12-09', bookedVisitId: null } };
+        state.current = { ...state.current, dischargedOn: '2026-12-08', override: { reason: 'Family moving to the coast', by: { id: sessionUser('consultant').id, name: 'Dr Ilse Varga' }, missing: ['smoke_alarms'] }, firstVisit: { proposedOn: '2026-12-09', bookedVisitId: null, visitOn: null } };
         return json(200, state.current);
       },
     });
@@ -162,7 +165,7 @@ describe('Infant record: discharge', () => {
   });
 
   it('when the first visit is proposed, then the coordinator books it from the proposal: a home visit that day, for the first visit', async () => {
-    stubRecord('coordinator', { current: discharge({ items: items(DEFAULT_DISCHARGE_RULES.items.map((i) => i.key)), dischargedOn: '2026-12-08', firstVisit: { proposedOn: '2026-12-09', bookedVisitId: null } }) });
+    stubRecord('coordinator', { current: discharge({ items: items(DEFAULT_DISCHARGE_RULES.items.map((i) => i.key)), dischargedOn: '2026-12-08', firstVisit: { proposedOn: '2026-12-09', bookedVisitId: null, visitOn: null } }) });
     const user = userEvent.setup();
     renderApp(`/infants/${ID}`);
     const section = await card();
@@ -171,6 +174,14 @@ describe('Infant record: discharge', () => {
     expect(within(booking).getByLabelText('Kind of visit')).toHaveValue('home_visit');
     expect(within(booking).getByLabelText('Date')).toHaveValue('2026-12-09');
     expect(within(booking).getByLabelText('What it is for')).toHaveValue('First home visit after discharge');
+  });
+
+  it('when the first visit is booked on another day than proposed, then the card gives the booked day and offers no second booking', async () => {
+    stubRecord('coordinator', { current: discharge({ items: items(DEFAULT_DISCHARGE_RULES.items.map((i) => i.key)), dischargedOn: '2026-12-08', firstVisit: { proposedOn: '2026-12-09', bookedVisitId: '6f6f6f6f-0000-4000-8000-000000000001', visitOn: '2026-12-11' } }) });
+    renderApp(`/infants/${ID}`);
+    const section = await card();
+    expect(await within(section).findByText('First home visit booked for 11 Dec 2026 (proposed for 9 Dec 2026).')).toBeInTheDocument();
+    expect(within(section).queryByRole('button', { name: 'Book the first home visit' })).toBeNull();
   });
 
   it('when the letter is e-mailed, then a bad address is refused beside the box and a good one is confirmed', async () => {

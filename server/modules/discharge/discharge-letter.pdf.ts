@@ -16,6 +16,7 @@ export interface DischargeLetterData {
   setting: { periods: Array<{ period: JourneyPeriod; flowLpm: number }>; source: string; o2Percent: number; approvedBy: string; approvedOn: string | null };
   targets: { overnightMeanMin: number; pctBelow90Max: number; pulmonaryHypertensionMeanMin: number; spotLowMax: number; pulmonaryHypertension: boolean };
   checks: { firstCheckWithinHours: number; weeklyChecks: number; thenEveryWeeks: number };
+  /** The first home visit: the one booked on or after the discharge date, else the date proposed for it. */
   firstVisit: { on: string; booked: boolean } | null;
   notDone: Array<{ group: keyof typeof DISCHARGE_GROUP_LABELS; label: string }>;
   phones: Array<{ label: string; number: string; when: string }>;

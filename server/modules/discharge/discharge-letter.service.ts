@@ -17,6 +17,7 @@ import { safeSlug } from '../care-plan/care-plan.service';
 import { fieldsOf } from './discharge.service';
 import { renderDischargeLetterPdf, type DischargeLetterData } from './discharge-letter.pdf';
 import { orderTicksFor } from './order-ticks';
+import { firstHomeVisit } from './first-visit';
 
 export function createDischargeLetterService(repos: AppRepos, mail: MailSender, clock: Clock = systemClock) {
   async function build(ability: AppAbility, infantId: string, timeZone: string) {
@@ -38,11 +39,7 @@ export function createDischargeLetterService(repos: AppRepos, mail: MailSender, 
     const rules = policy.settings.discharge.items;
     const ticks = await orderTicksFor(repos, infant, step?.dischargedOn ?? null);
     const missing = new Set(missingForDischarge(rules, withOrderTicks(states, ticks), true));
-    let booked = false;
-    if (step?.dischargedOn && step.firstVisitOn) {
-      const visits = await repos.visits.forInfant(infant.id, new Date(`${step.dischargedOn}T00:00:00Z`));
-      booked = visits.some((v) => v.status === 'booked' && v.kind === 'home_visit' && v.localDate >= step.dischargedOn!);
-    }
+    const visit = step?.dischargedOn && step.firstVisitOn ? await firstHomeVisit(repos, infant.id, step.dischargedOn) : null;
     const t = policy.settings.spo2Targets;
     const babyName = `${infant.givenName} ${infant.familyName}`;
     const data: DischargeLetterData = {
@@ -57,7 +54,7 @@ export function createDischargeLetterService(repos: AppRepos, mail: MailSender, 
       },
       targets: { ...t, pulmonaryHypertension: infant.diagnoses.includes('pulmonary_hypertension') },
       checks: policy.settings.schedule,
-      firstVisit: step?.firstVisitOn ? { on: step.firstVisitOn, booked } : null,
+      firstVisit: step?.firstVisitOn ? { on: visit?.on ?? step.firstVisitOn, booked: !!visit } : null,
       notDone: sortByGroup(rules.filter((r) => missing.has(r.key))).map((r) => ({ group: r.group, label: r.label })),
       phones: policy.settings.contacts.phones.map((p) => ({ ...p, number: formatPhone(p.number, policy.settings.country) })),
       emergencyNumber: policy.settings.contacts.emergencyNumber,

@@ -15,6 +15,7 @@ import { systemClock, type Clock } from '../../lib/clock';
 import { todayIn } from '../../lib/dates';
 import { familyView, staffView } from './discharge.view';
 import { orderTicksFor } from './order-ticks';
+import { firstHomeVisit } from './first-visit';
 
 export const fieldsOf = (i: InfantEntity) => ({ programmeId: i.programmeId, infantId: i.id, nurseId: i.nurseId } as Record<string, unknown>);
 
@@ -55,14 +56,9 @@ export function createDischargeService(ds: DataSource, repos: AppRepos, clock: C
       settingApproved(infant.id, m),
     ]);
     const names = await repos.infants.peopleNames([...states.map((s) => s.doneBy), step?.setBy ?? null]);
-    // A home visit booked on or after the discharge date answers the proposal.
-    let bookedVisitId: string | null = null;
-    if (step?.dischargedOn) {
-      const visits = await repos.visits.forInfant(infant.id, new Date(`${step.dischargedOn}T00:00:00Z`));
-      bookedVisitId = visits.find((v) => v.status === 'booked' && v.kind === 'home_visit' && v.localDate >= step.dischargedOn!)?.id ?? null;
-    }
+    const firstVisit = step?.dischargedOn ? await firstHomeVisit(repos, infant.id, step.dischargedOn) : null;
     const orderTicks = await orderTicksFor(repos, infant, step?.dischargedOn ?? null, m);
-    const facts = { rules: policy.settings.discharge.items, states, step, settingApproved: approved, names, bookedVisitId, orderTicks };
+    const facts = { rules: policy.settings.discharge.items, states, step, settingApproved: approved, names, firstVisit, orderTicks };
     return audience === 'family' ? familyView(facts) : staffView(facts);
   }
 

@@ -3,6 +3,7 @@ import type { DischargeItemRule } from '@shared/schemas/discharge-policy';
 import { familyItems, missingForDischarge, sortByGroup } from '@shared/discharge/readiness';
 import { withOrderTicks, type OrderTick } from '@shared/discharge/order-ticks';
 import type { DischargeEntity, DischargeItemEntity } from '../../db/entities/discharge.entity';
+import type { FirstHomeVisit } from './first-visit';
 
 export interface ViewFacts {
   rules: readonly DischargeItemRule[];
@@ -10,7 +11,8 @@ export interface ViewFacts {
   step: DischargeEntity | null;
   settingApproved: boolean;
   names: Map<string, string>;
-  bookedVisitId: string | null;
+  /** The home visit booked on or after the discharge date, answering the proposed first visit. */
+  firstVisit: FirstHomeVisit | null;
   /** Items the baby's equipment orders have done; a hand tick of the same item stands instead. */
   orderTicks: readonly OrderTick[];
 }
@@ -43,7 +45,9 @@ export function staffView(f: ViewFacts): Discharge {
     items, ready: missing.length === 0, missing, settingApproved: f.settingApproved, dischargedOn: step?.dischargedOn ?? null,
     override: step?.dischargedOn && step.overrideReason
       ? { reason: step.overrideReason, by: person(step.setBy, f.names), missing: step.overrideMissing } : null,
-    firstVisit: step?.firstVisitOn ? { proposedOn: step.firstVisitOn, bookedVisitId: f.bookedVisitId } : null,
+    firstVisit: step?.firstVisitOn
+      ? { proposedOn: step.firstVisitOn, bookedVisitId: f.firstVisit?.id ?? null, visitOn: f.firstVisit?.on ?? null }
+      : null,
   };
 }
 

@@ -17,12 +17,14 @@ import { missingLabel } from './discharge-words';
 
 export interface DischargeRights { canChange: boolean; canOverride: boolean; canBookVisit: boolean }
 
-function Progress({ d }: { d: Discharge }) {
+function Progress({ d, closed }: { d: Discharge; closed: boolean }) {
   const done = d.items.filter((i) => i.done).length;
   return (
     <div className="flex flex-col gap-1">
       <p className="font-semibold text-ink-900">
-        {d.dischargedOn ? `Discharge date: ${formatDate(d.dischargedOn)}` : d.ready ? 'Ready to go home: every step is done.' : 'Getting ready to go home'}
+        {d.dischargedOn
+          ? `Discharge date: ${formatDate(d.dischargedOn)}`
+          : closed ? 'No discharge date was set here' : d.ready ? 'Ready to go home: every step is done.' : 'Getting ready to go home'}
       </p>
       <label className="flex flex-wrap items-center gap-2 text-ink-700">
         {done} of {d.items.length} steps done
@@ -43,7 +45,10 @@ function FirstVisit({ infantId, d, canBook }: { infantId: string; d: Discharge; 
   const [booking, setBooking] = useState(false);
   const queryClient = useQueryClient();
   if (!d.firstVisit) return null;
-  const { proposedOn, bookedVisitId } = d.firstVisit;
+  const { proposedOn, bookedVisitId, visitOn } = d.firstVisit;
+  const said = bookedVisitId && visitOn
+      ? `First home visit booked for ${formatDate(visitOn)}${visitOn === proposedOn ? '' : ` (proposed for ${formatDate(proposedOn)})`}.`
+      : `First home visit proposed for ${formatDate(proposedOn)}: not booked yet.`;
   const close = () => {
     setBooking(false);
     void queryClient.invalidateQueries({ queryKey: dischargeKeys.detail(infantId) });
@@ -51,7 +56,7 @@ function FirstVisit({ infantId, d, canBook }: { infantId: string; d: Discharge; 
   return (
     <div className="flex flex-col gap-2 rounded-lg bg-surface-50 p-3">
       <p className="font-semibold text-ink-900">
-        {bookedVisitId ? `First home visit booked (proposed for ${formatDate(proposedOn)}).` : `First home visit proposed for ${formatDate(proposedOn)}: not booked yet.`}
+        {said}
       </p>
       {!bookedVisitId && canBook && !booking && <div><Button variant="secondary" size="sm" onClick={() => setBooking(true)}>Book the first home visit</Button></div>}
       {booking && <BookVisitForm infantId={infantId} onClose={close} initial={{ kind: 'home_visit', date: proposedOn, purpose: 'First home visit after discharge' }} />}
@@ -77,7 +82,7 @@ export function DischargeSection({ infantId, rights, closed = false }: { infantI
       {discharge.isError && <Alert>{discharge.error.message}</Alert>}
       {d && (
         <div className="flex flex-col gap-4">
-          <Progress d={d} />
+          <Progress d={d} closed={closed} />
           {closed && <p className="text-ink-700">This baby has left the programme: the checklist is closed and kept as it was.</p>}
           {setting && <SetDischargeForm infantId={infantId} discharge={d} canOverride={rights.canOverride} onClose={() => setSetting(false)} />}
           <FirstVisit infantId={infantId} d={d} canBook={rights.canBookVisit} />
