@@ -141,7 +141,7 @@ export function createApp(deps: AppDeps): Express {
   api.use('/account/set-password', setupLinkRouter(accounts));
   api.use('/me/password', myPasswordRouter(accounts));
   api.use('/users', usersRouter(createUsersService({ ds: deps.ds, repos, mail: accountMail, publicUrl: env.PUBLIC_URL, setupLinkHours: env.SETUP_LINK_HOURS, now })));
-  const prescriptions = createPrescriptionsService(deps.ds, repos, deps.jobs);
+  const prescriptions = createPrescriptionsService(deps.ds, repos, deps.jobs, deps.clock);
   const infants = createInfantsService(deps.ds, repos, deps.jobs);
   const schedule = scheduleRouters(createScheduleService(repos), deps.clock);
   const readings = readingsRouters(createReadingsService(deps.ds, repos, deps.jobs));

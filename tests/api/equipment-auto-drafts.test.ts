@@ -61,6 +61,15 @@ describe('orders Nestflow drafts by itself', () => {
     expect(audit.some((e) => e.actorId === null && e.details.automatic === true)).toBe(true);
   });
 
+  it('when a change is drafted, then "needed by" counts from today where the programme is, not in UTC', async () => {
+    const { orders, stepDown, clinic } = await babyWithEquipment(0.5, 2);
+    // The clock says 2026-12-01 10:00 UTC: already 2 December at UTC+14.
+    await ctx.deps.ds.query(`UPDATE programmes SET time_zone = 'Pacific/Kiritimati' WHERE id = $1`, [clinic.programme.id]);
+    await stepDown();
+    const [change] = await orders();
+    expect(change).toMatchObject({ purpose: 'change', neededBy: '2026-12-04' });
+  });
+
   it('when the baby comes off oxygen, then the collection of what is at home is drafted (spares stay with the family)', async () => {
     // A range from 0 keeps every rung of the ladder inside it, so only coming off oxygen drafts anything.
     const { orders, stepDown, infant, coord } = await babyWithEquipment(0, 2);

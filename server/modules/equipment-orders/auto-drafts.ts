@@ -33,11 +33,14 @@ export async function draftAfterApproval(repos: AppRepos, m: EntityManager, infa
   const { items, concentrator } = installedEquipment(orders);
   if (!items.length) return null;
   const openOf = (purpose: string) => orders.some((o) => o.purpose === purpose && OPEN.includes(o.status));
-  const today = todayIn('UTC', now);
   const offNow = infant.status === 'off_oxygen' || infant.status === 'left_programme';
-  const draft = (purpose: 'collection' | 'change', list: OrderItem[], days: number, reason: string) =>
-    insertOrder(repos, m, infant, { purpose, items: list, neededBy: addDays(today, days), deliveryAddress: infant.homeAddress, note: null, automaticReason: reason },
+  const draft = async (purpose: 'collection' | 'change', list: OrderItem[], days: number, reason: string) => {
+    // "Needed by" counts days from today where the family lives (the programme's zone), like an order made by hand.
+    const programme = await repos.programmes.findById(infant.programmeId);
+    const today = todayIn(programme?.timeZone ?? 'UTC', now);
+    return insertOrder(repos, m, infant, { purpose, items: list, neededBy: addDays(today, days), deliveryAddress: infant.homeAddress, note: null, automaticReason: reason },
       { id: null, ip: null, kind: 'system' }, now);
+  };
 
   if (offNow && !wasOffOxygen) {
     if (openOf('collection')) return null;

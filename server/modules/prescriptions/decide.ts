@@ -93,7 +93,7 @@ async function reject(repos: AppRepos, rx: PrescriptionEntity, infant: InfantEnt
 }
 
 /** A consultant's decision. The row lock makes two simultaneous decisions run one after the other: the second sees 409. */
-export async function decidePrescription(ds: DataSource, repos: AppRepos, ability: AppAbility, actor: Actor, id: string, input: DecisionInput) {
+export async function decidePrescription(ds: DataSource, repos: AppRepos, ability: AppAbility, actor: Actor, id: string, input: DecisionInput, now: Date = new Date()) {
   return ds.transaction(async (m) => {
     const rx = await repos.prescriptions.findForUpdate(id, m);
     if (!rx || !ability.can('approve', subject('Prescription', { programmeId: rx.programmeId, infantId: rx.infantId, status: rx.status } as Record<string, unknown>))) {
@@ -105,7 +105,7 @@ export async function decidePrescription(ds: DataSource, repos: AppRepos, abilit
     const wasOffOxygen = infant.status === 'off_oxygen' || infant.status === 'left_programme';
     await (input.decision === 'approve' ? approve : reject)(repos, rx, infant, input, actor, m);
     // Equipment follows the setting: a collection or a change of concentrator is drafted for the coordinator (issue 16).
-    if (input.decision === 'approve') await draftAfterApproval(repos, m, infant, rx, wasOffOxygen, new Date());
+    if (input.decision === 'approve') await draftAfterApproval(repos, m, infant, rx, wasOffOxygen, now);
     infant.rowVersion += 1;
     await repos.infants.save(infant, m);
     await repos.audit.append(

@@ -11,10 +11,11 @@ import type { Actor } from '../../lib/http';
 import { todayIn } from '../../lib/dates';
 import { correctedAgeText } from '../infants/infants.mapper';
 import { decidePrescription } from './decide';
+import { systemClock, type Clock } from '../../lib/clock';
 import { unmetInEvidence } from '@shared/schedule/step-down-rules';
 import { forFamily, toPrescriptionDto } from './prescriptions.mapper';
 
-export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
+export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs: JobProducer, clock: Clock = systemClock) {
   return {
     async listForInfant(ability: AppAbility, infantId: string, role?: string) {
       const infant = await repos.infants.findVisible(infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS));
@@ -50,7 +51,7 @@ export function createPrescriptionsService(ds: DataSource, repos: AppRepos, jobs
     },
 
     async decide(ability: AppAbility, actor: Actor, id: string, input: DecisionInput) {
-      const rx = await decidePrescription(ds, repos, ability, actor, id, input);
+      const rx = await decidePrescription(ds, repos, ability, actor, id, input, clock.now());
       // A new active setting changes which checks and reviews are due.
       if (rx.status === 'active') await jobs.enqueuePlanInfant(rx.infantId);
       return toPrescriptionDto(rx, await repos.infants.peopleNames([rx.decidedBy]));
