@@ -13,6 +13,10 @@ export function settingFlowRange(approvedFlowLpm: number | null, periods: Record
   return flows.length ? { low: Math.min(...flows), high: Math.max(...flows) } : null;
 }
 
+/** Whether a setting asks for no oxygen at any part of the day (the last step down). */
+export const asksForNoOxygen = (approvedFlowLpm: number | null, periods: Record<string, number> | null): boolean =>
+  settingFlowRange(approvedFlowLpm, periods) === null;
+
 /** Whether an installed concentrator can give every flow of the setting; unknown when its range is not recorded. */
 export function concentratorCovers(concentrator: FlowRange, need: { low: number; high: number }): boolean | null {
   if (concentrator.flowMinLpm === undefined || concentrator.flowMaxLpm === undefined) return null;

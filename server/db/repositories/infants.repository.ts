@@ -64,6 +64,12 @@ const LIST_SELECT = `SELECT i.id, i.given_name, i.family_name, i.birth_date::tex
   FROM infants i LEFT JOIN users n ON n.id = i.nurse_id LEFT JOIN users c ON c.id = i.consultant_id
     LEFT JOIN prescriptions p ON p.infant_id = i.id AND p.status = 'active'`;
 
+/** One caseload page's SQL (list-paging.ts) and the filters it reads, for the page alone or with its count. */
+function caseloadPage(query: ListInfantsQuery, acl: SqlFilter, extra: SqlFilter | undefined, at: KeysetPosition) {
+  const { where, named } = listFilter(query, acl, extra);
+  return { where, named, page: keysetPageSql({ select: LIST_SELECT, where, params: named, key: sortKey(query.sort), at, limit: query.pageSize + 1 }) };
+}
+
 /** The list's filters as SQL conditions with :named parameters (the caller's rights first). */
 function listFilter(query: ListInfantsQuery, acl: SqlFilter, extra?: SqlFilter): { where: string[]; named: Record<string, unknown> } {
   const where = [`(${acl.sql})`];
@@ -115,8 +121,7 @@ export function createInfantsRepository(ds: DataSource) {
      * (prepared.ts): the page is read on every turn of the caseload.
      */
     async list(query: ListInfantsQuery, acl: SqlFilter, extra: SqlFilter | undefined, at: KeysetPosition): Promise<{ rows: InfantListRow[]; more: boolean }> {
-      const { where, named } = listFilter(query, acl, extra);
-      const page = keysetPageSql({ select: LIST_SELECT, where, params: named, key: sortKey(query.sort), at, limit: query.pageSize + 1 });
+      const { page } = caseloadPage(query, acl, extra, at);
       const [sql, params] = ds.driver.escapeQueryWithParameters(page.sql, page.params);
       return cutPage(await preparedRows<InfantListRow & QueryResultRow>(pool, sql, params), query.pageSize, at);
     },
@@ -127,8 +132,7 @@ export function createInfantsRepository(ds: DataSource) {
      * PostgreSQL's row estimate above it.
      */
     async listWithTotal(query: ListInfantsQuery, acl: SqlFilter, extra: SqlFilter | undefined, at: KeysetPosition): Promise<{ rows: InfantListRow[]; more: boolean; total: number; estimate: boolean }> {
-      const { where, named } = listFilter(query, acl, extra);
-      const page = keysetPageSql({ select: LIST_SELECT, where, params: named, key: sortKey(query.sort), at, limit: query.pageSize + 1 });
+      const { where, named, page } = caseloadPage(query, acl, extra, at);
       const { rows, total, estimate } = await pageAndCount<InfantListRow & QueryResultRow>(ds, estimateRows, page, { sql: `SELECT 1 FROM infants i WHERE ${where.join(' AND ')}`, params: named }, true);
       return { ...cutPage(rows, query.pageSize, at), total, estimate };
     },

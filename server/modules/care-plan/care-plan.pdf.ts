@@ -3,6 +3,7 @@ import {
   periodLines, spo2TargetText,
 } from '@shared/family/care-text';
 import { dateInWords } from '@shared/dates/date-words';
+import { asksForNoOxygen } from '@shared/equipment/concentrator-fit';
 import { JOURNEY_MODE_LABELS, type JourneyCylinderPlan, type JourneyMode, type JourneyPeriod } from '@shared/schemas/journeys';
 import { ALERT, openTaggedDocument, type PlanWriter } from './care-plan-writer';
 
@@ -35,7 +36,7 @@ const flowLine = (flowLpm: number) => (flowLpm === 0 ? 'off (no oxygen)' : `${fl
 function settingSection(w: PlanWriter, d: CarePlanData) {
   const s = d.setting;
   w.section('Your baby’s oxygen', () => {
-    if (s.periods.every((p) => p.flowLpm === 0)) {
+    if (asksForNoOxygen(null, Object.fromEntries(s.periods.map((p) => [p.period, p.flowLpm])))) {
       // The last step down: nothing flows, so there is no flowmeter setting and no supply to name.
       w.para('No oxygen, day and night: the flowmeter stays off.', true);
     } else {

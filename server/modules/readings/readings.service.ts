@@ -22,8 +22,10 @@ const FUTURE_SLACK_MS = 5 * 60_000;
 const fields = (i: InfantEntity) => ({ programmeId: i.programmeId, infantId: i.id, nurseId: i.nurseId } as Record<string, unknown>);
 
 export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: JobProducer) {
+  const infantAcl = (ability: AppAbility) => accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS);
+
   async function visibleInfant(ability: AppAbility, id: string, m?: EntityManager) {
-    const infant = await repos.infants.findVisible(id, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), m);
+    const infant = await repos.infants.findVisible(id, infantAcl(ability), m);
     if (!infant) throw new NotFoundError('No such baby in your records.');
     return infant;
   }
@@ -82,7 +84,7 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
       const until = to ? new Date(to) : new Date();
       const since = from ? new Date(from) : new Date(until.getTime() - 90 * 86_400_000);
       // One statement: the baby (with the caller's rights), its readings, who logged them and the policy.
-      const found = await repos.readings.forInfant(infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), since, until);
+      const found = await repos.readings.forInfant(infantId, infantAcl(ability), since, until);
       if (!found) throw new NotFoundError('No such baby in your records.');
       if (!ability.can('read', subject('Reading', fields(found.infant)))) throw new ForbiddenError();
       const settings = found.policySettings ? withPolicyDefaults(found.policySettings) : DEFAULT_POLICY_SETTINGS;
@@ -112,7 +114,7 @@ export function createReadingsService(ds: DataSource, repos: AppRepos, jobs: Job
     async update(ability: AppAbility, actor: Actor, id: string, input: UpdateReadingInput) {
       const saved = await ds.transaction(async (m) => {
         const r = await repos.readings.findForUpdate(id, m);
-        const infant = r ? await repos.infants.findVisible(r.infantId, accessibleWhere(ability, 'read', 'Infant', INFANT_ACL_COLUMNS), m) : null;
+        const infant = r ? await repos.infants.findVisible(r.infantId, infantAcl(ability), m) : null;
         if (!r || !infant) throw new NotFoundError('No such reading in your records.');
         if (r.createdBy !== actor.id) throw new ForbiddenError('Only the person who logged a reading can correct it.');
         const policy = await repos.policies.current(infant.programmeId, m);

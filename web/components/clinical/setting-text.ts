@@ -1,3 +1,4 @@
+import { asksForNoOxygen } from '@shared/equipment/concentrator-fit';
 import { formatFlow } from './clinical-format';
 
 export interface SettingForText {
@@ -36,7 +37,7 @@ export function settingText(setting: SettingForText): string {
   const samePeriods =
     !periods || (periods.awake === setting.flowLpm && periods.asleep === setting.flowLpm && periods.feeding === setting.flowLpm);
   // Weaned off: no flow comes from anything, so no source is named.
-  if (samePeriods && setting.flowLpm === 0) return 'No oxygen, day and night';
+  if (asksForNoOxygen(setting.flowLpm, periods ?? null)) return 'No oxygen, day and night';
   const body = samePeriods ? `${flowWords(setting.flowLpm)}, day and night` : capitalise(periodWords(periods));
   return source ? `${body}, ${source}` : body;
 }

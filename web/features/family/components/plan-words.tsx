@@ -1,3 +1,4 @@
+import { asksForNoOxygen } from '@shared/equipment/concentrator-fit';
 import type { Prescription } from '@shared/schemas/prescriptions';
 import { flowWords, settingText } from '../../../components/clinical/setting-text';
 
@@ -13,7 +14,7 @@ const differsByPeriod = (flowLpm: number, periods: Prescription['periods']) =>
 /** The flowmeter setting as a parent would say it, big enough to read from across the room. */
 export function PlanWords({ flowLpm, periods, source }: { flowLpm: number; periods: Prescription['periods']; source: string }) {
   const sourceWords = SOURCE_WORDS[source];
-  if (flowLpm === 0 && !differsByPeriod(0, periods)) {
+  if (asksForNoOxygen(flowLpm, periods)) {
     // The last step down: nothing to set and nothing flowing, so no flowmeter setting and no source are named.
     return <p className="rounded-xl bg-brand-50 px-4 py-4 text-3xl font-bold leading-snug text-brand-800">No oxygen: the flowmeter stays off, day and night.</p>;
   }
