@@ -80,7 +80,7 @@ export default defineConfig({
     outDir: 'dist/web',
     emptyOutDir: true,
     rolldownOptions: {
-      output: { codeSplitting: { groups: [...vendorGroups, ...appGroups] } },
+      output: { strictExecutionOrder: true, codeSplitting: { groups: [...vendorGroups, ...appGroups] } },
     },
   },
 });

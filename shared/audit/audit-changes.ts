@@ -1,4 +1,5 @@
 import { dayWords, fromTo, joinWords, list, num, obj, str, type Details } from './audit-format';
+import { numberInWords } from '../format/number-words';
 
 type People = Readonly<Record<string, string>>;
 
@@ -6,8 +7,8 @@ type People = Readonly<Record<string, string>>;
 function placeWords(value: unknown): string {
   const place = obj(value);
   if (!place) return 'nothing';
-  if (num(place.elevationM) !== null) return `${num(place.elevationM)!.toLocaleString('en-GB')} m`;
-  if (num(place.elevationFt) !== null) return `${num(place.elevationFt)!.toLocaleString('en-GB')} ft`;
+  if (num(place.elevationM) !== null) return `${numberInWords(num(place.elevationM)!)} m`;
+  if (num(place.elevationFt) !== null) return `${numberInWords(num(place.elevationFt)!)} ft`;
   if (num(place.pressureMmHg) !== null) return `measured ${num(place.pressureMmHg)} mmHg`;
   return 'a new place';
 }

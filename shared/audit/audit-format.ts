@@ -1,3 +1,5 @@
+import { numberInWords } from '../format/number-words';
+
 /** Small readers for the free-form `details` of an audit event: a value of the wrong type reads as absent. */
 export type Details = Record<string, unknown>;
 
@@ -9,7 +11,7 @@ export const list = (value: unknown): unknown[] => (Array.isArray(value) ? value
 export function flowWords(value: unknown): string {
   const flow = num(value);
   if (flow === null) return 'an unknown flow';
-  return flow === 0 ? 'no oxygen (0 L/min)' : `${flow.toLocaleString('en-GB', { maximumFractionDigits: 3 })} L/min`;
+  return flow === 0 ? 'no oxygen (0 L/min)' : `${numberInWords(flow)} L/min`;
 }
 
 const PERIOD_NAMES: Record<string, string> = { awake: 'awake', asleep: 'asleep', feeding: 'feeding' };
@@ -26,7 +28,7 @@ export function settingWords(flowLpm: unknown, periods: unknown): string {
 export function valueWords(value: unknown): string {
   if (value === null || value === undefined || value === '') return 'nothing';
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
-  if (typeof value === 'number') return value.toLocaleString('en-GB', { maximumFractionDigits: 3 });
+  if (typeof value === 'number') return numberInWords(value);
   if (typeof value === 'string') return `“${value}”`;
   return 'a new value';
 }

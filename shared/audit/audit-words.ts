@@ -5,6 +5,7 @@ import { VISIT_KIND_LABELS } from '../schemas/visits';
 import { AUDIT_ACTIONS, isAuditAction, type AuditAction } from './audit-actions';
 import { contactsWords, preferencesWords, recordChanges } from './audit-changes';
 import { dayWords, flowWords, joinWords, list, num, obj, settingWords, str, type Details } from './audit-format';
+import { numberInWords } from '../format/number-words';
 
 /** Names of the people a stored id points at (staff on a visit, a new nurse), as the API resolved them. */
 export type PeopleNames = Readonly<Record<string, string>>;
@@ -102,13 +103,13 @@ const WORDS: Record<AuditAction, Words> = {
   'reading.family_reported': (d) => `Family reported a home reading${readingFigures(d)}`,
   'reading.corrected': (d) => readingCorrection(d),
   'recording.uploaded': (d) => {
-    const facts = [str(d.fileName), num(d.sampleCount) !== null ? `${num(d.sampleCount)!.toLocaleString('en-GB')} samples` : null,
+    const facts = [str(d.fileName), num(d.sampleCount) !== null ? `${numberInWords(num(d.sampleCount)!)} samples` : null,
       num(d.skippedRows) ? `${num(d.skippedRows)} unreadable rows skipped` : null].filter(Boolean);
     return `Uploaded an overnight recording${facts.length ? ` (${facts.join(', ')})` : ''}`;
   },
   'recording.analysed': (d) => {
     const valid = num(d.validSampleCount) !== null && num(d.sampleCount) !== null
-      ? `: ${num(d.validSampleCount)!.toLocaleString('en-GB')} of ${num(d.sampleCount)!.toLocaleString('en-GB')} samples valid` : '';
+      ? `: ${numberInWords(num(d.validSampleCount)!)} of ${numberInWords(num(d.sampleCount)!)} samples valid` : '';
     const judged = d.judged === false ? ', too short to judge' : d.judged === true ? ', long enough to judge' : '';
     return `Analysed an overnight recording${valid}${judged}`;
   },

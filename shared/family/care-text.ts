@@ -1,3 +1,4 @@
+import { numberInWords } from '../format/number-words';
 // Family-facing wording shared by the family page and the printed care plan, so both always say the same thing.
 // Our own words; they point families to their treating team, whose advice comes first.
 
@@ -61,7 +62,7 @@ export function journeyCautions(f: JourneyCautionFacts): string[] {
   if (f.mode === 'flight') {
     const ft = Math.round(f.cabinAltitudeFt ?? 8000);
     out.push(
-      `The plan assumes the cabin air is as thin as at ${ft.toLocaleString('en-GB')} ft (${Math.round(ft * 0.3048).toLocaleString('en-GB')} m), the most allowed in normal flight unless a lower figure was given.`,
+      `The plan assumes the cabin air is as thin as at ${numberInWords(ft)} ft (${numberInWords(Math.round(ft * 0.3048))} m), the most allowed in normal flight unless a lower figure was given.`,
       'Airlines have their own rules for oxygen on board: contact the airline well before you fly. It may ask for a medical form from your team, and it decides what oxygen may be used or carried in flight.',
       'A pre-flight assessment may be needed, for example a hypoxic challenge test, which checks how your baby copes with air like that in the cabin.',
       f.plannedForDestination
@@ -81,7 +82,7 @@ export function journeyCautions(f: JourneyCautionFacts): string[] {
 
 /** "1 hour", "3 hours", "1.5 hours": never "hour(s)". */
 export function hoursText(hours: number): string {
-  return `${Number(hours.toFixed(1)).toLocaleString('en-GB')} ${hours === 1 ? 'hour' : 'hours'}`;
+  return `${numberInWords(Number(hours.toFixed(1)))} ${hours === 1 ? 'hour' : 'hours'}`;
 }
 
 /**

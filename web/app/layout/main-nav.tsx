@@ -10,20 +10,38 @@ const linkClasses = ({ isActive }: { isActive: boolean }) =>
     isActive ? 'bg-brand-50 text-brand-800 lg:border-l-4 lg:border-brand-600' : 'text-ink-700 hover:bg-surface-100'
   }`;
 
-/** Publishes the bottom bar's height for the page's scroll padding (app.css), so focus never hides under it. */
+/**
+ * Keeps the page's scroll padding (app.css) as tall as the bottom bar, so focus never hides under it: the bar grows
+ * when its labels wrap at 200 % zoom. The size comes from the ResizeObserver's entry, which is measured after layout,
+ * and is written to the root's own scroll-padding-bottom, which nothing inherits: reading the bar's box during
+ * rendering, or changing a custom property on the root, made the browser lay the whole page out twice before its
+ * first paint.
+ */
 function useBottomMenuHeight() {
   const nav = useRef<HTMLElement>(null);
   useEffect(() => {
     const element = nav.current;
     if (!element || typeof ResizeObserver === 'undefined') return;
     const root = document.documentElement;
-    const publish = () => root.style.setProperty('--bottom-menu-height', `${element.getBoundingClientRect().height}px`);
-    const observer = new ResizeObserver(publish);
+    // From 1024 px the menu is a side column and app.css sets no padding.
+    const wide = typeof window.matchMedia === 'function' ? window.matchMedia('(min-width: 64rem)') : undefined;
+    let height: number | undefined;
+    const publish = () => {
+      if (wide?.matches || height === undefined) root.style.removeProperty('scroll-padding-bottom');
+      else root.style.setProperty('scroll-padding-bottom', `calc(${height}px + 0.75rem)`);
+    };
+    const observer = new ResizeObserver(([entry]) => {
+      const next = entry?.borderBoxSize?.[0]?.blockSize ?? entry?.contentRect.height;
+      if (next === undefined || next === height) return;
+      height = next;
+      publish();
+    });
     observer.observe(element);
-    publish();
+    wide?.addEventListener('change', publish);
     return () => {
       observer.disconnect();
-      root.style.removeProperty('--bottom-menu-height');
+      wide?.removeEventListener('change', publish);
+      root.style.removeProperty('scroll-padding-bottom');
     };
   }, []);
   return nav;

@@ -1,5 +1,6 @@
 import { mmHgToKPa } from '@shared/clinical/units';
 import type { WorkingUnit } from '@shared/clinical/working';
+import { numberInWords } from '@shared/format/number-words';
 
 // Display only: the numbers themselves come from shared/clinical. Flows are shown with up to 3 decimals and no
 // trailing zeros, so a 1/8 L/min step reads 0.125 and is never rounded to a neighbouring step.
@@ -40,6 +41,6 @@ export function formatWorkingValue(value: number | null, unit: WorkingUnit | (st
     case '%':
       return `${Number(value.toFixed(1))} %`;
     default:
-      return `${Number(value.toFixed(1)).toLocaleString('en-GB')} ${unit}`;
+      return `${numberInWords(Number(value.toFixed(1)))} ${unit}`;
   }
 }

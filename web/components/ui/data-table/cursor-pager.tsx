@@ -1,5 +1,6 @@
 import { Button } from '../button';
 import { PageSizeSelect } from './page-size-select';
+import { numberInWords } from '@shared/format/number-words';
 
 /** What a list answer says about its pages (the same fields on every list that pages by position). */
 export interface CursorPage {
@@ -30,7 +31,7 @@ export function CursorPager({ view: { page, pageSize }, result: { total, totalIs
   return (
     <nav aria-label="Pages" className="flex flex-wrap items-center justify-between gap-3">
       <p className="text-ink-700">
-        Page {page} of {about}{pages.toLocaleString('en-GB')} · {about}{total.toLocaleString('en-GB')} {total === 1 && !estimate ? noun.one : noun.other}
+        Page {page} of {about}{numberInWords(pages)} · {about}{numberInWords(total)} {total === 1 && !estimate ? noun.one : noun.other}
       </p>
       <div className="flex flex-wrap items-center gap-2">
         <PageSizeSelect value={pageSize} onChange={(size) => onChange({ pageSize: size })} />

@@ -7,9 +7,10 @@ import { Spinner } from '../../../components/ui/spinner';
 import { useFocusOnArrival } from '../../../components/ui/focus';
 import { formatDateTime } from '../../../lib/format';
 import { useChainChecks, useVerifyChain } from '../api/chain';
+import { numberInWords } from '@shared/format/number-words';
 
 function Outcome({ check }: { check: ChainCheck }) {
-  if (check.ok) return <>Intact: {check.rowsChecked.toLocaleString('en-GB')} rows checked.</>;
+  if (check.ok) return <>Intact: {numberInWords(check.rowsChecked)} rows checked.</>;
   const b = check.broken!;
   return (
     <>
@@ -24,7 +25,7 @@ function LatestResult({ check }: { check: ChainCheck }) {
     <div ref={ref} tabIndex={-1} className="focus-inset">
       {check.ok ? (
         <p className="rounded-lg border border-brand-200 bg-brand-50 px-4 py-3 font-semibold text-ink-900">
-          The audit trail is intact ({check.rowsChecked.toLocaleString('en-GB')} rows checked, {formatDateTime(check.checkedAt)}).
+          The audit trail is intact ({numberInWords(check.rowsChecked)} rows checked, {formatDateTime(check.checkedAt)}).
         </p>
       ) : (
         <Alert>

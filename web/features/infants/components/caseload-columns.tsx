@@ -12,6 +12,7 @@ import { Badge } from '../../../components/ui/badge';
 import { urlSort } from '../../../components/ui/data-table/url-sort';
 import type { ServerTableFeatures } from '../../../components/ui/data-table/use-server-table';
 import { FlagList } from './flag-badge';
+import { numberInWords } from '@shared/format/number-words';
 
 const helper = createColumnHelper<ServerTableFeatures, InfantSummary>();
 
@@ -27,7 +28,7 @@ export const STATUS_TONES: Record<InfantStatus, Tone> = {
 };
 
 export function placeText(row: Pick<InfantSummary, 'homeElevationM' | 'homePressureMmHg'>): string {
-  return row.homeElevationM === null ? `measured ${formatMmHg(row.homePressureMmHg)} mmHg` : `${row.homeElevationM.toLocaleString('en-GB')} m`;
+  return row.homeElevationM === null ? `measured ${formatMmHg(row.homePressureMmHg)} mmHg` : `${numberInWords(row.homeElevationM)} m`;
 }
 
 /**

@@ -1,4 +1,5 @@
 import { formatFlow, formatKpa, formatMmHg } from '../../../components/clinical/clinical-format';
+import { numberInWords } from '@shared/format/number-words';
 
 export { formatDate } from '../../../lib/format';
 
@@ -10,7 +11,7 @@ export function pressureText(pressureMmHg: number): string {
 
 /** "1,780 m" or, when the family gave a measured pressure instead, "measured". */
 export function homePlaceText(elevationM: number | null, pressureMmHg: number): string {
-  const where = elevationM === null ? 'measured' : `${elevationM.toLocaleString('en-GB')} m`;
+  const where = elevationM === null ? 'measured' : `${numberInWords(elevationM)} m`;
   return `${where} · ${pressureText(pressureMmHg)}`;
 }
 

@@ -1,4 +1,5 @@
 import type { Journey, JourneyPeriod } from '@shared/schemas/journeys';
+import { numberInWords } from '@shared/format/number-words';
 
 // Journey dates are the family's calendar days; formatting them at UTC noon keeps any browser zone from moving them.
 const asUtcNoon = (date: string) => new Date(`${date}T12:00:00Z`);
@@ -17,21 +18,21 @@ export function datesWords(request: Journey['request']): string {
 export const PERIOD_WORDS: Record<JourneyPeriod, string> = { awake: 'When awake', asleep: 'When asleep', feeding: 'When feeding' };
 
 export function hoursWords(hours: number): string {
-  return `${Number(hours.toFixed(1)).toLocaleString('en-GB')} ${hours === 1 ? 'hour' : 'hours'}`;
+  return `${numberInWords(Number(hours.toFixed(1)))} ${hours === 1 ? 'hour' : 'hours'}`;
 }
 
 export function wayWords(request: Journey['request']): string {
   if (request.mode === 'road') {
-    return request.destinationElevationM === null ? 'By road' : `By road, ${request.destinationElevationM.toLocaleString('en-GB')} m above sea level`;
+    return request.destinationElevationM === null ? 'By road' : `By road, ${numberInWords(request.destinationElevationM)} m above sea level`;
   }
-  const cabin = (request.cabinAltitudeFt ?? 8000).toLocaleString('en-GB');
-  const there = request.destinationElevationM === null ? '' : `; destination ${request.destinationElevationM.toLocaleString('en-GB')} m above sea level`;
+  const cabin = numberInWords(request.cabinAltitudeFt ?? 8000);
+  const there = request.destinationElevationM === null ? '' : `; destination ${numberInWords(request.destinationElevationM)} m above sea level`;
   return `By air, planned for a cabin at ${cabin} ft${there}`;
 }
 
 /** The destination's elevation as the person asking entered it, for the consultant to check against the plan. */
 export function destinationElevationWords(request: Journey['request']): string {
-  if (request.destinationElevationM !== null) return `${request.destinationElevationM.toLocaleString('en-GB')} m above sea level`;
+  if (request.destinationElevationM !== null) return `${numberInWords(request.destinationElevationM)} m above sea level`;
   return request.mode === 'flight' ? 'Not given: planned for the aircraft cabin only' : 'Not given';
 }
 

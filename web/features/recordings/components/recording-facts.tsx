@@ -6,6 +6,7 @@ import { showToast } from '../../../components/ui/toast-store';
 import { formatDateTime } from '../../../lib/format';
 import { fileSizeText } from './upload-messages';
 import { hoursMinutes, shortHash } from './recording-format';
+import { numberInWords } from '@shared/format/number-words';
 
 function Row({ label, children }: { label: string; children: ReactNode }) {
   return (
@@ -44,7 +45,7 @@ export function RecordingFacts({ recording }: { recording: Recording }) {
         <Row label="Started">{recording.startedAt ? formatDateTime(recording.startedAt) : 'Not in the file (times counted from the start)'}</Row>
         <Row label="Length (h:mm)">{hoursMinutes(recording.durationMinutes)}</Row>
         <Row label="Samples">
-          {recording.sampleCount.toLocaleString('en-GB')} every {recording.samplePeriodSec} s
+          {numberInWords(recording.sampleCount)} every {recording.samplePeriodSec} s
           {recording.skippedRows > 0 && `, ${recording.skippedRows} unreadable ${recording.skippedRows === 1 ? 'row' : 'rows'} skipped`}
         </Row>
         <Row label="Analysis">
