@@ -11,13 +11,20 @@ export const CARE_PLAN_CAUTIONS: readonly string[] = [
 export const WARNING_SIGNS_INTRO =
   'Follow the advice your treating team has given you first. Get help straight away if you notice any of these:';
 
-export const WARNING_SIGNS: readonly string[] = [
-  'Breathing looks like hard work: the skin between or under the ribs sucks in, the nostrils flare, or your baby grunts or bobs their head with each breath.',
-  'Breathing is much faster than usual, or there are pauses in breathing.',
-  'The lips, tongue or face look blue, grey or very pale.',
-  'Your baby is floppy, unusually sleepy or hard to wake, or will not feed.',
-  'The oxygen level on the monitor stays below the level your team gave you after you have checked the cannula, tubing and supply.',
-];
+/** The warning signs; off oxygen (the last step down) there is no cannula, tubing or supply to check first. */
+export function warningSigns(onOxygen = true): readonly string[] {
+  return [
+    'Breathing looks like hard work: the skin between or under the ribs sucks in, the nostrils flare, or your baby grunts or bobs their head with each breath.',
+    'Breathing is much faster than usual, or there are pauses in breathing.',
+    'The lips, tongue or face look blue, grey or very pale.',
+    'Your baby is floppy, unusually sleepy or hard to wake, or will not feed.',
+    onOxygen
+      ? 'The oxygen level on the monitor stays below the level your team gave you after you have checked the cannula, tubing and supply.'
+      : 'The oxygen level on the monitor stays below the level your team gave you.',
+  ];
+}
+
+export const WARNING_SIGNS: readonly string[] = warningSigns();
 
 /** The one instruction that must be on every page a family reads about an emergency. */
 export function emergencyCallText(emergencyNumber: string): string {
@@ -102,8 +109,10 @@ export function periodLines<F>(periods: ReadonlyArray<{ period: keyof typeof PER
  * The saturation figures the programme works to, for a family to read: the mean to stay at or above (higher with
  * pulmonary hypertension) and the reading counted as low. From the programme's settings, whose sources are there.
  */
-export function spo2TargetText(t: { meanMin: number; lowAtOrBelow: number }): string {
-  return `Oxygen saturation (SpO2) to aim for: ${t.meanMin}% or more on average. A steady reading of ${t.lowAtOrBelow}% or less is low: check the cannula, tubing and supply, then call your team if it stays low.`;
+export function spo2TargetText(t: { meanMin: number; lowAtOrBelow: number }, onOxygen = true): string {
+  const aim = `Oxygen saturation (SpO2) to aim for: ${t.meanMin}% or more on average. A steady reading of ${t.lowAtOrBelow}% or less is low:`;
+  // Off oxygen there is no cannula, tubing or supply to check first.
+  return onOxygen ? `${aim} check the cannula, tubing and supply, then call your team if it stays low.` : `${aim} call your team.`;
 }
 
 const NUMBER_WORDS = ['zero', 'one', 'two', 'three', 'four', 'five', 'six', 'seven', 'eight', 'nine', 'ten', 'eleven', 'twelve', 'thirteen', 'fourteen', 'fifteen'];

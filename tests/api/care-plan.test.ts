@@ -76,7 +76,7 @@ describe('GET /api/infants/:id/care-plan.pdf', () => {
     expect(pages).toBeLessThanOrEqual(2);
   });
 
-  it('when the approved setting is the last step down, to no oxygen, then the plan says the flowmeter stays off and names no supply or cannula', async () => {
+  it('when the approved setting is the last step down, to no oxygen, then the plan says the flowmeter stays off and names no supply, cannula or tubing to check', async () => {
     const pdf = await renderCarePlanPdf({
       programmeName: 'Test programme', hospitalName: 'Test hospital', printedOn: '2026-12-01', baby: { name: 'Test Baby', birthDate: '2026-08-01' },
       home: { elevationM: 40, pressureMmHg: 756.4, measured: false },
@@ -85,7 +85,12 @@ describe('GET /api/infants/:id/care-plan.pdf', () => {
     });
     const { text } = await readPdf(pdf);
     expect(text).toContain('No oxygen, day and night: the flowmeter stays off.');
-    expect(text).not.toMatch(/Given from|nasal cannula|off \(no oxygen\)/);
+    // Off oxygen nothing asks the family to check a cannula, tubing or supply (the oxygen safety points stay: the
+    // equipment is at home until it is collected).
+    const [, oxygenToWarnings] = /Your baby’s oxygen([\s\S]*)Oxygen safety at home/.exec(text) ?? [];
+    expect(oxygenToWarnings).toContain('The oxygen level on the monitor stays below the level your team gave you.');
+    expect(oxygenToWarnings).not.toMatch(/Given from|cannula|tubing|off \(no oxygen\)/);
+    expect(text).toContain('A steady reading of 90% or less is low: call your team.');
     expect(text).toContain('Approved by Dr Test on 30 Nov 2026.');
   });
 

@@ -25,7 +25,9 @@ describe('family words', () => {
 
   it('when the target is written, then it names the mean to reach and the reading counted as low', () => {
     // Programme defaults: overnight mean >= 93 % (TSANZ 2020; BTS 2009), spot <= 90 % low (ATS 2019).
-    expect(spo2TargetText({ meanMin: 93, lowAtOrBelow: 90 })).toMatch(/^Oxygen saturation \(SpO2\) to aim for: 93% or more on average\. A steady reading of 90% or less is low/);
+    expect(spo2TargetText({ meanMin: 93, lowAtOrBelow: 90 })).toMatch(/^Oxygen saturation \(SpO2\) to aim for: 93% or more on average\. A steady reading of 90% or less is low: check the cannula/);
+    // Off oxygen (the last step down) there is no cannula or supply to check first.
+    expect(spo2TargetText({ meanMin: 93, lowAtOrBelow: 90 }, false)).toBe('Oxygen saturation (SpO2) to aim for: 93% or more on average. A steady reading of 90% or less is low: call your team.');
   });
 });
 

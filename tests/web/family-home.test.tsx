@@ -1,7 +1,7 @@
 import { screen, within } from '@testing-library/react';
 import axe from 'axe-core';
 import { describe, expect, it } from 'vitest';
-import { OXYGEN_SAFETY_POINTS, WARNING_SIGNS } from '@shared/family/care-text';
+import { OXYGEN_SAFETY_POINTS, WARNING_SIGNS, warningSigns } from '@shared/family/care-text';
 import type { InfantDetail, InfantSummary } from '@shared/schemas/infants';
 import { DEFAULT_POLICY_SETTINGS, type PolicySettings } from '@shared/schemas/policy';
 import type { Prescription } from '@shared/schemas/prescriptions';
@@ -118,6 +118,35 @@ describe('Family home: order and length', () => {
   });
 });
 
+describe('Family home: off oxygen', () => {
+  it('when the approved setting is the last step down, to no oxygen, then the plan says so and there is no cylinder time to work out', async () => {
+    stubFamily({ plans: [{ ...approved, approvedFlowLpm: 0, proposedFlowLpm: 0, periods: { awake: 0, asleep: 0, feeding: 0 } }] });
+    const { user } = renderApp('/family');
+    expect(await screen.findByText('No oxygen: the flowmeter stays off, day and night.', undefined, { timeout: 5000 })).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: /^Who to call/ })).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /^How long will a cylinder last/ })).not.toBeInTheDocument();
+    // The warning signs name no cannula, tubing or supply to check first.
+    await user.click(screen.getByRole('button', { name: /^Warning signs that need help now/ }));
+    const signs = within(screen.getByRole('list', { name: 'Warning signs' })).getAllByRole('listitem').map((li) => li.textContent);
+    expect(signs).toEqual([...warningSigns(false)]);
+    expect(signs.join(' ')).not.toMatch(/cannula|tubing/);
+  });
+});
+
+function recordWithSetting(flowLpm: number): InfantDetail {
+  return {
+    id: BABY_ID, name: 'Juniper Ashcombe', givenName: 'Juniper', familyName: 'Ashcombe', sex: 'female', birthDate: '2025-08-10',
+    gestation: { weeks: 29, days: 3 }, correctedAge: '6 weeks', postmenstrualAge: '46+0 weeks', chronologicalAge: '17 weeks',
+    birthWeightG: 1210, weightKg: 3.4, weightDate: '2025-11-28', diagnoses: ['chronic_lung_disease'],
+    site: { id: '3d3d3d3d-0000-4000-8000-000000000071', name: 'Larkmoor Regional Children’s Hospital', elevationM: 95 },
+    hospital: { flowLpm: 0.1, source: 'cylinder', o2Percent: 100 },
+    home: { address: '4 Quarry Lane, Wrenbrook', location: { elevationM: 610 }, source: 'concentrator', o2Percent: 95 },
+    homeElevationM: 610, homePressureMmHg: 706.5, activeFlowLpm: flowLpm, status: 'on_oxygen', flags: [], nurse: null, consultant: null,
+    activeSetting: { prescriptionId: approved.id, version: 2, flowLpm, source: 'concentrator', sourceO2Percent: 95, effectiveFio2: 0.31, periods: null, approvedAt: approved.decidedAt },
+    contacts: [], rowVersion: 1, enrolledAt: '2025-11-30T10:00:00.000Z',
+  };
+}
+
 describe('Family home: the printed care plan', () => {
   it('when there is an approved plan, then a download link points at the baby’s care-plan PDF', async () => {
     stubFamily();
@@ -134,27 +163,26 @@ describe('Family home: the printed care plan', () => {
     expect(screen.queryByRole('link', { name: /Download care plan/ })).not.toBeInTheDocument();
   });
 
-  it('when the coordinator opens a record with an approved setting, then the plan section offers the same PDF', async () => {
-    const record: InfantDetail = {
-      id: BABY_ID, name: 'Juniper Ashcombe', givenName: 'Juniper', familyName: 'Ashcombe', sex: 'female', birthDate: '2025-08-10',
-      gestation: { weeks: 29, days: 3 }, correctedAge: '6 weeks', postmenstrualAge: '46+0 weeks', chronologicalAge: '17 weeks',
-      birthWeightG: 1210, weightKg: 3.4, weightDate: '2025-11-28', diagnoses: ['chronic_lung_disease'],
-      site: { id: '3d3d3d3d-0000-4000-8000-000000000071', name: 'Larkmoor Regional Children’s Hospital', elevationM: 95 },
-      hospital: { flowLpm: 0.1, source: 'cylinder', o2Percent: 100 },
-      home: { address: '4 Quarry Lane, Wrenbrook', location: { elevationM: 610 }, source: 'concentrator', o2Percent: 95 },
-      homeElevationM: 610, homePressureMmHg: 706.5, activeFlowLpm: 0.25, status: 'on_oxygen', flags: [], nurse: null, consultant: null,
-      activeSetting: { prescriptionId: approved.id, version: 2, flowLpm: 0.25, source: 'concentrator', sourceO2Percent: 95, effectiveFio2: 0.31, periods: null, approvedAt: approved.decidedAt },
-      contacts: [], rowVersion: 1, enrolledAt: '2025-11-30T10:00:00.000Z',
-    };
+  async function openRecord(flowLpm: number) {
     stubApi({
       'GET /api/session': sessionHandler('coordinator'),
-      [`GET /api/infants/${BABY_ID}`]: () => json(200, record),
-      [`GET /api/infants/${BABY_ID}/prescriptions`]: () => json(200, { items: [approved] }),
+      [`GET /api/infants/${BABY_ID}`]: () => json(200, recordWithSetting(flowLpm)),
+      [`GET /api/infants/${BABY_ID}/prescriptions`]: () => json(200, { items: [{ ...approved, approvedFlowLpm: flowLpm }] }),
     });
     renderApp(`/infants/${BABY_ID}`);
-    const plan = (await screen.findByRole('heading', { level: 2, name: 'Plan' }, { timeout: 5000 })).closest('section')!;
+    return (await screen.findByRole('heading', { level: 2, name: 'Plan' }, { timeout: 5000 })).closest('section')!;
+  }
+
+  it('when the coordinator opens a record with an approved setting, then the plan section offers the same PDF', async () => {
+    const plan = await openRecord(0.25);
     expect(within(plan).getByRole('link', { name: /Download care plan \(PDF\)/ })).toHaveAttribute('href', `/api/infants/${BABY_ID}/care-plan.pdf`);
     expect(within(plan).getByRole('link', { name: 'How long will a cylinder last?' })).toHaveAttribute('href', `/infants/${BABY_ID}/cylinder`);
+  });
+
+  it('when the approved setting is the last step down, to no oxygen, then the record offers no cylinder time', async () => {
+    const plan = await openRecord(0);
+    expect(within(plan).getByText('No oxygen, day and night')).toBeInTheDocument();
+    expect(within(plan).queryByRole('link', { name: 'How long will a cylinder last?' })).not.toBeInTheDocument();
   });
 });
 

@@ -1,5 +1,5 @@
 import {
-  CARE_PLAN_CAUTIONS, OXYGEN_SAFETY_POINTS, WARNING_SIGNS, WARNING_SIGNS_INTRO, emergencyCallText, flowInWords, flowText, hoursText,
+  CARE_PLAN_CAUTIONS, OXYGEN_SAFETY_POINTS, WARNING_SIGNS_INTRO, warningSigns, emergencyCallText, flowInWords, flowText, hoursText,
   periodLines, spo2TargetText,
 } from '@shared/family/care-text';
 import { dateInWords } from '@shared/dates/date-words';
@@ -33,10 +33,14 @@ export interface CarePlanData {
 
 const flowLine = (flowLpm: number) => (flowLpm === 0 ? 'off (no oxygen)' : `${flowText(flowLpm)}: ${flowInWords(flowLpm)}`);
 
+/** The last step down: no oxygen at any part of the day. */
+const noOxygen = (d: CarePlanData) => asksForNoOxygen(null, Object.fromEntries(d.setting.periods.map((p) => [p.period, p.flowLpm])));
+
 function settingSection(w: PlanWriter, d: CarePlanData) {
   const s = d.setting;
+  const off = noOxygen(d);
   w.section('Your baby’s oxygen', () => {
-    if (asksForNoOxygen(null, Object.fromEntries(s.periods.map((p) => [p.period, p.flowLpm])))) {
+    if (off) {
       // The last step down: nothing flows, so there is no flowmeter setting and no supply to name.
       w.para('No oxygen, day and night: the flowmeter stays off.', true);
     } else {
@@ -46,7 +50,7 @@ function settingSection(w: PlanWriter, d: CarePlanData) {
     w.para(d.home.measured || d.home.elevationM === null
       ? `Home air pressure (measured): ${Math.round(d.home.pressureMmHg)} mmHg.`
       : `Home: ${Math.round(d.home.elevationM).toLocaleString('en-GB')} m above sea level (air pressure about ${Math.round(d.home.pressureMmHg)} mmHg).`);
-    w.para(spo2TargetText(d.spo2Target));
+    w.para(spo2TargetText(d.spo2Target, !off));
     if (s.approvedBy) w.para(`Approved by ${s.approvedBy}${s.approvedOn ? ` on ${dateInWords(s.approvedOn)}` : ''}.`);
     w.bullets(CARE_PLAN_CAUTIONS);
   });
@@ -89,7 +93,7 @@ export function renderCarePlanPdf(d: CarePlanData): Promise<Buffer> {
   contactsSection(w, d);
   w.section('Get help straight away', () => {
     w.para(WARNING_SIGNS_INTRO);
-    w.bullets(WARNING_SIGNS);
+    w.bullets(warningSigns(!noOxygen(d)));
   }, ALERT);
   w.section('Oxygen safety at home', () => w.bullets(OXYGEN_SAFETY_POINTS));
   if (d.journey) journeySection(w, d.journey);

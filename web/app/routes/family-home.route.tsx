@@ -9,6 +9,8 @@ import { NextVisits } from '../../features/visits/components/next-visits';
 import { FamilyDischarge } from '../../features/discharge/components/family-discharge';
 import { SavedNote } from '../../components/ui/saved-note';
 import { CylinderLinkCard } from '../../features/family/components/cylinder-link-card';
+import { useOurPlan } from '../../features/family/api/get-our-plan';
+import { asksForNoOxygen } from '@shared/equipment/concentrator-fit';
 import { EmergencySection } from '../../features/family/components/emergency-section';
 import { OxygenSafety } from '../../features/family/components/oxygen-safety';
 import { WhoToCall } from '../../features/family/components/who-to-call';
@@ -47,18 +49,21 @@ export function Component() {
   const today = todayIn(useSignedInUser().programmeTimeZone);
   const [sent, setSent] = useState(0);
   const withBaby = (path: string) => (baby ? `${path}?baby=${baby.id}` : path);
+  // The same query as the plan card's; off oxygen there is no cylinder time to work out and no cannula to check.
+  const plan = useOurPlan(baby?.id ?? '').data;
+  const offOxygen = !!plan && asksForNoOxygen(plan.approvedFlowLpm, plan.periods);
   usePageTitle('Our plan', baby?.name);
   return (
     <div className="mx-auto flex max-w-2xl flex-col gap-5 text-lg">
       <FamilyPageHeader title="Our plan" intro="What to do in an emergency, your baby's oxygen today, and your next visits." />
-      <EmergencySection />
+      <EmergencySection onOxygen={!offOxygen} />
       <OurPlan />
       <NextVisits infantId={baby?.id} />
       {baby && <TripSoon infantId={baby.id} today={today} />}
       {baby && <FamilyDischarge infantId={baby.id} today={today} />}
       <div className="flex flex-col gap-3">
         <WhoToCall />
-        {baby && <CylinderLinkCard href={withBaby('/family/cylinder')} />}
+        {baby && !offOxygen && <CylinderLinkCard href={withBaby('/family/cylinder')} />}
         {baby && (
           <FoldedSection title="Trips" large summary="Trips ahead, and asking for a trip check.">
             <PlanningATrip infantId={baby.id} today={today} newTripHref={withBaby('/family/journey')} />

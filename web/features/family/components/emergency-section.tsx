@@ -1,12 +1,15 @@
-import { emergencyCallText, WARNING_SIGNS, WARNING_SIGNS_INTRO } from '@shared/family/care-text';
+import { emergencyCallText, warningSigns, WARNING_SIGNS_INTRO } from '@shared/family/care-text';
 import { useProgrammeContacts } from '../api/get-programme-contacts';
 import { FoldedSection } from '../../../components/ui/folded-section';
 import { PhoneLink } from './phone-link';
 
 const WITHOUT_NUMBER = 'If you are worried your baby is seriously unwell, call your local emergency number straight away, then tell your home oxygen team.';
 
-/** The warning signs and the emergency number, in the same words as the printed care plan. */
-export function EmergencySection() {
+/**
+ * The warning signs and the emergency number, in the same words as the printed care plan. Shown at once, before the
+ * plan has loaded: only a baby known to be off oxygen gets the signs without the cannula and supply check.
+ */
+export function EmergencySection({ onOxygen = true }: { onOxygen?: boolean }) {
   const contacts = useProgrammeContacts();
   const number = contacts.data?.emergencyNumber;
   return (
@@ -24,7 +27,7 @@ export function EmergencySection() {
         summary="Breathing hard or with pauses, a blue or grey colour, floppy or hard to wake.">
         <p className="text-lg leading-relaxed text-ink-900">{WARNING_SIGNS_INTRO}</p>
         <ul aria-label="Warning signs" className="mt-2 flex list-disc flex-col gap-2 pl-6 text-lg leading-relaxed text-ink-900">
-          {WARNING_SIGNS.map((sign) => (
+          {warningSigns(onOxygen).map((sign) => (
             <li key={sign}>{sign}</li>
           ))}
         </ul>

@@ -1,3 +1,4 @@
+import { asksForNoOxygen } from '@shared/equipment/concentrator-fit';
 import { Link } from 'react-router-dom';
 import { infeasibleReason } from '@shared/clinical/conversion-warnings';
 import type { InfantDetail } from '@shared/schemas/infants';
@@ -76,7 +77,8 @@ export function PlanSection({ infant, prescriptions }: PlanSectionProps) {
             {latest.decisionReason ? `: ${latest.decisionReason}` : '.'}
           </Alert>
         )}
-        {setting && (
+        {/* A cylinder's time is a question only while oxygen flows. */}
+        {setting && !asksForNoOxygen(setting.flowLpm, setting.periods ?? null) && (
           <Link to={`/infants/${infant.id}/cylinder`} className="self-start font-semibold text-brand-700 underline">
             How long will a cylinder last?
           </Link>
