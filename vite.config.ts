@@ -80,10 +80,7 @@ export default defineConfig({
     outDir: 'dist/web',
     emptyOutDir: true,
     rolldownOptions: {
-      // Each module's body runs when something that runs imports it, not when its chunk arrives: the shared 'app'
-      // chunk holds every page's schemas and helpers, and evaluating all of them cost a slow phone about 80 ms on
-      // the caseload's first paint (web-vitals bench, 2026-12-03; about 2 KiB more of initial JS).
-      output: { strictExecutionOrder: true, codeSplitting: { groups: [...vendorGroups, ...appGroups] } },
+      output: { codeSplitting: { groups: [...vendorGroups, ...appGroups] } },
     },
   },
 });
