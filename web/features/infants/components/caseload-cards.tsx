@@ -30,13 +30,13 @@ export function CaseloadSortChoice({ query, update }: { query: ListInfantsQuery;
 /**
  * One card per baby on a narrow screen: every column of the table, stacked, so nothing needs a sideways swipe. A
  * phone shows three or four of the page's cards; the browser lays out and paints the others only as they scroll
- * near (`content-visibility: auto`, sized meanwhile as a card usually is, then as it was last drawn).
+ * near (`content-visibility: auto`, sized meanwhile as the demo's cards usually are, 246–343 px, then as last drawn).
  */
 export function CaseloadCards({ items, showNurse, busy }: { items: InfantSummary[]; showNurse: boolean; busy: boolean }) {
   return (
     <ul aria-label="Babies in the caseload" aria-busy={busy || undefined} className={`flex flex-col gap-3 ${busy ? 'opacity-60' : ''}`}>
       {items.map((row) => (
-        <li key={row.id} className="rounded-xl border border-surface-200 bg-surface-0 p-4 shadow-sm [content-visibility:auto] [contain-intrinsic-size:auto_13rem]">
+        <li key={row.id} className="rounded-xl border border-surface-200 bg-surface-0 p-4 shadow-sm [content-visibility:auto] [contain-intrinsic-size:auto_17rem]">
           <div className="flex flex-wrap items-center justify-between gap-2">
             <h2 className="text-lg font-bold">
               <Link to={`/infants/${row.id}`} className="text-brand-700 underline underline-offset-2">{row.name}</Link>
