@@ -30,7 +30,7 @@ export function CaseloadSortChoice({ query, update }: { query: ListInfantsQuery;
 /**
  * One card per baby on a narrow screen: every column of the table, stacked, so nothing needs a sideways swipe. A
  * phone shows three or four of the page's cards; the browser lays out and paints the others only as they scroll
- * near (`content-visibility: auto`, sized meanwhile as the demo's cards usually are, 246–343 px, then as last drawn).
+ * near (`content-visibility: auto`, sized meanwhile as a card usually is, 246–343 px on a 390 px phone, then as last drawn).
  */
 export function CaseloadCards({ items, showNurse, busy }: { items: InfantSummary[]; showNurse: boolean; busy: boolean }) {
   return (
