@@ -19,7 +19,7 @@ export const AUDIT_ACTIONS = [
   'reading.logged', 'reading.family_reported', 'reading.corrected',
   'recording.uploaded', 'recording.analysed', 'recording.reanalysed', 'recording.failed',
   'journey.requested', 'journey.approved', 'journey.declined',
-  'visit.booked', 'visit.moved', 'visit.cancelled',
+  'visit.booked', 'visit.moved', 'visit.cancelled', 'visit.done',
   'equipment_order.drafted', 'equipment_order.sent', 'equipment_order.send_failed', 'equipment_order.confirmed', 'equipment_order.delivered',
   'equipment_order.cancelled',
   'contact.preferences_changed', 'contact.sms_stopped',

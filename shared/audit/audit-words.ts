@@ -120,6 +120,7 @@ const WORDS: Record<AuditAction, Words> = {
   'journey.declined': (d) => `Declined the journey check${tripWords(d)}${because(d.reason)}`,
   'visit.booked': (d) => `Booked a ${str(d.kind) && str(d.kind)! in VISIT_KIND_LABELS ? VISIT_KIND_LABELS[str(d.kind) as keyof typeof VISIT_KIND_LABELS].toLowerCase() : 'visit'} for ${timeWords(d.date, d.time)}`,
   'visit.moved': visitMoved,
+  'visit.done': (d) => `Marked a visit done${str(d.date) ? ` (${timeWords(d.date, d.time)})` : ''}`,
   'visit.cancelled': (d) => `Cancelled a visit${str(d.date) ? ` for ${timeWords(d.date, d.time)}` : ''}${because(d.reason)}`,
   'equipment_order.drafted': (d) => `${d.automatic === true ? 'Nestflow drafted' : 'Drafted'} equipment order ${str(d.reference) ?? ''}${str(d.purpose) === 'collection' ? ' (collection)' : str(d.purpose) === 'change' ? ' (change of equipment)' : ''}${str(d.neededBy) ? `, needed by ${dayWords(d.neededBy)}` : ''}${because(d.reason)}`,
   'equipment_order.sent': (d) => `Sent equipment order ${str(d.reference) ?? ''} to the supplier${str(d.to) ? ` (${str(d.to)})` : ''}`,

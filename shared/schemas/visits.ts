@@ -33,6 +33,11 @@ export const moveVisitSchema = z.strictObject({
 });
 export type MoveVisitInput = z.infer<typeof moveVisitSchema>;
 
+/** A visit that took place as booked (a visit that happened at another time is moved first). */
+export const completeVisitSchema = z.strictObject({
+  rowVersion: z.number({ error: 'Reload the visit and try again' }).int().positive(),
+});
+
 export const cancelVisitSchema = z.strictObject({
   reason: plainText().trim().min(2, { error: 'Say why the visit is cancelled' }).max(300),
 });

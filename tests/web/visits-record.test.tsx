@@ -57,7 +57,7 @@ describe('Infant record: visits', () => {
     expect(booked).toHaveTextContent(/Thu 3 Dec, 10:00/);
     expect(booked).toHaveTextContent('Home visit · Tobias Fenwright · 45 min');
     expect(booked).toHaveTextContent('Spot check and weight');
-    expect(within(card).getByText('Cancelled and past visits (1)')).toBeInTheDocument();
+    expect(within(card).getByText('Cancelled and done visits (1)')).toBeInTheDocument();
     expect(within(card).queryByRole('button', { name: 'Book a visit' })).not.toBeInTheDocument();
     expect(within(card).queryByRole('button', { name: 'Move' })).not.toBeInTheDocument();
   });
@@ -145,5 +145,53 @@ describe('Infant record: visits', () => {
     await user.click(within(card).getByRole('button', { name: 'Cancel the visit' }));
     expect(await screen.findByText('Visit cancelled.')).toBeInTheDocument();
     expect(cancels[0].body).toEqual({ reason: 'Baby admitted' });
+  });
+});
+
+describe('Infant record: marking a visit done', () => {
+  // Fixed dates far from any day the tests run on: one long past, one far ahead.
+  const past = visit({ id: 'f1f1f1f1-0000-4000-8000-000000000051', startsAt: '2025-11-03T10:00:00.000Z', date: '2025-11-03', time: '10:00' });
+  const ahead = visit();
+
+  it('when a booked visit is over, then it is listed apart with "Mark done", which sends its rowVersion; done, it moves to the folded list', async () => {
+    const posts: FakeRequest[] = [];
+    let done = false;
+    stubApi({
+      'GET /api/session': sessionHandler('coordinator'),
+      [`GET /api/infants/${ID}`]: () => json(200, infant),
+      [`GET /api/infants/${ID}/prescriptions`]: () => json(200, { items: [] }),
+      [`GET /api/infants/${ID}/visits`]: () => json(200, { items: [done ? { ...past, status: 'done', rowVersion: 5 } : past, ahead] }),
+      [`POST /api/visits/${past.id}/done`]: (request) => { posts.push(request); done = true; return json(200, { ...past, status: 'done', rowVersion: 5 }); },
+    });
+    const { user } = renderApp(`/infants/${ID}`);
+    const card = await visitsCard();
+    const waiting = await within(card).findByRole('list', { name: 'Past visits not marked done' });
+    expect(within(card).getByRole('heading', { name: 'Past visits not marked done (1)' })).toBeInTheDocument();
+    expect(waiting).toHaveTextContent(/3 Nov, 10:00/);
+    // A visit still days ahead cannot be marked done yet.
+    expect(within(within(card).getByRole('list', { name: 'Booked visits' })).queryByRole('button', { name: 'Mark done' })).not.toBeInTheDocument();
+    await user.click(within(waiting).getByRole('button', { name: 'Mark done' }));
+    expect(await screen.findByText('Visit marked done.')).toBeInTheDocument();
+    expect(posts.map((p) => p.body)).toEqual([{ rowVersion: 4 }]);
+    expect(await within(card).findByText('Cancelled and done visits (1)')).toBeInTheDocument();
+    expect(within(card).queryByRole('list', { name: 'Past visits not marked done' })).not.toBeInTheDocument();
+  });
+
+  it('when the API refuses (changed meanwhile), then its words are shown beside the visit', async () => {
+    stubRecord('nurse', [past], {
+      [`POST /api/visits/${past.id}/done`]: () => apiError(409, 'conflict', 'Someone else changed this visit meanwhile. Reload and try again.'),
+    });
+    const { user } = renderApp(`/infants/${ID}`);
+    const card = await visitsCard();
+    await user.click(await within(card).findByRole('button', { name: 'Mark done' }));
+    expect(await within(card).findByText('Someone else changed this visit meanwhile. Reload and try again.')).toBeInTheDocument();
+  });
+
+  it('when a consultant reads the record, then past visits are listed without "Mark done"', async () => {
+    stubRecord('consultant', [past]);
+    renderApp(`/infants/${ID}`);
+    const card = await visitsCard();
+    expect(await within(card).findByRole('list', { name: 'Past visits not marked done' })).toBeInTheDocument();
+    expect(within(card).queryByRole('button', { name: 'Mark done' })).not.toBeInTheDocument();
   });
 });

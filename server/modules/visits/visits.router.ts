@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { idParamsSchema } from '@shared/schemas/common';
-import { bookVisitSchema, cancelVisitSchema, moveVisitSchema } from '@shared/schemas/visits';
+import { bookVisitSchema, cancelVisitSchema, completeVisitSchema, moveVisitSchema } from '@shared/schemas/visits';
 import { validate } from '../../middleware/validate';
 import { requireUser } from '../../middleware/require-user';
 import { actorOf, assertCanAny, currentUser } from '../../lib/http';
@@ -27,6 +27,10 @@ export function visitsRouters(service: VisitsService) {
   visits.post('/:id/cancel', validate({ params: idParamsSchema, body: cancelVisitSchema }), async (req, res) => {
     assertCanAny(req, 'update', 'Visit');
     res.json(await service.cancel(req.ability, actorOf(req), String(req.params.id), req.body.reason));
+  });
+  visits.post('/:id/done', validate({ params: idParamsSchema, body: completeVisitSchema }), async (req, res) => {
+    assertCanAny(req, 'update', 'Visit');
+    res.json(await service.complete(req.ability, actorOf(req), String(req.params.id), req.body.rowVersion));
   });
   return { infants, visits };
 }

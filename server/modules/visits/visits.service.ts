@@ -40,6 +40,9 @@ const facts = (v: VisitEntity): VisitFacts => ({
   timeZone: v.timeZone, staffId: v.staffId, purpose: v.purpose, rowVersion: v.rowVersion,
 });
 
+/** How long before its booked start a visit may already be marked done. */
+const DONE_EARLY_MS = 3_600_000;
+
 export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobProducer, clock: Clock = systemClock) {
   const planner = createReminderPlanner(repos);
 
@@ -124,6 +127,26 @@ export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobPr
       });
       await jobs.enqueueReminders(saved.reminders);
       return (await toDto([saved.visit]))[0];
+    },
+
+    /**
+     * A booked visit that took place: from an hour before its booked start (a nurse may be early), never for a
+     * visit still to come. Its reminders not yet sent are cancelled; the audit line is the transaction's last write.
+     */
+    async complete(ability: AppAbility, actor: Actor, id: string, rowVersion: number) {
+      const saved = await ds.transaction(async (m) => {
+        const { visit, infant } = await lockVisit(ability, id, m);
+        if (visit.rowVersion !== rowVersion) throw new ConflictError('Someone else changed this visit meanwhile. Reload and try again.');
+        if (visit.startsAt.getTime() - clock.now().getTime() > DONE_EARLY_MS) {
+          throw new ConflictError('This visit is still to come: it can be marked done from an hour before its time. If it took place on another day, move it to then first.');
+        }
+        Object.assign(visit, { status: 'done', rowVersion: visit.rowVersion + 1 });
+        await repos.visits.save(visit, m);
+        await repos.reminders.cancelForVisit(visit.id, m);
+        await repos.audit.append({ programmeId: infant.programmeId, actorId: actor.id, action: 'visit.done', entityType: 'infant', entityId: infant.id, ip: actor.ip, details: { visitId: visit.id, date: visit.localDate, time: visit.localTime, kind: visit.kind } }, m);
+        return visit;
+      });
+      return (await toDto([saved]))[0];
     },
 
     async list(ability: AppAbility, infantId: string) {

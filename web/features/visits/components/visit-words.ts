@@ -30,8 +30,15 @@ export function upcomingVisits(visits: readonly Visit[], now: number): Visit[] {
     .sort((a, b) => Date.parse(a.startsAt) - Date.parse(b.startsAt));
 }
 
-/** Cancelled, done or past: the newest first. */
+/** Booked visits whose time is over but that nobody has marked done (or moved, or cancelled): the oldest first. */
+export function visitsToMarkDone(visits: readonly Visit[], now: number): Visit[] {
+  return visits
+    .filter((visit) => visit.status === 'booked' && endsAt(visit) <= now)
+    .sort((a, b) => Date.parse(a.startsAt) - Date.parse(b.startsAt));
+}
+
+/** Cancelled or done: the newest first. */
 export function earlierVisits(visits: readonly Visit[], now: number): Visit[] {
-  const upcoming = new Set(upcomingVisits(visits, now));
-  return visits.filter((visit) => !upcoming.has(visit)).sort((a, b) => Date.parse(b.startsAt) - Date.parse(a.startsAt));
+  const open = new Set([...upcomingVisits(visits, now), ...visitsToMarkDone(visits, now)]);
+  return visits.filter((visit) => !open.has(visit)).sort((a, b) => Date.parse(b.startsAt) - Date.parse(a.startsAt));
 }

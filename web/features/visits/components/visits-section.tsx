@@ -8,17 +8,21 @@ import { Spinner } from '../../../components/ui/spinner';
 import { useInfantVisits } from '../api/get-visits';
 import { BookVisitForm } from './book-visit-form';
 import { VisitItem } from './visit-item';
-import { earlierVisits, upcomingVisits } from './visit-words';
+import { earlierVisits, upcomingVisits, visitsToMarkDone } from './visit-words';
 
 const listClasses = 'flex flex-col divide-y divide-surface-200 rounded-lg border border-surface-200';
 
-/** Booked visits first; cancelled, done and past ones stay out of the way but a click away. */
+/**
+ * Booked visits first, then past ones nobody has marked done yet; cancelled and done ones stay out of the way but a
+ * click away.
+ */
 export function VisitsSection({ infantId, canManage }: { infantId: string; canManage: boolean }) {
   const visits = useInfantVisits(infantId);
   const [booking, setBooking] = useState(false);
   const now = useNow();
   const items = visits.data?.items ?? [];
   const upcoming = upcomingVisits(items, now);
+  const toMarkDone = visitsToMarkDone(items, now);
   const earlier = earlierVisits(items, now);
   const book = canManage && !booking ? <Button variant="secondary" size="sm" onClick={() => setBooking(true)}>Book a visit</Button> : undefined;
   return (
@@ -33,10 +37,18 @@ export function VisitsSection({ infantId, canManage }: { infantId: string; canMa
             {upcoming.map((visit) => <VisitItem key={visit.id} visit={visit} canManage={canManage} />)}
           </ul>
         )}
+        {toMarkDone.length > 0 && (
+          <section aria-labelledby={`visits-to-mark-done-${infantId}`} className="flex flex-col gap-2">
+            <h3 id={`visits-to-mark-done-${infantId}`} className="font-bold text-ink-900">Past visits not marked done ({toMarkDone.length})</h3>
+            <ul aria-label="Past visits not marked done" className={listClasses}>
+              {toMarkDone.map((visit) => <VisitItem key={visit.id} visit={visit} canManage={canManage} />)}
+            </ul>
+          </section>
+        )}
         {earlier.length > 0 && (
           <details>
-            <summary className="cursor-pointer font-semibold text-brand-700">Cancelled and past visits ({earlier.length})</summary>
-            <ul aria-label="Cancelled and past visits" className={`mt-2 ${listClasses}`}>
+            <summary className="cursor-pointer font-semibold text-brand-700">Cancelled and done visits ({earlier.length})</summary>
+            <ul aria-label="Cancelled and done visits" className={`mt-2 ${listClasses}`}>
               {earlier.map((visit) => <VisitItem key={visit.id} visit={visit} canManage={false} />)}
             </ul>
           </details>
