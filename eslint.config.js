@@ -41,6 +41,18 @@ export default tseslint.config(
     },
   },
   {
+    // Numbers people read go through numberInWords (DEVELOPERS.md, "Numbers"): toLocaleString loads the browser's
+    // number-format data on a page's first paint. The server's printed plan may use either.
+    files: ['{web,shared}/**/*.{ts,tsx}'],
+    ignores: ['shared/format/number-words.ts'],
+    rules: {
+      'no-restricted-syntax': ['error', {
+        selector: "CallExpression[callee.property.name='toLocaleString']",
+        message: 'Write numbers with numberInWords (shared/format/number-words.ts).',
+      }],
+    },
+  },
+  {
     files: ['{web,server,worker,shared,seed,fakes,tests,scripts,bench}/**/*.{ts,tsx}'],
     plugins: { boundaries },
     settings: {
