@@ -33,6 +33,9 @@ export const moveVisitSchema = z.strictObject({
 });
 export type MoveVisitInput = z.infer<typeof moveVisitSchema>;
 
+/** A booked visit may be marked done from an hour before its booked start (a nurse may be early), never sooner. */
+export const mayMarkVisitDone = (startsAt: Date, now: Date): boolean => startsAt.getTime() - now.getTime() <= 3_600_000;
+
 /** A visit that took place as booked (a visit that happened at another time is moved first). */
 export const completeVisitSchema = z.strictObject({
   rowVersion: z.number({ error: 'Reload the visit and try again' }).int().positive(),

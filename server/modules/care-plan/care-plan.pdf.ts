@@ -36,9 +36,8 @@ const flowLine = (flowLpm: number) => (flowLpm === 0 ? 'off (no oxygen)' : `${fl
 /** The last step down: no oxygen at any part of the day. */
 const noOxygen = (d: CarePlanData) => asksForNoOxygen(null, Object.fromEntries(d.setting.periods.map((p) => [p.period, p.flowLpm])));
 
-function settingSection(w: PlanWriter, d: CarePlanData) {
+function settingSection(w: PlanWriter, d: CarePlanData, off: boolean) {
   const s = d.setting;
-  const off = noOxygen(d);
   w.section('Your baby’s oxygen', () => {
     if (off) {
       // The last step down: nothing flows, so there is no flowmeter setting and no supply to name.
@@ -89,11 +88,12 @@ export function renderCarePlanPdf(d: CarePlanData): Promise<Buffer> {
   const { w, finish } = openTaggedDocument({ title: `Home oxygen care plan: ${d.baby.name}`, author: d.programmeName });
   w.title('Home oxygen care plan');
   w.para(`${d.baby.name}, born ${dateInWords(d.baby.birthDate)}. ${d.programmeName}. Printed ${dateInWords(d.printedOn)}: a newer plan replaces this one.`);
-  settingSection(w, d);
+  const off = noOxygen(d);
+  settingSection(w, d, off);
   contactsSection(w, d);
   w.section('Get help straight away', () => {
     w.para(WARNING_SIGNS_INTRO);
-    w.bullets(warningSigns(!noOxygen(d)));
+    w.bullets(warningSigns(!off));
   }, ALERT);
   w.section('Oxygen safety at home', () => w.bullets(OXYGEN_SAFETY_POINTS));
   if (d.journey) journeySection(w, d.journey);

@@ -1,3 +1,4 @@
+import { mayMarkVisitDone } from '@shared/schemas/visits';
 import type { DataSource, EntityManager } from 'typeorm';
 import { subject } from '@casl/ability';
 import type { AppAbility } from '@shared/auth/ability';
@@ -39,9 +40,6 @@ const facts = (v: VisitEntity): VisitFacts => ({
   id: v.id, programmeId: v.programmeId, infantId: v.infantId, kind: v.kind, startsAt: v.startsAt, localDate: v.localDate, localTime: v.localTime,
   timeZone: v.timeZone, staffId: v.staffId, purpose: v.purpose, rowVersion: v.rowVersion,
 });
-
-/** How long before its booked start a visit may already be marked done. */
-const DONE_EARLY_MS = 3_600_000;
 
 export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobProducer, clock: Clock = systemClock) {
   const planner = createReminderPlanner(repos);
@@ -137,7 +135,7 @@ export function createVisitsService(ds: DataSource, repos: AppRepos, jobs: JobPr
       const saved = await ds.transaction(async (m) => {
         const { visit, infant } = await lockVisit(ability, id, m);
         if (visit.rowVersion !== rowVersion) throw new ConflictError('Someone else changed this visit meanwhile. Reload and try again.');
-        if (visit.startsAt.getTime() - clock.now().getTime() > DONE_EARLY_MS) {
+        if (!mayMarkVisitDone(visit.startsAt, clock.now())) {
           throw new ConflictError('This visit is still to come: it can be marked done from an hour before its time. If it took place on another day, move it to then first.');
         }
         Object.assign(visit, { status: 'done', rowVersion: visit.rowVersion + 1 });

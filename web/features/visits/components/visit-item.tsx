@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { VISIT_KIND_LABELS, type Visit } from '@shared/schemas/visits';
+import { mayMarkVisitDone, VISIT_KIND_LABELS, type Visit } from '@shared/schemas/visits';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
@@ -11,15 +11,13 @@ import { MoveVisitForm } from './move-visit-form';
 import { visitLength, visitWhen } from './visit-words';
 
 const STATUS_LABELS: Record<Visit['status'], string> = { booked: 'Booked', cancelled: 'Cancelled', done: 'Done' };
-/** As the API allows: from an hour before the booked start. */
-const DONE_EARLY_MS = 3_600_000;
 
 export function VisitItem({ visit, canManage }: { visit: Visit; canManage: boolean }) {
   const [editing, setEditing] = useState<'move' | 'cancel' | null>(null);
   const open = canManage && visit.status === 'booked';
   const now = useNow();
   const complete = useCompleteVisit(visit);
-  const canComplete = open && Date.parse(visit.startsAt) - now <= DONE_EARLY_MS;
+  const canComplete = open && mayMarkVisitDone(new Date(visit.startsAt), new Date(now));
   return (
     <li className="flex flex-col gap-2 px-3 py-3">
       <div className="flex flex-wrap items-baseline justify-between gap-x-3">

@@ -37,8 +37,7 @@ export function visitsToMarkDone(visits: readonly Visit[], now: number): Visit[]
     .sort((a, b) => Date.parse(a.startsAt) - Date.parse(b.startsAt));
 }
 
-/** Cancelled or done: the newest first. */
-export function earlierVisits(visits: readonly Visit[], now: number): Visit[] {
-  const open = new Set([...upcomingVisits(visits, now), ...visitsToMarkDone(visits, now)]);
-  return visits.filter((visit) => !open.has(visit)).sort((a, b) => Date.parse(b.startsAt) - Date.parse(a.startsAt));
+/** Cancelled or done (every booked visit is upcoming or waiting to be marked done): the newest first. */
+export function earlierVisits(visits: readonly Visit[]): Visit[] {
+  return visits.filter((visit) => visit.status !== 'booked').sort((a, b) => Date.parse(b.startsAt) - Date.parse(a.startsAt));
 }

@@ -23,7 +23,7 @@ export function VisitsSection({ infantId, canManage }: { infantId: string; canMa
   const items = visits.data?.items ?? [];
   const upcoming = upcomingVisits(items, now);
   const toMarkDone = visitsToMarkDone(items, now);
-  const earlier = earlierVisits(items, now);
+  const earlier = earlierVisits(items);
   const book = canManage && !booking ? <Button variant="secondary" size="sm" onClick={() => setBooking(true)}>Book a visit</Button> : undefined;
   return (
     <Card title="Visits" actions={book}>
